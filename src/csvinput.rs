@@ -1,0 +1,169 @@
+//! Reading CSV files whose columns are found by header name, with line and column numbers kept
+//! for every value so that errors can say exactly where a problem is.
+
+use crate::error::{Error, Location, Result};
+use std::path::{Path, PathBuf};
+
+/// A CSV file read into memory: its header and its records with their line numbers.
+#[derive(Debug, Clone)]
+pub struct CsvTable {
+    /// The file as named by the user (or a label such as `<demo>`).
+    pub path: PathBuf,
+    /// Header names, trimmed, lower-cased.
+    pub headers: Vec<String>,
+    /// Records with the line (1-based; the header is line 1) on which each starts.
+    pub records: Vec<(u64, csv::StringRecord)>,
+}
+
+impl CsvTable {
+    /// Read a CSV file from disk.
+    ///
+    /// Errors: the file cannot be read, is not UTF-8 (the line and byte column are named), is
+    /// empty, or is not valid CSV.
+    pub fn read(path: &Path) -> Result<CsvTable> {
+        let bytes = std::fs::read(path).map_err(|source| Error::Io {
+            path: path.to_path_buf(),
+            source,
+        })?;
+        Self::from_bytes(path, &bytes)
+    }
+
+    /// Parse CSV text held in memory; `path` labels it in messages.
+    pub fn from_bytes(path: &Path, bytes: &[u8]) -> Result<CsvTable> {
+        let text = match std::str::from_utf8(bytes) {
+            Ok(t) => t,
+            Err(e) => {
+                let before = &bytes[..e.valid_up_to()];
+                let line = before.iter().filter(|&&b| b == b'\n').count() as u64 + 1;
+                let col = before.iter().rev().take_while(|&&b| b != b'\n').count() + 1;
+                return Err(Error::Input {
+                    location: Location {
+                        file: path.to_path_buf(),
+                        line,
+                        column: Some((col, "byte".into())),
+                    },
+                    message: "the file is not valid UTF-8 text".into(),
+                    hint: "save it as UTF-8 (plain text CSV)".into(),
+                });
+            }
+        };
+        let text = text.strip_prefix('\u{feff}').unwrap_or(text);
+        if text.trim().is_empty() {
+            return Err(Error::Input {
+                location: Location {
+                    file: path.to_path_buf(),
+                    line: 1,
+                    column: None,
+                },
+                message: "the file is empty".into(),
+                hint: "give a header row and at least one data row".into(),
+            });
+        }
+        let mut reader = csv::ReaderBuilder::new()
+            .flexible(true)
+            .trim(csv::Trim::All)
+            .comment(Some(b'#'))
+            .from_reader(text.as_bytes());
+        let headers: Vec<String> = reader
+            .headers()
+            .map_err(|e| csv_error(path, &e))?
+            .iter()
+            .map(|h| h.trim().to_ascii_lowercase())
+            .collect();
+        let mut records = Vec::new();
+        for rec in reader.records() {
+            let rec = rec.map_err(|e| csv_error(path, &e))?;
+            let line = rec.position().map(|p| p.line()).unwrap_or(0);
+            if rec.iter().all(|f| f.is_empty()) {
+                continue;
+            }
+            records.push((line, rec));
+        }
+        Ok(CsvTable {
+            path: path.to_path_buf(),
+            headers,
+            records,
+        })
+    }
+
+    /// Index of a required column.
+    ///
+    /// Errors: the column is absent; the message lists the columns found.
+    pub fn require(&self, name: &str) -> Result<usize> {
+        self.optional(name).ok_or_else(|| Error::Input {
+            location: Location {
+                file: self.path.clone(),
+                line: 1,
+                column: None,
+            },
+            message: format!(
+                "missing column '{name}' (the header has: {})",
+                self.headers.join(", ")
+            ),
+            hint: format!("add a column named '{name}' to the header row"),
+        })
+    }
+
+    /// Index of an optional column.
+    pub fn optional(&self, name: &str) -> Option<usize> {
+        self.headers.iter().position(|h| h == name)
+    }
+
+    /// Location of a field for messages.
+    pub fn location(&self, line: u64, col: Option<usize>) -> Location {
+        Location {
+            file: self.path.clone(),
+            line,
+            column: col.map(|c| (c + 1, self.headers.get(c).cloned().unwrap_or_default())),
+        }
+    }
+
+    /// The text of a field (empty when the row is short).
+    pub fn text<'a>(&self, rec: &'a csv::StringRecord, col: usize) -> &'a str {
+        rec.get(col).unwrap_or("")
+    }
+
+    /// A number in a range, or an error naming line and column.
+    pub fn number_in(
+        &self,
+        line: u64,
+        rec: &csv::StringRecord,
+        col: usize,
+        min: f64,
+        max: f64,
+        unit: &str,
+    ) -> Result<f64> {
+        let text = self.text(rec, col);
+        let name = self.headers.get(col).cloned().unwrap_or_default();
+        let value: f64 = text.parse().map_err(|_| Error::Input {
+            location: self.location(line, Some(col)),
+            message: if text.is_empty() {
+                format!("'{name}' is empty")
+            } else {
+                format!("'{text}' is not a number")
+            },
+            hint: format!("give {name} as a decimal number in {unit}"),
+        })?;
+        if !value.is_finite() || value < min || value > max {
+            return Err(Error::Input {
+                location: self.location(line, Some(col)),
+                message: format!("{name} {text} is outside {min} to {max} {unit}"),
+                hint: format!("check the value; {name} must lie between {min} and {max} {unit}"),
+            });
+        }
+        Ok(value)
+    }
+}
+
+fn csv_error(path: &Path, e: &csv::Error) -> Error {
+    let line = e.position().map(|p| p.line()).unwrap_or(1);
+    Error::Input {
+        location: Location {
+            file: path.to_path_buf(),
+            line,
+            column: None,
+        },
+        message: format!("malformed CSV ({e})"),
+        hint: "check quoting and separators (comma-separated, header row first)".into(),
+    }
+}

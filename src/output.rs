@@ -1,0 +1,270 @@
+//! Rendering of predictions as tables, CSV and JSON (the columns and keys of
+//! `shared/interface.md`), and the solar-observing caution every observer-facing output carries.
+
+use crate::contacts::Contact;
+use crate::timescale::format_utc;
+use crate::transit::{StationPrediction, TransitEvent};
+use serde_json::{json, Value};
+
+/// The caution printed with every output meant for observers.
+pub const SAFETY_CAUTION: &str = "CAUTION: looking at the Sun can blind. Never look at the Sun, \
+even briefly or partly covered, without a certified solar filter on the front of the telescope \
+or eye, or watch its image projected on a screen. Follow local guidance, the rules of your \
+site and the directions of an experienced supervisor.";
+
+/// Output formats.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum Format {
+    /// Aligned text for a terminal.
+    Table,
+    /// Comma-separated values with a header row.
+    Csv,
+    /// JSON.
+    Json,
+}
+
+fn opt_num(v: Option<f64>, decimals: usize) -> String {
+    match v {
+        Some(x) if x.is_finite() => format!("{x:.decimals$}"),
+        _ => String::new(),
+    }
+}
+
+/// JSON for a list of transits (`transits` command).
+pub fn transits_json(events: &[TransitEvent]) -> Value {
+    Value::Array(
+        events
+            .iter()
+            .map(|ev| {
+                let contacts: Vec<Value> = Contact::ALL
+                    .iter()
+                    .filter_map(|&c| {
+                        ev.geocentric_hours[c.index()].map(|h| {
+                            json!({"contact": c.number(), "time_utc": format_utc(ev.label(h), 2)})
+                        })
+                    })
+                    .collect();
+                let duration_h = match (ev.geocentric_hours[0], ev.geocentric_hours[3]) {
+                    (Some(a), Some(b)) => Some(b - a),
+                    _ => None,
+                };
+                json!({
+                    "planet": ev.planet.name(),
+                    "date": ev.date().to_string(),
+                    "greatest_utc": ev.greatest_utc(),
+                    "min_separation_arcsec": round(ev.min_separation_arcsec, 2),
+                    "contacts": contacts,
+                    "duration_h": duration_h.map(|d| round(d, 4)),
+                    "delta_t_s": round(ev.elements.delta_t_s, 2),
+                })
+            })
+            .collect(),
+    )
+}
+
+/// A coordinate printed with at most 6 decimals and no trailing zeros.
+fn trim_number(x: f64) -> String {
+    let s = format!("{x:.6}");
+    let s = s.trim_end_matches('0').trim_end_matches('.');
+    if s == "-0" {
+        "0".into()
+    } else {
+        s.to_string()
+    }
+}
+
+fn round(x: f64, decimals: i32) -> f64 {
+    let p = 10f64.powi(decimals);
+    (x * p).round() / p
+}
+
+/// CSV for a list of transits.
+pub fn transits_csv(events: &[TransitEvent]) -> String {
+    let mut s = String::from(
+        "planet,date,contact_1_utc,contact_2_utc,greatest_utc,contact_3_utc,contact_4_utc,min_separation_arcsec,delta_t_s\n",
+    );
+    for ev in events {
+        let c = |i: usize| {
+            ev.geocentric_hours[i]
+                .map(|h| format_utc(ev.label(h), 2))
+                .unwrap_or_default()
+        };
+        s.push_str(&format!(
+            "{},{},{},{},{},{},{},{:.2},{:.2}\n",
+            ev.planet.name(),
+            ev.date(),
+            c(0),
+            c(1),
+            ev.greatest_utc(),
+            c(2),
+            c(3),
+            ev.min_separation_arcsec,
+            ev.elements.delta_t_s
+        ));
+    }
+    s
+}
+
+/// Table for a list of transits.
+pub fn transits_table(events: &[TransitEvent]) -> String {
+    let mut s = String::new();
+    s.push_str(&format!(
+        "{:<8} {:<10} {:>12} {:>12} {:>12} {:>12} {:>12} {:>10} {:>9}\n",
+        "planet", "date", "I", "II", "greatest", "III", "IV", "least sep", "Delta T"
+    ));
+    s.push_str(&format!(
+        "{:<8} {:<10} {:>12} {:>12} {:>12} {:>12} {:>12} {:>10} {:>9}\n",
+        "", "(UTC)", "", "", "", "", "", "(arcsec)", "(s)"
+    ));
+    for ev in events {
+        let c = |i: usize| {
+            ev.geocentric_hours[i]
+                .map(|h| format_utc(ev.label(h), 0)[11..19].to_string())
+                .unwrap_or_else(|| "-".into())
+        };
+        s.push_str(&format!(
+            "{:<8} {:<10} {:>12} {:>12} {:>12} {:>12} {:>12} {:>10.1} {:>9.1}\n",
+            ev.planet.name(),
+            ev.date(),
+            c(0),
+            c(1),
+            &ev.greatest_utc()[11..19],
+            c(2),
+            c(3),
+            ev.min_separation_arcsec,
+            ev.elements.delta_t_s
+        ));
+    }
+    if events.is_empty() {
+        s.push_str("(no transit in these years)\n");
+    }
+    s.push_str("Geocentric contacts; times are UTC from 1972 and UT1 before.\n");
+    s
+}
+
+/// The columns of `predict` CSV output, in order.
+pub const PREDICT_COLUMNS: [&str; 10] = [
+    "station",
+    "contact",
+    "time_utc",
+    "sun_altitude_deg",
+    "sun_azimuth_deg",
+    "position_angle_deg",
+    "vertex_angle_deg",
+    "sensitivity_s_per_arcsec",
+    "latitude",
+    "longitude",
+];
+
+fn csv_field(text: &str) -> String {
+    if text.contains([',', '"', '\n', '\r']) {
+        format!("\"{}\"", text.replace('"', "\"\""))
+    } else {
+        text.to_string()
+    }
+}
+
+/// CSV for station predictions: one row per station and contact.
+pub fn predictions_csv(event: &TransitEvent, predictions: &[StationPrediction]) -> String {
+    let mut s = PREDICT_COLUMNS.join(",");
+    s.push('\n');
+    for p in predictions {
+        for c in Contact::ALL {
+            let cc = p.contacts[c.index()];
+            s.push_str(&format!(
+                "{},{},{},{},{},{},{},{},{},{}\n",
+                csv_field(&p.station.name),
+                c.number(),
+                cc.map(|x| format_utc(event.label(x.hours), 2))
+                    .unwrap_or_default(),
+                opt_num(cc.map(|x| x.sun_altitude_deg), 3),
+                opt_num(cc.map(|x| x.sun_azimuth_deg), 3),
+                opt_num(cc.map(|x| x.position_angle_deg), 2),
+                opt_num(cc.map(|x| x.vertex_angle_deg), 2),
+                opt_num(cc.map(|x| x.sensitivity_s_per_arcsec), 3),
+                trim_number(p.station.latitude_deg),
+                trim_number(p.station.longitude_deg),
+            ));
+        }
+    }
+    s
+}
+
+/// JSON for station predictions: an array of objects, one per station and contact.
+pub fn predictions_json(event: &TransitEvent, predictions: &[StationPrediction]) -> Value {
+    let mut rows = Vec::new();
+    for p in predictions {
+        for c in Contact::ALL {
+            let cc = p.contacts[c.index()];
+            rows.push(json!({
+                "station": p.station.name,
+                "contact": c.number(),
+                "time_utc": cc.map(|x| format_utc(event.label(x.hours), 2)),
+                "sun_altitude_deg": cc.map(|x| round(x.sun_altitude_deg, 3)),
+                "sun_azimuth_deg": cc.map(|x| round(x.sun_azimuth_deg, 3)),
+                "position_angle_deg": cc.map(|x| round(x.position_angle_deg, 2)),
+                "vertex_angle_deg": cc.map(|x| round(x.vertex_angle_deg, 2)),
+                "sensitivity_s_per_arcsec": cc.map(|x| round(x.sensitivity_s_per_arcsec, 3)),
+                "visible": cc.map(|x| x.sun_altitude_deg > -1.0),
+            }));
+        }
+    }
+    Value::Array(rows)
+}
+
+/// A readable table of station predictions, with the caution.
+pub fn predictions_table(event: &TransitEvent, predictions: &[StationPrediction]) -> String {
+    let mut s = format!(
+        "Transit of {} on {} (greatest transit {}, Delta T {:.1} s)\n\n",
+        event.planet.name(),
+        event.date(),
+        event.greatest_utc(),
+        event.elements.delta_t_s
+    );
+    s.push_str(&format!(
+        "{:<20} {:>3} {:>24} {:>8} {:>8} {:>7} {:>7} {:>9}\n",
+        "station", "", "time (UTC)", "Sun alt", "Sun az", "PA", "vertex", "s/arcsec"
+    ));
+    for p in predictions {
+        for c in Contact::ALL {
+            let name: String = p.station.name.chars().take(20).collect();
+            match p.contacts[c.index()] {
+                Some(x) => {
+                    let below = if x.sun_altitude_deg < -1.0 {
+                        "  Sun below horizon"
+                    } else {
+                        ""
+                    };
+                    s.push_str(&format!(
+                        "{:<20} {:>3} {:>24} {:>8.2} {:>8.2} {:>7.1} {:>7.1} {:>9.2}{}\n",
+                        name,
+                        c.roman(),
+                        format_utc(event.label(x.hours), 2),
+                        x.sun_altitude_deg,
+                        x.sun_azimuth_deg,
+                        x.position_angle_deg,
+                        x.vertex_angle_deg,
+                        x.sensitivity_s_per_arcsec,
+                        below
+                    ));
+                }
+                None => s.push_str(&format!(
+                    "{:<20} {:>3} {:>24}\n",
+                    name,
+                    c.roman(),
+                    "no contact here"
+                )),
+            }
+        }
+    }
+    s.push_str(
+        "\nAltitudes are true (no refraction). PA: position angle of the contact point from\n",
+    );
+    s.push_str(
+        "the north point of the Sun's disc through east; vertex: the same from the zenith point.\n",
+    );
+    s.push_str("s/arcsec: change of the contact time per arcsecond of solar parallax.\n\n");
+    s.push_str(SAFETY_CAUTION);
+    s.push('\n');
+    s
+}
