@@ -76,6 +76,57 @@ impl Contact {
     }
 }
 
+/// Changes to the elements that the reduction fits: the scale of every element length for a
+/// trial parallax, s = sin(pi_0)/sin(pi), and corrections (Earth radii at the nominal scale,
+/// multiplied by s like the elements) to x, y and to the cone radii l1 (exterior) and l2
+/// (interior).
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Perturbation {
+    /// s = sin(pi_0) / sin(pi).
+    pub length_scale: f64,
+    /// Correction to x, Earth radii.
+    pub dx_er: f64,
+    /// Correction to y, Earth radii.
+    pub dy_er: f64,
+    /// Correction to l1 (exterior contacts), Earth radii.
+    pub dl_ext_er: f64,
+    /// Correction to l2 (interior contacts), Earth radii.
+    pub dl_int_er: f64,
+}
+
+impl Perturbation {
+    /// No change: the nominal AU and the elements as computed.
+    pub const NOMINAL: Perturbation = Perturbation {
+        length_scale: 1.0,
+        dx_er: 0.0,
+        dy_er: 0.0,
+        dl_ext_er: 0.0,
+        dl_int_er: 0.0,
+    };
+
+    /// Only a change of scale.
+    pub fn scale(length_scale: f64) -> Perturbation {
+        Perturbation {
+            length_scale,
+            ..Perturbation::NOMINAL
+        }
+    }
+}
+
+/// Partial derivatives of a contact time, hours per unit of each parameter of
+/// [`Perturbation`] (s, dx, dy, dl), at a solved contact.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct ContactPartials {
+    /// d t / d s.
+    pub per_scale_h: f64,
+    /// d t / d(dx), hours per Earth radius.
+    pub per_dx_h: f64,
+    /// d t / d(dy), hours per Earth radius.
+    pub per_dy_h: f64,
+    /// d t / d(dl) of this contact's cone, hours per Earth radius.
+    pub per_dl_h: f64,
+}
+
 /// The quantities of one station that the contact equation needs at one instant.
 #[derive(Clone, Copy, Debug)]
 struct LocalGeometry {
@@ -89,6 +140,7 @@ struct LocalGeometry {
     y: f64,
     l: f64,
     mu: f64,
+    scale: f64,
 }
 
 /// Station coordinates on the fundamental plane (xi, eta, zeta) and their rates per hour.
@@ -121,31 +173,40 @@ fn local_geometry(
     st: Option<&GeocentricStation>,
     contact: Contact,
     hours: f64,
-    length_scale: f64,
+    p: &Perturbation,
 ) -> LocalGeometry {
     let e = el.at_cone(hours, contact.is_exterior());
     let (pos, rate) = station_on_plane(st, e.d, e.mu);
     let (l, tan_f) = (e.l, e.tan_f);
-    let s = length_scale;
+    let s = p.length_scale;
+    let x = e.x.0 + p.dx_er;
+    let y = e.y.0 + p.dy_er;
+    let l0 = l.0
+        + if contact.is_exterior() {
+            p.dl_ext_er
+        } else {
+            p.dl_int_er
+        };
     LocalGeometry {
-        u: s * e.x.0 - pos[0],
-        v: s * e.y.0 - pos[1],
+        u: s * x - pos[0],
+        v: s * y - pos[1],
         u_rate: s * e.x.1 - rate[0],
         v_rate: s * e.y.1 - rate[1],
-        radius: s * l.0 - pos[2] * tan_f,
+        radius: s * l0 - pos[2] * tan_f,
         radius_rate: s * l.1 - rate[2] * tan_f,
-        x: e.x.0,
-        y: e.y.0,
-        l: l.0,
+        x,
+        y,
+        l: l0,
         mu: e.mu.0,
+        scale: s,
     }
 }
 
 /// Solve one contact for a station (or the Earth's centre when `st` is `None`).
 ///
 /// Arguments: `el`, the event's elements; `st`, the station; `contact`; `start_hours`, a first
-/// guess (hours from the elements' epoch); `length_scale`, sin(pi_0)/sin(pi) for a trial
-/// parallax pi (1 for the nominal AU).
+/// guess (hours from the elements' epoch); `p`, the trial parallax and corrections
+/// ([`Perturbation::NOMINAL`] for the prediction).
 /// Returns: hours from the epoch, or `None` when the station sees no such contact (the
 /// planet's path misses the cone) or it falls outside the fitted interval.
 /// Notes: each step solves the quadratic for the time at which the distance from the axis
@@ -156,12 +217,12 @@ pub fn solve_contact_hours(
     st: Option<&GeocentricStation>,
     contact: Contact,
     start_hours: f64,
-    length_scale: f64,
+    p: &Perturbation,
 ) -> Option<f64> {
     let mut t = start_hours;
     let mut grazing_steps = 0;
     for _ in 0..12 {
-        let g = local_geometry(el, st, contact, t, length_scale);
+        let g = local_geometry(el, st, contact, t, p);
         let n2 = g.u_rate * g.u_rate + g.v_rate * g.v_rate;
         if n2 <= 0.0 {
             return None;
@@ -206,9 +267,41 @@ pub fn parallax_sensitivity_s_per_arcsec(
     st: Option<&GeocentricStation>,
     contact: Contact,
     hours: f64,
-    length_scale: f64,
+    p: &Perturbation,
 ) -> f64 {
-    sensitivity_from_geometry(&local_geometry(el, st, contact, hours, length_scale))
+    sensitivity_from_geometry(&local_geometry(el, st, contact, hours, p))
+}
+
+/// Partial derivatives of a solved contact time with respect to the parameters of
+/// [`Perturbation`], by implicit differentiation of the contact condition
+/// F = (s (x + dx) - xi)^2 + (s (y + dy) - eta)^2 - (s (l + dl) - zeta tan f)^2 = 0.
+pub fn contact_partials(
+    el: &Elements,
+    st: Option<&GeocentricStation>,
+    contact: Contact,
+    hours: f64,
+    p: &Perturbation,
+) -> ContactPartials {
+    let g = local_geometry(el, st, contact, hours, p);
+    let df_dt = g.u * g.u_rate + g.v * g.v_rate - g.radius * g.radius_rate;
+    ContactPartials {
+        per_scale_h: -(g.u * g.x + g.v * g.y - g.radius * g.l) / df_dt,
+        per_dx_h: -(g.u * g.scale) / df_dt,
+        per_dy_h: -(g.v * g.scale) / df_dt,
+        per_dl_h: (g.radius * g.scale) / df_dt,
+    }
+}
+
+/// The planet's offset from the Sun's centre as seen from a station, in Earth radii on the
+/// fundamental plane (u, v): multiply by the angular scale for arcseconds.
+pub fn offset_on_plane(
+    el: &Elements,
+    st: Option<&GeocentricStation>,
+    hours: f64,
+    p: &Perturbation,
+) -> (f64, f64) {
+    let g = local_geometry(el, st, Contact::II, hours, p);
+    (g.u, g.v)
 }
 
 fn sensitivity_from_geometry(g: &LocalGeometry) -> f64 {
@@ -245,7 +338,7 @@ pub fn circumstances(
     contact: Contact,
     hours: f64,
 ) -> ContactCircumstances {
-    let g = local_geometry(el, st, contact, hours, 1.0);
+    let g = local_geometry(el, st, contact, hours, &Perturbation::NOMINAL);
     let pa = g.u.atan2(g.v).to_degrees().rem_euclid(360.0);
     let (alt, az, q) = match st {
         Some(s) => sun_alt_az_parallactic_at(el, s, hours, g.mu),

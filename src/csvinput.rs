@@ -48,6 +48,15 @@ impl CsvTable {
             }
         };
         let text = text.strip_prefix('\u{feff}').unwrap_or(text);
+        // Windows line endings: the csv crate counts a CRLF pair as two line breaks in its
+        // positions, so normalise them first (regression test: crlf_line_numbers).
+        let normalised;
+        let text = if text.contains('\r') {
+            normalised = text.replace("\r\n", "\n").replace('\r', "\n");
+            normalised.as_str()
+        } else {
+            text
+        };
         if text.trim().is_empty() {
             return Err(Error::Input {
                 location: Location {
@@ -70,10 +79,32 @@ impl CsvTable {
             .iter()
             .map(|h| h.trim().to_ascii_lowercase())
             .collect();
+        // Line numbers are counted from the records' byte offsets (the csv crate's own line
+        // count skips comment lines).
+        let newline_offsets: Vec<usize> = text
+            .bytes()
+            .enumerate()
+            .filter_map(|(i, b)| (b == b'\n').then_some(i))
+            .collect();
+        let line_of = |byte: u64| {
+            // The reader's position may point at blank or comment lines it skipped first.
+            let mut b = (byte as usize).min(text.len());
+            while b < text.len() {
+                let rest = &text[b..];
+                let end = rest.find('\n').map(|i| i + 1).unwrap_or(rest.len());
+                let t = rest[..end].trim();
+                if t.is_empty() || t.starts_with('#') {
+                    b += end;
+                } else {
+                    break;
+                }
+            }
+            newline_offsets.partition_point(|&nl| nl < b) as u64 + 1
+        };
         let mut records = Vec::new();
         for rec in reader.records() {
             let rec = rec.map_err(|e| csv_error(path, &e))?;
-            let line = rec.position().map(|p| p.line()).unwrap_or(0);
+            let line = rec.position().map(|p| line_of(p.byte())).unwrap_or(0);
             if rec.iter().all(|f| f.is_empty()) {
                 continue;
             }
@@ -165,5 +196,27 @@ fn csv_error(path: &Path, e: &csv::Error) -> Error {
         },
         message: format!("malformed CSV ({e})"),
         hint: "check quoting and separators (comma-separated, header row first)".into(),
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn crlf_line_numbers() {
+        // Regression: with CRLF endings, line numbers came out one too small.
+        let text = b"a,b\r\n1,2\r\n3,4\r\n";
+        let t = CsvTable::from_bytes(Path::new("x.csv"), text).unwrap();
+        let lines: Vec<u64> = t.records.iter().map(|(l, _)| *l).collect();
+        assert_eq!(lines, vec![2, 3]);
+    }
+
+    #[test]
+    fn comments_and_blank_lines_keep_numbering() {
+        let text = b"# note\na,b\n\n1,2\n";
+        let t = CsvTable::from_bytes(Path::new("x.csv"), text).unwrap();
+        assert_eq!(t.headers, vec!["a", "b"]);
+        assert_eq!(t.records[0].0, 4);
     }
 }

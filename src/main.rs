@@ -4,7 +4,8 @@ use clap::{Parser, Subcommand, ValueEnum};
 use std::path::PathBuf;
 use std::process::ExitCode;
 use transit_parallax::output::{self, Format};
-use transit_parallax::{timescale, Error, Planet, TimeModel};
+use transit_parallax::reduction::ReduceOptions;
+use transit_parallax::{report, timescale, Error, Planet, TimeModel};
 
 #[derive(Parser)]
 #[command(
@@ -86,6 +87,35 @@ enum Command {
         #[command(flatten)]
         time: TimeArgs,
     },
+    /// Reduce contact timings to the solar parallax and the astronomical unit.
+    Reduce {
+        /// CSV file with columns station,latitude,longitude,elevation_m,contact,time_utc[,sigma_s].
+        observations: PathBuf,
+        /// venus or mercury (with --date; otherwise the event is inferred from the timings).
+        #[arg(long, requires = "date")]
+        planet: Option<String>,
+        /// A date within one day of greatest transit, YYYY-MM-DD (with --planet).
+        #[arg(long, requires = "planet")]
+        date: Option<String>,
+        /// The a-priori solar parallax in arcsec (default: the IAU 2009 value, 8.794143).
+        #[arg(long = "prior-parallax", value_name = "ARCSEC")]
+        prior_parallax: Option<f64>,
+        /// Stop at the first invalid row (exit status 2, line named) instead of listing it.
+        #[arg(long)]
+        strict: bool,
+        /// Rejection threshold, in robust standard deviations of the normalised residuals.
+        #[arg(
+            long = "outlier-threshold",
+            value_name = "SIGMAS",
+            default_value_t = 5.0
+        )]
+        outlier_threshold: f64,
+        /// Output format.
+        #[arg(long, value_enum, default_value = "table")]
+        format: FormatArg,
+        #[command(flatten)]
+        time: TimeArgs,
+    },
     /// Run the main job on an embedded, invented network of stations.
     Demo,
 }
@@ -144,6 +174,39 @@ fn run(cli: Cli) -> Result<String, Error> {
                 Format::Table => output::predictions_table(&event, &predictions),
                 Format::Csv => output::predictions_csv(&event, &predictions),
                 Format::Json => pretty(&output::predictions_json(&event, &predictions)),
+            })
+        }
+        Command::Reduce {
+            observations,
+            planet,
+            date,
+            prior_parallax,
+            strict,
+            outlier_threshold,
+            format,
+            time,
+        } => {
+            let event = match (planet, date) {
+                (Some(p), Some(d)) => Some((planet_of(&p)?, date_of(&d)?)),
+                _ => None,
+            };
+            if !(2.0..=20.0).contains(&outlier_threshold) {
+                return Err(Error::argument(format!(
+                    "--outlier-threshold {outlier_threshold} is outside 2 to 20 robust standard deviations"
+                )));
+            }
+            let options = ReduceOptions {
+                event,
+                prior_parallax_arcsec: prior_parallax
+                    .unwrap_or_else(transit_parallax::constants::nominal_parallax_arcsec),
+                time_model: time.model()?,
+                outlier_threshold,
+            };
+            let set = transit_parallax::observations::read_observations(&observations, strict)?;
+            let red = transit_parallax::reduction::reduce(set, &options)?;
+            Ok(match format_of(format) {
+                Format::Json => pretty(&report::reduction_json(&red)),
+                _ => report::reduction_table(&red),
             })
         }
         Command::Demo => transit_parallax::demo::run_demo(),

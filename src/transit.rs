@@ -12,7 +12,9 @@
 
 use crate::besselian::{geocentric_separation_rad, Elements};
 use crate::constants::ARCSEC_RAD;
-use crate::contacts::{circumstances, solve_contact_hours, Contact, ContactCircumstances};
+use crate::contacts::{
+    circumstances, solve_contact_hours, Contact, ContactCircumstances, Perturbation,
+};
 use crate::ephemeris::{
     geocentric_state, geometric_elongation_rad, heliocentric_longitude_difference_rad, Planet,
 };
@@ -66,7 +68,8 @@ impl TransitEvent {
         let elements = second;
         let mut geocentric_hours = [None; 4];
         for c in Contact::ALL {
-            geocentric_hours[c.index()] = solve_contact_hours(&elements, None, c, h, 1.0);
+            geocentric_hours[c.index()] =
+                solve_contact_hours(&elements, None, c, h, &Perturbation::NOMINAL);
         }
         geocentric_hours[0]?;
         Some(TransitEvent {
@@ -114,7 +117,9 @@ impl TransitEvent {
         let mut out = [None; 4];
         for c in Contact::ALL {
             let start = self.start_hours(c);
-            if let Some(h) = solve_contact_hours(&self.elements, Some(geo), c, start, 1.0) {
+            if let Some(h) =
+                solve_contact_hours(&self.elements, Some(geo), c, start, &Perturbation::NOMINAL)
+            {
                 out[c.index()] = Some(circumstances(&self.elements, Some(geo), c, h));
             }
         }
@@ -127,21 +132,33 @@ impl TransitEvent {
         self.geocentric_hours[c.index()].unwrap_or(0.0)
     }
 
-    /// Contact times only (hours from the epoch) at a trial length scale s = sin(pi0)/sin(pi),
-    /// for the reduction.
-    pub fn contact_hours_scaled(
+    /// A contact's time (hours from the epoch) for trial parameters, for the reduction.
+    pub fn contact_hours_perturbed(
         &self,
         geo: &GeocentricStation,
         c: Contact,
-        length_scale: f64,
+        p: &Perturbation,
     ) -> Option<f64> {
-        solve_contact_hours(
-            &self.elements,
-            Some(geo),
-            c,
-            self.start_hours(c),
-            length_scale,
-        )
+        solve_contact_hours(&self.elements, Some(geo), c, self.start_hours(c), p)
+    }
+
+    /// A geocentric contact's time (hours from the epoch) for trial parameters.
+    pub fn contact_hours_perturbed_geocentric(&self, c: Contact, p: &Perturbation) -> Option<f64> {
+        solve_contact_hours(&self.elements, None, c, self.start_hours(c), p)
+    }
+
+    /// Earth radii on the fundamental plane per arcsecond of angle on the sky, at greatest
+    /// transit and the nominal AU: a displacement of the planet relative to the Sun by one
+    /// arcsecond moves the axis by this much (1 / (1/|P| - 1/|S|) in Earth radii per radian).
+    pub fn earth_radii_per_arcsec(&self) -> f64 {
+        let p = crate::vector::norm(self.elements.planet_earth_radii(self.hours_of_greatest()));
+        let s = crate::vector::norm(self.elements.sun_earth_radii(self.hours_of_greatest()));
+        ARCSEC_RAD / (1.0 / p - 1.0 / s)
+    }
+
+    /// Hours from the elements' epoch to greatest transit.
+    pub fn hours_of_greatest(&self) -> f64 {
+        self.elements.hours(self.greatest)
     }
 }
 

@@ -164,6 +164,76 @@ def iso(jd_label):
     return "%04d-%02d-%02dT%02d:%02d:%02d.%04dZ" % (y, mo, d, sec // 3600, sec // 60 % 60, sec % 60, frac)
 
 
+class ContactSolver:
+    """Contacts I-IV for observers during one event (see the module docstring for the model)."""
+
+    def __init__(self, eph, planet, jd_guess, delta_t_s):
+        self.ts = load.timescale(delta_t=delta_t_s)
+        self.sun = eph["sun"]
+        self.body = eph[2] if planet == "venus" else eph[1]
+        self.r_p_au = RADIUS_KM[planet] / AU_KM
+        self.jd_guess = jd_guess
+
+    def separation(self, observer, offset_days):
+        # Two-part Julian date keeps sub-microsecond resolution.
+        t = self.ts.tt_jd(self.jd_guess, offset_days)
+        o = observer.at(t)
+        s_app = o.observe(self.sun).apparent()
+        p_app = o.observe(self.body).apparent()
+        sep = s_app.separation_from(p_app).radians
+        return (sep, np.arcsin(R_SUN_AU / s_app.distance().au),
+                np.arcsin(self.r_p_au / p_app.distance().au))
+
+    def contact_fn(self, observer, kind):
+        def f(offset_days):
+            sep, ss, sp = self.separation(observer, offset_days)
+            return sep - (ss + sp if kind == "ext" else ss - sp)
+        return f
+
+    @staticmethod
+    def solve(f, a, b):
+        """Bisection on a bracketing interval to 1e-11 day (under a microsecond)."""
+        fa = f(a)
+        if np.sign(fa) == np.sign(f(b)):
+            return None
+        while b - a > 1e-11:
+            m = 0.5 * (a + b)
+            fm = f(m)
+            if np.sign(fm) == np.sign(fa):
+                a, fa = m, fm
+            else:
+                b = m
+        return 0.5 * (a + b)
+
+    def contacts(self, observer):
+        """Contacts as {n: days from jd_guess (TT)}."""
+        # grid of 2-minute steps over +-9 h around greatest transit
+        grid = np.arange(-9 * 30, 9 * 30 + 1) / 720.0  # days from jd_guess
+        t = self.ts.tt_jd(self.jd_guess, grid)
+        o = observer.at(t)
+        s_app = o.observe(self.sun).apparent()
+        p_app = o.observe(self.body).apparent()
+        sep = s_app.separation_from(p_app).radians
+        ss = np.arcsin(R_SUN_AU / s_app.distance().au)
+        sp = np.arcsin(self.r_p_au / p_app.distance().au)
+        res = {}
+        for kind, (ci, cj) in (("ext", (1, 4)), ("int", (2, 3))):
+            g = sep - (ss + sp if kind == "ext" else ss - sp)
+            idx = np.nonzero(np.sign(g[:-1]) != np.sign(g[1:]))[0]
+            f = self.contact_fn(observer, kind)
+            for k in idx:
+                root = self.solve(f, grid[k], grid[k + 1])
+                which = ci if g[k] > 0 else cj
+                res[which] = root
+        return res
+
+    def sun_altitude_deg(self, observer, offset_days):
+        """True (unrefracted) altitude of the Sun's centre."""
+        t = self.ts.tt_jd(self.jd_guess, offset_days)
+        alt, _, _ = observer.at(t).observe(self.sun).apparent().altaz()
+        return alt.degrees
+
+
 def main():
     out_rows = []
     per_station_s = []
@@ -178,61 +248,8 @@ def main():
         sun = eph["sun"]
         earth = eph[399]
         for label, planet, _, jd_guess, delta_t_s, label_offset_s in events:
-            ts = load.timescale(delta_t=delta_t_s)
-            body = eph[2] if planet == "venus" else eph[1]
-            r_p_au = RADIUS_KM[planet] / AU_KM
-
-            def separation(observer, offset_days):
-                # Two-part Julian date keeps sub-microsecond resolution.
-                t = ts.tt_jd(jd_guess, offset_days)
-                o = observer.at(t)
-                s_app = o.observe(sun).apparent()
-                p_app = o.observe(body).apparent()
-                sep = s_app.separation_from(p_app).radians
-                ds = s_app.distance().au
-                dp = p_app.distance().au
-                return sep, np.arcsin(R_SUN_AU / ds), np.arcsin(r_p_au / dp)
-
-            def contact_fn(observer, kind):
-                def f(offset_days):
-                    sep, ss, sp = separation(observer, offset_days)
-                    return sep - (ss + sp if kind == "ext" else ss - sp)
-                return f
-
-            def solve(f, a, b):
-                """Bisection on a bracketing interval to 1e-11 day (under a microsecond)."""
-                fa = f(a)
-                if np.sign(fa) == np.sign(f(b)):
-                    return None
-                while b - a > 1e-11:
-                    m = 0.5 * (a + b)
-                    fm = f(m)
-                    if np.sign(fm) == np.sign(fa):
-                        a, fa = m, fm
-                    else:
-                        b = m
-                return 0.5 * (a + b)
-
-            def contacts(observer):
-                # grid of 2-minute steps over +-9 h around greatest transit
-                grid = np.arange(-9 * 30, 9 * 30 + 1) / 720.0  # days from jd_guess
-                t = ts.tt_jd(jd_guess, grid)
-                o = observer.at(t)
-                s_app = o.observe(sun).apparent()
-                p_app = o.observe(body).apparent()
-                sep = s_app.separation_from(p_app).radians
-                ss = np.arcsin(R_SUN_AU / s_app.distance().au)
-                sp = np.arcsin(r_p_au / p_app.distance().au)
-                res = {}
-                for kind, (ci, cj) in (("ext", (1, 4)), ("int", (2, 3))):
-                    g = sep - (ss + sp if kind == "ext" else ss - sp)
-                    idx = np.nonzero(np.sign(g[:-1]) != np.sign(g[1:]))[0]
-                    f = contact_fn(observer, kind)
-                    for k in idx:
-                        root = solve(f, grid[k], grid[k + 1])
-                        which = ci if g[k] > 0 else cj
-                        res[which] = root
-                return res
+            solver = ContactSolver(eph, planet, jd_guess, delta_t_s)
+            contacts = solver.contacts
 
             observers = [("geocentre", None, None, None, earth)]
             for name, lat, lon, elev in STATIONS:
@@ -249,7 +266,7 @@ def main():
                                      "" if elev is None else elev, c, iso(jd_label)])
             print(label, "done", file=sys.stderr)
     with open(os.path.join(HERE, "contacts_skyfield.csv"), "w", newline="") as f:
-        w = csv.writer(f)
+        w = csv.writer(f, lineterminator="\n")
         w.writerow(["event", "planet", "delta_t_s", "station", "latitude", "longitude",
                     "elevation_m", "contact", "time_utc"])
         w.writerows(out_rows)

@@ -1,0 +1,271 @@
+//! Diagnosis of rejected timings: which known blunder, if any, explains a timing.
+//!
+//! The blunders seen in pooled public timings and their signatures (common practice, no single
+//! source; see docs/reduction.md): local time left in (O - C near a whole number of hours, or of
+//! half hours), the date off by a day, contacts mislabelled (the timing fits another contact's
+//! prediction at that station), the longitude's sign flipped or latitude and longitude
+//! exchanged (the timing fits the station with its coordinates corrected), and a station clock
+//! off by a constant (all the station's timings share one offset; see
+//! [`crate::reduction`]).
+
+use crate::contacts::{Contact, Perturbation};
+use crate::station::{GeocentricStation, Station};
+use crate::transit::TransitEvent;
+
+/// Predicted contact time (hours from the elements' epoch) for a station and contact under
+/// trial parameters, or `None` when the station sees no such contact.
+fn predicted_hours(
+    event: &TransitEvent,
+    geo: &GeocentricStation,
+    c: Contact,
+    p: &Perturbation,
+) -> Option<f64> {
+    event.contact_hours_perturbed(geo, c, p)
+}
+
+/// Explain one timing that does not fit by a blunder of that timing alone: the date off by a
+/// day, a time zone left in (whole or half hours), or the contact mislabelled.
+///
+/// Arguments: `event`; `station`, `contact` as given; `observed_h`, the timing (hours from the
+/// elements' epoch, TT); `p`, the solution's parameters; `tolerance_s`, how close a corrected
+/// timing must come to its prediction.
+/// Returns: a sentence naming the blunder, or `None`.
+pub fn explain_row(
+    event: &TransitEvent,
+    station: &Station,
+    contact: Contact,
+    observed_h: f64,
+    p: &Perturbation,
+    tolerance_s: f64,
+) -> Option<String> {
+    let geo = station.geocentric();
+    if let Some(c_h) = predicted_hours(event, &geo, contact, p) {
+        let r = (observed_h - c_h) * 3600.0;
+        for days in [-1.0f64, 1.0] {
+            if (r - 86_400.0 * days).abs() < tolerance_s {
+                return Some(format!(
+                    "the timing is {:+.0} s from its prediction, one day within {:.0} s: the date is probably off by one day ({})",
+                    r,
+                    (r - 86_400.0 * days).abs(),
+                    if days > 0.0 { "a day late" } else { "a day early" }
+                ));
+            }
+        }
+        let hours = (r / 3600.0).round();
+        if (1.0..=14.0).contains(&hours.abs()) && (r - 3600.0 * hours).abs() < tolerance_s {
+            return Some(format!(
+                "O - C is {:+.3} h, a whole number of hours: local (zone) time was probably given as UTC; subtract {:+.0} h",
+                r / 3600.0,
+                hours
+            ));
+        }
+        let halves = (r / 1800.0).round();
+        if halves.abs() <= 29.0
+            && (halves as i64) % 2 != 0
+            && (r - 1800.0 * halves).abs() < tolerance_s
+        {
+            return Some(format!(
+                "O - C is {:+.3} h, a whole number of half hours: a half-hour time zone was probably left in; subtract {:+.1} h",
+                r / 3600.0,
+                halves / 2.0
+            ));
+        }
+    }
+    for other in Contact::ALL {
+        if other == contact {
+            continue;
+        }
+        if let Some(o_h) = predicted_hours(event, &geo, other, p) {
+            let r = (observed_h - o_h) * 3600.0;
+            if r.abs() < tolerance_s {
+                let (a, b) = if contact < other {
+                    (contact, other)
+                } else {
+                    (other, contact)
+                };
+                return Some(format!(
+                    "labelled contact {} but fits contact {} at this station (O - C {:+.1} s): contacts {} and {} were probably exchanged",
+                    contact.roman(),
+                    other.roman(),
+                    r,
+                    a.roman(),
+                    b.roman()
+                ));
+            }
+        }
+    }
+    None
+}
+
+/// One timing of a station, for station-level diagnosis.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct StationTiming {
+    /// Which contact.
+    pub contact: Contact,
+    /// Observed, hours from the elements' epoch (TT).
+    pub observed_h: f64,
+    /// Standard uncertainty, seconds.
+    pub sigma_s: f64,
+}
+
+/// Explain a station whose timings do not fit by a blunder common to all of them: the
+/// longitude's sign flipped, latitude and longitude exchanged, or the clock off by a constant.
+/// A hypothesis is acceptable when every corrected residual lies within max(4 scatter sigma,
+/// 20 s) and its chi-square per degree of freedom (normalised by `scatter`) is under 9; they
+/// are ranked by chi-square plus twice the number of fitted constants (Akaike's criterion:
+/// the clock offset is one), and any within 2 of the best is named as an alternative that
+/// these timings cannot rule out.
+pub fn explain_station(
+    event: &TransitEvent,
+    station: &Station,
+    rows: &[StationTiming],
+    p: &Perturbation,
+    scatter: f64,
+    threshold: f64,
+) -> Option<String> {
+    let scatter = scatter.max(1.0);
+    let fits = |st: &Station| -> Option<(f64, Vec<f64>)> {
+        let geo = st.geocentric();
+        let mut chi2 = 0.0;
+        let mut res = Vec::new();
+        for r in rows {
+            let h = predicted_hours(event, &geo, r.contact, p)?;
+            let d = (r.observed_h - h) * 3600.0;
+            if d.abs() > (4.0 * scatter * r.sigma_s).max(20.0) {
+                return None;
+            }
+            chi2 += (d / (r.sigma_s * scatter)).powi(2);
+            res.push(d);
+        }
+        if chi2 / rows.len() as f64 >= 9.0 {
+            return None;
+        }
+        Some((chi2, res))
+    };
+    let mut found: Vec<(f64, String, String)> = Vec::new();
+    let mut consider = |score: f64, text: String, short: String| found.push((score, text, short));
+    if station.longitude_deg.abs() > 0.5 {
+        let flipped = Station {
+            longitude_deg: -station.longitude_deg,
+            ..station.clone()
+        };
+        if let Some((score, _)) = fits(&flipped) {
+            consider(
+                score,
+                format!(
+                    "the station's timings fit its longitude with the sign reversed ({:.4} instead of {:.4}): west was probably entered as east or the reverse",
+                    -station.longitude_deg, station.longitude_deg
+                ),
+                "a longitude with the sign reversed".to_string(),
+            );
+        }
+    }
+    if station.longitude_deg.abs() <= 90.0
+        && (station.latitude_deg - station.longitude_deg).abs() > 0.5
+    {
+        let swapped = Station {
+            latitude_deg: station.longitude_deg,
+            longitude_deg: station.latitude_deg,
+            ..station.clone()
+        };
+        if let Some((score, _)) = fits(&swapped) {
+            consider(
+                score,
+                format!(
+                    "the station's timings fit latitude and longitude exchanged (latitude {:.4}, longitude {:.4})",
+                    station.longitude_deg, station.latitude_deg
+                ),
+                "latitude and longitude exchanged".to_string(),
+            );
+        }
+    }
+    if rows.len() >= 2 {
+        let geo = station.geocentric();
+        let res: Option<Vec<f64>> = rows
+            .iter()
+            .map(|r| {
+                predicted_hours(event, &geo, r.contact, p).map(|h| (r.observed_h - h) * 3600.0)
+            })
+            .collect();
+        if let Some(res) = res {
+            let sig: Vec<f64> = rows.iter().map(|r| r.sigma_s).collect();
+            if let Some(offset) = clock_offset_s(&res, &sig, scatter, threshold) {
+                let chi2: f64 = res
+                    .iter()
+                    .zip(&sig)
+                    .map(|(r, s)| ((r - offset) / (s * scatter)).powi(2))
+                    .sum();
+                if chi2 / ((rows.len() - 1) as f64) < 9.0 {
+                    consider(
+                        chi2 + 2.0,
+                        format!(
+                            "all {} timings of station '{}' are off by about {offset:+.1} s: its clock was probably wrong by that much",
+                            rows.len(),
+                            station.name
+                        ),
+                        format!("a clock off by {offset:+.1} s"),
+                    );
+                }
+            }
+        }
+    }
+    found.sort_by(|a, b| a.0.total_cmp(&b.0));
+    let (best_score, best_text, _) = found.first()?.clone();
+    let alternatives: Vec<&str> = found[1..]
+        .iter()
+        .filter(|(score, _, _)| score - best_score < 2.0)
+        .map(|(_, _, short)| short.as_str())
+        .collect();
+    if alternatives.is_empty() {
+        Some(best_text)
+    } else {
+        Some(format!(
+            "{best_text}; {} would explain them about as well, and these timings cannot tell which",
+            alternatives.join(" or ")
+        ))
+    }
+}
+
+/// The signature of a station clock error: every timing of the station off by nearly the same
+/// amount, well beyond its uncertainty.
+///
+/// Arguments: the station's residuals O - C (s) and their sigmas (s); `scatter`, the robust
+/// scale of normalised residuals; `threshold`, how many standard errors make it significant.
+/// Returns: the common offset in seconds, if the signature is there.
+pub fn clock_offset_s(
+    residuals_s: &[f64],
+    sigmas_s: &[f64],
+    scatter: f64,
+    threshold: f64,
+) -> Option<f64> {
+    let n = residuals_s.len();
+    if n < 2 {
+        return None;
+    }
+    let w: Vec<f64> = sigmas_s.iter().map(|s| 1.0 / (s * s)).collect();
+    let wsum: f64 = w.iter().sum();
+    let mean = residuals_s.iter().zip(&w).map(|(r, w)| r * w).sum::<f64>() / wsum;
+    let se = scatter.max(1.0) / wsum.sqrt();
+    let sigma_max = sigmas_s.iter().cloned().fold(0.0, f64::max) * scatter.max(1.0);
+    let consistent = residuals_s
+        .iter()
+        .all(|r| (r - mean).abs() <= (3.0 * sigma_max).max(0.2 * mean.abs()));
+    if mean.abs() > threshold * se && mean.abs() > 30.0 && consistent {
+        Some(mean)
+    } else {
+        None
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn clock_signature() {
+        assert!(clock_offset_s(&[75.0, 78.0, 73.0], &[5.0, 5.0, 5.0], 1.0, 5.0).is_some());
+        assert!(clock_offset_s(&[75.0, -78.0, 73.0], &[5.0, 5.0, 5.0], 1.0, 5.0).is_none());
+        assert!(clock_offset_s(&[4.0, 6.0, 5.0], &[5.0, 5.0, 5.0], 1.0, 5.0).is_none());
+        assert!(clock_offset_s(&[80.0], &[5.0], 1.0, 5.0).is_none());
+    }
+}

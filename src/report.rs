@@ -1,0 +1,235 @@
+//! Rendering a reduction: the JSON object of the stable interface and a readable terminal
+//! report (solution, parameters, correlations, stations ranked by contribution, rejected rows).
+
+use crate::output::SAFETY_CAUTION;
+use crate::reduction::{Reduction, PARAMETER_NAMES};
+use serde_json::{json, Value};
+
+fn r(x: f64, decimals: i32) -> f64 {
+    let p = 10f64.powi(decimals);
+    (x * p).round() / p
+}
+
+fn opt(x: Option<f64>, decimals: i32) -> Value {
+    match x {
+        Some(v) if v.is_finite() => json!(r(v, decimals)),
+        _ => Value::Null,
+    }
+}
+
+/// The JSON object of `reduce --format json` (keys of shared/interface.md, and more).
+pub fn reduction_json(red: &Reduction) -> Value {
+    let stations: Vec<Value> = red
+        .stations
+        .iter()
+        .map(|s| {
+            json!({
+                "station": s.station,
+                "latitude": s.latitude,
+                "longitude": s.longitude,
+                "timings": s.timings,
+                "information_share": r(s.information_share, 6),
+                "influence_arcsec": opt(s.influence_arcsec, 6),
+                "residuals_s": s.residuals_s.iter().map(|x| r(*x, 2)).collect::<Vec<f64>>(),
+                "contacts": s.contacts,
+                "mean_normalised_residual": r(s.mean_normalised_residual, 3),
+                "chord": s.chord.as_ref().map(|c| json!({
+                    "pair": c.pair,
+                    "observed_arcsec": r(c.observed_arcsec, 3),
+                    "predicted_arcsec": r(c.predicted_arcsec, 3),
+                    "duration_o_c_s": r(c.duration_o_c_s, 2),
+                    "parallax_displacement_arcsec": r(c.parallax_displacement_arcsec, 3),
+                })),
+            })
+        })
+        .collect();
+    let rejected: Vec<Value> = red
+        .rejected
+        .iter()
+        .map(|x| {
+            json!({
+                "line": x.line,
+                "station": x.station,
+                "contact": x.contact,
+                "reason": x.reason.as_str(),
+                "diagnosis": x.diagnosis,
+            })
+        })
+        .collect();
+    let parameters: Vec<Value> = red
+        .parameters
+        .iter()
+        .map(|p| {
+            json!({
+                "name": p.name,
+                "value": r(p.value, 6),
+                "sigma": opt(p.sigma, 6),
+                "unit": p.unit,
+                "fixed": p.fixed,
+            })
+        })
+        .collect();
+    let st = &red.statistics;
+    json!({
+        "planet": red.event.planet.name(),
+        "transit_date": red.event.date().to_string(),
+        "greatest_utc": red.event.greatest_utc(),
+        "prior_parallax_arcsec": r(red.prior_parallax_arcsec, 6),
+        "parallax_arcsec": opt(red.parallax_arcsec, 6),
+        "parallax_sigma_arcsec": opt(red.parallax_sigma_arcsec, 6),
+        "parallax_interval_95_arcsec": red.parallax_interval_95.map(|(a, b)| vec![r(a, 6), r(b, 6)]),
+        "au_km": opt(red.au_km, 0),
+        "au_sigma_km": opt(red.au_sigma_km, 0),
+        "au_interval_95_km": red.au_interval_95_km.map(|(a, b)| vec![r(a, 0), r(b, 0)]),
+        "timings_total": red.timings_total,
+        "timings_used": red.timings_used,
+        "rejected": rejected,
+        "stations": stations,
+        "parameters": parameters,
+        "correlation": red.correlation.iter().map(|row| row.iter().map(|x| r(*x, 4)).collect::<Vec<f64>>()).collect::<Vec<_>>(),
+        "chi2": r(st.chi2, 3),
+        "dof": st.dof,
+        "p_value": opt(st.p_value, 4),
+        "birge_ratio": opt(st.birge_ratio, 4),
+        "sigma_scale": r(st.sigma_scale, 4),
+        "robust_scatter": r(red.robust_scatter, 4),
+        "iterations": red.iterations,
+        "warnings": red.warnings,
+        "delta_t_s": r(red.event.elements.delta_t_s, 3),
+    })
+}
+
+/// A readable report for the terminal.
+pub fn reduction_table(red: &Reduction) -> String {
+    let mut s = String::new();
+    s.push_str(&format!(
+        "Reduction of {} timings of the transit of {} on {} (greatest transit {})\n\n",
+        red.timings_total,
+        red.event.planet.name(),
+        red.event.date(),
+        red.event.greatest_utc()
+    ));
+    match (
+        red.parallax_arcsec,
+        red.parallax_sigma_arcsec,
+        red.au_km,
+        red.au_sigma_km,
+    ) {
+        (Some(p), Some(ps), Some(au), Some(aus)) => {
+            let (lo, hi) = red.parallax_interval_95.unwrap_or((p, p));
+            let (alo, ahi) = red.au_interval_95_km.unwrap_or((au, au));
+            s.push_str(&format!(
+                "  solar parallax      {p:.4}\" +- {ps:.4}\"   (95 %: {lo:.4}\" to {hi:.4}\")\n"
+            ));
+            s.push_str(&format!("  astronomical unit   {au:.0} km +- {aus:.0} km   (95 %: {alo:.0} to {ahi:.0} km)\n"));
+        }
+        _ => {
+            s.push_str("  solar parallax      not determined by these timings (see the warnings)\n")
+        }
+    }
+    let st = &red.statistics;
+    s.push_str(&format!(
+        "  timings used        {} of {} ({} not used)\n",
+        red.timings_used,
+        red.timings_total,
+        red.rejected.len()
+    ));
+    s.push_str(&format!(
+        "  chi-square          {:.1} for {} degrees of freedom{}{}\n",
+        st.chi2,
+        st.dof,
+        st.p_value
+            .map(|p| format!(", p = {p:.3}"))
+            .unwrap_or_default(),
+        st.birge_ratio
+            .map(|b| format!(", Birge ratio {b:.2}"))
+            .unwrap_or_default()
+    ));
+    s.push_str(&format!("  {}\n", chi2_sentence(red)));
+    for w in &red.warnings {
+        s.push_str(&format!("  warning: {w}\n"));
+    }
+    s.push_str("\nParameters (arcsec)\n");
+    for p in &red.parameters {
+        match p.sigma {
+            Some(sig) => s.push_str(&format!(
+                "  {:<30} {:>12.5} +- {:.5}\n",
+                p.name, p.value, sig
+            )),
+            None => s.push_str(&format!(
+                "  {:<30} {:>12.5}    (held fixed)\n",
+                p.name, p.value
+            )),
+        }
+    }
+    s.push_str("\nCorrelations\n  ");
+    for (i, _) in PARAMETER_NAMES.iter().enumerate() {
+        s.push_str(&format!("{:>8}", format!("p{}", i + 1)));
+    }
+    s.push('\n');
+    for (i, row) in red.correlation.iter().enumerate() {
+        s.push_str(&format!("  p{} ", i + 1));
+        for x in row {
+            s.push_str(&format!("{x:>8.3}"));
+        }
+        s.push('\n');
+    }
+    s.push_str("  (p1..p5 in the order of the parameters above)\n");
+    s.push_str("\nStations by share of the information on the parallax\n");
+    s.push_str(&format!(
+        "  {:<24} {:>4} {:>8} {:>12} {:>10}  {}\n",
+        "station", "n", "share", "influence\"", "mean z", "O-C (s) by contact"
+    ));
+    for st in &red.stations {
+        let name: String = st.station.chars().take(24).collect();
+        let oc: Vec<String> = st
+            .contacts
+            .iter()
+            .zip(&st.residuals_s)
+            .map(|(c, r)| format!("{}:{:+.1}", c, r))
+            .collect();
+        s.push_str(&format!(
+            "  {:<24} {:>4} {:>8.4} {:>12} {:>10.2}  {}\n",
+            name,
+            st.timings,
+            st.information_share,
+            st.influence_arcsec
+                .map(|x| format!("{x:+.5}"))
+                .unwrap_or_else(|| "-".into()),
+            st.mean_normalised_residual,
+            oc.join(" ")
+        ));
+    }
+    if !red.rejected.is_empty() {
+        s.push_str("\nRows not used\n");
+        for x in &red.rejected {
+            s.push_str(&format!(
+                "  line {:>5}  {:<20} contact {:<2} {:<11} {}\n",
+                x.line,
+                x.station.chars().take(20).collect::<String>(),
+                x.contact
+                    .map(|c| c.to_string())
+                    .unwrap_or_else(|| "-".into()),
+                x.reason.as_str(),
+                x.diagnosis.clone().unwrap_or_default()
+            ));
+        }
+    }
+    s.push('\n');
+    s.push_str(SAFETY_CAUTION);
+    s.push('\n');
+    s
+}
+
+/// One sentence on what the chi-square says.
+pub fn chi2_sentence(red: &Reduction) -> String {
+    let st = &red.statistics;
+    match (st.birge_ratio, st.p_value) {
+        (Some(b), Some(p)) if p < 0.05 && b > 1.0 => format!(
+            "The timings scatter more than their stated uncertainties allow (by a factor {b:.2}); the uncertainties above are scaled up to match."
+        ),
+        (Some(b), Some(_)) if b < 0.5 => "The timings agree better than their stated uncertainties suggest; those uncertainties may be too cautious.".to_string(),
+        (Some(_), Some(_)) => "The scatter of the timings about the solution agrees with their stated uncertainties.".to_string(),
+        _ => "With no degrees of freedom the fit cannot check the stated uncertainties.".to_string(),
+    }
+}

@@ -1,0 +1,213 @@
+//! Simulated campaigns: timings made from the prediction model with realistic errors, for
+//! demonstrations, for testing the reduction's statistics and for forecasting a campaign.
+//!
+//! The truth is the model at the nominal astronomical unit (IAU 2012 B2). Each station times
+//! every contact it sees with the Sun above a minimum altitude, unless clouds take the whole
+//! station (`weather_loss`); timing errors are Gaussian with the given standard deviation per
+//! contact, plus a black-drop bias (interior contacts: II seen late, III early); a fraction of
+//! timings carry a blunder and a fraction of stations a clock error.
+
+use crate::contacts::Contact;
+use crate::observations::{Observation, ObservationSet};
+use crate::station::Station;
+use crate::transit::TransitEvent;
+use rand::Rng;
+use rand_distr::{Distribution, Normal};
+
+/// Settings of a simulated campaign.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct SimulationSettings {
+    /// Standard deviation of the timing errors, seconds, for contacts I-IV.
+    pub sigma_s: [f64; 4],
+    /// Black-drop bias, seconds: added to II, subtracted from III.
+    pub black_drop_bias_s: f64,
+    /// Least altitude of the Sun for a contact to be timed, degrees.
+    pub min_altitude_deg: f64,
+    /// Probability that a station is clouded out.
+    pub weather_loss: f64,
+    /// Probability that a timing carries a blunder.
+    pub blunder_rate: f64,
+    /// Probability that a station's clock is wrong.
+    pub clock_error_rate: f64,
+    /// Size of a clock error, seconds (its sign is random).
+    pub clock_error_s: f64,
+}
+
+impl Default for SimulationSettings {
+    fn default() -> Self {
+        SimulationSettings {
+            sigma_s: [20.0, 10.0, 10.0, 20.0],
+            black_drop_bias_s: 0.0,
+            min_altitude_deg: 5.0,
+            weather_loss: 0.0,
+            blunder_rate: 0.0,
+            clock_error_rate: 0.0,
+            clock_error_s: 60.0,
+        }
+    }
+}
+
+/// The kind of blunder injected into a simulated timing.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum InjectedBlunder {
+    /// A whole number of hours added (zone time left in).
+    ZoneHours(i32),
+    /// The date off by one day.
+    Day,
+    /// The contact labelled as its neighbour (I<->II, III<->IV).
+    Mislabelled,
+    /// The station's clock off by a constant.
+    Clock,
+}
+
+/// A simulated campaign: the timings as a reduction would read them, and what was injected.
+#[derive(Clone, Debug)]
+pub struct SimulatedCampaign {
+    /// The timings (line numbers count from 2, as in a file with a header).
+    pub observations: ObservationSet,
+    /// Blunders injected, by index into `observations.valid`.
+    pub blunders: Vec<(usize, InjectedBlunder)>,
+}
+
+/// Simulate one campaign.
+///
+/// Arguments: `event`; `stations`; `settings`; `rng`, a seeded generator for reproducibility.
+pub fn simulate_campaign<R: Rng + ?Sized>(
+    event: &TransitEvent,
+    stations: &[Station],
+    settings: &SimulationSettings,
+    rng: &mut R,
+) -> SimulatedCampaign {
+    let mut valid = Vec::new();
+    let mut blunders = Vec::new();
+    let model = *event.time_model();
+    for st in stations {
+        if rng.gen::<f64>() < settings.weather_loss {
+            continue;
+        }
+        let clock = if rng.gen::<f64>() < settings.clock_error_rate {
+            let sign = if rng.gen::<bool>() { 1.0 } else { -1.0 };
+            Some(sign * settings.clock_error_s)
+        } else {
+            None
+        };
+        let prediction = event.predict(st);
+        for c in Contact::ALL {
+            let Some(cc) = prediction.contacts[c.index()] else {
+                continue;
+            };
+            if cc.sun_altitude_deg < settings.min_altitude_deg {
+                continue;
+            }
+            let sigma = settings.sigma_s[c.index()];
+            let noise = Normal::new(0.0, sigma)
+                .map(|n| n.sample(rng))
+                .unwrap_or(0.0);
+            let bias = match c {
+                Contact::II => settings.black_drop_bias_s,
+                Contact::III => -settings.black_drop_bias_s,
+                _ => 0.0,
+            };
+            let mut error_s = noise + bias + clock.unwrap_or(0.0);
+            let mut label = c;
+            let mut injected = clock.map(|_| InjectedBlunder::Clock);
+            if rng.gen::<f64>() < settings.blunder_rate {
+                let kind = rng.gen_range(0..3);
+                injected = Some(match kind {
+                    0 => {
+                        let h = rng.gen_range(1..=10) * if rng.gen::<bool>() { 1 } else { -1 };
+                        error_s += f64::from(h) * 3600.0;
+                        InjectedBlunder::ZoneHours(h)
+                    }
+                    1 => {
+                        error_s += 86_400.0;
+                        InjectedBlunder::Day
+                    }
+                    _ => {
+                        label = match c {
+                            Contact::I => Contact::II,
+                            Contact::II => Contact::I,
+                            Contact::III => Contact::IV,
+                            Contact::IV => Contact::III,
+                        };
+                        InjectedBlunder::Mislabelled
+                    }
+                });
+            }
+            let tt = event.elements.instant(cc.hours).add_seconds(error_s);
+            let index = valid.len();
+            if let Some(b) = injected {
+                blunders.push((index, b));
+            }
+            valid.push(Observation {
+                line: index as u64 + 2,
+                station: st.clone(),
+                contact: label,
+                time_label: model.label_from_tt(tt),
+                sigma_s: sigma,
+                sigma_given: true,
+            });
+        }
+    }
+    // A mislabelled timing may collide with the true timing of the contact it was labelled as:
+    // keep the campaign readable as a file would be (one row per station and contact).
+    let mut seen = std::collections::HashSet::new();
+    let mut keep = Vec::new();
+    let mut kept_blunders = Vec::new();
+    for (i, o) in valid.into_iter().enumerate() {
+        if seen.insert((o.station.name.clone(), o.contact)) {
+            if let Some(&(_, b)) = blunders.iter().find(|(j, _)| *j == i) {
+                kept_blunders.push((keep.len(), b));
+            }
+            keep.push(o);
+        }
+    }
+    for (k, o) in keep.iter_mut().enumerate() {
+        o.line = k as u64 + 2;
+    }
+    SimulatedCampaign {
+        observations: ObservationSet {
+            path: "<simulated>".into(),
+            rows_total: keep.len(),
+            valid: keep,
+            rejected: Vec::new(),
+        },
+        blunders: kept_blunders,
+    }
+}
+
+/// Stations spread evenly over the globe (a Fibonacci lattice), named `prefix-NNN`, at sea
+/// level; used for maps and simulations.
+pub fn global_stations(n: usize, prefix: &str) -> Vec<Station> {
+    (0..n)
+        .map(|i| {
+            let f = (i as f64 + 0.5) / n as f64;
+            let lat = (1.0 - 2.0 * f).asin().to_degrees();
+            let lon = (i as f64 * 137.507_764_050_037_85).rem_euclid(360.0) - 180.0;
+            Station {
+                name: format!("{prefix}-{:03}", i + 1),
+                latitude_deg: lat,
+                longitude_deg: lon,
+                elevation_m: 0.0,
+            }
+        })
+        .collect()
+}
+
+/// Write a campaign as an observations CSV (the columns `reduce` reads).
+pub fn campaign_csv(set: &ObservationSet) -> String {
+    let mut s = String::from("station,latitude,longitude,elevation_m,contact,time_utc,sigma_s\n");
+    for o in &set.valid {
+        s.push_str(&format!(
+            "{},{:.4},{:.4},{:.0},{},{},{}\n",
+            o.station.name,
+            o.station.latitude_deg,
+            o.station.longitude_deg,
+            o.station.elevation_m,
+            o.contact.number(),
+            crate::timescale::format_utc(o.time_label, 1),
+            o.sigma_s
+        ));
+    }
+    s
+}
