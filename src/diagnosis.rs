@@ -54,9 +54,10 @@ pub fn explain_row(
         let hours = (r / 3600.0).round();
         if (1.0..=14.0).contains(&hours.abs()) && (r - 3600.0 * hours).abs() < tolerance_s {
             return Some(format!(
-                "O - C is {:+.3} h, a whole number of hours: local (zone) time was probably given as UTC; subtract {:+.0} h",
+                "O - C is {:+.3} h, a whole number of hours: local (zone) time was probably given as UTC; {} {:.0} h to correct it",
                 r / 3600.0,
-                hours
+                if hours > 0.0 { "subtract" } else { "add" },
+                hours.abs()
             ));
         }
         let halves = (r / 1800.0).round();
@@ -65,9 +66,10 @@ pub fn explain_row(
             && (r - 1800.0 * halves).abs() < tolerance_s
         {
             return Some(format!(
-                "O - C is {:+.3} h, a whole number of half hours: a half-hour time zone was probably left in; subtract {:+.1} h",
+                "O - C is {:+.3} h, a whole number of half hours: a half-hour time zone was probably left in; {} {:.1} h to correct it",
                 r / 3600.0,
-                halves / 2.0
+                if halves > 0.0 { "subtract" } else { "add" },
+                (halves / 2.0).abs()
             ));
         }
     }

@@ -966,7 +966,7 @@ fn contributions(
             let d = DVector::from_fn(m, |a, _| nk[(a, a)].max(0.0).sqrt());
             let cond_ok = d.iter().all(|&x| x > 0.0) && {
                 let corr = DMatrix::from_fn(m, m, |a, b| nk[(a, b)] / (d[a] * d[b]));
-                corr.symmetric_eigenvalues().min() > 1e-12
+                corr.symmetric_eigenvalues().min() > crate::solver::RANK_TOLERANCE.powi(2)
             };
             if cond_ok && n - rows.len() > m {
                 nk.cholesky().map(|ch| -ch.solve(&g)[pi_col])

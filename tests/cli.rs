@@ -389,3 +389,143 @@ fn delta_t_override_moves_pre_1972_contacts() {
     let diff = (t(&ja) - t(&jb)).num_milliseconds();
     assert!((diff - 10_000).abs() <= 20, "{diff}");
 }
+
+fn campaign(name: &str) -> String {
+    format!(
+        "{}/tests/reference/campaigns/{name}.csv",
+        env!("CARGO_MANIFEST_DIR")
+    )
+}
+
+#[test]
+fn reduce_json_has_the_interface_keys() {
+    let o = run(&[
+        "reduce",
+        &campaign("venus-2012-blunders"),
+        "--format",
+        "json",
+    ]);
+    assert!(o.status.success(), "{}", stderr(&o));
+    let v: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    for key in [
+        "planet",
+        "transit_date",
+        "prior_parallax_arcsec",
+        "parallax_arcsec",
+        "parallax_sigma_arcsec",
+        "au_km",
+        "au_sigma_km",
+        "timings_total",
+        "timings_used",
+        "rejected",
+        "stations",
+        "parameters",
+        "chi2",
+        "dof",
+    ] {
+        assert!(v.get(key).is_some(), "missing {key}");
+    }
+    assert_eq!(v["planet"], "venus");
+    assert_eq!(v["transit_date"], "2012-06-06");
+    let rejected = v["rejected"].as_array().unwrap();
+    assert!(!rejected.is_empty());
+    for r in rejected {
+        for key in ["line", "station", "contact", "reason", "diagnosis"] {
+            assert!(r.get(key).is_some(), "rejected row lacks {key}");
+        }
+        let reason = r["reason"].as_str().unwrap();
+        assert!(["invalid", "duplicate", "outlier", "not-visible"].contains(&reason));
+    }
+    let stations = v["stations"].as_array().unwrap();
+    let share: f64 = stations
+        .iter()
+        .map(|s| s["information_share"].as_f64().unwrap())
+        .sum();
+    assert!((share - 1.0).abs() < 1e-4);
+    for key in [
+        "station",
+        "timings",
+        "information_share",
+        "influence_arcsec",
+        "residuals_s",
+    ] {
+        assert!(stations[0].get(key).is_some(), "station lacks {key}");
+    }
+    for p in v["parameters"].as_array().unwrap() {
+        for key in ["name", "value", "sigma", "unit"] {
+            assert!(p.get(key).is_some());
+        }
+    }
+    let used = v["timings_used"].as_u64().unwrap();
+    let total = v["timings_total"].as_u64().unwrap();
+    assert_eq!(
+        used + rejected.len() as u64,
+        total,
+        "every row is accounted for"
+    );
+}
+
+#[test]
+fn reduce_table_lists_rejections_and_the_caution() {
+    let o = run(&[
+        "reduce",
+        &campaign("mercury-2016-blunders"),
+        "--planet",
+        "mercury",
+        "--date",
+        "2016-05-09",
+    ]);
+    assert!(o.status.success(), "{}", stderr(&o));
+    let text = stdout(&o);
+    assert!(text.contains("solar parallax"));
+    assert!(text.contains("Rows not used"));
+    assert!(text.contains("sign reversed"));
+    assert!(text.contains("certified solar filter"));
+}
+
+#[test]
+fn reduce_strict_stops_at_the_first_invalid_row() {
+    let f = TempFile::new(
+        "strict.csv",
+        b"station,latitude,longitude,elevation_m,contact,time_utc\na,10,20,0,2,2012-06-05T22:30:00Z\nb,10,20,0,7,2012-06-05T22:30:00Z\n",
+    );
+    assert_usage_error(
+        &run(&["reduce", f.path(), "--strict"]),
+        &["strict.csv:3:5", "contact"],
+    );
+}
+
+#[test]
+fn reduce_lists_invalid_rows_without_strict() {
+    let mut text = std::fs::read_to_string(campaign("venus-2004-clean")).unwrap();
+    text.push_str("bad,10,20,0,7,2004-06-08T06:00:00Z,5,\n");
+    text.push_str("far,10,20,0,2,2004-07-08T06:00:00Z,5,\n");
+    let f = TempFile::new("withbad.csv", text.as_bytes());
+    let o = run(&["reduce", f.path(), "--format", "json"]);
+    assert!(o.status.success(), "{}", stderr(&o));
+    let v: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    let rejected = v["rejected"].as_array().unwrap();
+    assert_eq!(rejected.len(), 2);
+    assert!(rejected.iter().all(|r| r["reason"] == "invalid"));
+}
+
+#[test]
+fn reduce_refuses_a_bad_prior_and_a_file_without_timings() {
+    let o = run(&[
+        "reduce",
+        &campaign("venus-2004-clean"),
+        "--prior-parallax",
+        "50",
+    ]);
+    assert_usage_error(&o, &["50"]);
+    let f = TempFile::new(
+        "none.csv",
+        b"station,latitude,longitude,elevation_m,contact,time_utc\n",
+    );
+    assert_eq!(run(&["reduce", f.path()]).status.code(), Some(2));
+    let f = TempFile::new(
+        "nocontact.csv",
+        b"station,latitude,longitude,time_utc\na,1,2,2012-06-05T22:30:00Z\n",
+    );
+    assert_usage_error(&run(&["reduce", f.path()]), &["missing column 'contact'"]);
+}

@@ -1,0 +1,59 @@
+//! Speed of the reduction: a campaign of about 5,000 timings from 1,500 stations, with outlier
+//! rejection, blunder diagnosis and leave-one-station-out influence for every station.
+//! Figures are recorded in docs/performance.md.
+
+use criterion::{criterion_group, criterion_main, Criterion};
+use rand::SeedableRng;
+use transit_parallax::reduction::{reduce, ReduceOptions};
+use transit_parallax::simulate::{global_stations, simulate_campaign, SimulationSettings};
+use transit_parallax::timescale::{parse_date, TimeModel};
+use transit_parallax::{transit_on_date, Planet};
+
+fn bench(c: &mut Criterion) {
+    let event = transit_on_date(
+        Planet::Venus,
+        parse_date("2012-06-06").unwrap(),
+        &TimeModel::default(),
+    )
+    .unwrap();
+    // Stations that see the most contacts first, to reach about 5,000 timings.
+    let mut ranked: Vec<(usize, _)> = global_stations(6000, "b")
+        .into_iter()
+        .map(|s| {
+            let n = event
+                .predict(&s)
+                .contacts
+                .iter()
+                .flatten()
+                .filter(|c| c.sun_altitude_deg > 0.0)
+                .count();
+            (n, s)
+        })
+        .collect();
+    ranked.sort_by(|a, b| b.0.cmp(&a.0));
+    let stations: Vec<_> = ranked.into_iter().map(|(_, s)| s).take(1500).collect();
+    let settings = SimulationSettings {
+        sigma_s: [20.0, 10.0, 10.0, 20.0],
+        black_drop_bias_s: 5.0,
+        blunder_rate: 0.01,
+        min_altitude_deg: 0.0,
+        ..SimulationSettings::default()
+    };
+    let mut rng = rand_chacha::ChaCha8Rng::seed_from_u64(5000);
+    let campaign = simulate_campaign(&event, &stations, &settings, &mut rng);
+    let n = campaign.observations.valid.len();
+    let options = ReduceOptions {
+        event: Some((Planet::Venus, event.date())),
+        ..ReduceOptions::default()
+    };
+    let mut g = c.benchmark_group("reduce");
+    g.sample_size(10);
+    g.bench_function(
+        format!("{n} timings from {} stations", stations.len()),
+        |b| b.iter(|| reduce(campaign.observations.clone(), &options).unwrap()),
+    );
+    g.finish();
+}
+
+criterion_group!(benches, bench);
+criterion_main!(benches);
