@@ -30,7 +30,7 @@ fn bench(c: &mut Criterion) {
             (n, s)
         })
         .collect();
-    ranked.sort_by(|a, b| b.0.cmp(&a.0));
+    ranked.sort_by_key(|r| std::cmp::Reverse(r.0));
     let stations: Vec<_> = ranked.into_iter().map(|(_, s)| s).take(1500).collect();
     let settings = SimulationSettings {
         sigma_s: [20.0, 10.0, 10.0, 20.0],
