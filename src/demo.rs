@@ -59,8 +59,9 @@ pub fn generate_demo_campaign() -> Result<String> {
     Ok(text)
 }
 
-/// Reduce the embedded campaign and return the printed report.
-pub fn run_demo() -> Result<String> {
+/// Reduce the embedded campaign, write its HTML report to `report_path` and return the printed
+/// summary.
+pub fn run_demo(report_path: &Path) -> Result<String> {
     let table = CsvTable::from_bytes(Path::new("<demo campaign>"), DEMO_CAMPAIGN_CSV.as_bytes())?;
     let set = observations_from_table(&table, false)?;
     let options = ReduceOptions {
@@ -77,6 +78,8 @@ pub fn run_demo() -> Result<String> {
          The reduction below recovers the solar parallax and the astronomical unit from them.\n\n",
     );
     out.push_str(&reduction_table(&red));
+    crate::document::write_report(&red, report_path)?;
+    out.push_str(&format!("\nreport written: {}\n", report_path.display()));
     Ok(out)
 }
 

@@ -17,12 +17,14 @@
 #![deny(missing_docs)]
 
 pub mod besselian;
+pub mod charts;
 pub mod chebyshev;
 pub mod constants;
 pub mod contacts;
 pub mod csvinput;
 pub mod demo;
 pub mod diagnosis;
+pub mod document;
 pub mod ephemeris;
 pub mod error;
 pub mod observations;

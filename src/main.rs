@@ -113,11 +113,22 @@ enum Command {
         /// Output format.
         #[arg(long, value_enum, default_value = "table")]
         format: FormatArg,
+        /// Also write a report: FILE.html (self-contained page) or FILE.md (with SVG charts).
+        #[arg(long, value_name = "FILE")]
+        report: Option<PathBuf>,
         #[command(flatten)]
         time: TimeArgs,
     },
-    /// Run the main job on an embedded, invented network of stations.
-    Demo,
+    /// Run the main job on an embedded, invented campaign and write its HTML report.
+    Demo {
+        /// Where to write the report (default: transit-parallax-demo.html in the current folder).
+        #[arg(
+            long,
+            value_name = "FILE",
+            default_value = "transit-parallax-demo.html"
+        )]
+        report: PathBuf,
+    },
 }
 
 fn format_of(f: FormatArg) -> Format {
@@ -184,6 +195,7 @@ fn run(cli: Cli) -> Result<String, Error> {
             strict,
             outlier_threshold,
             format,
+            report: report_path,
             time,
         } => {
             let event = match (planet, date) {
@@ -204,12 +216,21 @@ fn run(cli: Cli) -> Result<String, Error> {
             };
             let set = transit_parallax::observations::read_observations(&observations, strict)?;
             let red = transit_parallax::reduction::reduce(set, &options)?;
-            Ok(match format_of(format) {
+            let mut text = match format_of(format) {
                 Format::Json => pretty(&report::reduction_json(&red)),
                 _ => report::reduction_table(&red),
-            })
+            };
+            if let Some(path) = report_path {
+                let written = transit_parallax::document::write_report(&red, &path)?;
+                if format_of(format) != Format::Json {
+                    for p in written {
+                        text.push_str(&format!("report written: {}\n", p.display()));
+                    }
+                }
+            }
+            Ok(text)
         }
-        Command::Demo => transit_parallax::demo::run_demo(),
+        Command::Demo { report } => transit_parallax::demo::run_demo(&report),
     }
 }
 

@@ -59,6 +59,8 @@ pub struct Rejected {
     pub reason: RejectReason,
     /// A sentence: what is wrong, the likely blunder, or how to fix it.
     pub diagnosis: Option<String>,
+    /// O - C in seconds against the final solution, where it could be computed.
+    pub o_c_s: Option<f64>,
 }
 
 /// One usable timing.
@@ -184,6 +186,7 @@ pub fn observations_from_table(table: &CsvTable, strict: bool) -> Result<Observa
                         contact: Some(obs.contact.number()),
                         reason: RejectReason::Duplicate,
                         diagnosis: Some(diagnosis),
+                        o_c_s: None,
                     });
                     continue;
                 }
@@ -227,6 +230,7 @@ fn reject_or_fail(
         contact,
         reason: RejectReason::Invalid,
         diagnosis: Some(message),
+        o_c_s: None,
     });
     Ok(())
 }

@@ -116,6 +116,8 @@ pub struct StationContribution {
     pub latitude: f64,
     /// Longitude, degrees east.
     pub longitude: f64,
+    /// Elevation, metres.
+    pub elevation_m: f64,
     /// Timings used.
     pub timings: usize,
     /// Share of the information on the parallax (the stations' shares sum to 1).
@@ -148,7 +150,7 @@ pub struct Reduction {
     pub parallax_interval_95: Option<(f64, f64)>,
     /// The AU in km.
     pub au_km: Option<f64>,
-    /// Its standard uncertainty (first-order propagation), km.
+    /// Its standard uncertainty, km: half the width of the exact image of pi -+ sigma.
     pub au_sigma_km: Option<f64>,
     /// 95 % interval of the AU (exact mapping of the parallax interval), km.
     pub au_interval_95_km: Option<(f64, f64)>,
@@ -174,6 +176,30 @@ pub struct Reduction {
     pub warnings: Vec<String>,
     /// Rows used, with their final residuals (line, station, contact, O - C s, sigma s).
     pub used: Vec<UsedTiming>,
+    /// How the parallax firmed up as timings were added in file order.
+    pub convergence: Vec<ConvergencePoint>,
+}
+
+impl Reduction {
+    /// The fitted parameters as changes to the elements.
+    pub fn perturbation(&self) -> Perturbation {
+        let mut theta = [0.0; N_PARAMS];
+        for (t, p) in theta.iter_mut().zip(&self.parameters) {
+            *t = p.value;
+        }
+        perturbation(&theta, self.event.earth_radii_per_arcsec())
+    }
+}
+
+/// The solution after the first `timings` used timings (in the order of the file).
+#[derive(Clone, Copy, Debug, PartialEq, Serialize)]
+pub struct ConvergencePoint {
+    /// Number of timings in this partial solution.
+    pub timings: usize,
+    /// Parallax, arcsec.
+    pub parallax_arcsec: f64,
+    /// Its standard uncertainty (Birge-scaled), arcsec.
+    pub sigma_arcsec: f64,
 }
 
 /// A timing in the solution.
@@ -470,6 +496,7 @@ pub fn reduce(set: ObservationSet, options: &ReduceOptions) -> Result<Reduction>
                     (observed_h - greatest_h) / 24.0,
                     event.greatest_utc()
                 )),
+                o_c_s: None,
             });
             continue;
         }
@@ -683,6 +710,7 @@ pub fn reduce(set: ObservationSet, options: &ReduceOptions) -> Result<Reduction>
         contact: Some(timings[i].obs.contact.number()),
         reason,
         diagnosis,
+        o_c_s: residual_at(i, &outcome.theta),
     };
     for (rows, d) in &station_rows {
         for &i in rows {
@@ -820,7 +848,10 @@ fn summarise(
         let s = parameters[0].sigma.unwrap_or(f64::NAN);
         let k = stats.coverage_factor_95;
         let au = au_km_from_parallax_arcsec(pi);
-        let au_sigma = au * s * ARCSEC_RAD / (pi * ARCSEC_RAD).tan();
+        // Exact propagation: half the width of the image of pi -+ sigma (to first order
+        // AU cot(pi) sigma_pi, from which it differs by (sigma_pi/pi)^2 relatively).
+        let au_sigma =
+            0.5 * (au_km_from_parallax_arcsec(pi - s) - au_km_from_parallax_arcsec(pi + s));
         (
             Some(pi),
             Some(s),
@@ -837,6 +868,11 @@ fn summarise(
     };
 
     let stations = contributions(&event, timings, used, &outcome, &w, er);
+    let convergence = if determined {
+        convergence(&event, timings, used, &outcome.theta)
+    } else {
+        Vec::new()
+    };
     let used_rows: Vec<UsedTiming> = used
         .iter()
         .zip(&outcome.residuals_s)
@@ -868,7 +904,47 @@ fn summarise(
         iterations: outcome.iterations,
         warnings,
         used: used_rows,
+        convergence,
     })
+}
+
+/// Partial solutions on the first k used timings (file order), at up to 25 values of k.
+fn convergence(
+    event: &TransitEvent,
+    timings: &[Timing],
+    used: &[usize],
+    theta: &[f64; N_PARAMS],
+) -> Vec<ConvergencePoint> {
+    let mut order: Vec<usize> = used.to_vec();
+    order.sort_by_key(|&i| timings[i].obs.line);
+    let n = order.len();
+    let steps = 25.min(n);
+    let mut out = Vec::new();
+    for s in 1..=steps {
+        let k = (n * s) / steps;
+        if k < N_PARAMS + 1 {
+            continue;
+        }
+        let sub = &order[..k];
+        let o = fit(event, timings, sub, *theta);
+        if !o.free[0] || !o.converged {
+            continue;
+        }
+        let chi2: f64 = o
+            .residuals_s
+            .iter()
+            .zip(sub)
+            .map(|(r, &i)| (r / timings[i].obs.sigma_s).powi(2))
+            .sum();
+        let dof = k - o.free.iter().filter(|&&f| f).count();
+        let st = statistics(chi2, dof);
+        out.push(ConvergencePoint {
+            timings: k,
+            parallax_arcsec: o.theta[0],
+            sigma_arcsec: o.covariance[(0, 0)].max(0.0).sqrt() * st.sigma_scale,
+        });
+    }
+    out
 }
 
 /// Information shares (Schur complement of the normal matrix on the parallax), leave-one-out
@@ -1027,6 +1103,7 @@ fn contributions(
             station: name.to_string(),
             latitude: first.obs.station.latitude_deg,
             longitude: first.obs.station.longitude_deg,
+            elevation_m: first.obs.station.elevation_m,
             timings: rows.len(),
             information_share: share,
             influence_arcsec: influence,

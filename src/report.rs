@@ -53,6 +53,7 @@ pub fn reduction_json(red: &Reduction) -> Value {
                 "contact": x.contact,
                 "reason": x.reason.as_str(),
                 "diagnosis": x.diagnosis,
+                "o_c_s": opt(x.o_c_s, 2),
             })
         })
         .collect();
@@ -96,6 +97,11 @@ pub fn reduction_json(red: &Reduction) -> Value {
         "iterations": red.iterations,
         "warnings": red.warnings,
         "delta_t_s": r(red.event.elements.delta_t_s, 3),
+        "convergence": red.convergence.iter().map(|c| json!({
+            "timings": c.timings,
+            "parallax_arcsec": r(c.parallax_arcsec, 6),
+            "sigma_arcsec": r(c.sigma_arcsec, 6),
+        })).collect::<Vec<_>>(),
     })
 }
 

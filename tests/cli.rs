@@ -177,10 +177,33 @@ fn predict_accepts_longitudes_from_0_to_360() {
 }
 
 #[test]
-fn demo_runs_and_carries_the_caution() {
-    let o = run(&["demo"]);
+fn demo_runs_writes_its_report_and_carries_the_caution() {
+    let dir = std::env::temp_dir().join(format!("tp-demo-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let o = bin().arg("demo").current_dir(&dir).output().unwrap();
     assert!(o.status.success(), "{}", stderr(&o));
-    assert!(stdout(&o).contains("certified solar filter"));
+    let text = stdout(&o);
+    assert!(text.contains("certified solar filter"));
+    assert!(text.contains("solar parallax"));
+    assert!(text.contains("report written: transit-parallax-demo.html"));
+    let html = std::fs::read_to_string(dir.join("transit-parallax-demo.html")).unwrap();
+    assert!(html.contains("<svg") && html.contains("certified solar filter"));
+}
+
+#[test]
+fn reduce_writes_html_and_markdown_reports() {
+    let dir = std::env::temp_dir().join(format!("tp-rep-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let html = dir.join("r.html");
+    let o = run(&["reduce", &campaign("venus-2004-clean"), "--report", html.to_str().unwrap()]);
+    assert!(o.status.success(), "{}", stderr(&o));
+    assert!(std::fs::read_to_string(&html).unwrap().contains("</html>"));
+    let md = dir.join("r.md");
+    let o = run(&["reduce", &campaign("venus-2004-clean"), "--report", md.to_str().unwrap(), "--format", "json"]);
+    assert!(o.status.success());
+    assert!(dir.join("r-map.svg").exists());
+    let o = run(&["reduce", &campaign("venus-2004-clean"), "--report", dir.join("r.docx").to_str().unwrap()]);
+    assert_usage_error(&o, &[".html", ".md"]);
 }
 
 fn assert_usage_error(o: &Output, needles: &[&str]) {

@@ -1,0 +1,453 @@
+//! Charts of a reduction as plain, self-contained SVG (no scripts, no external references):
+//! the solar disc with each station's path, the station map, the residuals, and the
+//! convergence of the parallax. Every string from an input file is escaped.
+
+use crate::constants::{sun_radius_au, ARCSEC_RAD};
+use crate::contacts::{offset_on_plane, Contact};
+use crate::reduction::Reduction;
+use crate::station::Station;
+use crate::vector::norm;
+use std::fmt::Write;
+
+/// Escape text for XML and HTML (element content and quoted attributes).
+pub fn esc(text: &str) -> String {
+    let mut s = String::with_capacity(text.len());
+    for ch in text.chars() {
+        match ch {
+            '&' => s.push_str("&amp;"),
+            '<' => s.push_str("&lt;"),
+            '>' => s.push_str("&gt;"),
+            '"' => s.push_str("&quot;"),
+            '\'' => s.push_str("&#39;"),
+            c if (c as u32) < 0x20 && c != '\n' && c != '\t' => s.push(' '),
+            c => s.push(c),
+        }
+    }
+    s
+}
+
+fn svg_open(width: f64, height: f64, label: &str) -> String {
+    format!(
+        "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{width:.0}\" height=\"{height:.0}\" viewBox=\"0 0 {width:.0} {height:.0}\" role=\"img\" aria-label=\"{}\" font-family=\"sans-serif\" font-size=\"11\">\n",
+        esc(label)
+    )
+}
+
+/// "Nice" tick values covering [lo, hi].
+fn ticks(lo: f64, hi: f64, target: usize) -> Vec<f64> {
+    let span = (hi - lo).abs().max(1e-12);
+    let raw = span / target.max(1) as f64;
+    let mag = 10f64.powf(raw.log10().floor());
+    let step = [1.0, 2.0, 5.0, 10.0]
+        .iter()
+        .map(|m| m * mag)
+        .find(|s| *s >= raw)
+        .unwrap_or(10.0 * mag);
+    let start = (lo / step).ceil() * step;
+    let mut out = Vec::new();
+    let mut v = start;
+    while v <= hi + 1e-9 * span && out.len() < 50 {
+        out.push(if v.abs() < 1e-12 * span { 0.0 } else { v });
+        v += step;
+    }
+    out
+}
+
+/// Colour for a mean normalised residual: blue (negative) through white to red (positive),
+/// saturating at +-2.
+pub fn residual_colour(z: f64) -> String {
+    let t = (z / 2.0).clamp(-1.0, 1.0);
+    let (r, g, b) = if t >= 0.0 {
+        (255.0, 255.0 * (1.0 - t), 255.0 * (1.0 - t))
+    } else {
+        (255.0 * (1.0 + t), 255.0 * (1.0 + t), 255.0)
+    };
+    format!("#{:02x}{:02x}{:02x}", r as u8, g as u8, b as u8)
+}
+
+/// The Sun's apparent semidiameter (arcsec) at greatest transit.
+fn sun_semidiameter_arcsec(red: &Reduction) -> f64 {
+    let ev = &red.event;
+    let s_er = norm(ev.elements.sun_earth_radii(ev.hours_of_greatest()));
+    let s_au = s_er / crate::besselian::earth_radii_per_au();
+    (sun_radius_au() / s_au).asin() / ARCSEC_RAD
+}
+
+/// The parallax exaggeration used by [`solar_disc_svg`].
+pub fn disc_exaggeration(red: &Reduction) -> f64 {
+    let (_, max_disp) = station_paths(red, 1.0);
+    let target = 0.12 * sun_semidiameter_arcsec(red);
+    let raw = if max_disp > 0.0 {
+        target / max_disp
+    } else {
+        1.0
+    };
+    [1.0, 2.0, 5.0, 10.0, 20.0, 50.0, 100.0, 200.0, 500.0]
+        .iter()
+        .copied()
+        .rfind(|f| *f <= raw.max(1.0))
+        .unwrap_or(1.0)
+}
+
+type Path = Vec<(f64, f64)>;
+
+/// A drawn path: name, points (arcsec east, north) and contact points (contact, east, north).
+type NamedPath = (String, Path, Vec<(u8, f64, f64)>);
+
+/// Geocentric path and each station's path (arcsec east, north of the Sun's centre), with the
+/// station's displacement from the geocentric path multiplied by `factor`; and the largest
+/// true displacement (arcsec).
+fn station_paths(red: &Reduction, factor: f64) -> (Vec<NamedPath>, f64) {
+    let ev = &red.event;
+    let p = red.perturbation();
+    let k = 1.0 / (ev.earth_radii_per_arcsec() * p.length_scale);
+    let h0 = ev.geocentric_hours[0].unwrap_or(-3.0) - 0.3;
+    let h1 = ev.geocentric_hours[3].unwrap_or(3.0) + 0.3;
+    let n = 60;
+    let at = |h: f64, st: Option<&crate::station::GeocentricStation>| {
+        let (u, v) = offset_on_plane(&ev.elements, st, h, &p);
+        (u * k, v * k)
+    };
+    let mut out = Vec::new();
+    let mut max_disp: f64 = 0.0;
+    let geo_path: Path = (0..=n)
+        .map(|i| at(h0 + (h1 - h0) * i as f64 / n as f64, None))
+        .collect();
+    out.push(("geocentre".to_string(), geo_path, Vec::new()));
+    for s in &red.stations {
+        let Ok(st) = Station::new(&s.station, s.latitude, s.longitude, s.elevation_m) else {
+            continue;
+        };
+        let geo = st.geocentric();
+        let mut path = Vec::with_capacity(n + 1);
+        for i in 0..=n {
+            let h = h0 + (h1 - h0) * i as f64 / n as f64;
+            let g = at(h, None);
+            let t = at(h, Some(&geo));
+            max_disp = max_disp.max(((t.0 - g.0).powi(2) + (t.1 - g.1).powi(2)).sqrt());
+            path.push((g.0 + factor * (t.0 - g.0), g.1 + factor * (t.1 - g.1)));
+        }
+        let mut points = Vec::new();
+        for (c, _r) in s.contacts.iter().zip(&s.residuals_s) {
+            let Some(contact) = Contact::parse(&c.to_string()) else {
+                continue;
+            };
+            if let Some(h) = ev.contact_hours_perturbed(&geo, contact, &p) {
+                let g = at(h, None);
+                let t = at(h, Some(&geo));
+                points.push((*c, g.0 + factor * (t.0 - g.0), g.1 + factor * (t.1 - g.1)));
+            }
+        }
+        out.push((s.station.clone(), path, points));
+    }
+    (out, max_disp)
+}
+
+/// The solar disc with the geocentric path, each station's path (parallax displacement
+/// exaggerated by [`disc_exaggeration`]) and the contact points. North up, east left, as the
+/// Sun is seen in the sky.
+pub fn solar_disc_svg(red: &Reduction) -> String {
+    let size = 640.0;
+    let c = size / 2.0;
+    let r_px = 260.0;
+    let sd = sun_semidiameter_arcsec(red);
+    let scale = r_px / sd;
+    let factor = disc_exaggeration(red);
+    let (paths, _) = station_paths(red, factor);
+    let mut s = svg_open(
+        size,
+        size + 40.0,
+        "Solar disc with the planet's path from each station",
+    );
+    let _ = writeln!(s, "<rect width=\"100%\" height=\"100%\" fill=\"#ffffff\"/>");
+    let _ = writeln!(s, "<defs><clipPath id=\"disc-area\"><rect x=\"0\" y=\"0\" width=\"{size}\" height=\"{size}\"/></clipPath></defs>");
+    let _ = writeln!(s, "<circle cx=\"{c}\" cy=\"{c}\" r=\"{r_px}\" fill=\"#fde9a9\" stroke=\"#c88a12\" stroke-width=\"1.5\"/>");
+    let _ = writeln!(s, "<text x=\"{c}\" y=\"16\" text-anchor=\"middle\">N</text><text x=\"12\" y=\"{}\" text-anchor=\"middle\">E</text><text x=\"{}\" y=\"{}\" text-anchor=\"middle\">W</text>", c + 4.0, size - 12.0, c + 4.0);
+    let xy = |e: f64, n: f64| (c - e * scale, c - n * scale);
+    let _ = writeln!(s, "<g clip-path=\"url(#disc-area)\" fill=\"none\">");
+    for (i, (name, path, points)) in paths.iter().enumerate() {
+        let d: Vec<String> = path
+            .iter()
+            .map(|&(e, n)| {
+                let (x, y) = xy(e, n);
+                format!("{x:.1},{y:.1}")
+            })
+            .collect();
+        let (stroke, width) = if i == 0 {
+            ("#000000", 2.0)
+        } else {
+            ("#2b6cb0", 0.8)
+        };
+        let _ = writeln!(s, "<polyline points=\"{}\" stroke=\"{stroke}\" stroke-width=\"{width}\"><title>{}</title></polyline>", d.join(" "), esc(name));
+        for (cn, e, n) in points {
+            let (x, y) = xy(*e, *n);
+            let _ = writeln!(s, "<circle cx=\"{x:.1}\" cy=\"{y:.1}\" r=\"2.5\" fill=\"#c53030\"><title>{} contact {}</title></circle>", esc(name), cn);
+        }
+        if i > 0 {
+            if let Some(&(e, n)) = path
+                .iter()
+                .find(|&&(e, n)| (e * e + n * n).sqrt() < sd * 1.02)
+            {
+                let (x, y) = xy(e, n);
+                let _ = writeln!(
+                    s,
+                    "<text x=\"{:.1}\" y=\"{:.1}\" font-size=\"9\" fill=\"#2b6cb0\">{}</text>",
+                    x + 3.0,
+                    y - 3.0,
+                    i
+                );
+            }
+        }
+    }
+    let _ = writeln!(s, "</g>");
+    let _ = writeln!(
+        s,
+        "<text x=\"10\" y=\"{}\">Black: geocentric path. Blue: each station's path (numbered as in the station table), its parallax displacement exaggerated {factor:.0} times. Red dots: contacts.</text>",
+        size + 25.0
+    );
+    s.push_str("</svg>\n");
+    s
+}
+
+fn land_rings() -> impl Iterator<Item = Vec<(f64, f64)>> {
+    const LAND: &str = include_str!("data/land_110m.txt");
+    LAND.lines()
+        .filter(|l| !l.starts_with('#') && !l.trim().is_empty())
+        .map(|line| {
+            line.split_whitespace()
+                .filter_map(|p| {
+                    let (a, b) = p.split_once(',')?;
+                    Some((a.parse().ok()?, b.parse().ok()?))
+                })
+                .collect()
+        })
+}
+
+/// A world map (equirectangular) with each station: marker area by its information share,
+/// colour by its mean normalised residual. Land outlines: Natural Earth 1:110m (public domain).
+pub fn station_map_svg(red: &Reduction) -> String {
+    let (w, h) = (720.0, 360.0);
+    let px = |lon: f64, lat: f64| ((lon + 180.0) * 2.0, (90.0 - lat) * 2.0);
+    let mut s = svg_open(w, h + 40.0, "World map of the stations");
+    let _ = writeln!(s, "<rect width=\"{w}\" height=\"{h}\" fill=\"#dbeafe\"/>");
+    let _ = writeln!(
+        s,
+        "<g fill=\"#e7e2d3\" stroke=\"#9c9581\" stroke-width=\"0.4\">"
+    );
+    for ring in land_rings() {
+        let pts: Vec<String> = ring
+            .iter()
+            .map(|&(lo, la)| {
+                let (x, y) = px(lo, la);
+                format!("{x:.1},{y:.1}")
+            })
+            .collect();
+        let _ = writeln!(s, "<polygon points=\"{}\"/>", pts.join(" "));
+    }
+    let _ = writeln!(s, "</g>");
+    let _ = writeln!(s, "<g stroke=\"#94a3b8\" stroke-width=\"0.3\">");
+    for lat in [-60.0, -30.0, 0.0, 30.0, 60.0] {
+        let (_, y) = px(0.0, lat);
+        let _ = writeln!(s, "<line x1=\"0\" y1=\"{y}\" x2=\"{w}\" y2=\"{y}\"/>");
+    }
+    let _ = writeln!(s, "</g>");
+    for (i, st) in red.stations.iter().enumerate() {
+        let (x, y) = px(st.longitude, st.latitude);
+        let r = 2.5 + 30.0 * st.information_share.max(0.0).sqrt();
+        let _ = writeln!(
+            s,
+            "<circle cx=\"{x:.1}\" cy=\"{y:.1}\" r=\"{r:.1}\" fill=\"{}\" fill-opacity=\"0.85\" stroke=\"#1f2937\" stroke-width=\"0.6\"><title>{} (#{}): share {:.3}, mean z {:+.2}</title></circle>",
+            residual_colour(st.mean_normalised_residual),
+            esc(&st.station),
+            i + 1,
+            st.information_share,
+            st.mean_normalised_residual
+        );
+    }
+    let legend_y = h + 18.0;
+    for (k, z) in [-2.0, -1.0, 0.0, 1.0, 2.0].iter().enumerate() {
+        let x = 10.0 + 28.0 * k as f64;
+        let _ = writeln!(s, "<rect x=\"{x}\" y=\"{}\" width=\"26\" height=\"10\" fill=\"{}\" stroke=\"#1f2937\" stroke-width=\"0.3\"/><text x=\"{}\" y=\"{}\" text-anchor=\"middle\" font-size=\"9\">{z:+.0}</text>", legend_y - 10.0, residual_colour(*z), x + 13.0, legend_y + 10.0);
+    }
+    let _ = writeln!(s, "<text x=\"160\" y=\"{legend_y}\">Colour: mean (O - C)/sigma of the station's timings. Area: share of the information on the parallax.</text>");
+    let _ = writeln!(s, "<text x=\"160\" y=\"{}\" font-size=\"9\">Land: Natural Earth 1:110m (public domain).</text>", legend_y + 14.0);
+    s.push_str("</svg>\n");
+    s
+}
+
+/// O - C of every timing with its error bar, grouped by contact; rejected timings marked (off
+/// the scale: a triangle at the edge) and numbered as in the table of rows not used.
+pub fn residuals_svg(red: &Reduction) -> String {
+    let (w, h) = (720.0, 360.0);
+    let (left, right, top, bottom) = (60.0, 10.0, 20.0, 40.0);
+    let ymax = red
+        .used
+        .iter()
+        .map(|u| u.o_c_s.abs() + u.sigma_s)
+        .fold(10.0, f64::max)
+        * 1.15;
+    let y_of = |v: f64| top + (h - top - bottom) * (0.5 - v.clamp(-ymax, ymax) / (2.0 * ymax));
+    let group_w = (w - left - right) / 4.0;
+    let mut s = svg_open(w, h, "Residuals O - C by contact");
+    let _ = writeln!(s, "<rect width=\"100%\" height=\"100%\" fill=\"#ffffff\"/>");
+    for t in ticks(-ymax, ymax, 8) {
+        let y = y_of(t);
+        let _ = writeln!(s, "<line x1=\"{left}\" y1=\"{y:.1}\" x2=\"{}\" y2=\"{y:.1}\" stroke=\"#e5e7eb\"/><text x=\"{}\" y=\"{:.1}\" text-anchor=\"end\">{t}</text>", w - right, left - 5.0, y + 4.0);
+    }
+    let _ = writeln!(s, "<text x=\"14\" y=\"{}\" transform=\"rotate(-90 14 {})\" text-anchor=\"middle\">O - C (s)</text>", h / 2.0, h / 2.0);
+    for (g, c) in Contact::ALL.iter().enumerate() {
+        let x0 = left + group_w * g as f64;
+        let _ = writeln!(s, "<line x1=\"{x0:.1}\" y1=\"{top}\" x2=\"{x0:.1}\" y2=\"{}\" stroke=\"#9ca3af\"/><text x=\"{:.1}\" y=\"{}\" text-anchor=\"middle\">contact {}</text>", h - bottom, x0 + group_w / 2.0, h - bottom + 18.0, c.roman());
+        let rows: Vec<_> = red
+            .used
+            .iter()
+            .filter(|u| u.contact == c.number())
+            .collect();
+        let rej: Vec<(usize, &crate::observations::Rejected)> = red
+            .rejected
+            .iter()
+            .enumerate()
+            .filter(|(_, r)| r.contact == Some(c.number()) && r.o_c_s.is_some())
+            .collect();
+        let n = (rows.len() + rej.len()).max(1);
+        for (k, u) in rows.iter().enumerate() {
+            let x = x0 + group_w * (k as f64 + 0.5) / n as f64;
+            let _ = writeln!(
+                s,
+                "<g><title>{} line {}: O - C {:+.1} s, sigma {:.1} s</title><line x1=\"{x:.1}\" y1=\"{:.1}\" x2=\"{x:.1}\" y2=\"{:.1}\" stroke=\"#6b7280\"/><circle cx=\"{x:.1}\" cy=\"{:.1}\" r=\"2.2\" fill=\"#1d4ed8\"/></g>",
+                esc(&u.station), u.line, u.o_c_s, u.sigma_s, y_of(u.o_c_s - u.sigma_s), y_of(u.o_c_s + u.sigma_s), y_of(u.o_c_s)
+            );
+        }
+        for (k, (idx, r)) in rej.iter().enumerate() {
+            let x = x0 + group_w * ((rows.len() + k) as f64 + 0.5) / n as f64;
+            let v = r.o_c_s.unwrap_or(0.0);
+            let y = y_of(v);
+            let off = v.abs() > ymax;
+            let mark = if off {
+                let dir = if v > 0.0 { -1.0 } else { 1.0 };
+                format!(
+                    "<path d=\"M{:.1},{:.1} l-4,{:.1} l8,0 z\" fill=\"#dc2626\"/>",
+                    x,
+                    y,
+                    7.0 * -dir
+                )
+            } else {
+                format!("<path d=\"M{:.1},{:.1} l6,6 M{:.1},{:.1} l6,-6\" stroke=\"#dc2626\" stroke-width=\"1.6\"/>", x - 3.0, y - 3.0, x - 3.0, y + 3.0)
+            };
+            let _ = writeln!(
+                s,
+                "<g><title>not used, {} line {}: O - C {:+.1} s; {}</title>{mark}<text x=\"{:.1}\" y=\"{:.1}\" font-size=\"9\" fill=\"#dc2626\">{}</text></g>",
+                esc(&r.station), r.line, v, esc(r.diagnosis.as_deref().unwrap_or("")), x + 4.0, if off && v < 0.0 { y - 8.0 } else { y + 12.0 }, idx + 1
+            );
+        }
+    }
+    s.push_str("</svg>\n");
+    s
+}
+
+/// The parallax and its uncertainty as timings are added in the order of the file.
+pub fn convergence_svg(red: &Reduction) -> String {
+    let (w, h) = (720.0, 300.0);
+    let (left, right, top, bottom) = (70.0, 20.0, 20.0, 40.0);
+    let mut s = svg_open(w, h, "Convergence of the solar parallax");
+    let _ = writeln!(s, "<rect width=\"100%\" height=\"100%\" fill=\"#ffffff\"/>");
+    let pts = &red.convergence;
+    let Some(last) = pts.last() else {
+        let _ = writeln!(s, "<text x=\"20\" y=\"40\">Too few timings to follow the solution as they are added.</text></svg>");
+        return s;
+    };
+    let final_pi = red.parallax_arcsec.unwrap_or(last.parallax_arcsec);
+    let spread = pts
+        .iter()
+        .map(|p| (p.parallax_arcsec - final_pi).abs() + p.sigma_arcsec)
+        .fold(0.05, f64::max)
+        .min(3.0);
+    let (ylo, yhi) = (final_pi - spread * 1.1, final_pi + spread * 1.1);
+    let nmax = last.timings as f64;
+    let x_of = |n: f64| left + (w - left - right) * n / nmax;
+    let y_of = |v: f64| top + (h - top - bottom) * (yhi - v.clamp(ylo, yhi)) / (yhi - ylo);
+    for t in ticks(ylo, yhi, 6) {
+        let y = y_of(t);
+        let _ = writeln!(s, "<line x1=\"{left}\" y1=\"{y:.1}\" x2=\"{}\" y2=\"{y:.1}\" stroke=\"#e5e7eb\"/><text x=\"{}\" y=\"{:.1}\" text-anchor=\"end\">{t:.3}</text>", w - right, left - 5.0, y + 4.0);
+    }
+    for t in ticks(0.0, nmax, 8) {
+        let x = x_of(t);
+        let _ = writeln!(
+            s,
+            "<text x=\"{x:.1}\" y=\"{}\" text-anchor=\"middle\">{t}</text>",
+            h - bottom + 16.0
+        );
+    }
+    let _ = writeln!(s, "<text x=\"{}\" y=\"{}\" text-anchor=\"middle\">timings in the solution (file order)</text>", (left + w - right) / 2.0, h - 6.0);
+    let _ = writeln!(s, "<text x=\"14\" y=\"{}\" transform=\"rotate(-90 14 {})\" text-anchor=\"middle\">solar parallax (arcsec)</text>", h / 2.0, h / 2.0);
+    let upper: Vec<String> = pts
+        .iter()
+        .map(|p| {
+            format!(
+                "{:.1},{:.1}",
+                x_of(p.timings as f64),
+                y_of(p.parallax_arcsec + p.sigma_arcsec)
+            )
+        })
+        .collect();
+    let lower: Vec<String> = pts
+        .iter()
+        .rev()
+        .map(|p| {
+            format!(
+                "{:.1},{:.1}",
+                x_of(p.timings as f64),
+                y_of(p.parallax_arcsec - p.sigma_arcsec)
+            )
+        })
+        .collect();
+    let _ = writeln!(
+        s,
+        "<polygon points=\"{} {}\" fill=\"#bfdbfe\" stroke=\"none\"/>",
+        upper.join(" "),
+        lower.join(" ")
+    );
+    let line: Vec<String> = pts
+        .iter()
+        .map(|p| {
+            format!(
+                "{:.1},{:.1}",
+                x_of(p.timings as f64),
+                y_of(p.parallax_arcsec)
+            )
+        })
+        .collect();
+    let _ = writeln!(
+        s,
+        "<polyline points=\"{}\" fill=\"none\" stroke=\"#1d4ed8\" stroke-width=\"1.8\"/>",
+        line.join(" ")
+    );
+    let y = y_of(crate::constants::nominal_parallax_arcsec());
+    let _ = writeln!(s, "<line x1=\"{left}\" y1=\"{y:.1}\" x2=\"{}\" y2=\"{y:.1}\" stroke=\"#16a34a\" stroke-dasharray=\"5,4\"/><text x=\"{}\" y=\"{:.1}\" text-anchor=\"end\" fill=\"#16a34a\">IAU 2009 value 8.794143\"</text>", w - right, w - right - 4.0, y - 4.0);
+    s.push_str("</svg>\n");
+    s
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn escaping_neutralises_markup() {
+        assert_eq!(
+            esc("<script>\"x\" & 'y'</script>"),
+            "&lt;script&gt;&quot;x&quot; &amp; &#39;y&#39;&lt;/script&gt;"
+        );
+    }
+
+    #[test]
+    fn ticks_are_round_numbers() {
+        assert_eq!(ticks(0.0, 10.0, 5), vec![0.0, 2.0, 4.0, 6.0, 8.0, 10.0]);
+        assert!(ticks(-37.0, 37.0, 8).contains(&0.0));
+    }
+
+    #[test]
+    fn land_outlines_load() {
+        assert!(land_rings().count() > 100);
+    }
+}

@@ -1,0 +1,402 @@
+//! Reports of a reduction for publishing: one self-contained HTML file (inline SVG and CSS, no
+//! script, nothing fetched) or Markdown with the charts as SVG files beside it.
+
+use crate::charts::{
+    convergence_svg, disc_exaggeration, esc, residuals_svg, solar_disc_svg, station_map_svg,
+};
+use crate::error::{Error, Result};
+use crate::output::SAFETY_CAUTION;
+use crate::reduction::{Reduction, PARAMETER_NAMES};
+use crate::report::chi2_sentence;
+use std::fmt::Write;
+use std::path::{Path, PathBuf};
+
+const METHOD: &str =
+    "Each station timed the moments when the planet's disc touched the Sun's edge. \
+Seen from different places on the Earth, the planet's path across the Sun is shifted by parallax, \
+so the contacts come seconds to minutes earlier or later from station to station. For every \
+timing the reduction compares the observed time (O) with the time computed (C) for a trial value \
+of the solar parallax, writes one condition equation linking O - C to small corrections of the \
+parallax and of the planet's place and size, and solves all of them together by least squares. \
+Kepler's third law fixes the sizes of the planets' orbits in astronomical units; the parallax \
+fixes the astronomical unit in kilometres, AU = 6378.1366 km / sin(parallax).";
+
+struct Summary {
+    headline: Vec<(String, String)>,
+}
+
+fn summary(red: &Reduction) -> Summary {
+    let mut headline = Vec::new();
+    match (
+        red.parallax_arcsec,
+        red.parallax_sigma_arcsec,
+        red.au_km,
+        red.au_sigma_km,
+    ) {
+        (Some(p), Some(ps), Some(au), Some(aus)) => {
+            let (lo, hi) = red.parallax_interval_95.unwrap_or((p, p));
+            let (alo, ahi) = red.au_interval_95_km.unwrap_or((au, au));
+            headline.push((
+                "Solar parallax".into(),
+                format!("{p:.4}\" ± {ps:.4}\" (95 % interval {lo:.4}\" to {hi:.4}\")"),
+            ));
+            headline.push((
+                "Astronomical unit".into(),
+                format!("{au:.0} km ± {aus:.0} km (95 % interval {alo:.0} to {ahi:.0} km)"),
+            ));
+        }
+        _ => headline.push((
+            "Solar parallax".into(),
+            "not determined by these timings (see the warnings)".into(),
+        )),
+    }
+    headline.push((
+        "Timings".into(),
+        format!(
+            "{} used of {} ({} not used)",
+            red.timings_used,
+            red.timings_total,
+            red.rejected.len()
+        ),
+    ));
+    let st = &red.statistics;
+    headline.push((
+        "Chi-square".into(),
+        format!(
+            "{:.1} for {} degrees of freedom{}{}",
+            st.chi2,
+            st.dof,
+            st.p_value
+                .map(|p| format!(", p = {p:.3}"))
+                .unwrap_or_default(),
+            st.birge_ratio
+                .map(|b| format!(", Birge ratio {b:.2}"))
+                .unwrap_or_default()
+        ),
+    ));
+    Summary { headline }
+}
+
+fn parameters_rows(red: &Reduction) -> Vec<Vec<String>> {
+    red.parameters
+        .iter()
+        .enumerate()
+        .map(|(i, p)| {
+            let mut row = vec![
+                format!("p{} {}", i + 1, p.name),
+                format!("{:.5}", p.value),
+                p.sigma
+                    .map(|s| format!("{s:.5}"))
+                    .unwrap_or_else(|| "held fixed".into()),
+                p.unit.clone(),
+            ];
+            for c in &red.correlation[i] {
+                row.push(format!("{c:+.3}"));
+            }
+            row
+        })
+        .collect()
+}
+
+fn station_rows(red: &Reduction) -> Vec<Vec<String>> {
+    red.stations
+        .iter()
+        .enumerate()
+        .map(|(i, s)| {
+            let oc: Vec<String> = s
+                .contacts
+                .iter()
+                .zip(&s.residuals_s)
+                .map(|(c, r)| format!("{c}: {r:+.1}"))
+                .collect();
+            let (chord_o, chord_p, disp) = match &s.chord {
+                Some(c) => (
+                    format!("{:.2} ({})", c.observed_arcsec, c.pair),
+                    format!("{:.2}", c.predicted_arcsec),
+                    format!("{:+.2}", c.parallax_displacement_arcsec),
+                ),
+                None => ("-".into(), "-".into(), "-".into()),
+            };
+            vec![
+                format!("{}", i + 1),
+                s.station.clone(),
+                format!("{:.3}, {:.3}", s.latitude, s.longitude),
+                s.timings.to_string(),
+                format!("{:.4}", s.information_share),
+                s.influence_arcsec
+                    .map(|x| format!("{x:+.5}"))
+                    .unwrap_or_else(|| "-".into()),
+                chord_o,
+                chord_p,
+                disp,
+                oc.join("; "),
+            ]
+        })
+        .collect()
+}
+
+const STATION_HEADERS: [&str; 10] = [
+    "#",
+    "station",
+    "latitude, longitude (deg)",
+    "timings",
+    "information share",
+    "influence on the parallax (arcsec)",
+    "chord observed (arcsec)",
+    "chord predicted (arcsec)",
+    "parallax displacement of the path (arcsec)",
+    "O - C by contact (s)",
+];
+
+fn rejected_rows(red: &Reduction) -> Vec<Vec<String>> {
+    red.rejected
+        .iter()
+        .enumerate()
+        .map(|(i, r)| {
+            vec![
+                format!("{}", i + 1),
+                r.line.to_string(),
+                r.station.clone(),
+                r.contact
+                    .map(|c| c.to_string())
+                    .unwrap_or_else(|| "-".into()),
+                r.reason.as_str().to_string(),
+                r.o_c_s
+                    .map(|x| format!("{x:+.1}"))
+                    .unwrap_or_else(|| "-".into()),
+                r.diagnosis.clone().unwrap_or_default(),
+            ]
+        })
+        .collect()
+}
+
+const REJECTED_HEADERS: [&str; 7] = [
+    "#",
+    "line",
+    "station",
+    "contact",
+    "reason",
+    "O - C (s)",
+    "diagnosis",
+];
+
+fn html_table(headers: &[&str], rows: &[Vec<String>]) -> String {
+    let mut s = String::from("<table>\n<thead><tr>");
+    for h in headers {
+        let _ = write!(s, "<th>{}</th>", esc(h));
+    }
+    s.push_str("</tr></thead>\n<tbody>\n");
+    for r in rows {
+        s.push_str("<tr>");
+        for c in r {
+            let _ = write!(s, "<td>{}</td>", esc(c));
+        }
+        s.push_str("</tr>\n");
+    }
+    s.push_str("</tbody>\n</table>\n");
+    s
+}
+
+fn md_cell(text: &str) -> String {
+    esc(text).replace('|', "\\|").replace('\n', " ")
+}
+
+fn md_table(headers: &[&str], rows: &[Vec<String>]) -> String {
+    let mut s = String::from("|");
+    for h in headers {
+        let _ = write!(s, " {} |", md_cell(h));
+    }
+    s.push_str("\n|");
+    for _ in headers {
+        s.push_str(" --- |");
+    }
+    s.push('\n');
+    for r in rows {
+        s.push('|');
+        for c in r {
+            let _ = write!(s, " {} |", md_cell(c));
+        }
+        s.push('\n');
+    }
+    s
+}
+
+fn param_headers() -> Vec<String> {
+    let mut h = vec![
+        "parameter".to_string(),
+        "value".into(),
+        "standard uncertainty".into(),
+        "unit".into(),
+    ];
+    for i in 0..PARAMETER_NAMES.len() {
+        h.push(format!("corr. p{}", i + 1));
+    }
+    h
+}
+
+fn title(red: &Reduction) -> String {
+    format!(
+        "Transit of {} of {}: solar parallax and astronomical unit",
+        capitalise(red.event.planet.name()),
+        red.event.date()
+    )
+}
+
+fn capitalise(s: &str) -> String {
+    let mut c = s.chars();
+    match c.next() {
+        Some(f) => f.to_uppercase().collect::<String>() + c.as_str(),
+        None => String::new(),
+    }
+}
+
+/// The self-contained HTML report (well-formed XHTML syntax, inline SVG, no script).
+pub fn html_report(red: &Reduction) -> String {
+    let sum = summary(red);
+    let mut s = String::new();
+    s.push_str("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\"/>\n");
+    let _ = writeln!(s, "<title>{}</title>", esc(&title(red)));
+    s.push_str("<style>\nbody{font-family:sans-serif;max-width:1000px;margin:2em auto;padding:0 1em;color:#111827;line-height:1.45}\ntable{border-collapse:collapse;margin:1em 0;font-size:0.85em}\nth,td{border:1px solid #d1d5db;padding:3px 6px;text-align:left;vertical-align:top}\nth{background:#f3f4f6}\n.caution{border:2px solid #b91c1c;background:#fef2f2;padding:0.6em 1em;font-weight:bold}\n.headline td:first-child{font-weight:bold}\nfigure{margin:1.5em 0}\nfigcaption{font-size:0.9em;color:#374151}\n@media print{figure,table{page-break-inside:avoid}}\n</style>\n</head>\n<body>\n");
+    let _ = writeln!(s, "<h1>{}</h1>", esc(&title(red)));
+    let _ = writeln!(s, "<p class=\"caution\">{}</p>", esc(SAFETY_CAUTION));
+    s.push_str("<h2>Result</h2>\n<table class=\"headline\">\n");
+    for (k, v) in &sum.headline {
+        let _ = writeln!(s, "<tr><td>{}</td><td>{}</td></tr>", esc(k), esc(v));
+    }
+    s.push_str("</table>\n");
+    let _ = writeln!(s, "<p>{}</p>", esc(&chi2_sentence(red)));
+    if !red.warnings.is_empty() {
+        s.push_str("<ul>\n");
+        for w in &red.warnings {
+            let _ = writeln!(s, "<li>Warning: {}</li>", esc(w));
+        }
+        s.push_str("</ul>\n");
+    }
+    let _ = writeln!(
+        s,
+        "<h2>How the result was obtained</h2>\n<p>{}</p>",
+        esc(METHOD)
+    );
+    let _ = writeln!(
+        s,
+        "<h2>The planet's path across the Sun</h2>\n<figure>\n{}<figcaption>North is up and east to the left, as the Sun appears in the sky. Each station's path is displaced from the geocentric one by parallax; the displacement is drawn {:.0} times larger than it is.</figcaption>\n</figure>",
+        solar_disc_svg(red),
+        disc_exaggeration(red)
+    );
+    let _ = writeln!(s, "<h2>Where the stations were</h2>\n<figure>\n{}<figcaption>Station markers: area by share of the information on the parallax, colour by mean normalised residual.</figcaption>\n</figure>", station_map_svg(red));
+    let _ = writeln!(s, "<h2>Residuals</h2>\n<figure>\n{}<figcaption>O - C of every timing with its standard uncertainty, by contact. Red marks: timings not used, numbered as in the table below (a triangle at the edge: off the scale).</figcaption>\n</figure>", residuals_svg(red));
+    let _ = writeln!(s, "<h2>How the answer firmed up</h2>\n<figure>\n{}<figcaption>The solar parallax (line) and its standard uncertainty (band) as timings are added in the order of the file.</figcaption>\n</figure>", convergence_svg(red));
+    s.push_str("<h2>Parameters</h2>\n");
+    let ph = param_headers();
+    let ph_ref: Vec<&str> = ph.iter().map(String::as_str).collect();
+    s.push_str(&html_table(&ph_ref, &parameters_rows(red)));
+    s.push_str("<h2>Stations, ranked by their share of the information on the parallax</h2>\n");
+    s.push_str(&html_table(&STATION_HEADERS, &station_rows(red)));
+    s.push_str("<h2>Rows not used</h2>\n");
+    if red.rejected.is_empty() {
+        s.push_str("<p>Every row was used.</p>\n");
+    } else {
+        s.push_str(&html_table(&REJECTED_HEADERS, &rejected_rows(red)));
+    }
+    let _ = writeln!(
+        s,
+        "<p><small>Made by transit-parallax {}. Event: greatest transit {} (Delta T {:.1} s). Times are UTC (UT1 before 1972).</small></p>",
+        env!("CARGO_PKG_VERSION"),
+        esc(&red.event.greatest_utc()),
+        red.event.elements.delta_t_s
+    );
+    s.push_str("</body>\n</html>\n");
+    s
+}
+
+/// The Markdown report and its charts: (Markdown text, [(file name, SVG)]); `stem` names the
+/// chart files (`STEM-disc.svg`, ...), which the text links to.
+pub fn markdown_report(red: &Reduction, stem: &str) -> (String, Vec<(String, String)>) {
+    let sum = summary(red);
+    let charts = vec![
+        (format!("{stem}-disc.svg"), solar_disc_svg(red)),
+        (format!("{stem}-map.svg"), station_map_svg(red)),
+        (format!("{stem}-residuals.svg"), residuals_svg(red)),
+        (format!("{stem}-convergence.svg"), convergence_svg(red)),
+    ];
+    let mut s = format!(
+        "# {}\n\n> {}\n\n## Result\n\n",
+        md_cell(&title(red)),
+        md_cell(SAFETY_CAUTION)
+    );
+    s.push_str(&md_table(
+        &["quantity", "value"],
+        &sum.headline
+            .iter()
+            .map(|(a, b)| vec![a.clone(), b.clone()])
+            .collect::<Vec<_>>(),
+    ));
+    let _ = write!(s, "\n{}\n\n", md_cell(&chi2_sentence(red)));
+    for w in &red.warnings {
+        let _ = writeln!(s, "- Warning: {}", md_cell(w));
+    }
+    let _ = write!(
+        s,
+        "\n## How the result was obtained\n\n{}\n\n",
+        md_cell(METHOD)
+    );
+    let captions = [
+        format!("The planet's path across the Sun (north up, east left; parallax displacement drawn {:.0} times larger)", disc_exaggeration(red)),
+        "Where the stations were (area: information share; colour: mean normalised residual)".to_string(),
+        "Residuals O - C by contact (red: timings not used)".to_string(),
+        "The solar parallax as timings are added in file order".to_string(),
+    ];
+    for ((file, _), cap) in charts.iter().zip(&captions) {
+        let _ = write!(s, "![{}]({})\n\n", md_cell(cap), file);
+    }
+    s.push_str("## Parameters\n\n");
+    let ph = param_headers();
+    let ph_ref: Vec<&str> = ph.iter().map(String::as_str).collect();
+    s.push_str(&md_table(&ph_ref, &parameters_rows(red)));
+    s.push_str("\n## Stations, ranked by their share of the information on the parallax\n\n");
+    s.push_str(&md_table(&STATION_HEADERS, &station_rows(red)));
+    s.push_str("\n## Rows not used\n\n");
+    if red.rejected.is_empty() {
+        s.push_str("Every row was used.\n");
+    } else {
+        s.push_str(&md_table(&REJECTED_HEADERS, &rejected_rows(red)));
+    }
+    (s, charts)
+}
+
+/// Write the report: HTML when `path` ends in `.html` (or `.htm`), Markdown with SVG files
+/// beside it when it ends in `.md`.
+///
+/// Errors: another extension, or a file that cannot be written.
+pub fn write_report(red: &Reduction, path: &Path) -> Result<Vec<PathBuf>> {
+    let ext = path
+        .extension()
+        .and_then(|e| e.to_str())
+        .map(|e| e.to_ascii_lowercase());
+    let io = |p: &Path, e: std::io::Error| Error::Io {
+        path: p.to_path_buf(),
+        source: e,
+    };
+    match ext.as_deref() {
+        Some("html") | Some("htm") => {
+            std::fs::write(path, html_report(red)).map_err(|e| io(path, e))?;
+            Ok(vec![path.to_path_buf()])
+        }
+        Some("md") => {
+            let stem = path.file_stem().and_then(|s| s.to_str()).unwrap_or("report");
+            let (text, charts) = markdown_report(red, stem);
+            std::fs::write(path, text).map_err(|e| io(path, e))?;
+            let mut written = vec![path.to_path_buf()];
+            for (name, svg) in charts {
+                let p = path.with_file_name(&name);
+                std::fs::write(&p, svg).map_err(|e| io(&p, e))?;
+                written.push(p);
+            }
+            Ok(written)
+        }
+        _ => Err(Error::argument(format!(
+            "--report {}: give a file name ending in .html (one self-contained page) or .md (Markdown with SVG charts beside it)",
+            path.display()
+        ))),
+    }
+}

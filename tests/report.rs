@@ -1,0 +1,270 @@
+//! Reports: the HTML page is well-formed, holds the four charts as inline SVG and the solution's
+//! numbers, carries the caution, loads nothing and runs no script, and shows markup from
+//! submitted files only escaped; Markdown writes its charts beside it; a browser renders the
+//! page (when chromium is installed; CI installs it).
+
+use quick_xml::events::Event;
+use quick_xml::Reader;
+use rand::SeedableRng;
+use std::path::{Path, PathBuf};
+use std::process::Command;
+use transit_parallax::csvinput::CsvTable;
+use transit_parallax::document::{html_report, markdown_report, write_report};
+use transit_parallax::observations::observations_from_table;
+use transit_parallax::reduction::{reduce, ReduceOptions, Reduction};
+use transit_parallax::report::reduction_json;
+use transit_parallax::simulate::{global_stations, simulate_campaign, SimulationSettings};
+use transit_parallax::timescale::{parse_date, TimeModel};
+use transit_parallax::{transit_on_date, Planet};
+
+fn reduce_text(text: &str) -> Reduction {
+    let table = CsvTable::from_bytes(Path::new("t.csv"), text.as_bytes()).unwrap();
+    let set = observations_from_table(&table, false).unwrap();
+    reduce(set, &ReduceOptions::default()).unwrap()
+}
+
+fn demo() -> Reduction {
+    reduce_text(transit_parallax::demo::DEMO_CAMPAIGN_CSV)
+}
+
+/// Parse as XML (the report is written in XHTML syntax); returns the element names seen.
+fn well_formed(html: &str) -> Vec<String> {
+    let mut reader = Reader::from_str(html);
+    let mut names = Vec::new();
+    let mut depth: i64 = 0;
+    loop {
+        match reader.read_event() {
+            Ok(Event::Start(e)) => {
+                depth += 1;
+                names.push(String::from_utf8_lossy(e.name().as_ref()).into_owned());
+            }
+            Ok(Event::Empty(e)) => {
+                names.push(String::from_utf8_lossy(e.name().as_ref()).into_owned())
+            }
+            Ok(Event::End(_)) => depth -= 1,
+            Ok(Event::Eof) => break,
+            Ok(_) => {}
+            Err(e) => panic!("not well-formed at byte {}: {e}", reader.buffer_position()),
+        }
+    }
+    assert_eq!(depth, 0, "unbalanced elements");
+    names
+}
+
+#[test]
+fn demo_report_is_well_formed_and_complete() {
+    let red = demo();
+    let html = html_report(&red);
+    let names = well_formed(&html);
+    assert_eq!(
+        names.iter().filter(|n| *n == "svg").count(),
+        4,
+        "four charts"
+    );
+    assert!(!names
+        .iter()
+        .any(|n| n == "script" || n == "img" || n == "link" || n == "iframe"));
+    assert!(
+        !html.contains("http://")
+            || html.matches("http://").count()
+                == html.matches("xmlns=\"http://www.w3.org/2000/svg\"").count(),
+        "nothing loaded from anywhere"
+    );
+    assert!(html.contains("certified solar filter"));
+    // The solution's numbers as the JSON output gives them.
+    let json = reduction_json(&red);
+    let pi = json["parallax_arcsec"].as_f64().unwrap();
+    let au = json["au_km"].as_f64().unwrap();
+    assert!(html.contains(&format!("{pi:.4}")), "parallax {pi}");
+    assert!(html.contains(&format!("{au:.0} km")), "AU {au}");
+    for r in json["rejected"].as_array().unwrap() {
+        assert!(
+            html.contains(&format!("<td>{}</td>", r["line"])),
+            "rejected line {}",
+            r["line"]
+        );
+    }
+}
+
+#[test]
+fn markup_in_station_names_appears_only_escaped() {
+    let mut text =
+        String::from("station,latitude,longitude,elevation_m,contact,time_utc,sigma_s\n");
+    let evil = [
+        "<script>alert(1)</script>",
+        "<img src=x onerror=alert(1)>",
+        "\"quoted\" & 'single'",
+    ];
+    let base = transit_parallax::demo::DEMO_CAMPAIGN_CSV;
+    for (i, line) in base
+        .lines()
+        .filter(|l| !l.starts_with('#'))
+        .skip(1)
+        .enumerate()
+    {
+        let mut fields: Vec<String> = line.split(',').map(str::to_string).collect();
+        if i < 12 {
+            fields[0] = format!("\"{} {}\"", evil[i % 3].replace('"', "\"\""), i / 3);
+        }
+        text.push_str(&fields.join(","));
+        text.push('\n');
+    }
+    let red = reduce_text(&text);
+    let html = html_report(&red);
+    let names = well_formed(&html);
+    assert!(
+        !names.iter().any(|n| n == "script" || n == "img"),
+        "no such element"
+    );
+    assert!(!html.contains("<script"), "raw script tag");
+    assert!(!html.contains("<img"), "raw img tag");
+    assert!(
+        html.contains("&lt;img src=x onerror=alert(1)&gt;"),
+        "the img markup shows as text"
+    );
+    assert!(html.contains("&lt;script&gt;alert(1)&lt;/script&gt;"));
+    assert!(html.contains("&quot;quoted&quot; &amp; &#39;single&#39;"));
+    let (md, charts) = markdown_report(&red, "r");
+    assert!(!md.contains("<script") && !md.contains("<img"));
+    for (_, svg) in charts {
+        assert!(!svg.contains("<script") && !svg.contains("<img"));
+    }
+}
+
+fn temp_dir(name: &str) -> PathBuf {
+    let d = std::env::temp_dir().join(format!("tp-report-{}-{name}", std::process::id()));
+    std::fs::create_dir_all(&d).unwrap();
+    d
+}
+
+#[test]
+fn markdown_report_writes_its_charts_beside_it() {
+    let red = demo();
+    let dir = temp_dir("md");
+    let written = write_report(&red, &dir.join("campaign.md")).unwrap();
+    assert_eq!(written.len(), 5);
+    let md = std::fs::read_to_string(dir.join("campaign.md")).unwrap();
+    for name in [
+        "campaign-disc.svg",
+        "campaign-map.svg",
+        "campaign-residuals.svg",
+        "campaign-convergence.svg",
+    ] {
+        assert!(md.contains(name));
+        let svg = std::fs::read_to_string(dir.join(name)).unwrap();
+        well_formed(&svg);
+    }
+    assert!(md.contains("| station |") || md.contains("| # | station |"));
+    assert!(write_report(&red, &dir.join("campaign.pdf")).is_err());
+}
+
+#[test]
+fn a_5000_timing_report_stays_under_5_mb() {
+    let event = transit_on_date(
+        Planet::Venus,
+        parse_date("2012-06-06").unwrap(),
+        &TimeModel::default(),
+    )
+    .unwrap();
+    let stations: Vec<_> = global_stations(6000, "r").into_iter().take(2600).collect();
+    let settings = SimulationSettings {
+        min_altitude_deg: 0.0,
+        blunder_rate: 0.01,
+        ..SimulationSettings::default()
+    };
+    let mut rng = rand_chacha::ChaCha8Rng::seed_from_u64(7);
+    let camp = simulate_campaign(&event, &stations, &settings, &mut rng);
+    assert!(
+        camp.observations.valid.len() >= 5000,
+        "{}",
+        camp.observations.valid.len()
+    );
+    let red = reduce(
+        camp.observations,
+        &ReduceOptions {
+            event: Some((Planet::Venus, event.date())),
+            ..ReduceOptions::default()
+        },
+    )
+    .unwrap();
+    let html = html_report(&red);
+    assert!(html.len() < 5_000_000, "{} bytes", html.len());
+}
+
+fn find_chromium() -> Option<PathBuf> {
+    [
+        "/usr/bin/chromium",
+        "/usr/bin/chromium-browser",
+        "/usr/bin/google-chrome",
+    ]
+    .iter()
+    .map(PathBuf::from)
+    .find(|p| p.exists())
+}
+
+#[test]
+fn a_browser_renders_the_demo_report() {
+    let Some(chromium) = find_chromium() else {
+        eprintln!(
+            "SKIPPED: no chromium installed (CI installs Debian's chromium and runs this test)"
+        );
+        return;
+    };
+    let dir = temp_dir("browser");
+    let page = dir.join("demo.html");
+    std::fs::write(&page, html_report(&demo())).unwrap();
+    let shot = dir.join("demo.png");
+    let profile = dir.join("profile");
+    let status = Command::new(chromium)
+        .args([
+            "--headless",
+            "--no-sandbox",
+            "--disable-gpu",
+            "--disable-quic",
+            "--no-first-run",
+            "--disable-background-networking",
+            "--disable-component-update",
+            "--disable-sync",
+            "--disable-default-apps",
+            "--hide-scrollbars",
+            "--window-size=1200,3000",
+        ])
+        .arg(format!("--user-data-dir={}", profile.display()))
+        .arg(format!("--screenshot={}", shot.display()))
+        .arg(format!("file://{}", page.display()))
+        .output()
+        .expect("chromium runs");
+    assert!(
+        shot.exists(),
+        "no screenshot: {}",
+        String::from_utf8_lossy(&status.stderr)
+    );
+    let decoder = png::Decoder::new(std::fs::File::open(&shot).unwrap());
+    let mut reader = decoder.read_info().unwrap();
+    let mut buf = vec![0; reader.output_buffer_size()];
+    let info = reader.next_frame(&mut buf).unwrap();
+    assert_eq!(
+        (info.width, info.height),
+        (1200, 3000),
+        "rendered at full size"
+    );
+    let bytes = &buf[..info.buffer_size()];
+    let step = info.color_type.samples();
+    let mut distinct = std::collections::HashSet::new();
+    let mut non_white = 0usize;
+    for px in bytes.chunks(step) {
+        distinct.insert(px.to_vec());
+        if px.iter().take(3).any(|&c| c < 200) {
+            non_white += 1;
+        }
+    }
+    assert!(
+        distinct.len() > 50,
+        "the page looks blank ({} colours)",
+        distinct.len()
+    );
+    assert!(
+        non_white > 10_000,
+        "too little drawn ({non_white} dark pixels)"
+    );
+}
