@@ -195,14 +195,31 @@ fn reduce_writes_html_and_markdown_reports() {
     let dir = std::env::temp_dir().join(format!("tp-rep-{}", std::process::id()));
     std::fs::create_dir_all(&dir).unwrap();
     let html = dir.join("r.html");
-    let o = run(&["reduce", &campaign("venus-2004-clean"), "--report", html.to_str().unwrap()]);
+    let o = run(&[
+        "reduce",
+        &campaign("venus-2004-clean"),
+        "--report",
+        html.to_str().unwrap(),
+    ]);
     assert!(o.status.success(), "{}", stderr(&o));
     assert!(std::fs::read_to_string(&html).unwrap().contains("</html>"));
     let md = dir.join("r.md");
-    let o = run(&["reduce", &campaign("venus-2004-clean"), "--report", md.to_str().unwrap(), "--format", "json"]);
+    let o = run(&[
+        "reduce",
+        &campaign("venus-2004-clean"),
+        "--report",
+        md.to_str().unwrap(),
+        "--format",
+        "json",
+    ]);
     assert!(o.status.success());
     assert!(dir.join("r-map.svg").exists());
-    let o = run(&["reduce", &campaign("venus-2004-clean"), "--report", dir.join("r.docx").to_str().unwrap()]);
+    let o = run(&[
+        "reduce",
+        &campaign("venus-2004-clean"),
+        "--report",
+        dir.join("r.docx").to_str().unwrap(),
+    ]);
     assert_usage_error(&o, &[".html", ".md"]);
 }
 
