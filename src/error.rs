@@ -32,7 +32,7 @@ impl std::fmt::Display for Location {
 #[derive(Debug, thiserror::Error)]
 pub enum Error {
     /// A file could not be opened or read.
-    #[error("cannot read {}: {source}; check the path and permissions", path.display())]
+    #[error("cannot read or write {}: {source}; check the path and permissions", path.display())]
     Io {
         /// The path given.
         path: PathBuf,

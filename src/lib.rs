@@ -17,6 +17,7 @@
 #![deny(missing_docs)]
 
 pub mod besselian;
+pub mod campaign_output;
 pub mod charts;
 pub mod chebyshev;
 pub mod constants;
@@ -29,6 +30,7 @@ pub mod ephemeris;
 pub mod error;
 pub mod observations;
 pub mod output;
+pub mod planning;
 pub mod reduction;
 pub mod report;
 pub mod simulate;

@@ -5,7 +5,7 @@ use std::path::PathBuf;
 use std::process::ExitCode;
 use transit_parallax::output::{self, Format};
 use transit_parallax::reduction::ReduceOptions;
-use transit_parallax::{report, timescale, Error, Planet, TimeModel};
+use transit_parallax::{campaign_output, report, timescale, Error, Planet, TimeModel};
 
 #[derive(Parser)]
 #[command(
@@ -119,6 +119,104 @@ enum Command {
         #[command(flatten)]
         time: TimeArgs,
     },
+    /// Rank candidate sites, choose a network and forecast the precision; map a contact's sensitivity.
+    Plan {
+        /// venus or mercury.
+        #[arg(long)]
+        planet: String,
+        /// A date within one day of greatest transit, YYYY-MM-DD (UTC).
+        #[arg(long)]
+        date: String,
+        /// CSV file of candidate sites (columns of a stations file).
+        #[arg(long)]
+        sites: PathBuf,
+        /// Choose this many sites that together minimise the forecast uncertainty.
+        #[arg(long, value_name = "N")]
+        choose: Option<usize>,
+        /// Standard uncertainty of one timing, seconds.
+        #[arg(long = "sigma-s", value_name = "S", default_value_t = 10.0)]
+        sigma_s: f64,
+        /// Least altitude of the Sun for a contact to count, degrees.
+        #[arg(
+            long = "min-altitude",
+            value_name = "DEG",
+            default_value_t = 5.0,
+            allow_hyphen_values = true
+        )]
+        min_altitude: f64,
+        /// Output format.
+        #[arg(long, value_enum, default_value = "table")]
+        format: FormatArg,
+        /// Draw a world map of the sensitivity of one contact (with --contact) to this SVG file.
+        #[arg(long, value_name = "FILE.svg", requires = "contact")]
+        map: Option<PathBuf>,
+        /// The contact for --map and --grid-csv: 1-4 or I-IV.
+        #[arg(long)]
+        contact: Option<String>,
+        /// Grid spacing of the map, degrees.
+        #[arg(long = "grid-deg", value_name = "DEG", default_value_t = 2.0)]
+        grid_deg: f64,
+        /// Also write the grid as CSV (with --contact).
+        #[arg(long = "grid-csv", value_name = "FILE.csv", requires = "contact")]
+        grid_csv: Option<PathBuf>,
+        #[command(flatten)]
+        time: TimeArgs,
+    },
+    /// Monte Carlo campaigns through the real reduction: how precise will the AU come out?
+    Simulate {
+        /// venus or mercury.
+        #[arg(long)]
+        planet: String,
+        /// A date within one day of greatest transit, YYYY-MM-DD (UTC).
+        #[arg(long)]
+        date: String,
+        /// CSV file of the network's stations.
+        #[arg(long)]
+        network: PathBuf,
+        /// Number of simulated campaigns.
+        #[arg(long, default_value_t = 200)]
+        trials: usize,
+        /// Standard uncertainty of one timing, seconds (all contacts).
+        #[arg(long = "sigma-s", value_name = "S", default_value_t = 10.0)]
+        sigma_s: f64,
+        /// Seed of the random generator (the same seed gives the same result).
+        #[arg(long, default_value_t = 1)]
+        seed: u64,
+        /// Black-drop bias in seconds (II seen late, III early by this much).
+        #[arg(long = "black-drop", value_name = "S", default_value_t = 0.0)]
+        black_drop: f64,
+        /// Probability that a station is clouded out.
+        #[arg(long = "weather-loss", value_name = "P", default_value_t = 0.0)]
+        weather_loss: f64,
+        /// Probability that a timing carries a blunder.
+        #[arg(long = "blunder-rate", value_name = "P", default_value_t = 0.0)]
+        blunder_rate: f64,
+        /// Probability that a station's clock is wrong.
+        #[arg(long = "clock-error-rate", value_name = "P", default_value_t = 0.0)]
+        clock_error_rate: f64,
+        /// Size of a clock error, seconds.
+        #[arg(long = "clock-error-s", value_name = "S", default_value_t = 60.0)]
+        clock_error_s: f64,
+        /// Least altitude of the Sun for a contact to be timed, degrees.
+        #[arg(
+            long = "min-altitude",
+            value_name = "DEG",
+            default_value_t = 5.0,
+            allow_hyphen_values = true
+        )]
+        min_altitude: f64,
+        /// Worker threads (default: all cores).
+        #[arg(long)]
+        threads: Option<usize>,
+        /// Write a histogram of the AU estimates to this SVG file.
+        #[arg(long, value_name = "FILE.svg")]
+        histogram: Option<PathBuf>,
+        /// Output format.
+        #[arg(long, value_enum, default_value = "table")]
+        format: FormatArg,
+        #[command(flatten)]
+        time: TimeArgs,
+    },
     /// Run the main job on an embedded, invented campaign and write its HTML report.
     Demo {
         /// Where to write the report (default: transit-parallax-demo.html in the current folder).
@@ -213,6 +311,7 @@ fn run(cli: Cli) -> Result<String, Error> {
                     .unwrap_or_else(transit_parallax::constants::nominal_parallax_arcsec),
                 time_model: time.model()?,
                 outlier_threshold,
+                follow_convergence: report_path.is_some(),
             };
             let set = transit_parallax::observations::read_observations(&observations, strict)?;
             let red = transit_parallax::reduction::reduce(set, &options)?;
@@ -230,8 +329,182 @@ fn run(cli: Cli) -> Result<String, Error> {
             }
             Ok(text)
         }
+        Command::Plan {
+            planet,
+            date,
+            sites,
+            choose,
+            sigma_s,
+            min_altitude,
+            format,
+            map,
+            contact,
+            grid_deg,
+            grid_csv,
+            time,
+        } => {
+            let planet = planet_of(&planet)?;
+            let date = date_of(&date)?;
+            check_range("--sigma-s", sigma_s, 0.01, 3600.0)?;
+            check_range("--min-altitude", min_altitude, -1.0, 60.0)?;
+            check_range("--grid-deg", grid_deg, 0.1, 30.0)?;
+            let model = time.model()?;
+            let stations = transit_parallax::station::read_stations(&sites)?;
+            let event = transit_parallax::transit_on_date(planet, date, &model)?;
+            let plan =
+                transit_parallax::planning::plan(&event, &stations, sigma_s, min_altitude, choose);
+            let mut text = match format_of(format) {
+                Format::Table => campaign_output::plan_table(&event, &plan, min_altitude),
+                Format::Csv => campaign_output::plan_csv(&event, &plan),
+                Format::Json => pretty(&campaign_output::plan_json(&event, &plan, min_altitude)),
+            };
+            if let Some(c) = contact {
+                let c = transit_parallax::Contact::parse(&c).ok_or_else(|| {
+                    Error::argument(format!(
+                        "--contact '{c}' is not a contact; give 1-4 or I-IV"
+                    ))
+                })?;
+                let grid = transit_parallax::planning::sensitivity_grid(&event, c, grid_deg);
+                if let Some(path) = map {
+                    let title = format!(
+                        "Transit of {} {}: sensitivity of contact {}",
+                        planet,
+                        event.date(),
+                        c.roman()
+                    );
+                    let svg = transit_parallax::charts::sensitivity_map_svg(
+                        &grid,
+                        grid_deg,
+                        c,
+                        min_altitude,
+                        &title,
+                    );
+                    write_file(&path, &svg)?;
+                    if format_of(format) == Format::Table {
+                        text.push_str(&format!("map written: {}\n", path.display()));
+                    }
+                }
+                if let Some(path) = grid_csv {
+                    write_file(
+                        &path,
+                        &campaign_output::grid_csv(&event, &grid, min_altitude),
+                    )?;
+                    if format_of(format) == Format::Table {
+                        text.push_str(&format!("grid written: {}\n", path.display()));
+                    }
+                }
+            }
+            Ok(text)
+        }
+        Command::Simulate {
+            planet,
+            date,
+            network,
+            trials,
+            sigma_s,
+            seed,
+            black_drop,
+            weather_loss,
+            blunder_rate,
+            clock_error_rate,
+            clock_error_s,
+            min_altitude,
+            threads,
+            histogram,
+            format,
+            time,
+        } => {
+            let planet = planet_of(&planet)?;
+            let date = date_of(&date)?;
+            check_range("--trials", trials as f64, 1.0, 1_000_000.0)?;
+            check_range("--sigma-s", sigma_s, 0.01, 3600.0)?;
+            check_range("--black-drop", black_drop, -600.0, 600.0)?;
+            for (name, p) in [
+                ("--weather-loss", weather_loss),
+                ("--blunder-rate", blunder_rate),
+                ("--clock-error-rate", clock_error_rate),
+            ] {
+                check_range(name, p, 0.0, 1.0)?;
+            }
+            check_range("--clock-error-s", clock_error_s, 0.0, 86_400.0)?;
+            check_range("--min-altitude", min_altitude, -1.0, 60.0)?;
+            let model = time.model()?;
+            let stations = transit_parallax::station::read_stations(&network)?;
+            let event = transit_parallax::transit_on_date(planet, date, &model)?;
+            let settings = transit_parallax::simulate::SimulationSettings {
+                sigma_s: [sigma_s; 4],
+                black_drop_bias_s: black_drop,
+                min_altitude_deg: min_altitude,
+                weather_loss,
+                blunder_rate,
+                clock_error_rate,
+                clock_error_s,
+            };
+            let threads = threads.unwrap_or_else(|| {
+                std::thread::available_parallelism()
+                    .map(|n| n.get())
+                    .unwrap_or(1)
+            });
+            let bar = indicatif::ProgressBar::new(trials as u64);
+            bar.set_style(
+                indicatif::ProgressStyle::with_template(
+                    "{bar:40} {pos}/{len} campaigns ({eta} left)",
+                )
+                .unwrap_or_else(|_| indicatif::ProgressStyle::default_bar()),
+            );
+            let tick = || bar.inc(1);
+            let summary = transit_parallax::simulate::monte_carlo(
+                &event, &stations, &settings, trials, seed, threads, &tick,
+            );
+            bar.finish_and_clear();
+            let mut text = match format_of(format) {
+                Format::Json => pretty(&campaign_output::simulation_json(
+                    &event,
+                    &summary,
+                    &settings,
+                    stations.len(),
+                    seed,
+                )),
+                _ => campaign_output::simulation_table(&event, &summary, stations.len()),
+            };
+            if let Some(path) = histogram {
+                let title = format!(
+                    "AU from {} simulated campaigns, transit of {} {}",
+                    summary.solved,
+                    planet,
+                    event.date()
+                );
+                let svg = transit_parallax::charts::histogram_svg(
+                    &summary.au_estimates_km,
+                    transit_parallax::constants::AU_KM,
+                    "astronomical unit (km)",
+                    &title,
+                );
+                write_file(&path, &svg)?;
+                if format_of(format) != Format::Json {
+                    text.push_str(&format!("histogram written: {}\n", path.display()));
+                }
+            }
+            Ok(text)
+        }
         Command::Demo { report } => transit_parallax::demo::run_demo(&report),
     }
+}
+
+fn check_range(name: &str, value: f64, min: f64, max: f64) -> Result<(), Error> {
+    if !value.is_finite() || value < min || value > max {
+        return Err(Error::argument(format!(
+            "{name} {value} is outside {min} to {max}"
+        )));
+    }
+    Ok(())
+}
+
+fn write_file(path: &std::path::Path, text: &str) -> Result<(), Error> {
+    std::fs::write(path, text).map_err(|source| Error::Io {
+        path: path.to_path_buf(),
+        source,
+    })
 }
 
 fn pretty(v: &serde_json::Value) -> String {

@@ -21,7 +21,7 @@ use crate::constants::{au_km_from_parallax_arcsec, nominal_parallax_arcsec, ARCS
 use crate::contacts::{
     contact_partials, offset_on_plane, sun_alt_az_parallactic, Contact, Perturbation,
 };
-use crate::diagnosis::{explain_row, explain_station, StationTiming};
+use crate::diagnosis::{clock_offset_s, explain_row, explain_station, StationTiming};
 use crate::ephemeris::Planet;
 use crate::error::{Error, Result};
 use crate::observations::{Observation, ObservationSet, RejectReason, Rejected};
@@ -62,6 +62,9 @@ pub struct ReduceOptions {
     pub time_model: TimeModel,
     /// Rejection threshold in robust standard deviations.
     pub outlier_threshold: f64,
+    /// Whether to follow the solution as timings are added (for the report's convergence
+    /// chart; Monte Carlo forecasts leave it out for speed).
+    pub follow_convergence: bool,
 }
 
 impl Default for ReduceOptions {
@@ -71,6 +74,7 @@ impl Default for ReduceOptions {
             prior_parallax_arcsec: nominal_parallax_arcsec(),
             time_model: TimeModel::default(),
             outlier_threshold: 5.0,
+            follow_convergence: true,
         }
     }
 }
@@ -254,13 +258,35 @@ fn model_row(
     theta: &[f64; N_PARAMS],
     er: f64,
 ) -> Option<(f64, [f64; N_PARAMS])> {
+    condition_row_with(event, &t.geo, t.obs.contact, theta, er)
+}
+
+/// A contact's computed time (hours from the elements' epoch) and its condition-equation row:
+/// the partial derivatives of the contact time (seconds) with respect to the parameters of
+/// [`PARAMETER_NAMES`] (per arcsecond), at parameter values `theta`.
+pub fn condition_row(
+    event: &TransitEvent,
+    geo: &GeocentricStation,
+    contact: Contact,
+    theta: &[f64; N_PARAMS],
+) -> Option<(f64, [f64; N_PARAMS])> {
+    condition_row_with(event, geo, contact, theta, event.earth_radii_per_arcsec())
+}
+
+fn condition_row_with(
+    event: &TransitEvent,
+    geo: &GeocentricStation,
+    contact: Contact,
+    theta: &[f64; N_PARAMS],
+    er: f64,
+) -> Option<(f64, [f64; N_PARAMS])> {
     let p = perturbation(theta, er);
-    let h = event.contact_hours_perturbed(&t.geo, t.obs.contact, &p)?;
-    let d = contact_partials(&event.elements, Some(&t.geo), t.obs.contact, h, &p);
+    let h = event.contact_hours_perturbed(geo, contact, &p)?;
+    let d = contact_partials(&event.elements, Some(geo), contact, h, &p);
     let pi = theta[0] * ARCSEC_RAD;
     let ds_dpi = -(nominal_parallax_arcsec() * ARCSEC_RAD).sin() * pi.cos() / (pi.sin() * pi.sin())
         * ARCSEC_RAD;
-    let ext = t.obs.contact.is_exterior();
+    let ext = contact.is_exterior();
     Some((
         h,
         [
@@ -271,6 +297,11 @@ fn model_row(
             if ext { 0.0 } else { d.per_dl_h * er * 3600.0 },
         ],
     ))
+}
+
+/// The nominal parameter values (IAU parallax, no corrections).
+pub fn nominal_theta() -> [f64; N_PARAMS] {
+    [nominal_parallax_arcsec(), 0.0, 0.0, 0.0, 0.0]
 }
 
 fn describe_confusion(timings: &[&Timing], names: &[&str]) -> String {
@@ -478,6 +509,19 @@ pub fn reduce(set: ObservationSet, options: &ReduceOptions) -> Result<Reduction>
         Some((planet, date)) => transit_on_date(planet, date, &model)?,
         None => infer_event(&set.valid, &model)?,
     };
+    reduce_for_event(set, event, options)
+}
+
+/// Reduce a set of timings for an event already computed (as [`reduce`]; the event's time
+/// model is used and `options.event` is ignored). Saves the event's setup when many campaigns
+/// are reduced for one transit.
+pub fn reduce_for_event(
+    set: ObservationSet,
+    event: TransitEvent,
+    options: &ReduceOptions,
+) -> Result<Reduction> {
+    check_parallax(options.prior_parallax_arcsec)?;
+    let model = *event.time_model();
     let er = event.earth_radii_per_arcsec();
     let mut rejected = set.rejected.clone();
     let greatest_h = event.hours_of_greatest();
@@ -636,6 +680,27 @@ pub fn reduce(set: ObservationSet, options: &ReduceOptions) -> Result<Reduction>
                 .collect();
             let bad = rows.iter().filter(|&&i| not_used(i)).count();
             if bad == 0 || 2 * bad < rows.len() {
+                // A clock error can hide below the rejection threshold, partly absorbed by the
+                // fit: test every station with two or more timings for a common offset.
+                if rows.len() >= 2 {
+                    let res: Option<Vec<f64>> = rows
+                        .iter()
+                        .map(|&i| residual_at(i, &outcome.theta))
+                        .collect();
+                    let sig: Vec<f64> = rows.iter().map(|&i| timings[i].obs.sigma_s).collect();
+                    if let Some(offset) = res
+                        .and_then(|r| clock_offset_s(&r, &sig, scatter, options.outlier_threshold))
+                    {
+                        station_rows.push((
+                            rows.clone(),
+                            format!(
+                                "all {} timings of station '{}' are off by about {offset:+.1} s: its clock was probably wrong by that much",
+                                rows.len(),
+                                name
+                            ),
+                        ));
+                    }
+                }
                 continue;
             }
             let st_rows: Vec<StationTiming> = rows
@@ -868,7 +933,7 @@ fn summarise(
     };
 
     let stations = contributions(&event, timings, used, &outcome, &w, er);
-    let convergence = if determined {
+    let convergence = if determined && options.follow_convergence {
         convergence(&event, timings, used, &outcome.theta)
     } else {
         Vec::new()

@@ -211,3 +211,117 @@ pub fn campaign_csv(set: &ObservationSet) -> String {
     }
     s
 }
+
+/// One trial's outcome: (AU km, AU sigma km, interval holds the truth) if solved; blunders
+/// injected; blunders caught; timings.
+type TrialOutcome = (Option<(f64, f64, bool)>, usize, usize, usize);
+
+/// Summary of a Monte Carlo series of simulated campaigns reduced with the real reduction.
+#[derive(Clone, Debug, PartialEq)]
+pub struct MonteCarloSummary {
+    /// Trials run.
+    pub trials: usize,
+    /// Trials whose reduction gave a parallax.
+    pub solved: usize,
+    /// The AU estimates, km.
+    pub au_estimates_km: Vec<f64>,
+    /// Median of the stated AU uncertainties, km (the typical forecast).
+    pub au_sigma_forecast_km: f64,
+    /// Standard deviation of the AU estimates, km.
+    pub au_scatter_km: f64,
+    /// Mean AU estimate minus the true AU, km.
+    pub au_bias_km: f64,
+    /// Share of trials whose 95 % interval holds the true AU.
+    pub coverage_95: f64,
+    /// Blunders injected over all trials.
+    pub blunders_injected: usize,
+    /// Of those, the ones rejected by the reduction.
+    pub blunders_caught: usize,
+    /// Mean number of timings per campaign.
+    pub mean_timings: f64,
+}
+
+/// Run `trials` simulated campaigns (trial k uses seed `seed + k`) through the reduction on
+/// `threads` threads; `progress` is called with each finished trial's count.
+pub fn monte_carlo(
+    event: &TransitEvent,
+    stations: &[Station],
+    settings: &SimulationSettings,
+    trials: usize,
+    seed: u64,
+    threads: usize,
+    progress: &(dyn Fn() + Sync),
+) -> MonteCarloSummary {
+    use rand::SeedableRng;
+    let truth_km = crate::constants::AU_KM;
+    let options = crate::reduction::ReduceOptions {
+        event: Some((event.planet, event.date())),
+        follow_convergence: false,
+        ..crate::reduction::ReduceOptions::default()
+    };
+    let run_one = |k: usize| -> TrialOutcome {
+        let mut rng = rand_chacha::ChaCha8Rng::seed_from_u64(seed.wrapping_add(k as u64));
+        let camp = simulate_campaign(event, stations, settings, &mut rng);
+        let n = camp.observations.valid.len();
+        let injected: Vec<u64> = camp.blunders.iter().map(|(i, _)| *i as u64 + 2).collect();
+        let result =
+            crate::reduction::reduce_for_event(camp.observations, event.clone(), &options).ok();
+        let out = result.as_ref().and_then(|r| {
+            let (lo, hi) = r.au_interval_95_km?;
+            Some((r.au_km?, r.au_sigma_km?, lo <= truth_km && truth_km <= hi))
+        });
+        let caught = result
+            .as_ref()
+            .map(|r| {
+                injected
+                    .iter()
+                    .filter(|l| r.rejected.iter().any(|x| x.line == **l))
+                    .count()
+            })
+            .unwrap_or(0);
+        progress();
+        (out, injected.len(), caught, n)
+    };
+    let threads = threads.clamp(1, 64);
+    // Results are put back in trial order, so that any number of threads gives the same sums.
+    let mut indexed: Vec<(usize, TrialOutcome)> = std::thread::scope(|s| {
+        let handles: Vec<_> = (0..threads)
+            .map(|t| {
+                let run_one = &run_one;
+                s.spawn(move || {
+                    (t..trials)
+                        .step_by(threads)
+                        .map(|k| (k, run_one(k)))
+                        .collect::<Vec<_>>()
+                })
+            })
+            .collect();
+        handles
+            .into_iter()
+            .flat_map(|h| h.join().unwrap_or_default())
+            .collect()
+    });
+    indexed.sort_by_key(|(k, _)| *k);
+    let results: Vec<TrialOutcome> = indexed.into_iter().map(|(_, r)| r).collect();
+    let solved: Vec<(f64, f64, bool)> = results.iter().filter_map(|r| r.0).collect();
+    let m = solved.len().max(1) as f64;
+    let mean = solved.iter().map(|r| r.0).sum::<f64>() / m;
+    let scatter = if solved.len() > 1 {
+        (solved.iter().map(|r| (r.0 - mean).powi(2)).sum::<f64>() / (m - 1.0)).sqrt()
+    } else {
+        f64::NAN
+    };
+    let sigmas: Vec<f64> = solved.iter().map(|r| r.1).collect();
+    MonteCarloSummary {
+        trials,
+        solved: solved.len(),
+        au_estimates_km: solved.iter().map(|r| r.0).collect(),
+        au_sigma_forecast_km: crate::solver::median(&sigmas),
+        au_scatter_km: scatter,
+        au_bias_km: mean - truth_km,
+        coverage_95: solved.iter().filter(|r| r.2).count() as f64 / m,
+        blunders_injected: results.iter().map(|r| r.1).sum(),
+        blunders_caught: results.iter().map(|r| r.2).sum(),
+        mean_timings: results.iter().map(|r| r.3 as f64).sum::<f64>() / results.len().max(1) as f64,
+    }
+}

@@ -6,7 +6,7 @@
 use rand::SeedableRng;
 use rand_chacha::ChaCha8Rng;
 use transit_parallax::constants::nominal_parallax_arcsec;
-use transit_parallax::reduction::{reduce, ReduceOptions};
+use transit_parallax::reduction::{reduce_for_event, ReduceOptions};
 use transit_parallax::simulate::{global_stations, simulate_campaign, SimulationSettings};
 use transit_parallax::timescale::{parse_date, TimeModel};
 use transit_parallax::{transit_on_date, Planet, Station, TransitEvent};
@@ -57,7 +57,7 @@ fn monte_carlo(
                     event: Some((planet, event.date())),
                     ..ReduceOptions::default()
                 };
-                let red = reduce(camp.observations, &options).unwrap();
+                let red = reduce_for_event(camp.observations, event.clone(), &options).unwrap();
                 let (lo, hi) = red.parallax_interval_95.unwrap();
                 (
                     red.parallax_arcsec.unwrap(),

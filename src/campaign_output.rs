@@ -1,0 +1,281 @@
+//! Rendering of campaign plans, sensitivity grids and Monte Carlo forecasts (table, CSV, JSON).
+
+use crate::constants::AU_KM;
+use crate::output::SAFETY_CAUTION;
+use crate::planning::{GridPoint, Plan};
+use crate::simulate::{MonteCarloSummary, SimulationSettings};
+use crate::timescale::format_utc;
+use crate::transit::TransitEvent;
+use serde_json::{json, Value};
+
+fn r(x: f64, d: i32) -> f64 {
+    let p = 10f64.powi(d);
+    (x * p).round() / p
+}
+
+fn csv_field(text: &str) -> String {
+    if text.contains([',', '"', '\n', '\r']) {
+        format!("\"{}\"", text.replace('"', "\"\""))
+    } else {
+        text.to_string()
+    }
+}
+
+/// The columns of `plan` CSV output, in order.
+pub const PLAN_COLUMNS: &str =
+    "station,contact,time_utc,sun_altitude_deg,sensitivity_s_per_arcsec,visible,gain_percent,chosen";
+
+/// CSV of a plan: one row per site and contact that occurs there.
+pub fn plan_csv(event: &TransitEvent, plan: &Plan) -> String {
+    let mut s = String::from(PLAN_COLUMNS);
+    s.push('\n');
+    for (i, site) in plan.sites.iter().enumerate() {
+        for c in &site.contacts {
+            s.push_str(&format!(
+                "{},{},{},{:.3},{:.3},{},{},{}\n",
+                csv_field(&site.station.name),
+                c.contact.number(),
+                format_utc(event.label(c.hours), 2),
+                c.sun_altitude_deg,
+                c.sensitivity_s_per_arcsec,
+                c.visible,
+                site.gain_percent
+                    .map(|g| format!("{g:.3}"))
+                    .unwrap_or_default(),
+                plan.chosen.contains(&i)
+            ));
+        }
+    }
+    s
+}
+
+/// JSON of a plan.
+pub fn plan_json(event: &TransitEvent, plan: &Plan, min_altitude_deg: f64) -> Value {
+    let sites: Vec<Value> = plan
+        .sites
+        .iter()
+        .enumerate()
+        .map(|(i, site)| {
+            json!({
+                "station": site.station.name,
+                "latitude": site.station.latitude_deg,
+                "longitude": site.station.longitude_deg,
+                "gain_percent": site.gain_percent.map(|g| r(g, 3)),
+                "chosen": plan.chosen.contains(&i),
+                "contacts": site.contacts.iter().map(|c| json!({
+                    "contact": c.contact.number(),
+                    "time_utc": format_utc(event.label(c.hours), 2),
+                    "sun_altitude_deg": r(c.sun_altitude_deg, 3),
+                    "sensitivity_s_per_arcsec": r(c.sensitivity_s_per_arcsec, 3),
+                    "visible": c.visible,
+                })).collect::<Vec<_>>(),
+            })
+        })
+        .collect();
+    json!({
+        "planet": event.planet.name(),
+        "transit_date": event.date().to_string(),
+        "sigma_s": plan.sigma_s,
+        "min_altitude_deg": min_altitude_deg,
+        "sites": sites,
+        "forecast_all_sites_sigma_arcsec": plan.all_sites_sigma_arcsec.map(|x| r(x, 6)),
+        "chosen": plan.chosen.iter().map(|&i| plan.sites[i].station.name.clone()).collect::<Vec<_>>(),
+        "forecast_parallax_sigma_arcsec": plan.chosen_sigma_arcsec.map(|x| r(x, 6)),
+        "forecast_au_sigma_km": plan.chosen_sigma_arcsec.map(|x| r(au_sigma_km(x), 0)),
+        "reasons": plan.reasons,
+    })
+}
+
+fn au_sigma_km(parallax_sigma_arcsec: f64) -> f64 {
+    let pi = crate::constants::nominal_parallax_arcsec() * crate::constants::ARCSEC_RAD;
+    AU_KM * parallax_sigma_arcsec * crate::constants::ARCSEC_RAD / pi.tan()
+}
+
+/// A readable plan.
+pub fn plan_table(event: &TransitEvent, plan: &Plan, min_altitude_deg: f64) -> String {
+    let mut s = format!(
+        "Planning for the transit of {} on {} (timings of {:.0} s assumed; contacts counted with the Sun at least {:.0} deg up)\n\n",
+        event.planet.name(),
+        event.date(),
+        plan.sigma_s,
+        min_altitude_deg
+    );
+    s.push_str(&format!(
+        "{:<24} {:>3} {:>24} {:>8} {:>9} {:>8}\n",
+        "site", "", "time (UTC)", "Sun alt", "s/arcsec", "gain %"
+    ));
+    for (i, site) in plan.sites.iter().enumerate() {
+        let name: String = site.station.name.chars().take(23).collect();
+        let mark = if plan.chosen.contains(&i) { "*" } else { " " };
+        for (k, c) in site.contacts.iter().enumerate() {
+            s.push_str(&format!(
+                "{:<23}{} {:>3} {:>24} {:>8.1} {:>9.2} {:>8}{}\n",
+                if k == 0 { name.clone() } else { String::new() },
+                if k == 0 { mark } else { " " },
+                c.contact.roman(),
+                format_utc(event.label(c.hours), 1),
+                c.sun_altitude_deg,
+                c.sensitivity_s_per_arcsec,
+                if k == 0 {
+                    site.gain_percent
+                        .map(|g| format!("{g:.2}"))
+                        .unwrap_or_else(|| "-".into())
+                } else {
+                    String::new()
+                },
+                if c.visible {
+                    ""
+                } else {
+                    "  (too low or below horizon)"
+                }
+            ));
+        }
+        if site.contacts.is_empty() {
+            s.push_str(&format!(
+                "{name:<23}{mark} no contact of this transit here\n"
+            ));
+        }
+    }
+    s.push_str("\ngain %: how much larger the forecast uncertainty of the whole candidate network would be without the site.\n");
+    if let Some(a) = plan.all_sites_sigma_arcsec {
+        s.push_str(&format!(
+            "Forecast with every site: parallax +- {a:.4}\" (AU +- {:.0} km).\n",
+            au_sigma_km(a)
+        ));
+    }
+    if !plan.chosen.is_empty() {
+        let names: Vec<&str> = plan
+            .chosen
+            .iter()
+            .map(|&i| plan.sites[i].station.name.as_str())
+            .collect();
+        s.push_str(&format!(
+            "\nChosen ({}, marked *): {}\n",
+            names.len(),
+            names.join(", ")
+        ));
+        match plan.chosen_sigma_arcsec {
+            Some(x) => s.push_str(&format!(
+                "Forecast for the chosen sites: parallax +- {x:.4}\" (AU +- {:.0} km).\n",
+                au_sigma_km(x)
+            )),
+            None => s.push_str("The chosen sites cannot determine the parallax by themselves.\n"),
+        }
+        for reason in &plan.reasons {
+            s.push_str(&format!("  - {reason}\n"));
+        }
+    }
+    s.push('\n');
+    s.push_str(SAFETY_CAUTION);
+    s.push('\n');
+    s
+}
+
+/// CSV of a sensitivity grid.
+pub fn grid_csv(event: &TransitEvent, points: &[GridPoint], min_altitude_deg: f64) -> String {
+    let mut s = String::from(
+        "latitude,longitude,time_utc,sun_altitude_deg,sensitivity_s_per_arcsec,visible\n",
+    );
+    for p in points {
+        match p.hours {
+            Some(h) => s.push_str(&format!(
+                "{:.4},{:.4},{},{:.3},{:.3},{}\n",
+                p.latitude_deg,
+                p.longitude_deg,
+                format_utc(event.label(h), 1),
+                p.sun_altitude_deg,
+                p.sensitivity_s_per_arcsec,
+                p.sun_altitude_deg >= min_altitude_deg
+            )),
+            None => s.push_str(&format!(
+                "{:.4},{:.4},,,,false\n",
+                p.latitude_deg, p.longitude_deg
+            )),
+        }
+    }
+    s
+}
+
+/// JSON of a Monte Carlo forecast.
+pub fn simulation_json(
+    event: &TransitEvent,
+    m: &MonteCarloSummary,
+    settings: &SimulationSettings,
+    stations: usize,
+    seed: u64,
+) -> Value {
+    json!({
+        "planet": event.planet.name(),
+        "transit_date": event.date().to_string(),
+        "stations": stations,
+        "trials": m.trials,
+        "trials_solved": m.solved,
+        "seed": seed,
+        "mean_timings_per_campaign": r(m.mean_timings, 2),
+        "au_true_km": AU_KM,
+        "au_mean_km": r(AU_KM + m.au_bias_km, 0),
+        "au_bias_km": r(m.au_bias_km, 0),
+        "au_sigma_forecast_km": r(m.au_sigma_forecast_km, 0),
+        "au_scatter_km": r(m.au_scatter_km, 0),
+        "coverage_95": r(m.coverage_95, 4),
+        "blunders_injected": m.blunders_injected,
+        "blunders_caught": m.blunders_caught,
+        "blunders_caught_share": if m.blunders_injected > 0 { Some(r(m.blunders_caught as f64 / m.blunders_injected as f64, 4)) } else { None },
+        "settings": {
+            "sigma_s": settings.sigma_s,
+            "black_drop_bias_s": settings.black_drop_bias_s,
+            "min_altitude_deg": settings.min_altitude_deg,
+            "weather_loss": settings.weather_loss,
+            "blunder_rate": settings.blunder_rate,
+            "clock_error_rate": settings.clock_error_rate,
+            "clock_error_s": settings.clock_error_s,
+        },
+    })
+}
+
+/// A readable Monte Carlo forecast.
+pub fn simulation_table(event: &TransitEvent, m: &MonteCarloSummary, stations: usize) -> String {
+    let mut s = format!(
+        "Monte Carlo forecast: {} simulated campaigns of {} stations, transit of {} on {}\n\n",
+        m.trials,
+        stations,
+        event.planet.name(),
+        event.date()
+    );
+    s.push_str(&format!(
+        "  timings per campaign (mean)     {:.1}\n",
+        m.mean_timings
+    ));
+    s.push_str(&format!(
+        "  campaigns reduced               {} of {}\n",
+        m.solved, m.trials
+    ));
+    s.push_str(&format!(
+        "  forecast AU uncertainty         {:.0} km (median of the stated sigmas)\n",
+        m.au_sigma_forecast_km
+    ));
+    s.push_str(&format!(
+        "  scatter of the AU estimates     {:.0} km\n",
+        m.au_scatter_km
+    ));
+    s.push_str(&format!(
+        "  bias of the mean AU             {:+.0} km\n",
+        m.au_bias_km
+    ));
+    s.push_str(&format!(
+        "  95 % intervals holding the AU   {:.1} %\n",
+        100.0 * m.coverage_95
+    ));
+    if m.blunders_injected > 0 {
+        s.push_str(&format!(
+            "  blunders caught                 {} of {} ({:.1} %)\n",
+            m.blunders_caught,
+            m.blunders_injected,
+            100.0 * m.blunders_caught as f64 / m.blunders_injected as f64
+        ));
+    }
+    s.push('\n');
+    s.push_str(SAFETY_CAUTION);
+    s.push('\n');
+    s
+}

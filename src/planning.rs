@@ -1,0 +1,324 @@
+//! Campaign planning: which sites to recruit, what each can time, and how precise the parallax
+//! will come out.
+//!
+//! The forecast is the Fisher information of the reduction's own condition equations: each
+//! contact a site sees with the Sun above the minimum altitude adds its row of partial
+//! derivatives (seconds per arcsecond of each parameter) with weight 1/sigma^2, and the forecast
+//! variance of the parallax is the (parallax, parallax) element of the inverse, with the nuisance
+//! parameters (the planet's offsets and the radius corrections) included. Sites are chosen
+//! greedily, each step adding the site that most reduces that variance.
+//!
+//! References: S. D. Silvey, *Optimal Design* (1980), ch. 1-3 (information matrices,
+//! D- and c-optimal designs; greedy, sequential selection); the classical pairings: E. Halley,
+//! Phil. Trans. 29, 454 (1716) (durations, stations far apart in latitude) and J.-N. Delisle's
+//! method of one contact from stations far apart in longitude (1760).
+
+use crate::contacts::Contact;
+use crate::reduction::{condition_row, nominal_theta, N_PARAMS};
+use crate::station::Station;
+use crate::transit::TransitEvent;
+use nalgebra::{DMatrix, SMatrix};
+
+type Info = SMatrix<f64, N_PARAMS, N_PARAMS>;
+
+/// One site's view of one contact.
+#[derive(Clone, Debug, PartialEq)]
+pub struct SiteContact {
+    /// Which contact.
+    pub contact: Contact,
+    /// Hours from the elements' epoch.
+    pub hours: f64,
+    /// True altitude of the Sun, degrees.
+    pub sun_altitude_deg: f64,
+    /// Seconds of contact time per arcsecond of solar parallax.
+    pub sensitivity_s_per_arcsec: f64,
+    /// Whether the Sun is at least at the minimum altitude.
+    pub visible: bool,
+    row: [f64; N_PARAMS],
+}
+
+/// A candidate site.
+#[derive(Clone, Debug)]
+pub struct Site {
+    /// The site.
+    pub station: Station,
+    /// Its contacts (those that occur there).
+    pub contacts: Vec<SiteContact>,
+    /// Percentage by which the whole candidate network's forecast sigma would grow without
+    /// this site (its gain to the network); `None` if the rest cannot determine the parallax.
+    pub gain_percent: Option<f64>,
+}
+
+/// The result of planning.
+#[derive(Clone, Debug)]
+pub struct Plan {
+    /// All candidate sites, in file order.
+    pub sites: Vec<Site>,
+    /// Forecast sigma of the parallax with every site (arcsec), if determined.
+    pub all_sites_sigma_arcsec: Option<f64>,
+    /// Indices of the chosen sites, in order of choice.
+    pub chosen: Vec<usize>,
+    /// Forecast sigma of the parallax for the chosen sites (arcsec).
+    pub chosen_sigma_arcsec: Option<f64>,
+    /// Sentences explaining the choice.
+    pub reasons: Vec<String>,
+    /// Timing uncertainty assumed, seconds.
+    pub sigma_s: f64,
+}
+
+fn information(sites: &[Site], which: &[usize], sigma_s: f64) -> Info {
+    let mut n = Info::zeros();
+    let w = 1.0 / (sigma_s * sigma_s);
+    for &i in which {
+        for c in sites[i].contacts.iter().filter(|c| c.visible) {
+            let r = nalgebra::SVector::<f64, N_PARAMS>::from_row_slice(&c.row);
+            n += w * r * r.transpose();
+        }
+    }
+    n
+}
+
+/// Forecast sigma of the parallax from an information matrix, with the parameters no site
+/// constrains (all-zero columns) left out; `None` when the parallax is not determined.
+pub fn forecast_sigma(n: &Info) -> Option<f64> {
+    let idx: Vec<usize> = (0..N_PARAMS).filter(|&j| n[(j, j)] > 0.0).collect();
+    if !idx.contains(&0) {
+        return None;
+    }
+    let m = DMatrix::from_fn(idx.len(), idx.len(), |a, b| n[(idx[a], idx[b])]);
+    let d: Vec<f64> = (0..idx.len()).map(|a| m[(a, a)].sqrt()).collect();
+    let corr = DMatrix::from_fn(idx.len(), idx.len(), |a, b| m[(a, b)] / (d[a] * d[b]));
+    if corr.clone().symmetric_eigenvalues().min() < crate::solver::RANK_TOLERANCE.powi(2) {
+        return None;
+    }
+    let inv = corr.try_inverse()?;
+    let var = inv[(0, 0)] / (d[0] * d[0]);
+    (var > 0.0).then(|| var.sqrt())
+}
+
+/// Forecast with a weak prior on the nuisance parameters (10 arcsec), used only to rank sites
+/// while the chosen set is still too small to determine everything.
+fn forecast_sigma_regularised(n: &Info) -> f64 {
+    let mut m = *n;
+    for j in 1..N_PARAMS {
+        m[(j, j)] += 1.0 / (10.0f64 * 10.0);
+    }
+    m[(0, 0)] += 1e-12;
+    m.try_inverse()
+        .map(|inv| inv[(0, 0)].max(0.0).sqrt())
+        .unwrap_or(f64::INFINITY)
+}
+
+/// Evaluate every candidate site and, with `choose`, pick that many greedily.
+///
+/// Arguments: `event`; `stations`; `sigma_s`, the timing uncertainty assumed for every contact;
+/// `min_altitude_deg`; `choose`, how many sites to pick.
+pub fn plan(
+    event: &TransitEvent,
+    stations: &[Station],
+    sigma_s: f64,
+    min_altitude_deg: f64,
+    choose: Option<usize>,
+) -> Plan {
+    let theta = nominal_theta();
+    let mut sites: Vec<Site> = stations
+        .iter()
+        .map(|st| {
+            let geo = st.geocentric();
+            let pred = event.predict(st);
+            let contacts = Contact::ALL
+                .iter()
+                .filter_map(|&c| {
+                    let cc = pred.contacts[c.index()]?;
+                    let (_, row) = condition_row(event, &geo, c, &theta)?;
+                    Some(SiteContact {
+                        contact: c,
+                        hours: cc.hours,
+                        sun_altitude_deg: cc.sun_altitude_deg,
+                        sensitivity_s_per_arcsec: cc.sensitivity_s_per_arcsec,
+                        visible: cc.sun_altitude_deg >= min_altitude_deg,
+                        row,
+                    })
+                })
+                .collect();
+            Site {
+                station: st.clone(),
+                contacts,
+                gain_percent: None,
+            }
+        })
+        .collect();
+    let all: Vec<usize> = (0..sites.len()).collect();
+    let n_all = information(&sites, &all, sigma_s);
+    let all_sigma = forecast_sigma(&n_all);
+    for i in 0..sites.len() {
+        let rest: Vec<usize> = all.iter().copied().filter(|&j| j != i).collect();
+        let without = forecast_sigma(&information(&sites, &rest, sigma_s));
+        sites[i].gain_percent = match (all_sigma, without) {
+            (Some(a), Some(b)) => Some(100.0 * (b / a - 1.0)),
+            _ => None,
+        };
+    }
+    let mut chosen = Vec::new();
+    if let Some(k) = choose {
+        let mut n = Info::zeros();
+        for _ in 0..k.min(sites.len()) {
+            let best = (0..sites.len())
+                .filter(|i| !chosen.contains(i))
+                .map(|i| {
+                    let trial = n + information(&sites, &[i], sigma_s);
+                    let score = forecast_sigma(&trial)
+                        .unwrap_or_else(|| 1e6 * forecast_sigma_regularised(&trial));
+                    (i, score)
+                })
+                .min_by(|a, b| a.1.total_cmp(&b.1));
+            let Some((i, _)) = best else { break };
+            n += information(&sites, &[i], sigma_s);
+            chosen.push(i);
+        }
+    }
+    let chosen_sigma = if chosen.is_empty() {
+        None
+    } else {
+        forecast_sigma(&information(&sites, &chosen, sigma_s))
+    };
+    let reasons = explain_choice(&sites, &chosen, chosen_sigma);
+    Plan {
+        sites,
+        all_sites_sigma_arcsec: all_sigma,
+        chosen,
+        chosen_sigma_arcsec: chosen_sigma,
+        reasons,
+        sigma_s,
+    }
+}
+
+fn explain_choice(sites: &[Site], chosen: &[usize], sigma: Option<f64>) -> Vec<String> {
+    let mut out = Vec::new();
+    if chosen.is_empty() {
+        return out;
+    }
+    if sigma.is_none() {
+        out.push("these sites together cannot determine the parallax with the nuisance parameters free; add sites that see both ingress and egress, far apart in latitude".into());
+    }
+    let sees = |i: usize, c: Contact| {
+        sites[i]
+            .contacts
+            .iter()
+            .find(|x| x.contact == c && x.visible)
+    };
+    // Halley: both ingress and egress seen, the largest difference in latitude.
+    let dur: Vec<usize> = chosen
+        .iter()
+        .copied()
+        .filter(|&i| {
+            (sees(i, Contact::I).is_some() || sees(i, Contact::II).is_some())
+                && (sees(i, Contact::III).is_some() || sees(i, Contact::IV).is_some())
+        })
+        .collect();
+    let mut best_lat: Option<(usize, usize, f64)> = None;
+    for &a in &dur {
+        for &b in &dur {
+            let d = sites[a].station.latitude_deg - sites[b].station.latitude_deg;
+            if d > best_lat.map_or(0.0, |x| x.2) {
+                best_lat = Some((a, b, d));
+            }
+        }
+    }
+    if let Some((a, b, d)) = best_lat {
+        out.push(format!(
+            "durations (Halley's method): '{}' and '{}' both see ingress and egress and lie {:.0} degrees apart in latitude, so parallax lengthens the transit at one and shortens it at the other",
+            sites[a].station.name, sites[b].station.name, d
+        ));
+    }
+    // Delisle: the same contact with the most different sensitivities.
+    let mut best_pair: Option<(usize, usize, Contact, f64)> = None;
+    for c in Contact::ALL {
+        for &a in chosen {
+            for &b in chosen {
+                if let (Some(x), Some(y)) = (sees(a, c), sees(b, c)) {
+                    let d = x.sensitivity_s_per_arcsec - y.sensitivity_s_per_arcsec;
+                    if d > best_pair.map_or(0.0, |p| p.3) {
+                        best_pair = Some((a, b, c, d));
+                    }
+                }
+            }
+        }
+    }
+    if let Some((a, b, c, d)) = best_pair {
+        let dlon = crate::station::normalise_longitude_deg(
+            sites[a].station.longitude_deg - sites[b].station.longitude_deg,
+        )
+        .abs();
+        out.push(format!(
+            "single contacts (Delisle's method): '{}' and '{}', {:.0} degrees apart in longitude, both time contact {}, whose time differs between them by {:.1} s per arcsecond of parallax",
+            sites[a].station.name, sites[b].station.name, dlon, c.roman(), d
+        ));
+    }
+    out
+}
+
+/// One point of a sensitivity grid.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct GridPoint {
+    /// Latitude, degrees.
+    pub latitude_deg: f64,
+    /// Longitude, degrees.
+    pub longitude_deg: f64,
+    /// The contact's time, hours from the elements' epoch (`None` where it does not occur).
+    pub hours: Option<f64>,
+    /// Sun's true altitude at the contact, degrees.
+    pub sun_altitude_deg: f64,
+    /// Seconds per arcsecond of parallax.
+    pub sensitivity_s_per_arcsec: f64,
+}
+
+/// The sensitivity of one contact over the whole Earth at sea level, on a grid of `step_deg`
+/// (latitudes from -90 + step/2, longitudes from -180 + step/2).
+pub fn sensitivity_grid(event: &TransitEvent, contact: Contact, step_deg: f64) -> Vec<GridPoint> {
+    let n_lat = (180.0 / step_deg).round().max(1.0) as usize;
+    let n_lon = (360.0 / step_deg).round().max(1.0) as usize;
+    let mut out = Vec::with_capacity(n_lat * n_lon);
+    for i in 0..n_lat {
+        let lat = 90.0 - (i as f64 + 0.5) * 180.0 / n_lat as f64;
+        for j in 0..n_lon {
+            let lon = -180.0 + (j as f64 + 0.5) * 360.0 / n_lon as f64;
+            let st = Station {
+                name: String::new(),
+                latitude_deg: lat,
+                longitude_deg: lon,
+                elevation_m: 0.0,
+            };
+            let geo = st.geocentric();
+            let start = event.start_hours(contact);
+            let solved = crate::contacts::solve_contact_hours(
+                &event.elements,
+                Some(&geo),
+                contact,
+                start,
+                &crate::contacts::Perturbation::NOMINAL,
+            );
+            let point = match solved {
+                Some(h) => {
+                    let c = crate::contacts::circumstances(&event.elements, Some(&geo), contact, h);
+                    GridPoint {
+                        latitude_deg: lat,
+                        longitude_deg: lon,
+                        hours: Some(h),
+                        sun_altitude_deg: c.sun_altitude_deg,
+                        sensitivity_s_per_arcsec: c.sensitivity_s_per_arcsec,
+                    }
+                }
+                None => GridPoint {
+                    latitude_deg: lat,
+                    longitude_deg: lon,
+                    hours: None,
+                    sun_altitude_deg: f64::NAN,
+                    sensitivity_s_per_arcsec: f64::NAN,
+                },
+            };
+            out.push(point);
+        }
+    }
+    out
+}
