@@ -1,25 +1,12 @@
 //! Rendering of campaign plans, sensitivity grids and Monte Carlo forecasts (table, CSV, JSON).
 
 use crate::constants::AU_KM;
-use crate::output::SAFETY_CAUTION;
+use crate::output::{csv_field, round as r, SAFETY_CAUTION};
 use crate::planning::{GridPoint, Plan};
 use crate::simulate::{MonteCarloSummary, SimulationSettings};
 use crate::timescale::format_utc;
 use crate::transit::TransitEvent;
 use serde_json::{json, Value};
-
-fn r(x: f64, d: i32) -> f64 {
-    let p = 10f64.powi(d);
-    (x * p).round() / p
-}
-
-fn csv_field(text: &str) -> String {
-    if text.contains([',', '"', '\n', '\r']) {
-        format!("\"{}\"", text.replace('"', "\"\""))
-    } else {
-        text.to_string()
-    }
-}
 
 /// The columns of `plan` CSV output, in order.
 pub const PLAN_COLUMNS: &str =

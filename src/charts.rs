@@ -235,6 +235,20 @@ fn land_rings() -> impl Iterator<Item = Vec<(f64, f64)>> {
         })
 }
 
+/// Land outlines as an SVG group on the 720 x 360 equirectangular frame (2 px per degree).
+fn land_svg(fill: &str, stroke: &str, width: f64) -> String {
+    let mut s = format!("<g fill=\"{fill}\" stroke=\"{stroke}\" stroke-width=\"{width}\">\n");
+    for ring in land_rings() {
+        let pts: Vec<String> = ring
+            .iter()
+            .map(|&(lon, lat)| format!("{:.1},{:.1}", (lon + 180.0) * 2.0, (90.0 - lat) * 2.0))
+            .collect();
+        let _ = writeln!(s, "<polygon points=\"{}\"/>", pts.join(" "));
+    }
+    s.push_str("</g>\n");
+    s
+}
+
 /// A world map (equirectangular) with each station: marker area by its information share,
 /// colour by its mean normalised residual. Land outlines: Natural Earth 1:110m (public domain).
 pub fn station_map_svg(red: &Reduction) -> String {
@@ -242,21 +256,7 @@ pub fn station_map_svg(red: &Reduction) -> String {
     let px = |lon: f64, lat: f64| ((lon + 180.0) * 2.0, (90.0 - lat) * 2.0);
     let mut s = svg_open(w, h + 40.0, "World map of the stations");
     let _ = writeln!(s, "<rect width=\"{w}\" height=\"{h}\" fill=\"#dbeafe\"/>");
-    let _ = writeln!(
-        s,
-        "<g fill=\"#e7e2d3\" stroke=\"#9c9581\" stroke-width=\"0.4\">"
-    );
-    for ring in land_rings() {
-        let pts: Vec<String> = ring
-            .iter()
-            .map(|&(lo, la)| {
-                let (x, y) = px(lo, la);
-                format!("{x:.1},{y:.1}")
-            })
-            .collect();
-        let _ = writeln!(s, "<polygon points=\"{}\"/>", pts.join(" "));
-    }
-    let _ = writeln!(s, "</g>");
+    s.push_str(&land_svg("#e7e2d3", "#9c9581", 0.4));
     let _ = writeln!(s, "<g stroke=\"#94a3b8\" stroke-width=\"0.3\">");
     for lat in [-60.0, -30.0, 0.0, 30.0, 60.0] {
         let (_, y) = px(0.0, lat);
@@ -493,21 +493,7 @@ pub fn sensitivity_map_svg(
         }
         i = j;
     }
-    let _ = writeln!(
-        s,
-        "<g fill=\"none\" stroke=\"#374151\" stroke-width=\"0.5\">"
-    );
-    for ring in land_rings() {
-        let pts: Vec<String> = ring
-            .iter()
-            .map(|&(lo, la)| {
-                let (x, y) = px(lo, la);
-                format!("{x:.1},{y:.1}")
-            })
-            .collect();
-        let _ = writeln!(s, "<polygon points=\"{}\"/>", pts.join(" "));
-    }
-    let _ = writeln!(s, "</g>");
+    s.push_str(&land_svg("none", "#374151", 0.5));
     let ly = h + 18.0;
     for (k, f) in [-1.0, -0.5, 0.0, 0.5, 1.0].iter().enumerate() {
         let x = 10.0 + 40.0 * k as f64;

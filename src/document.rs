@@ -27,25 +27,26 @@ struct Summary {
 
 fn summary(red: &Reduction) -> Summary {
     let mut headline = Vec::new();
-    match (
-        red.parallax_arcsec,
-        red.parallax_sigma_arcsec,
-        red.au_km,
-        red.au_sigma_km,
-    ) {
-        (Some(p), Some(ps), Some(au), Some(aus)) => {
-            let (lo, hi) = red.parallax_interval_95.unwrap_or((p, p));
-            let (alo, ahi) = red.au_interval_95_km.unwrap_or((au, au));
+    match red.headline() {
+        Some(h) => {
+            let (lo, hi) = h.parallax_interval_95;
+            let (alo, ahi) = h.au_interval_95_km;
             headline.push((
                 "Solar parallax".into(),
-                format!("{p:.4}\" ± {ps:.4}\" (95 % interval {lo:.4}\" to {hi:.4}\")"),
+                format!(
+                    "{:.4}\" ± {:.4}\" (95 % interval {lo:.4}\" to {hi:.4}\")",
+                    h.parallax_arcsec, h.parallax_sigma_arcsec
+                ),
             ));
             headline.push((
                 "Astronomical unit".into(),
-                format!("{au:.0} km ± {aus:.0} km (95 % interval {alo:.0} to {ahi:.0} km)"),
+                format!(
+                    "{:.0} km ± {:.0} km (95 % interval {alo:.0} to {ahi:.0} km)",
+                    h.au_km, h.au_sigma_km
+                ),
             ));
         }
-        _ => headline.push((
+        None => headline.push((
             "Solar parallax".into(),
             "not determined by these timings (see the warnings)".into(),
         )),

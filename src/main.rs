@@ -51,6 +51,26 @@ impl TimeArgs {
     }
 }
 
+#[derive(clap::Args, Clone)]
+struct EventArgs {
+    /// venus or mercury.
+    #[arg(long)]
+    planet: String,
+    /// A date within one day of greatest transit, YYYY-MM-DD (UTC).
+    #[arg(long)]
+    date: String,
+    #[command(flatten)]
+    time: TimeArgs,
+}
+
+impl EventArgs {
+    fn transit(&self) -> Result<transit_parallax::TransitEvent, Error> {
+        let planet = planet_of(&self.planet)?;
+        let date = date_of(&self.date)?;
+        transit_parallax::transit_on_date(planet, date, &self.time.model()?)
+    }
+}
+
 #[derive(Subcommand)]
 enum Command {
     /// List every transit of a planet in a span of years, with geocentric contacts.
@@ -72,20 +92,14 @@ enum Command {
     },
     /// Predict contacts I-IV for each station of a file.
     Predict {
-        /// venus or mercury.
-        #[arg(long)]
-        planet: String,
-        /// A date within one day of greatest transit, YYYY-MM-DD (UTC).
-        #[arg(long)]
-        date: String,
+        #[command(flatten)]
+        event: EventArgs,
         /// CSV file with columns station,latitude,longitude,elevation_m.
         #[arg(long)]
         stations: PathBuf,
         /// Output format.
         #[arg(long, value_enum, default_value = "table")]
         format: FormatArg,
-        #[command(flatten)]
-        time: TimeArgs,
     },
     /// Reduce contact timings to the solar parallax and the astronomical unit.
     Reduce {
@@ -121,12 +135,8 @@ enum Command {
     },
     /// Rank candidate sites, choose a network and forecast the precision; map a contact's sensitivity.
     Plan {
-        /// venus or mercury.
-        #[arg(long)]
-        planet: String,
-        /// A date within one day of greatest transit, YYYY-MM-DD (UTC).
-        #[arg(long)]
-        date: String,
+        #[command(flatten)]
+        event: EventArgs,
         /// CSV file of candidate sites (columns of a stations file).
         #[arg(long)]
         sites: PathBuf,
@@ -159,17 +169,11 @@ enum Command {
         /// Also write the grid as CSV (with --contact).
         #[arg(long = "grid-csv", value_name = "FILE.csv", requires = "contact")]
         grid_csv: Option<PathBuf>,
-        #[command(flatten)]
-        time: TimeArgs,
     },
     /// Monte Carlo campaigns through the real reduction: how precise will the AU come out?
     Simulate {
-        /// venus or mercury.
-        #[arg(long)]
-        planet: String,
-        /// A date within one day of greatest transit, YYYY-MM-DD (UTC).
-        #[arg(long)]
-        date: String,
+        #[command(flatten)]
+        event: EventArgs,
         /// CSV file of the network's stations.
         #[arg(long)]
         network: PathBuf,
@@ -214,8 +218,6 @@ enum Command {
         /// Output format.
         #[arg(long, value_enum, default_value = "table")]
         format: FormatArg,
-        #[command(flatten)]
-        time: TimeArgs,
     },
     /// Run the main job on an embedded, invented campaign and write its HTML report.
     Demo {
@@ -267,17 +269,12 @@ fn run(cli: Cli) -> Result<String, Error> {
             })
         }
         Command::Predict {
-            planet,
-            date,
+            event,
             stations,
             format,
-            time,
         } => {
-            let planet = planet_of(&planet)?;
-            let date = date_of(&date)?;
-            let model = time.model()?;
             let stations = transit_parallax::station::read_stations(&stations)?;
-            let event = transit_parallax::transit_on_date(planet, date, &model)?;
+            let event = event.transit()?;
             let predictions: Vec<_> = stations.iter().map(|s| event.predict(s)).collect();
             Ok(match format_of(format) {
                 Format::Table => output::predictions_table(&event, &predictions),
@@ -330,8 +327,7 @@ fn run(cli: Cli) -> Result<String, Error> {
             Ok(text)
         }
         Command::Plan {
-            planet,
-            date,
+            event,
             sites,
             choose,
             sigma_s,
@@ -341,16 +337,13 @@ fn run(cli: Cli) -> Result<String, Error> {
             contact,
             grid_deg,
             grid_csv,
-            time,
         } => {
-            let planet = planet_of(&planet)?;
-            let date = date_of(&date)?;
             check_range("--sigma-s", sigma_s, 0.01, 3600.0)?;
             check_range("--min-altitude", min_altitude, -1.0, 60.0)?;
             check_range("--grid-deg", grid_deg, 0.1, 30.0)?;
-            let model = time.model()?;
             let stations = transit_parallax::station::read_stations(&sites)?;
-            let event = transit_parallax::transit_on_date(planet, date, &model)?;
+            let event = event.transit()?;
+            let planet = event.planet;
             let plan =
                 transit_parallax::planning::plan(&event, &stations, sigma_s, min_altitude, choose);
             let mut text = match format_of(format) {
@@ -397,8 +390,7 @@ fn run(cli: Cli) -> Result<String, Error> {
             Ok(text)
         }
         Command::Simulate {
-            planet,
-            date,
+            event,
             network,
             trials,
             sigma_s,
@@ -412,10 +404,7 @@ fn run(cli: Cli) -> Result<String, Error> {
             threads,
             histogram,
             format,
-            time,
         } => {
-            let planet = planet_of(&planet)?;
-            let date = date_of(&date)?;
             check_range("--trials", trials as f64, 1.0, 1_000_000.0)?;
             check_range("--sigma-s", sigma_s, 0.01, 3600.0)?;
             check_range("--black-drop", black_drop, -600.0, 600.0)?;
@@ -428,9 +417,9 @@ fn run(cli: Cli) -> Result<String, Error> {
             }
             check_range("--clock-error-s", clock_error_s, 0.0, 86_400.0)?;
             check_range("--min-altitude", min_altitude, -1.0, 60.0)?;
-            let model = time.model()?;
             let stations = transit_parallax::station::read_stations(&network)?;
-            let event = transit_parallax::transit_on_date(planet, date, &model)?;
+            let event = event.transit()?;
+            let planet = event.planet;
             let settings = transit_parallax::simulate::SimulationSettings {
                 sigma_s: [sigma_s; 4],
                 black_drop_bias_s: black_drop,

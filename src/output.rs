@@ -73,7 +73,8 @@ fn trim_number(x: f64) -> String {
     }
 }
 
-fn round(x: f64, decimals: i32) -> f64 {
+/// Round to a number of decimals (for JSON output).
+pub fn round(x: f64, decimals: i32) -> f64 {
     let p = 10f64.powi(decimals);
     (x * p).round() / p
 }
@@ -156,7 +157,8 @@ pub const PREDICT_COLUMNS: [&str; 10] = [
     "longitude",
 ];
 
-fn csv_field(text: &str) -> String {
+/// Quote a CSV field where it needs it.
+pub fn csv_field(text: &str) -> String {
     if text.contains([',', '"', '\n', '\r']) {
         format!("\"{}\"", text.replace('"', "\"\""))
     } else {

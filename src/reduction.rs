@@ -184,7 +184,38 @@ pub struct Reduction {
     pub convergence: Vec<ConvergencePoint>,
 }
 
+/// The result in one place: parallax and AU with their uncertainties and 95 % intervals.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Headline {
+    /// Solar parallax, arcsec.
+    pub parallax_arcsec: f64,
+    /// Its standard uncertainty, arcsec.
+    pub parallax_sigma_arcsec: f64,
+    /// 95 % interval, arcsec.
+    pub parallax_interval_95: (f64, f64),
+    /// AU, km.
+    pub au_km: f64,
+    /// Its standard uncertainty, km.
+    pub au_sigma_km: f64,
+    /// 95 % interval, km.
+    pub au_interval_95_km: (f64, f64),
+}
+
 impl Reduction {
+    /// The headline numbers, when the parallax was determined.
+    pub fn headline(&self) -> Option<Headline> {
+        let p = self.parallax_arcsec?;
+        let au = self.au_km?;
+        Some(Headline {
+            parallax_arcsec: p,
+            parallax_sigma_arcsec: self.parallax_sigma_arcsec?,
+            parallax_interval_95: self.parallax_interval_95.unwrap_or((p, p)),
+            au_km: au,
+            au_sigma_km: self.au_sigma_km?,
+            au_interval_95_km: self.au_interval_95_km.unwrap_or((au, au)),
+        })
+    }
+
     /// The fitted parameters as changes to the elements.
     pub fn perturbation(&self) -> Perturbation {
         let mut theta = [0.0; N_PARAMS];

@@ -1,14 +1,9 @@
 //! Rendering a reduction: the JSON object of the stable interface and a readable terminal
 //! report (solution, parameters, correlations, stations ranked by contribution, rejected rows).
 
-use crate::output::SAFETY_CAUTION;
+use crate::output::{round as r, SAFETY_CAUTION};
 use crate::reduction::{Reduction, PARAMETER_NAMES};
 use serde_json::{json, Value};
-
-fn r(x: f64, decimals: i32) -> f64 {
-    let p = 10f64.powi(decimals);
-    (x * p).round() / p
-}
 
 fn opt(x: Option<f64>, decimals: i32) -> Value {
     match x {
@@ -115,21 +110,20 @@ pub fn reduction_table(red: &Reduction) -> String {
         red.event.date(),
         red.event.greatest_utc()
     ));
-    match (
-        red.parallax_arcsec,
-        red.parallax_sigma_arcsec,
-        red.au_km,
-        red.au_sigma_km,
-    ) {
-        (Some(p), Some(ps), Some(au), Some(aus)) => {
-            let (lo, hi) = red.parallax_interval_95.unwrap_or((p, p));
-            let (alo, ahi) = red.au_interval_95_km.unwrap_or((au, au));
+    match red.headline() {
+        Some(h) => {
+            let (lo, hi) = h.parallax_interval_95;
+            let (alo, ahi) = h.au_interval_95_km;
             s.push_str(&format!(
-                "  solar parallax      {p:.4}\" +- {ps:.4}\"   (95 %: {lo:.4}\" to {hi:.4}\")\n"
+                "  solar parallax      {:.4}\" +- {:.4}\"   (95 %: {lo:.4}\" to {hi:.4}\")\n",
+                h.parallax_arcsec, h.parallax_sigma_arcsec
             ));
-            s.push_str(&format!("  astronomical unit   {au:.0} km +- {aus:.0} km   (95 %: {alo:.0} to {ahi:.0} km)\n"));
+            s.push_str(&format!(
+                "  astronomical unit   {:.0} km +- {:.0} km   (95 %: {alo:.0} to {ahi:.0} km)\n",
+                h.au_km, h.au_sigma_km
+            ));
         }
-        _ => {
+        None => {
             s.push_str("  solar parallax      not determined by these timings (see the warnings)\n")
         }
     }

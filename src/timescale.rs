@@ -396,7 +396,11 @@ impl TimeModel {
 
 fn check_label_year(label: NaiveDateTime) -> Result<()> {
     use chrono::Datelike;
-    let y = label.year();
+    check_year(label.year())
+}
+
+/// Check that a year lies within [`MIN_YEAR`]..=[`MAX_YEAR`].
+pub fn check_year(y: i32) -> Result<()> {
     if !(MIN_YEAR..=MAX_YEAR).contains(&y) {
         return Err(Error::OutOfRange {
             what: "year".into(),

@@ -354,16 +354,8 @@ fn illinois(f: impl Fn(f64) -> f64, a: f64, fa: f64, b: f64, fb: f64, tolerance:
 }
 
 fn check_years(from_year: i32, to_year: i32) -> Result<()> {
-    for y in [from_year, to_year] {
-        if !(MIN_YEAR..=MAX_YEAR).contains(&y) {
-            return Err(Error::OutOfRange {
-                what: "year".into(),
-                value: y.to_string(),
-                min: MIN_YEAR.to_string(),
-                max: MAX_YEAR.to_string(),
-            });
-        }
-    }
+    crate::timescale::check_year(from_year)?;
+    crate::timescale::check_year(to_year)?;
     if from_year > to_year {
         return Err(Error::argument(format!(
             "--from {from_year} is after --to {to_year}; give the earlier year first"
