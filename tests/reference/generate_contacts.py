@@ -234,7 +234,25 @@ class ContactSolver:
         return alt.degrees
 
 
+def timing_only():
+    """Time Skyfield on the Venus 2012 event for the 26 stations; print seconds per station."""
+    label, planet, module, jd_guess, delta_t_s, _ = EVENTS[1]
+    path = os.path.join(tempfile.mkdtemp(), module + ".bsp")
+    write_spk(module, [(jd_guess - 3.0, jd_guess + 3.0)], path)
+    eph = SpiceKernel(path)
+    solver = ContactSolver(eph, planet, jd_guess, delta_t_s)
+    earth = eph[399]
+    t0 = time.perf_counter()
+    for name, lat, lon, elev in STATIONS:
+        solver.contacts(earth + wgs84.latlon(lat, lon, elevation_m=elev))
+    per = (time.perf_counter() - t0) / len(STATIONS)
+    print("%.6f" % per)
+
+
 def main():
+    if "--timing-only" in sys.argv:
+        timing_only()
+        return
     out_rows = []
     per_station_s = []
     by_module = {}
