@@ -291,24 +291,20 @@ pub fn sensitivity_grid(event: &TransitEvent, contact: Contact, step_deg: f64) -
             };
             let geo = st.geocentric();
             let start = event.start_hours(contact);
-            let solved = crate::contacts::solve_contact_hours(
+            let solved = crate::contacts::solve_with_circumstances(
                 &event.elements,
                 Some(&geo),
                 contact,
                 start,
-                &crate::contacts::Perturbation::NOMINAL,
             );
             let point = match solved {
-                Some(h) => {
-                    let c = crate::contacts::circumstances(&event.elements, Some(&geo), contact, h);
-                    GridPoint {
-                        latitude_deg: lat,
-                        longitude_deg: lon,
-                        hours: Some(h),
-                        sun_altitude_deg: c.sun_altitude_deg,
-                        sensitivity_s_per_arcsec: c.sensitivity_s_per_arcsec,
-                    }
-                }
+                Some(c) => GridPoint {
+                    latitude_deg: lat,
+                    longitude_deg: lon,
+                    hours: Some(c.hours),
+                    sun_altitude_deg: c.sun_altitude_deg,
+                    sensitivity_s_per_arcsec: c.sensitivity_s_per_arcsec,
+                },
                 None => GridPoint {
                     latitude_deg: lat,
                     longitude_deg: lon,

@@ -13,7 +13,7 @@
 use crate::besselian::{geocentric_separation_rad, Elements};
 use crate::constants::ARCSEC_RAD;
 use crate::contacts::{
-    circumstances, solve_contact_hours, Contact, ContactCircumstances, Perturbation,
+    solve_contact_hours, solve_with_circumstances, Contact, ContactCircumstances, Perturbation,
 };
 use crate::ephemeris::{
     geocentric_state, geometric_elongation_rad, heliocentric_longitude_difference_rad, Planet,
@@ -116,12 +116,8 @@ impl TransitEvent {
     pub fn predict_geocentric(&self, geo: &GeocentricStation) -> [Option<ContactCircumstances>; 4] {
         let mut out = [None; 4];
         for c in Contact::ALL {
-            let start = self.start_hours(c);
-            if let Some(h) =
-                solve_contact_hours(&self.elements, Some(geo), c, start, &Perturbation::NOMINAL)
-            {
-                out[c.index()] = Some(circumstances(&self.elements, Some(geo), c, h));
-            }
+            out[c.index()] =
+                solve_with_circumstances(&self.elements, Some(geo), c, self.start_hours(c));
         }
         out
     }

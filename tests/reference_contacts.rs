@@ -3,7 +3,7 @@
 //! tests/reference/generate_contacts.py, which states the model they follow; Delta T is fixed
 //! to the same value on both sides so that the geometry is what is compared).
 
-use transit_parallax::contacts::Contact;
+use transit_parallax::contacts::{circumstances, Contact};
 use transit_parallax::timescale::{parse_date, parse_utc, TimeModel};
 use transit_parallax::{transit_on_date, Planet, Station};
 
@@ -17,6 +17,8 @@ struct Row {
     elev: f64,
     contact: Contact,
     time: chrono::NaiveDateTime,
+    sun_altitude_deg: Option<f64>,
+    position_angle_deg: f64,
 }
 
 fn rows() -> Vec<Row> {
@@ -36,12 +38,15 @@ fn rows() -> Vec<Row> {
                 elev: num(6),
                 contact: Contact::parse(&r[7]).unwrap(),
                 time: parse_utc(&r[8]).unwrap(),
+                sun_altitude_deg: r[9].parse().ok(),
+                position_angle_deg: num(10),
             }
         })
         .collect()
 }
 
-/// Compare one event; returns (max |difference| in s, rms, count).
+/// Compare one event; returns (max |time difference| in s, rms, count) and checks the Sun's
+/// altitude and the position angle of the contact point (0.01 deg each) on the way.
 fn compare(event: &str) -> (f64, f64, usize) {
     let rows: Vec<Row> = rows().into_iter().filter(|r| r.event == event).collect();
     assert!(!rows.is_empty(), "no fixture rows for {event}");
@@ -49,23 +54,39 @@ fn compare(event: &str) -> (f64, f64, usize) {
     let model = TimeModel::fixed(rows[0].delta_t_s);
     let ev = transit_on_date(rows[0].planet, date, &model).unwrap();
     let (mut worst, mut sum2, mut n) = (0.0f64, 0.0, 0usize);
+    let (mut worst_alt, mut worst_pa) = (0.0f64, 0.0f64);
     for r in &rows {
-        let hours = if r.station == "geocentre" {
-            ev.geocentric_hours[r.contact.index()].expect("geocentric contact")
+        let c = if r.station == "geocentre" {
+            let h = ev.geocentric_hours[r.contact.index()].expect("geocentric contact");
+            circumstances(&ev.elements, None, r.contact, h)
         } else {
             let st = Station::new(&r.station, r.lat, r.lon, r.elev).unwrap();
             ev.predict(&st).contacts[r.contact.index()]
                 .unwrap_or_else(|| panic!("{event} {} {:?} missing", r.station, r.contact))
-                .hours
         };
-        let got = ev.label(hours);
+        let got = ev.label(c.hours);
         let diff = (got - r.time).num_microseconds().unwrap() as f64 * 1e-6;
         worst = worst.max(diff.abs());
         sum2 += diff * diff;
         n += 1;
+        if let Some(alt) = r.sun_altitude_deg {
+            worst_alt = worst_alt.max((c.sun_altitude_deg - alt).abs());
+        }
+        let dpa = (c.position_angle_deg - r.position_angle_deg + 540.0).rem_euclid(360.0) - 180.0;
+        worst_pa = worst_pa.max(dpa.abs());
     }
     let rms = (sum2 / n as f64).sqrt();
-    eprintln!("{event}: {n} contacts, max |diff| {worst:.3} s, rms {rms:.3} s");
+    eprintln!("{event}: {n} contacts, max |diff| {worst:.3} s, rms {rms:.3} s; Sun altitude max {worst_alt:.4} deg; position angle max {worst_pa:.4} deg");
+    assert!(
+        worst_alt < 0.01,
+        "{event}: Sun altitude differs by {worst_alt} deg"
+    );
+    // Regression: the position angle was once measured on the fundamental plane, whose axes
+    // follow the planet-Sun axis, and was off by up to 0.17 deg for Mercury.
+    assert!(
+        worst_pa < 0.01,
+        "{event}: position angle differs by {worst_pa} deg"
+    );
     (worst, rms, n)
 }
 

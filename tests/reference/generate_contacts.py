@@ -34,7 +34,8 @@ into a temporary SPK (DAF type 2) file that Skyfield opens offline.
 
 Pinned versions: skyfield==1.53 jplephem==2.24 de421==2008.1 de423==2010.1
 numpy 2.x.  Run:  python3 tests/reference/generate_contacts.py
-Writes tests/reference/contacts_skyfield.csv and prints the time per station.
+Writes tests/reference/contacts_skyfield.csv (with the Sun's true altitude and the position angle
+of the contact point at each contact) and prints the time per station.
 """
 
 import csv
@@ -48,6 +49,7 @@ import numpy as np
 from jplephem.daf import DAF
 from skyfield.api import load, wgs84
 from skyfield.jpllib import SpiceKernel
+from skyfield.trigonometry import position_angle_of
 
 HERE = os.path.dirname(os.path.abspath(__file__))
 AU_KM = 149597870.700
@@ -227,6 +229,15 @@ class ContactSolver:
                 res[which] = root
         return res
 
+    def position_angle_deg(self, observer, offset_days):
+        """Position angle of the planet's centre from the Sun's, from north (true equator and
+        equinox of date) through east, degrees."""
+        t = self.ts.tt_jd(self.jd_guess, offset_days)
+        o = observer.at(t)
+        s_ra, s_dec, _ = o.observe(self.sun).apparent().radec(epoch="date")
+        p_ra, p_dec, _ = o.observe(self.body).apparent().radec(epoch="date")
+        return position_angle_of((s_dec, s_ra), (p_dec, p_ra)).degrees
+
     def sun_altitude_deg(self, observer, offset_days):
         """True (unrefracted) altitude of the Sun's centre."""
         t = self.ts.tt_jd(self.jd_guess, offset_days)
@@ -279,14 +290,16 @@ def main():
                     per_station_s.append(time.perf_counter() - t_start)
                 for c in sorted(res):
                     jd_label = jd_guess + (res[c] - label_offset_s / S_PER_DAY)
+                    alt = "" if lat is None else "%.4f" % solver.sun_altitude_deg(obs, res[c])
+                    pa = "%.4f" % solver.position_angle_deg(obs, res[c])
                     out_rows.append([label, planet, delta_t_s, name,
                                      "" if lat is None else lat, "" if lon is None else lon,
-                                     "" if elev is None else elev, c, iso(jd_label)])
+                                     "" if elev is None else elev, c, iso(jd_label), alt, pa])
             print(label, "done", file=sys.stderr)
     with open(os.path.join(HERE, "contacts_skyfield.csv"), "w", newline="") as f:
         w = csv.writer(f, lineterminator="\n")
         w.writerow(["event", "planet", "delta_t_s", "station", "latitude", "longitude",
-                    "elevation_m", "contact", "time_utc"])
+                    "elevation_m", "contact", "time_utc", "sun_altitude_deg", "position_angle_deg"])
         w.writerows(out_rows)
     mean = sum(per_station_s) / len(per_station_s)
     print("skyfield: %.4f s per station for all four contacts (%d stations)" % (mean, len(per_station_s)))
