@@ -42,8 +42,10 @@ fn bench(c: &mut Criterion) {
     let mut rng = rand_chacha::ChaCha8Rng::seed_from_u64(5000);
     let campaign = simulate_campaign(&event, &stations, &settings, &mut rng);
     let n = campaign.observations.valid.len();
+    // As `reduce` runs without --report: the convergence chart's partial solutions left out.
     let options = ReduceOptions {
         event: Some((Planet::Venus, event.date())),
+        follow_convergence: false,
         ..ReduceOptions::default()
     };
     let mut g = c.benchmark_group("reduce");
@@ -52,6 +54,17 @@ fn bench(c: &mut Criterion) {
         format!("{n} timings from {} stations", stations.len()),
         |b| b.iter(|| reduce(campaign.observations.clone(), &options).unwrap()),
     );
+    // As `reduce --report FILE.html` runs: with the convergence chart, then the page.
+    let with_report = ReduceOptions {
+        follow_convergence: true,
+        ..options
+    };
+    g.bench_function(format!("{n} timings, with the HTML report"), |b| {
+        b.iter(|| {
+            let red = reduce(campaign.observations.clone(), &with_report).unwrap();
+            transit_parallax::document::html_report(&red).len()
+        })
+    });
     g.finish();
 }
 
