@@ -131,6 +131,8 @@ pub struct FitStatistics {
 
 /// Statistics from the chi-square and the degrees of freedom.
 pub fn statistics(chi2: f64, dof: usize) -> FitStatistics {
+    // An empty sum of floats is -0.0; print it as 0.
+    let chi2 = chi2 + 0.0;
     if dof == 0 {
         return FitStatistics {
             chi2,
