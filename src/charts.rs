@@ -115,7 +115,7 @@ fn station_paths(red: &Reduction, factor: f64) -> (Vec<NamedPath>, f64) {
         .collect();
     out.push(("geocentre".to_string(), geo_path, Vec::new()));
     for s in &red.stations {
-        let Ok(st) = Station::new(&s.station, s.latitude, s.longitude, s.elevation_m) else {
+        let Ok(st) = Station::new(&s.station, s.latitude_deg, s.longitude_deg, s.elevation_m) else {
             continue;
         };
         let geo = st.geocentric();
@@ -264,7 +264,7 @@ pub fn station_map_svg(red: &Reduction) -> String {
     }
     let _ = writeln!(s, "</g>");
     for (i, st) in red.stations.iter().enumerate() {
-        let (x, y) = px(st.longitude, st.latitude);
+        let (x, y) = px(st.longitude_deg, st.latitude_deg);
         let r = 2.5 + 30.0 * st.information_share.max(0.0).sqrt();
         let _ = writeln!(
             s,

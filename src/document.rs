@@ -121,7 +121,7 @@ fn station_rows(red: &Reduction) -> Vec<Vec<String>> {
             vec![
                 format!("{}", i + 1),
                 s.station.clone(),
-                format!("{:.3}, {:.3}", s.latitude, s.longitude),
+                format!("{:.3}, {:.3}", s.latitude_deg, s.longitude_deg),
                 s.timings.to_string(),
                 format!("{:.4}", s.information_share),
                 s.influence_arcsec

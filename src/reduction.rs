@@ -117,9 +117,9 @@ pub struct StationContribution {
     /// Name.
     pub station: String,
     /// Latitude, degrees.
-    pub latitude: f64,
+    pub latitude_deg: f64,
     /// Longitude, degrees east.
-    pub longitude: f64,
+    pub longitude_deg: f64,
     /// Elevation, metres.
     pub elevation_m: f64,
     /// Timings used.
@@ -1197,8 +1197,8 @@ fn contributions(
         });
         out.push(StationContribution {
             station: name.to_string(),
-            latitude: first.obs.station.latitude_deg,
-            longitude: first.obs.station.longitude_deg,
+            latitude_deg: first.obs.station.latitude_deg,
+            longitude_deg: first.obs.station.longitude_deg,
             elevation_m: first.obs.station.elevation_m,
             timings: rows.len(),
             information_share: share,

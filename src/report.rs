@@ -20,8 +20,8 @@ pub fn reduction_json(red: &Reduction) -> Value {
         .map(|s| {
             json!({
                 "station": s.station,
-                "latitude": s.latitude,
-                "longitude": s.longitude,
+                "latitude": s.latitude_deg,
+                "longitude": s.longitude_deg,
                 "timings": s.timings,
                 "information_share": r(s.information_share, 6),
                 "influence_arcsec": opt(s.influence_arcsec, 6),
