@@ -115,7 +115,8 @@ fn station_paths(red: &Reduction, factor: f64) -> (Vec<NamedPath>, f64) {
         .collect();
     out.push(("geocentre".to_string(), geo_path, Vec::new()));
     for s in &red.stations {
-        let Ok(st) = Station::new(&s.station, s.latitude_deg, s.longitude_deg, s.elevation_m) else {
+        let Ok(st) = Station::new(&s.station, s.latitude_deg, s.longitude_deg, s.elevation_m)
+        else {
             continue;
         };
         let geo = st.geocentric();
