@@ -66,11 +66,6 @@ impl Chebyshev {
         self
     }
 
-    /// The coefficients kept.
-    pub fn coefficients(&self) -> &[f64] {
-        &self.coeffs[..self.len]
-    }
-
     /// Number of coefficients kept.
     pub fn len(&self) -> usize {
         self.len

@@ -281,22 +281,6 @@ pub fn solve_with_circumstances(
     Some(circumstances_from(el, st, contact, t, &g))
 }
 
-/// Sensitivity of a contact time to the solar parallax, seconds per arcsecond, at a solved
-/// contact: implicit differentiation of F(t, s) = (s x - xi)^2 + (s y - eta)^2 - (s l - zeta
-/// tan f)^2 = 0 with respect to the length scale s = sin(pi_0)/sin(pi).
-///
-/// References: method-notes (fundamental-plane scaling); the derivative is exact for the
-/// fitted elements and is checked against central differences of the full model in tests.
-pub fn parallax_sensitivity_s_per_arcsec(
-    el: &Elements,
-    st: Option<&GeocentricStation>,
-    contact: Contact,
-    hours: f64,
-    p: &Perturbation,
-) -> f64 {
-    sensitivity_from_geometry(&local_geometry(el, st, contact, hours, p))
-}
-
 /// Partial derivatives of a solved contact time with respect to the parameters of
 /// [`Perturbation`], by implicit differentiation of the contact condition
 /// F = (s (x + dx) - xi)^2 + (s (y + dy) - eta)^2 - (s (l + dl) - zeta tan f)^2 = 0.
@@ -329,6 +313,11 @@ pub fn offset_on_plane(
     (g.u, g.v)
 }
 
+/// Sensitivity of a contact time to the solar parallax, seconds per arcsecond, at a solved
+/// contact: implicit differentiation of F(t, s) = (s x - xi)^2 + (s y - eta)^2 - (s l - zeta
+/// tan f)^2 = 0 with respect to the length scale s = sin(pi_0)/sin(pi) (docs/method.md,
+/// section 6). Exact for the fitted elements; tests check it against central differences of
+/// the full model.
 fn sensitivity_from_geometry(g: &LocalGeometry) -> f64 {
     let df_ds = g.u * g.x + g.v * g.y - g.radius * g.l;
     let df_dt = g.u * g.u_rate + g.v * g.v_rate - g.radius * g.radius_rate;

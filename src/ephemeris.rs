@@ -13,8 +13,7 @@
 //! - TDB is taken equal to TT (they differ by under 2 ms).
 
 use crate::constants::{
-    sun_radius_au, AU_KM, DAYS_PER_JULIAN_CENTURY, J2000_JD, LIGHT_TIME_DAYS_PER_AU,
-    MERCURY_RADIUS_KM, VENUS_RADIUS_KM,
+    sun_radius_au, AU_KM, LIGHT_TIME_DAYS_PER_AU, MERCURY_RADIUS_KM, VENUS_RADIUS_KM,
 };
 use crate::timescale::{TimeModel, Tt};
 use crate::vector::{add, dot, mat_vec, norm, scale, sub, unit, V3};
@@ -222,15 +221,14 @@ pub fn heliocentric_longitude_difference_rad(planet: Planet, jd_tdb: f64) -> f64
     (d + std::f64::consts::PI).rem_euclid(std::f64::consts::TAU) - std::f64::consts::PI
 }
 
-/// Julian centuries from J2000 for a Julian date.
-pub fn julian_centuries(jd: f64) -> f64 {
-    (jd - J2000_JD) / DAYS_PER_JULIAN_CENTURY
-}
-
 #[cfg(test)]
 mod tests {
     use super::*;
-    use crate::constants::ARCSEC_RAD;
+    use crate::constants::{ARCSEC_RAD, DAYS_PER_JULIAN_CENTURY, J2000_JD};
+
+    fn julian_centuries(jd: f64) -> f64 {
+        (jd - J2000_JD) / DAYS_PER_JULIAN_CENTURY
+    }
 
     #[test]
     fn venus_heliocentric_matches_handbook_example() {
