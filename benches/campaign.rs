@@ -3,7 +3,9 @@
 
 use criterion::{criterion_group, criterion_main, Criterion};
 use transit_parallax::planning::sensitivity_grid;
-use transit_parallax::simulate::{global_stations, monte_carlo, SimulationSettings};
+use transit_parallax::simulate::{
+    global_stations, monte_carlo, stations_seeing, SimulationSettings,
+};
 use transit_parallax::timescale::{parse_date, TimeModel};
 use transit_parallax::{transit_on_date, Contact, Planet};
 
@@ -20,18 +22,8 @@ fn bench(c: &mut Criterion) {
         "sensitivity grid 0.5 deg (259,200 points), contact II",
         |b| b.iter(|| sensitivity_grid(&event, Contact::II, 0.5).len()),
     );
-    let stations: Vec<_> = global_stations(800, "m")
+    let stations: Vec<_> = stations_seeing(&event, global_stations(800, "m"), 2, 5.0)
         .into_iter()
-        .filter(|s| {
-            event
-                .predict(s)
-                .contacts
-                .iter()
-                .flatten()
-                .filter(|c| c.sun_altitude_deg > 5.0)
-                .count()
-                >= 2
-        })
         .take(100)
         .collect();
     let settings = SimulationSettings {

@@ -5,7 +5,9 @@
 use criterion::{criterion_group, criterion_main, Criterion};
 use rand::SeedableRng;
 use transit_parallax::reduction::{reduce, ReduceOptions};
-use transit_parallax::simulate::{global_stations, simulate_campaign, SimulationSettings};
+use transit_parallax::simulate::{
+    global_stations, simulate_campaign, visible_contacts, SimulationSettings,
+};
 use transit_parallax::timescale::{parse_date, TimeModel};
 use transit_parallax::{transit_on_date, Planet};
 
@@ -19,16 +21,7 @@ fn bench(c: &mut Criterion) {
     // Stations that see the most contacts first, to reach about 5,000 timings.
     let mut ranked: Vec<(usize, _)> = global_stations(6000, "b")
         .into_iter()
-        .map(|s| {
-            let n = event
-                .predict(&s)
-                .contacts
-                .iter()
-                .flatten()
-                .filter(|c| c.sun_altitude_deg > 0.0)
-                .count();
-            (n, s)
-        })
+        .map(|s| (visible_contacts(&event, &s, 0.0), s))
         .collect();
     ranked.sort_by_key(|r| std::cmp::Reverse(r.0));
     let stations: Vec<_> = ranked.into_iter().map(|(_, s)| s).take(1500).collect();

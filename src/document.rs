@@ -60,21 +60,7 @@ fn summary(red: &Reduction) -> Summary {
             red.rejected.len()
         ),
     ));
-    let st = &red.statistics;
-    headline.push((
-        "Chi-square".into(),
-        format!(
-            "{:.1} for {} degrees of freedom{}{}",
-            st.chi2,
-            st.dof,
-            st.p_value
-                .map(|p| format!(", p = {p:.3}"))
-                .unwrap_or_default(),
-            st.birge_ratio
-                .map(|b| format!(", Birge ratio {b:.2}"))
-                .unwrap_or_default()
-        ),
-    ));
+    headline.push(("Chi-square".into(), red.statistics.describe()));
     Summary { headline }
 }
 

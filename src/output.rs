@@ -56,6 +56,7 @@ pub fn transits_json(events: &[TransitEvent]) -> Value {
                     "contacts": contacts,
                     "duration_h": duration_h.map(|d| round(d, 4)),
                     "delta_t_s": round(ev.elements.delta_t_s, 2),
+                    "delta_t_sigma_s": round(ev.delta_t_sigma_s(), 2),
                 })
             })
             .collect(),
@@ -82,7 +83,7 @@ pub fn round(x: f64, decimals: i32) -> f64 {
 /// CSV for a list of transits.
 pub fn transits_csv(events: &[TransitEvent]) -> String {
     let mut s = String::from(
-        "planet,date,contact_1_utc,contact_2_utc,greatest_utc,contact_3_utc,contact_4_utc,min_separation_arcsec,delta_t_s\n",
+        "planet,date,contact_1_utc,contact_2_utc,greatest_utc,contact_3_utc,contact_4_utc,min_separation_arcsec,delta_t_s,delta_t_sigma_s\n",
     );
     for ev in events {
         let c = |i: usize| {
@@ -91,7 +92,7 @@ pub fn transits_csv(events: &[TransitEvent]) -> String {
                 .unwrap_or_default()
         };
         s.push_str(&format!(
-            "{},{},{},{},{},{},{},{:.2},{:.2}\n",
+            "{},{},{},{},{},{},{},{:.2},{:.2},{:.2}\n",
             ev.planet.name(),
             ev.date(),
             c(0),
@@ -100,7 +101,8 @@ pub fn transits_csv(events: &[TransitEvent]) -> String {
             c(2),
             c(3),
             ev.min_separation_arcsec,
-            ev.elements.delta_t_s
+            ev.elements.delta_t_s,
+            ev.delta_t_sigma_s()
         ));
     }
     s
@@ -110,11 +112,11 @@ pub fn transits_csv(events: &[TransitEvent]) -> String {
 pub fn transits_table(events: &[TransitEvent]) -> String {
     let mut s = String::new();
     s.push_str(&format!(
-        "{:<8} {:<10} {:>12} {:>12} {:>12} {:>12} {:>12} {:>10} {:>9}\n",
+        "{:<8} {:<10} {:>12} {:>12} {:>12} {:>12} {:>12} {:>10} {:>16}\n",
         "planet", "date", "I", "II", "greatest", "III", "IV", "least sep", "Delta T"
     ));
     s.push_str(&format!(
-        "{:<8} {:<10} {:>12} {:>12} {:>12} {:>12} {:>12} {:>10} {:>9}\n",
+        "{:<8} {:<10} {:>12} {:>12} {:>12} {:>12} {:>12} {:>10} {:>16}\n",
         "", "(UTC)", "", "", "", "", "", "(arcsec)", "(s)"
     ));
     for ev in events {
@@ -124,7 +126,7 @@ pub fn transits_table(events: &[TransitEvent]) -> String {
                 .unwrap_or_else(|| "-".into())
         };
         s.push_str(&format!(
-            "{:<8} {:<10} {:>12} {:>12} {:>12} {:>12} {:>12} {:>10.1} {:>9.1}\n",
+            "{:<8} {:<10} {:>12} {:>12} {:>12} {:>12} {:>12} {:>10.1} {:>16}\n",
             ev.planet.name(),
             ev.date(),
             c(0),
@@ -133,13 +135,20 @@ pub fn transits_table(events: &[TransitEvent]) -> String {
             c(2),
             c(3),
             ev.min_separation_arcsec,
-            ev.elements.delta_t_s
+            format!(
+                "{:.1} +- {:.1}",
+                ev.elements.delta_t_s,
+                ev.delta_t_sigma_s()
+            )
         ));
     }
     if events.is_empty() {
         s.push_str("(no transit in these years)\n");
     }
     s.push_str("Geocentric contacts; times are UTC from 1972 and UT1 before.\n");
+    s.push_str(
+        "Delta T = TT - UT1 with a rough uncertainty; give --delta-t to use another value.\n",
+    );
     s
 }
 
@@ -217,11 +226,12 @@ pub fn predictions_json(event: &TransitEvent, predictions: &[StationPrediction])
 /// A readable table of station predictions, with the caution.
 pub fn predictions_table(event: &TransitEvent, predictions: &[StationPrediction]) -> String {
     let mut s = format!(
-        "Transit of {} on {} (greatest transit {}, Delta T {:.1} s)\n\n",
+        "Transit of {} on {} (greatest transit {}, Delta T {:.1} s +- {:.1} s)\n\n",
         event.planet.name(),
         event.date(),
         event.greatest_utc(),
-        event.elements.delta_t_s
+        event.elements.delta_t_s,
+        event.delta_t_sigma_s()
     );
     s.push_str(&format!(
         "{:<20} {:>3} {:>24} {:>8} {:>8} {:>7} {:>7} {:>9}\n",

@@ -127,7 +127,6 @@ pub fn reduction_table(red: &Reduction) -> String {
             s.push_str("  solar parallax      not determined by these timings (see the warnings)\n")
         }
     }
-    let st = &red.statistics;
     s.push_str(&format!(
         "  timings used        {} of {} ({} not used)\n",
         red.timings_used,
@@ -135,15 +134,8 @@ pub fn reduction_table(red: &Reduction) -> String {
         red.rejected.len()
     ));
     s.push_str(&format!(
-        "  chi-square          {:.1} for {} degrees of freedom{}{}\n",
-        st.chi2,
-        st.dof,
-        st.p_value
-            .map(|p| format!(", p = {p:.3}"))
-            .unwrap_or_default(),
-        st.birge_ratio
-            .map(|b| format!(", Birge ratio {b:.2}"))
-            .unwrap_or_default()
+        "  chi-square          {}\n",
+        red.statistics.describe()
     ));
     s.push_str(&format!("  {}\n", chi2_sentence(red)));
     for w in &red.warnings {

@@ -194,6 +194,31 @@ pub fn global_stations(n: usize, prefix: &str) -> Vec<Station> {
         .collect()
 }
 
+/// How many contacts a station sees with the Sun at least `min_altitude_deg` up.
+pub fn visible_contacts(event: &TransitEvent, station: &Station, min_altitude_deg: f64) -> usize {
+    event
+        .predict(station)
+        .contacts
+        .iter()
+        .flatten()
+        .filter(|c| c.sun_altitude_deg >= min_altitude_deg)
+        .count()
+}
+
+/// The candidates that see at least `min_contacts` contacts with the Sun at least
+/// `min_altitude_deg` up, in their order (for building networks to simulate).
+pub fn stations_seeing(
+    event: &TransitEvent,
+    candidates: Vec<Station>,
+    min_contacts: usize,
+    min_altitude_deg: f64,
+) -> Vec<Station> {
+    candidates
+        .into_iter()
+        .filter(|s| visible_contacts(event, s, min_altitude_deg) >= min_contacts)
+        .collect()
+}
+
 /// Write a campaign as an observations CSV (the columns `reduce` reads).
 pub fn campaign_csv(set: &ObservationSet) -> String {
     let mut s = String::from("station,latitude,longitude,elevation_m,contact,time_utc,sigma_s\n");

@@ -129,6 +129,23 @@ pub struct FitStatistics {
     pub coverage_factor_95: f64,
 }
 
+impl FitStatistics {
+    /// "chi2 for dof degrees of freedom, p = ..., Birge ratio ..." for reports.
+    pub fn describe(&self) -> String {
+        format!(
+            "{:.1} for {} degrees of freedom{}{}",
+            self.chi2,
+            self.dof,
+            self.p_value
+                .map(|p| format!(", p = {p:.3}"))
+                .unwrap_or_default(),
+            self.birge_ratio
+                .map(|b| format!(", Birge ratio {b:.2}"))
+                .unwrap_or_default()
+        )
+    }
+}
+
 /// Statistics from the chi-square and the degrees of freedom.
 pub fn statistics(chi2: f64, dof: usize) -> FitStatistics {
     // An empty sum of floats is -0.0; print it as 0.

@@ -582,6 +582,22 @@ mod tests {
     }
 
     #[test]
+    fn delta_t_uncertainty_follows_its_documented_guide() {
+        // The guide of TimeModel::delta_t_sigma_s (a rough one of ours; the pre-1972 parabola
+        // recalled from memory of Morrison and Stephenson 2004): fixed values are exact, the
+        // leap-second era 0.5 s, 1874 about 0.24 s, 2117 tens of seconds.
+        let model = TimeModel::default();
+        let at = |t: &str| model.delta_t_sigma_s(model.tt_from_label(label(t)).unwrap());
+        assert_eq!(
+            TimeModel::fixed(-3.0).delta_t_sigma_s(Tt::from_jd(2_405_866.67)),
+            0.0
+        );
+        assert_eq!(at("2012-06-06T01:00:00Z"), 0.5);
+        assert!((at("1874-12-09T04:00:00Z") - 0.24).abs() < 0.01);
+        assert!((40.0..150.0).contains(&at("2117-12-11T03:00:00Z")));
+    }
+
+    #[test]
     fn dut1_and_delta_t_are_validated() {
         assert!(TimeModel {
             delta_t_override_s: None,

@@ -5,7 +5,9 @@
 use std::path::Path;
 use std::process::Command;
 use transit_parallax::planning::{plan, sensitivity_grid};
-use transit_parallax::simulate::{global_stations, monte_carlo, SimulationSettings};
+use transit_parallax::simulate::{
+    global_stations, monte_carlo, stations_seeing, SimulationSettings,
+};
 use transit_parallax::station::read_stations;
 use transit_parallax::timescale::{parse_date, TimeModel};
 use transit_parallax::{transit_on_date, Contact, Planet, Station, TransitEvent};
@@ -87,17 +89,8 @@ fn chosen_network_pairs_latitudes_and_its_forecast_matches_simulation() {
 #[test]
 fn forty_stations_forecast_and_coverage_over_1000_trials() {
     let ev = venus_2012();
-    let net: Vec<Station> = global_stations(400, "g")
+    let net: Vec<Station> = stations_seeing(&ev, global_stations(400, "g"), 2, 5.0)
         .into_iter()
-        .filter(|s| {
-            ev.predict(s)
-                .contacts
-                .iter()
-                .flatten()
-                .filter(|c| c.sun_altitude_deg > 5.0)
-                .count()
-                >= 2
-        })
         .step_by(4)
         .take(40)
         .collect();

@@ -7,23 +7,15 @@ use rand::SeedableRng;
 use rand_chacha::ChaCha8Rng;
 use transit_parallax::constants::nominal_parallax_arcsec;
 use transit_parallax::reduction::{reduce_for_event, ReduceOptions};
-use transit_parallax::simulate::{global_stations, simulate_campaign, SimulationSettings};
+use transit_parallax::simulate::{
+    global_stations, simulate_campaign, stations_seeing, SimulationSettings,
+};
 use transit_parallax::timescale::{parse_date, TimeModel};
 use transit_parallax::{transit_on_date, Planet, Station, TransitEvent};
 
 fn network(event: &TransitEvent, n: usize, min_alt: f64) -> Vec<Station> {
-    global_stations(400, "st")
+    stations_seeing(event, global_stations(400, "st"), 2, min_alt)
         .into_iter()
-        .filter(|s| {
-            event
-                .predict(s)
-                .contacts
-                .iter()
-                .flatten()
-                .filter(|c| c.sun_altitude_deg > min_alt)
-                .count()
-                >= 2
-        })
         .step_by(3)
         .take(n)
         .collect()
