@@ -534,7 +534,6 @@ fn infer_event(valid: &[Observation], model: &TimeModel) -> Result<TransitEvent>
 ///
 /// Errors: an invalid prior parallax; no event found; no usable timing.
 pub fn reduce(set: ObservationSet, options: &ReduceOptions) -> Result<Reduction> {
-    check_parallax(options.prior_parallax_arcsec)?;
     let model = options.time_model;
     let event = match options.event {
         Some((planet, date)) => transit_on_date(planet, date, &model)?,
