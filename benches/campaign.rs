@@ -2,11 +2,11 @@
 //! Monte Carlo campaigns of 100 stations reduced on two threads. Figures in docs/performance.md.
 
 use criterion::{criterion_group, criterion_main, Criterion};
-use transit_parallax::planning::sensitivity_grid;
-use transit_parallax::simulate::{
+use transit_parallax::planning::simulation::{
     global_stations, monte_carlo, stations_seeing, SimulationSettings,
 };
-use transit_parallax::timescale::{parse_date, TimeModel};
+use transit_parallax::planning::sites::sensitivity_grid;
+use transit_parallax::time::scales::{parse_date, TimeModel};
 use transit_parallax::{transit_on_date, Contact, Planet};
 
 fn bench(c: &mut Criterion) {

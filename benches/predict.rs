@@ -2,13 +2,13 @@
 //! Figures are recorded in docs/performance.md.
 
 use criterion::{black_box, criterion_group, criterion_main, Criterion};
-use transit_parallax::besselian::Elements;
-use transit_parallax::ephemeris::{geocentric_state, Planet};
-use transit_parallax::station::Station;
-use transit_parallax::timescale::{TimeModel, Tt};
-use transit_parallax::transit::TransitEvent;
+use transit_parallax::geometry::besselian::Elements;
+use transit_parallax::geometry::station::Station;
+use transit_parallax::geometry::transit::TransitEvent;
+use transit_parallax::sky::ephemeris::{geocentric_state, Planet};
+use transit_parallax::time::scales::{TimeModel, Tt};
 
-fn stations(n: usize) -> Vec<transit_parallax::station::GeocentricStation> {
+fn stations(n: usize) -> Vec<transit_parallax::geometry::station::GeocentricStation> {
     // A deterministic spread over the globe (golden-angle spiral).
     (0..n)
         .map(|i| {

@@ -4,11 +4,11 @@
 
 use criterion::{criterion_group, criterion_main, Criterion};
 use rand::SeedableRng;
-use transit_parallax::reduction::{reduce, ReduceOptions};
-use transit_parallax::simulate::{
+use transit_parallax::planning::simulation::{
     global_stations, simulate_campaign, visible_contacts, SimulationSettings,
 };
-use transit_parallax::timescale::{parse_date, TimeModel};
+use transit_parallax::reduction::{reduce, ReduceOptions};
+use transit_parallax::time::scales::{parse_date, TimeModel};
 use transit_parallax::{transit_on_date, Planet};
 
 fn bench(c: &mut Criterion) {
@@ -55,7 +55,7 @@ fn bench(c: &mut Criterion) {
     g.bench_function(format!("{n} timings, with the HTML report"), |b| {
         b.iter(|| {
             let red = reduce(campaign.observations.clone(), &with_report).unwrap();
-            transit_parallax::document::html_report(&red).len()
+            transit_parallax::render::document::html_report(&red).len()
         })
     });
     g.finish();

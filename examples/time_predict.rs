@@ -3,7 +3,7 @@
 //! Used by tools/compare_speed.sh.
 
 use std::time::Instant;
-use transit_parallax::timescale::{parse_date, TimeModel};
+use transit_parallax::time::scales::{parse_date, TimeModel};
 use transit_parallax::{transit_on_date, Planet, Station};
 
 fn main() {

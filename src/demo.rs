@@ -1,15 +1,15 @@
 //! The embedded demonstration: an invented network of stations (fictional names) timing the
 //! transit of Venus of 2012 June 5-6, with simulated timings, run through the main job.
 
-use crate::csvinput::CsvTable;
 use crate::error::Result;
-use crate::observations::observations_from_table;
+use crate::geometry::station::stations_from_table;
+use crate::geometry::transit::{transit_on_date, TransitEvent};
+use crate::observations::csv_table::CsvTable;
+use crate::observations::timings::observations_from_table;
+use crate::planning::simulation::{campaign_csv, simulate_campaign, SimulationSettings};
 use crate::reduction::{reduce, ReduceOptions};
-use crate::report::reduction_table;
-use crate::simulate::{campaign_csv, simulate_campaign, SimulationSettings};
-use crate::station::stations_from_table;
-use crate::timescale::TimeModel;
-use crate::transit::{transit_on_date, TransitEvent};
+use crate::render::reduction::reduction_table;
+use crate::time::scales::TimeModel;
 use crate::Planet;
 use rand::SeedableRng;
 use std::path::Path;
@@ -78,7 +78,7 @@ pub fn run_demo(report_path: &Path) -> Result<String> {
          The reduction below recovers the solar parallax and the astronomical unit from them.\n\n",
     );
     out.push_str(&reduction_table(&red));
-    crate::document::write_report(&red, report_path)?;
+    crate::render::document::write_report(&red, report_path)?;
     out.push_str(&format!("\nreport written: {}\n", report_path.display()));
     Ok(out)
 }

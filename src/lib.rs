@@ -4,6 +4,19 @@
 //! to measure the solar parallax and the astronomical unit.
 //!
 //! The science lives here; the `transit-parallax` binary only parses arguments and prints.
+//! The modules follow the data's journey:
+//!
+//! | stage | takes | gives |
+//! | --- | --- | --- |
+//! | [`time`] | clock labels (UTC, UT1) | TT and UT1 instants, Delta T with its uncertainty |
+//! | [`sky`] | TT instants | apparent geocentric places of the Sun and the planet |
+//! | [`geometry`] | places, stations | an event's elements, each station's contacts and their circumstances |
+//! | [`observations`] | submitted CSV files | validated timings, every row used or rejected with a reason |
+//! | [`reduction`] | timings and an event | the solar parallax and the AU with uncertainties, diagnoses, contributions |
+//! | [`planning`] | candidate sites, an event | ranked sites, chosen networks, simulated campaigns |
+//! | [`render`] | any of the above | tables, CSV, JSON, charts and reports |
+//!
+//! [`demo`] holds the embedded invented campaign and [`error`] the typed errors of every stage.
 //!
 //! ```
 //! use transit_parallax::{Planet, Station, TimeModel, transit_on_date};
@@ -16,33 +29,19 @@
 //! ```
 #![deny(missing_docs)]
 
-pub mod besselian;
-pub mod campaign_output;
-pub mod charts;
-pub mod chebyshev;
-pub mod constants;
-pub mod contacts;
-pub mod csvinput;
 pub mod demo;
-pub mod diagnosis;
-pub mod document;
-pub mod ephemeris;
 pub mod error;
+pub mod geometry;
 pub mod observations;
-pub mod output;
 pub mod planning;
 pub mod reduction;
-pub mod report;
-pub mod simulate;
-pub mod solver;
-pub mod station;
-pub mod timescale;
-pub mod transit;
-pub mod vector;
+pub mod render;
+pub mod sky;
+pub mod time;
 
-pub use contacts::{Contact, ContactCircumstances};
-pub use ephemeris::Planet;
 pub use error::{Error, Result};
-pub use station::Station;
-pub use timescale::{TimeModel, Tt};
-pub use transit::{transit_on_date, transits_in_years, StationPrediction, TransitEvent};
+pub use geometry::contacts::{Contact, ContactCircumstances};
+pub use geometry::station::Station;
+pub use geometry::transit::{transit_on_date, transits_in_years, StationPrediction, TransitEvent};
+pub use sky::ephemeris::Planet;
+pub use time::scales::{TimeModel, Tt};

@@ -4,12 +4,12 @@
 
 use std::path::Path;
 use std::process::Command;
-use transit_parallax::planning::{plan, sensitivity_grid};
-use transit_parallax::simulate::{
+use transit_parallax::geometry::station::read_stations;
+use transit_parallax::planning::simulation::{
     global_stations, monte_carlo, stations_seeing, SimulationSettings,
 };
-use transit_parallax::station::read_stations;
-use transit_parallax::timescale::{parse_date, TimeModel};
+use transit_parallax::planning::sites::{plan, sensitivity_grid};
+use transit_parallax::time::scales::{parse_date, TimeModel};
 use transit_parallax::{transit_on_date, Contact, Planet, Station, TransitEvent};
 
 fn venus_2012() -> TransitEvent {
@@ -78,8 +78,8 @@ fn chosen_network_pairs_latitudes_and_its_forecast_matches_simulation() {
         ..SimulationSettings::default()
     };
     let m = monte_carlo(&ev, &network, &settings, 400, 61, 2, &|| {});
-    let pi = transit_parallax::constants::nominal_parallax_arcsec();
-    let scatter_arcsec = m.au_scatter_km / transit_parallax::constants::AU_KM * pi;
+    let pi = transit_parallax::sky::constants::nominal_parallax_arcsec();
+    let scatter_arcsec = m.au_scatter_km / transit_parallax::sky::constants::AU_KM * pi;
     assert!(
         (forecast / scatter_arcsec - 1.0).abs() < 0.20,
         "{forecast} vs {scatter_arcsec}"

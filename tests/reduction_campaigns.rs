@@ -5,7 +5,7 @@
 //! B2), asin(6378.1366 km / au) = 8.794143".
 
 use std::path::Path;
-use transit_parallax::observations::{read_observations, RejectReason};
+use transit_parallax::observations::timings::{read_observations, RejectReason};
 use transit_parallax::reduction::{reduce, ReduceOptions, Reduction};
 use transit_parallax::{Contact, Station};
 

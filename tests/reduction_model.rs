@@ -5,12 +5,12 @@ use proptest::prelude::*;
 use rand::SeedableRng;
 use rand_chacha::ChaCha8Rng;
 use std::path::Path;
-use transit_parallax::contacts::{contact_partials, Perturbation};
-use transit_parallax::csvinput::CsvTable;
-use transit_parallax::observations::observations_from_table;
+use transit_parallax::geometry::contacts::{contact_partials, Perturbation};
+use transit_parallax::observations::csv_table::CsvTable;
+use transit_parallax::observations::timings::observations_from_table;
+use transit_parallax::planning::simulation::{simulate_campaign, SimulationSettings};
 use transit_parallax::reduction::{reduce, ReduceOptions};
-use transit_parallax::simulate::{simulate_campaign, SimulationSettings};
-use transit_parallax::timescale::{parse_date, TimeModel};
+use transit_parallax::time::scales::{parse_date, TimeModel};
 use transit_parallax::{transit_on_date, Contact, Planet, Station, TransitEvent};
 
 fn venus_2012() -> TransitEvent {
@@ -96,7 +96,7 @@ fn noise_free_timings_recover_the_nominal_parallax_exactly() {
     let red = reduce_stations(&ev, &stations, 1e-3, 1, None);
     let pi = red.parallax_arcsec.unwrap();
     assert!(
-        (pi - transit_parallax::constants::nominal_parallax_arcsec()).abs() < 1e-5,
+        (pi - transit_parallax::sky::constants::nominal_parallax_arcsec()).abs() < 1e-5,
         "{pi}"
     );
     assert!(red.warnings.is_empty(), "{:?}", red.warnings);

@@ -5,12 +5,12 @@
 
 use rand::SeedableRng;
 use rand_chacha::ChaCha8Rng;
-use transit_parallax::constants::nominal_parallax_arcsec;
-use transit_parallax::reduction::{reduce_for_event, ReduceOptions};
-use transit_parallax::simulate::{
+use transit_parallax::planning::simulation::{
     global_stations, simulate_campaign, stations_seeing, SimulationSettings,
 };
-use transit_parallax::timescale::{parse_date, TimeModel};
+use transit_parallax::reduction::{reduce_for_event, ReduceOptions};
+use transit_parallax::sky::constants::nominal_parallax_arcsec;
+use transit_parallax::time::scales::{parse_date, TimeModel};
 use transit_parallax::{transit_on_date, Planet, Station, TransitEvent};
 
 fn network(event: &TransitEvent, n: usize, min_alt: f64) -> Vec<Station> {

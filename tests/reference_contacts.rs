@@ -3,8 +3,8 @@
 //! tests/reference/generate_contacts.py, which states the model they follow; Delta T is fixed
 //! to the same value on both sides so that the geometry is what is compared).
 
-use transit_parallax::contacts::{circumstances, Contact};
-use transit_parallax::timescale::{parse_date, parse_utc, TimeModel};
+use transit_parallax::geometry::contacts::{circumstances, Contact};
+use transit_parallax::time::scales::{parse_date, parse_utc, TimeModel};
 use transit_parallax::{transit_on_date, Planet, Station};
 
 struct Row {

@@ -8,13 +8,15 @@ use quick_xml::Reader;
 use rand::SeedableRng;
 use std::path::{Path, PathBuf};
 use std::process::Command;
-use transit_parallax::csvinput::CsvTable;
-use transit_parallax::document::{html_report, markdown_report, write_report};
-use transit_parallax::observations::observations_from_table;
+use transit_parallax::observations::csv_table::CsvTable;
+use transit_parallax::observations::timings::observations_from_table;
+use transit_parallax::planning::simulation::{
+    global_stations, simulate_campaign, SimulationSettings,
+};
 use transit_parallax::reduction::{reduce, ReduceOptions, Reduction};
-use transit_parallax::report::reduction_json;
-use transit_parallax::simulate::{global_stations, simulate_campaign, SimulationSettings};
-use transit_parallax::timescale::{parse_date, TimeModel};
+use transit_parallax::render::document::{html_report, markdown_report, write_report};
+use transit_parallax::render::reduction::reduction_json;
+use transit_parallax::time::scales::{parse_date, TimeModel};
 use transit_parallax::{transit_on_date, Planet};
 
 fn reduce_text(text: &str) -> Reduction {

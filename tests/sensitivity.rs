@@ -4,9 +4,9 @@
 //! Requirement: agreement within 1 % (common practice for an analytic derivative, no source).
 
 use proptest::prelude::*;
-use transit_parallax::constants::nominal_parallax_arcsec;
-use transit_parallax::contacts::{full_model_contact, Contact};
-use transit_parallax::timescale::{parse_date, TimeModel};
+use transit_parallax::geometry::contacts::{full_model_contact, Contact};
+use transit_parallax::sky::constants::nominal_parallax_arcsec;
+use transit_parallax::time::scales::{parse_date, TimeModel};
 use transit_parallax::{transit_on_date, Planet, Station, TransitEvent};
 
 fn check(ev: &TransitEvent, st: &Station, contact: Contact) -> Option<(f64, f64)> {

@@ -3,8 +3,8 @@
 
 use libfuzzer_sys::fuzz_target;
 use std::path::Path;
-use transit_parallax::csvinput::CsvTable;
-use transit_parallax::observations::observations_from_table;
+use transit_parallax::observations::csv_table::CsvTable;
+use transit_parallax::observations::timings::observations_from_table;
 
 fuzz_target!(|data: &[u8]| {
     if let Ok(table) = CsvTable::from_bytes(Path::new("fuzz.csv"), data) {

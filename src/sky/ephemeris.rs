@@ -12,11 +12,11 @@
 //!   true equator and equinox of date; Greenwich apparent sidereal time IAU 2006 (`eraGst06`).
 //! - TDB is taken equal to TT (they differ by under 2 ms).
 
-use crate::constants::{
+use crate::sky::constants::{
     sun_radius_au, AU_KM, LIGHT_TIME_DAYS_PER_AU, MERCURY_RADIUS_KM, VENUS_RADIUS_KM,
 };
-use crate::timescale::{TimeModel, Tt};
-use crate::vector::{add, dot, mat_vec, norm, scale, sub, unit, V3};
+use crate::sky::vector::{add, dot, mat_vec, norm, scale, sub, unit, V3};
+use crate::time::scales::{TimeModel, Tt};
 use serde::Serialize;
 
 /// The planets that transit the Sun as seen from the Earth.
@@ -210,7 +210,7 @@ pub fn semidiameters_rad(planet: Planet, sun_au: V3, planet_au: V3) -> (f64, f64
 pub fn geometric_elongation_rad(planet: Planet, jd_tdb: f64) -> f64 {
     let earth = earth_heliocentric_ecliptic_au(jd_tdb);
     let p = sub(planet.heliocentric_ecliptic_au(jd_tdb), earth);
-    crate::vector::angle_between(scale(-1.0, earth), p)
+    crate::sky::vector::angle_between(scale(-1.0, earth), p)
 }
 
 /// Heliocentric ecliptic longitude difference planet - Earth (radians, in -pi..pi), J2000.
@@ -224,7 +224,7 @@ pub fn heliocentric_longitude_difference_rad(planet: Planet, jd_tdb: f64) -> f64
 #[cfg(test)]
 mod tests {
     use super::*;
-    use crate::constants::{ARCSEC_RAD, DAYS_PER_JULIAN_CENTURY, J2000_JD};
+    use crate::sky::constants::{ARCSEC_RAD, DAYS_PER_JULIAN_CENTURY, J2000_JD};
 
     fn julian_centuries(jd: f64) -> f64 {
         (jd - J2000_JD) / DAYS_PER_JULIAN_CENTURY

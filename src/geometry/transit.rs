@@ -10,17 +10,17 @@
 //! of planets) for the approach; golden-section search: Press et al., *Numerical Recipes*,
 //! 3rd ed., section 10.2.
 
-use crate::besselian::{geocentric_separation_rad, Elements};
-use crate::constants::ARCSEC_RAD;
-use crate::contacts::{
+use crate::error::{Error, Result};
+use crate::geometry::besselian::{geocentric_separation_rad, Elements};
+use crate::geometry::contacts::{
     solve_contact_hours, solve_with_circumstances, Contact, ContactCircumstances, Perturbation,
 };
-use crate::ephemeris::{
+use crate::geometry::station::{GeocentricStation, Station};
+use crate::sky::constants::ARCSEC_RAD;
+use crate::sky::ephemeris::{
     geocentric_state, geometric_elongation_rad, heliocentric_longitude_difference_rad, Planet,
 };
-use crate::error::{Error, Result};
-use crate::station::{GeocentricStation, Station};
-use crate::timescale::{format_utc, TimeModel, Tt, MAX_YEAR, MIN_YEAR};
+use crate::time::scales::{format_utc, TimeModel, Tt, MAX_YEAR, MIN_YEAR};
 use chrono::{Datelike, NaiveDate, NaiveDateTime};
 
 /// One transit of Mercury or Venus, with its elements.
@@ -153,8 +153,9 @@ impl TransitEvent {
     /// transit and the nominal AU: a displacement of the planet relative to the Sun by one
     /// arcsecond moves the axis by this much (1 / (1/|P| - 1/|S|) in Earth radii per radian).
     pub fn earth_radii_per_arcsec(&self) -> f64 {
-        let p = crate::vector::norm(self.elements.planet_earth_radii(self.hours_of_greatest()));
-        let s = crate::vector::norm(self.elements.sun_earth_radii(self.hours_of_greatest()));
+        let p =
+            crate::sky::vector::norm(self.elements.planet_earth_radii(self.hours_of_greatest()));
+        let s = crate::sky::vector::norm(self.elements.sun_earth_radii(self.hours_of_greatest()));
         ARCSEC_RAD / (1.0 / p - 1.0 / s)
     }
 
@@ -299,7 +300,7 @@ pub fn inferior_conjunctions_jd(
         if f0 < 0.0 && f1 >= 0.0 && f1 - f0 < std::f64::consts::PI {
             let c = illinois(|jd| approx(jd).0, t0, f0, t1, f1, 1e-4);
             let (_, p, e) = approx(c);
-            let elong = crate::vector::angle_between(
+            let elong = crate::sky::vector::angle_between(
                 [-e[0], -e[1], -e[2]],
                 [p[0] - e[0], p[1] - e[1], p[2] - e[2]],
             );
@@ -356,8 +357,8 @@ fn illinois(f: impl Fn(f64) -> f64, a: f64, fa: f64, b: f64, fb: f64, tolerance:
 }
 
 fn check_years(from_year: i32, to_year: i32) -> Result<()> {
-    crate::timescale::check_year(from_year)?;
-    crate::timescale::check_year(to_year)?;
+    crate::time::scales::check_year(from_year)?;
+    crate::time::scales::check_year(to_year)?;
     if from_year > to_year {
         return Err(Error::argument(format!(
             "--from {from_year} is after --to {to_year}; give the earlier year first"

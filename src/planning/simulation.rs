@@ -7,10 +7,10 @@
 //! contact, plus a black-drop bias (interior contacts: II seen late, III early); a fraction of
 //! timings carry a blunder and a fraction of stations a clock error.
 
-use crate::contacts::Contact;
-use crate::observations::{Observation, ObservationSet};
-use crate::station::Station;
-use crate::transit::TransitEvent;
+use crate::geometry::contacts::Contact;
+use crate::geometry::station::Station;
+use crate::geometry::transit::TransitEvent;
+use crate::observations::timings::{Observation, ObservationSet};
 use rand::Rng;
 use rand_distr::{Distribution, Normal};
 
@@ -230,7 +230,7 @@ pub fn campaign_csv(set: &ObservationSet) -> String {
             o.station.longitude_deg,
             o.station.elevation_m,
             o.contact.number(),
-            crate::timescale::format_utc(o.time_label, 1),
+            crate::time::scales::format_utc(o.time_label, 1),
             o.sigma_s
         ));
     }
@@ -278,7 +278,7 @@ pub fn monte_carlo(
     progress: &(dyn Fn() + Sync),
 ) -> MonteCarloSummary {
     use rand::SeedableRng;
-    let truth_km = crate::constants::AU_KM;
+    let truth_km = crate::sky::constants::AU_KM;
     let options = crate::reduction::ReduceOptions {
         event: Some((event.planet, event.date())),
         follow_convergence: false,
@@ -341,7 +341,7 @@ pub fn monte_carlo(
         trials,
         solved: solved.len(),
         au_estimates_km: solved.iter().map(|r| r.0).collect(),
-        au_sigma_forecast_km: crate::solver::median(&sigmas),
+        au_sigma_forecast_km: crate::reduction::least_squares::median(&sigmas),
         au_scatter_km: scatter,
         au_bias_km: mean - truth_km,
         coverage_95: solved.iter().filter(|r| r.2).count() as f64 / m,

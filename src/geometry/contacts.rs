@@ -8,11 +8,11 @@
 //! quadratic in the time correction); *Explanatory Supplement to the Astronomical Almanac*
 //! (1992), section 8.3 (local circumstances).
 
-use crate::besselian::{earth_radii_per_au, length_scale_rate_per_arcsec, Elements};
-use crate::ephemeris::{geocentric_state, semidiameters_rad, Planet};
-use crate::station::GeocentricStation;
-use crate::timescale::{TimeModel, Tt};
-use crate::vector::{angle_between, dot, norm, scale, sub, V3};
+use crate::geometry::besselian::{earth_radii_per_au, length_scale_rate_per_arcsec, Elements};
+use crate::geometry::station::GeocentricStation;
+use crate::sky::ephemeris::{geocentric_state, semidiameters_rad, Planet};
+use crate::sky::vector::{angle_between, dot, norm, scale, sub, V3};
+use crate::time::scales::{TimeModel, Tt};
 use serde::Serialize;
 
 /// The four contacts.
@@ -459,7 +459,7 @@ pub fn sun_alt_az_parallactic(
 
 /// A contact computed directly from the full model (no elements), for checks and for refining.
 ///
-/// Arguments: `planet`; `station` (Earth radii, as from [`crate::station::Station::geocentric`]);
+/// Arguments: `planet`; `station` (Earth radii, as from [`crate::geometry::station::Station::geocentric`]);
 /// `contact`; `start`, a first guess within a few minutes; `time_model`; `parallax_arcsec`, the
 /// solar parallax that fixes the station's distance in au.
 /// Returns: the contact instant, or `None` if the secant iteration fails.
@@ -474,7 +474,7 @@ pub fn full_model_contact(
     parallax_arcsec: f64,
 ) -> Option<Tt> {
     let station_au_scale =
-        1.0 / earth_radii_per_au() / crate::besselian::length_scale(parallax_arcsec);
+        1.0 / earth_radii_per_au() / crate::geometry::besselian::length_scale(parallax_arcsec);
     let f = |t: Tt| -> f64 {
         let s = geocentric_state(planet, t, time_model);
         let r: V3 = match station {

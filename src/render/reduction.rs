@@ -1,8 +1,8 @@
 //! Rendering a reduction: the JSON object of the stable interface and a readable terminal
 //! report (solution, parameters, correlations, stations ranked by contribution, rejected rows).
 
-use crate::output::{round as r, SAFETY_CAUTION};
 use crate::reduction::{Reduction, PARAMETER_NAMES};
+use crate::render::text::{round as r, SAFETY_CAUTION};
 use serde_json::{json, Value};
 
 fn opt(x: Option<f64>, decimals: i32) -> Value {

@@ -16,19 +16,21 @@
 //! Reduction and Error Analysis*, 3rd ed. (2003), chapter 8 (non-linear least squares);
 //! R. T. Birge, Phys. Rev. 40, 207 (1932).
 
-use crate::besselian::check_parallax;
-use crate::constants::{au_km_from_parallax_arcsec, nominal_parallax_arcsec, ARCSEC_RAD};
-use crate::contacts::{
+use crate::error::{Error, Result};
+use crate::geometry::besselian::check_parallax;
+use crate::geometry::contacts::{
     contact_partials, offset_on_plane, sun_alt_az_parallactic, Contact, Perturbation,
 };
-use crate::diagnosis::{clock_offset_s, explain_row, explain_station, StationTiming};
-use crate::ephemeris::Planet;
-use crate::error::{Error, Result};
-use crate::observations::{Observation, ObservationSet, RejectReason, Rejected};
-use crate::solver::{confounded, median, robust_sigma, solve_weighted, statistics, FitStatistics};
-use crate::station::GeocentricStation;
-use crate::timescale::TimeModel;
-use crate::transit::{transit_on_date, TransitEvent};
+use crate::geometry::station::GeocentricStation;
+use crate::geometry::transit::{transit_on_date, TransitEvent};
+use crate::observations::timings::{Observation, ObservationSet, RejectReason, Rejected};
+use crate::reduction::diagnosis::{clock_offset_s, explain_row, explain_station, StationTiming};
+use crate::reduction::least_squares::{
+    confounded, median, robust_sigma, solve_weighted, statistics, FitStatistics,
+};
+use crate::sky::constants::{au_km_from_parallax_arcsec, nominal_parallax_arcsec, ARCSEC_RAD};
+use crate::sky::ephemeris::Planet;
+use crate::time::scales::TimeModel;
 use nalgebra::{DMatrix, DVector};
 use serde::Serialize;
 
@@ -1137,7 +1139,8 @@ fn contributions(
             let d = DVector::from_fn(m, |a, _| nk[(a, a)].max(0.0).sqrt());
             let cond_ok = d.iter().all(|&x| x > 0.0) && {
                 let corr = DMatrix::from_fn(m, m, |a, b| nk[(a, b)] / (d[a] * d[b]));
-                corr.symmetric_eigenvalues().min() > crate::solver::RANK_TOLERANCE.powi(2)
+                corr.symmetric_eigenvalues().min()
+                    > crate::reduction::least_squares::RANK_TOLERANCE.powi(2)
             };
             if cond_ok && n - rows.len() > m {
                 nk.cholesky().map(|ch| -ch.solve(&g)[pi_col])

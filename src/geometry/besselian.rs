@@ -19,14 +19,14 @@
 //! (1992), chapter 8 (eclipses: Besselian elements); J. Meeus, *Elements of Solar Eclipses
 //! 1951-2200* (1989).
 
-use crate::chebyshev::Chebyshev;
-use crate::constants::{
+use crate::error::{Error, Result};
+use crate::sky::chebyshev::Chebyshev;
+use crate::sky::constants::{
     nominal_parallax_arcsec, sun_radius_au, ARCSEC_RAD, AU_M, EARTH_EQUATORIAL_RADIUS_M,
 };
-use crate::ephemeris::{geocentric_state, GeocentricState, Planet};
-use crate::error::{Error, Result};
-use crate::timescale::{TimeModel, Tt};
-use crate::vector::{angle_between, dot, norm, scale, sub};
+use crate::sky::ephemeris::{geocentric_state, GeocentricState, Planet};
+use crate::sky::vector::{angle_between, dot, norm, scale, sub};
+use crate::time::scales::{TimeModel, Tt};
 
 /// Number of full-model evaluations (Chebyshev nodes) per event.
 pub const NODES: usize = 20;
@@ -147,7 +147,7 @@ impl Elements {
         time_model: &TimeModel,
         nodes: usize,
     ) -> Elements {
-        let n_nodes = nodes.clamp(4, crate::chebyshev::MAX_TERMS);
+        let n_nodes = nodes.clamp(4, crate::sky::chebyshev::MAX_TERMS);
         let nodes = Chebyshev::nodes(-HALF_WIDTH_H, HALF_WIDTH_H, n_nodes);
         let mut cols: Vec<Vec<f64>> = (0..15).map(|_| Vec::with_capacity(n_nodes)).collect();
         let k = earth_radii_per_au();
@@ -345,7 +345,7 @@ fn unwrap_angle(angle: f64, previous: Option<f64>) -> f64 {
 /// Geocentric angular separation of the centres (radians) and the contact thresholds
 /// s_sun + s_p and s_sun - s_p (radians) from a full-model state.
 pub fn geocentric_separation_rad(planet: Planet, state: &GeocentricState) -> (f64, f64, f64) {
-    let (ss, sp) = crate::ephemeris::semidiameters_rad(planet, state.sun_au, state.planet_au);
+    let (ss, sp) = crate::sky::ephemeris::semidiameters_rad(planet, state.sun_au, state.planet_au);
     (
         angle_between(state.sun_au, state.planet_au),
         ss + sp,

@@ -13,10 +13,10 @@
 //! Phil. Trans. 29, 454 (1716) (durations, stations far apart in latitude) and J.-N. Delisle's
 //! method of one contact from stations far apart in longitude (1760).
 
-use crate::contacts::Contact;
+use crate::geometry::contacts::Contact;
+use crate::geometry::station::Station;
+use crate::geometry::transit::TransitEvent;
 use crate::reduction::{condition_row, nominal_theta, N_PARAMS};
-use crate::station::Station;
-use crate::transit::TransitEvent;
 use nalgebra::{DMatrix, SMatrix};
 
 type Info = SMatrix<f64, N_PARAMS, N_PARAMS>;
@@ -88,7 +88,9 @@ pub fn forecast_sigma(n: &Info) -> Option<f64> {
     let m = DMatrix::from_fn(idx.len(), idx.len(), |a, b| n[(idx[a], idx[b])]);
     let d: Vec<f64> = (0..idx.len()).map(|a| m[(a, a)].sqrt()).collect();
     let corr = DMatrix::from_fn(idx.len(), idx.len(), |a, b| m[(a, b)] / (d[a] * d[b]));
-    if corr.clone().symmetric_eigenvalues().min() < crate::solver::RANK_TOLERANCE.powi(2) {
+    if corr.clone().symmetric_eigenvalues().min()
+        < crate::reduction::least_squares::RANK_TOLERANCE.powi(2)
+    {
         return None;
     }
     let inv = corr.try_inverse()?;
@@ -246,7 +248,7 @@ fn explain_choice(sites: &[Site], chosen: &[usize], sigma: Option<f64>) -> Vec<S
         }
     }
     if let Some((a, b, c, d)) = best_pair {
-        let dlon = crate::station::normalise_longitude_deg(
+        let dlon = crate::geometry::station::normalise_longitude_deg(
             sites[a].station.longitude_deg - sites[b].station.longitude_deg,
         )
         .abs();
@@ -291,7 +293,7 @@ pub fn sensitivity_grid(event: &TransitEvent, contact: Contact, step_deg: f64) -
             };
             let geo = st.geocentric();
             let start = event.start_hours(contact);
-            let solved = crate::contacts::solve_with_circumstances(
+            let solved = crate::geometry::contacts::solve_with_circumstances(
                 &event.elements,
                 Some(&geo),
                 contact,

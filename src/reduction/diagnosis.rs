@@ -8,9 +8,9 @@
 //! off by a constant (all the station's timings share one offset; see
 //! [`crate::reduction`]).
 
-use crate::contacts::{Contact, Perturbation};
-use crate::station::{GeocentricStation, Station};
-use crate::transit::TransitEvent;
+use crate::geometry::contacts::{Contact, Perturbation};
+use crate::geometry::station::{GeocentricStation, Station};
+use crate::geometry::transit::TransitEvent;
 
 /// Predicted contact time (hours from the elements' epoch) for a station and contact under
 /// trial parameters, or `None` when the station sees no such contact.

@@ -2,11 +2,11 @@
 //! the solar disc with each station's path, the station map, the residuals, and the
 //! convergence of the parallax. Every string from an input file is escaped.
 
-use crate::constants::{sun_radius_au, ARCSEC_RAD};
-use crate::contacts::{offset_on_plane, Contact};
+use crate::geometry::contacts::{offset_on_plane, Contact};
+use crate::geometry::station::Station;
 use crate::reduction::Reduction;
-use crate::station::Station;
-use crate::vector::norm;
+use crate::sky::constants::{sun_radius_au, ARCSEC_RAD};
+use crate::sky::vector::norm;
 use std::fmt::Write;
 
 /// Escape text for XML and HTML (element content and quoted attributes).
@@ -69,7 +69,7 @@ pub fn residual_colour(z: f64) -> String {
 fn sun_semidiameter_arcsec(red: &Reduction) -> f64 {
     let ev = &red.event;
     let s_er = norm(ev.elements.sun_earth_radii(ev.hours_of_greatest()));
-    let s_au = s_er / crate::besselian::earth_radii_per_au();
+    let s_au = s_er / crate::geometry::besselian::earth_radii_per_au();
     (sun_radius_au() / s_au).asin() / ARCSEC_RAD
 }
 
@@ -104,7 +104,7 @@ fn station_paths(red: &Reduction, factor: f64) -> (Vec<NamedPath>, f64) {
     let h0 = ev.geocentric_hours[0].unwrap_or(-3.0) - 0.3;
     let h1 = ev.geocentric_hours[3].unwrap_or(3.0) + 0.3;
     let n = 60;
-    let at = |h: f64, st: Option<&crate::station::GeocentricStation>| {
+    let at = |h: f64, st: Option<&crate::geometry::station::GeocentricStation>| {
         let (u, v) = offset_on_plane(&ev.elements, st, h, &p);
         (u * k, v * k)
     };
@@ -211,7 +211,7 @@ pub fn solar_disc_svg(red: &Reduction) -> String {
 }
 
 fn land_rings() -> impl Iterator<Item = Vec<(f64, f64)>> {
-    const LAND: &str = include_str!("data/land_110m.txt");
+    const LAND: &str = include_str!("../data/land_110m.txt");
     LAND.lines()
         .filter(|l| !l.starts_with('#') && !l.trim().is_empty())
         .flat_map(|line| {
@@ -316,7 +316,7 @@ pub fn residuals_svg(red: &Reduction) -> String {
             .iter()
             .filter(|u| u.contact == c.number())
             .collect();
-        let rej: Vec<(usize, &crate::observations::Rejected)> = red
+        let rej: Vec<(usize, &crate::observations::timings::Rejected)> = red
             .rejected
             .iter()
             .enumerate()
@@ -435,7 +435,7 @@ pub fn convergence_svg(red: &Reduction) -> String {
         "<polyline points=\"{}\" fill=\"none\" stroke=\"#1d4ed8\" stroke-width=\"1.8\"/>",
         line.join(" ")
     );
-    let y = y_of(crate::constants::nominal_parallax_arcsec());
+    let y = y_of(crate::sky::constants::nominal_parallax_arcsec());
     let _ = writeln!(s, "<line x1=\"{left}\" y1=\"{y:.1}\" x2=\"{}\" y2=\"{y:.1}\" stroke=\"#16a34a\" stroke-dasharray=\"5,4\"/><text x=\"{}\" y=\"{:.1}\" text-anchor=\"end\" fill=\"#16a34a\">IAU 2009 value 8.794143\"</text>", w - right, w - right - 4.0, y - 4.0);
     s.push_str("</svg>\n");
     s
@@ -449,7 +449,7 @@ fn sensitivity_colour(v: f64, limit: f64) -> String {
 /// A world map of one contact's sensitivity to the parallax (s/arcsec) where the contact is
 /// seen with the Sun at least `min_altitude_deg` up; grey where it is not.
 pub fn sensitivity_map_svg(
-    points: &[crate::planning::GridPoint],
+    points: &[crate::planning::sites::GridPoint],
     step_deg: f64,
     contact: Contact,
     min_altitude_deg: f64,
@@ -466,7 +466,7 @@ pub fn sensitivity_map_svg(
     let mut s = svg_open(w, h + 50.0, title);
     let _ = writeln!(s, "<rect width=\"{w}\" height=\"{h}\" fill=\"#d1d5db\"/>");
     // Cells merged into runs of one colour along each row of latitude.
-    let bin = |p: &crate::planning::GridPoint| -> Option<i32> {
+    let bin = |p: &crate::planning::sites::GridPoint| -> Option<i32> {
         (p.sun_altitude_deg >= min_altitude_deg && p.sensitivity_s_per_arcsec.is_finite())
             .then(|| (p.sensitivity_s_per_arcsec / limit * 8.0).round() as i32)
     };

@@ -1,11 +1,11 @@
 //! Rendering of campaign plans, sensitivity grids and Monte Carlo forecasts (table, CSV, JSON).
 
-use crate::constants::AU_KM;
-use crate::output::{csv_field, round as r, SAFETY_CAUTION};
-use crate::planning::{GridPoint, Plan};
-use crate::simulate::{MonteCarloSummary, SimulationSettings};
-use crate::timescale::format_utc;
-use crate::transit::TransitEvent;
+use crate::geometry::transit::TransitEvent;
+use crate::planning::simulation::{MonteCarloSummary, SimulationSettings};
+use crate::planning::sites::{GridPoint, Plan};
+use crate::render::text::{csv_field, round as r, SAFETY_CAUTION};
+use crate::sky::constants::AU_KM;
+use crate::time::scales::format_utc;
 use serde_json::{json, Value};
 
 /// The columns of `plan` CSV output, in order.
@@ -74,8 +74,8 @@ pub fn plan_json(event: &TransitEvent, plan: &Plan, min_altitude_deg: f64) -> Va
 }
 
 fn au_sigma_km(parallax_sigma_arcsec: f64) -> f64 {
-    let pi = crate::constants::nominal_parallax_arcsec() * crate::constants::ARCSEC_RAD;
-    AU_KM * parallax_sigma_arcsec * crate::constants::ARCSEC_RAD / pi.tan()
+    let pi = crate::sky::constants::nominal_parallax_arcsec() * crate::sky::constants::ARCSEC_RAD;
+    AU_KM * parallax_sigma_arcsec * crate::sky::constants::ARCSEC_RAD / pi.tan()
 }
 
 /// A readable plan.

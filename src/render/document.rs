@@ -1,13 +1,13 @@
 //! Reports of a reduction for publishing: one self-contained HTML file (inline SVG and CSS, no
 //! script, nothing fetched) or Markdown with the charts as SVG files beside it.
 
-use crate::charts::{
+use crate::error::{Error, Result};
+use crate::reduction::{Reduction, PARAMETER_NAMES};
+use crate::render::charts::{
     convergence_svg, disc_exaggeration, esc, residuals_svg, solar_disc_svg, station_map_svg,
 };
-use crate::error::{Error, Result};
-use crate::output::SAFETY_CAUTION;
-use crate::reduction::{Reduction, PARAMETER_NAMES};
-use crate::report::chi2_sentence;
+use crate::render::reduction::chi2_sentence;
+use crate::render::text::SAFETY_CAUTION;
 use std::fmt::Write;
 use std::path::{Path, PathBuf};
 

@@ -1,8 +1,8 @@
 //! Observing stations on the WGS 84 ellipsoid and their geocentric coordinates.
 
-use crate::constants::{EARTH_EQUATORIAL_RADIUS_M, WGS84_A_M, WGS84_F};
-use crate::csvinput::CsvTable;
 use crate::error::{Error, Result};
+use crate::observations::csv_table::CsvTable;
+use crate::sky::constants::{EARTH_EQUATORIAL_RADIUS_M, WGS84_A_M, WGS84_F};
 use serde::Serialize;
 use std::path::Path;
 

@@ -8,8 +8,8 @@
 //!   32.184 s + (TAI - UTC) - DUT1 (DUT1 = UT1 - UTC, 0 unless given); before 1972 and after the
 //!   table it comes from the Espenak and Meeus polynomials; a fixed value may replace it.
 
-use crate::constants::{J2000_JD, SECONDS_PER_DAY, TT_MINUS_TAI_S};
 use crate::error::{Error, Result};
+use crate::sky::constants::{J2000_JD, SECONDS_PER_DAY, TT_MINUS_TAI_S};
 use chrono::{NaiveDate, NaiveDateTime, TimeDelta};
 
 /// Earliest year the toolkit accepts.

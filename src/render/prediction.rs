@@ -1,27 +1,11 @@
-//! Rendering of predictions as tables, CSV and JSON (the columns and keys of
-//! `shared/interface.md`), and the solar-observing caution every observer-facing output carries.
+//! Rendering of predictions (`transits`, `predict`) as tables, CSV and JSON, with the columns
+//! and keys of the stable interface.
 
-use crate::contacts::Contact;
-use crate::timescale::format_utc;
-use crate::transit::{StationPrediction, TransitEvent};
+use crate::geometry::contacts::Contact;
+use crate::geometry::transit::{StationPrediction, TransitEvent};
+use crate::render::text::{csv_field, round, SAFETY_CAUTION};
+use crate::time::scales::format_utc;
 use serde_json::{json, Value};
-
-/// The caution printed with every output meant for observers.
-pub const SAFETY_CAUTION: &str = "CAUTION: looking at the Sun can blind. Never look at the Sun, \
-even briefly or partly covered, without a certified solar filter on the front of the telescope \
-or eye, or watch its image projected on a screen. Follow local guidance, the rules of your \
-site and the directions of an experienced supervisor.";
-
-/// Output formats.
-#[derive(Clone, Copy, Debug, PartialEq, Eq)]
-pub enum Format {
-    /// Aligned text for a terminal.
-    Table,
-    /// Comma-separated values with a header row.
-    Csv,
-    /// JSON.
-    Json,
-}
 
 fn opt_num(v: Option<f64>, decimals: usize) -> String {
     match v {
@@ -72,12 +56,6 @@ fn trim_number(x: f64) -> String {
     } else {
         s.to_string()
     }
-}
-
-/// Round to a number of decimals (for JSON output).
-pub fn round(x: f64, decimals: i32) -> f64 {
-    let p = 10f64.powi(decimals);
-    (x * p).round() / p
 }
 
 /// CSV for a list of transits.
@@ -165,15 +143,6 @@ pub const PREDICT_COLUMNS: [&str; 10] = [
     "latitude",
     "longitude",
 ];
-
-/// Quote a CSV field where it needs it.
-pub fn csv_field(text: &str) -> String {
-    if text.contains([',', '"', '\n', '\r']) {
-        format!("\"{}\"", text.replace('"', "\"\""))
-    } else {
-        text.to_string()
-    }
-}
 
 /// CSV for station predictions: one row per station and contact.
 pub fn predictions_csv(event: &TransitEvent, predictions: &[StationPrediction]) -> String {

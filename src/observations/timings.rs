@@ -4,11 +4,13 @@
 //! [`ObservationSet::rejected`] with its line number, a reason and a diagnosis sentence; nothing
 //! is dropped silently. With `strict`, the first invalid row is an error instead.
 
-use crate::contacts::Contact;
-use crate::csvinput::CsvTable;
 use crate::error::{Error, Result};
-use crate::station::{normalise_longitude_deg, Station, MAX_ELEVATION_M, MIN_ELEVATION_M};
-use crate::timescale::{parse_utc, MAX_YEAR, MIN_YEAR};
+use crate::geometry::contacts::Contact;
+use crate::geometry::station::{
+    normalise_longitude_deg, Station, MAX_ELEVATION_M, MIN_ELEVATION_M,
+};
+use crate::observations::csv_table::CsvTable;
+use crate::time::scales::{parse_utc, MAX_YEAR, MIN_YEAR};
 use chrono::{Datelike, NaiveDateTime};
 use serde::Serialize;
 use std::collections::HashMap;

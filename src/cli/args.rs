@@ -1,0 +1,281 @@
+//! The command line's grammar: every command, option and help text (clap derive). Values are
+//! checked in `commands.rs`, which turns them into library calls.
+
+use clap::{Parser, Subcommand, ValueEnum};
+use std::path::PathBuf;
+use transit_parallax::render::text::Format;
+use transit_parallax::time::scales;
+use transit_parallax::{Error, Planet, TimeModel};
+
+#[derive(Parser)]
+#[command(
+    name = "transit-parallax",
+    version,
+    about = "Predict, plan and reduce timings of transits of Venus and Mercury to the solar parallax and the astronomical unit."
+)]
+pub struct Cli {
+    /// The command to run.
+    #[command(subcommand)]
+    pub command: Command,
+}
+
+#[derive(Clone, Copy, ValueEnum)]
+pub enum FormatArg {
+    Table,
+    Csv,
+    Json,
+}
+
+#[derive(clap::Args, Clone)]
+pub struct TimeArgs {
+    /// Replace the built-in Delta T model by a fixed TT - UT1, in seconds.
+    #[arg(long = "delta-t", value_name = "SECONDS", allow_hyphen_values = true)]
+    pub delta_t: Option<f64>,
+    /// UT1 - UTC in seconds (|DUT1| < 0.9 s), for events in the leap-second era.
+    #[arg(
+        long,
+        value_name = "SECONDS",
+        default_value_t = 0.0,
+        allow_hyphen_values = true
+    )]
+    pub dut1: f64,
+}
+
+impl TimeArgs {
+    pub fn model(&self) -> Result<TimeModel, Error> {
+        let m = TimeModel {
+            delta_t_override_s: self.delta_t,
+            dut1_s: self.dut1,
+        };
+        m.validate()?;
+        Ok(m)
+    }
+}
+
+#[derive(clap::Args, Clone)]
+pub struct EventArgs {
+    /// venus or mercury.
+    #[arg(long)]
+    pub planet: String,
+    /// A date within one day of greatest transit, YYYY-MM-DD (UTC).
+    #[arg(long)]
+    pub date: String,
+    #[command(flatten)]
+    pub time: TimeArgs,
+}
+
+impl EventArgs {
+    pub fn transit(&self) -> Result<transit_parallax::TransitEvent, Error> {
+        let planet = planet_of(&self.planet)?;
+        let date = date_of(&self.date)?;
+        transit_parallax::transit_on_date(planet, date, &self.time.model()?)
+    }
+}
+
+/// The commands.
+#[derive(Subcommand)]
+pub enum Command {
+    /// List every transit of a planet in a span of years, with geocentric contacts.
+    Transits(TransitsArgs),
+    /// Predict contacts I-IV for each station of a file.
+    Predict(PredictArgs),
+    /// Reduce contact timings to the solar parallax and the astronomical unit.
+    Reduce(ReduceArgs),
+    /// Rank candidate sites, choose a network and forecast the precision; map a contact's sensitivity.
+    Plan(PlanArgs),
+    /// Monte Carlo campaigns through the real reduction: how precise will the AU come out?
+    Simulate(SimulateArgs),
+    /// Run the main job on an embedded, invented campaign and write its HTML report.
+    Demo(DemoArgs),
+}
+
+// Arguments of `transits`.
+#[derive(clap::Args)]
+pub struct TransitsArgs {
+    /// venus or mercury.
+    #[arg(long)]
+    pub planet: String,
+    /// First year (1600-2300).
+    #[arg(long)]
+    pub from: i32,
+    /// Last year (1600-2300).
+    #[arg(long)]
+    pub to: i32,
+    /// Output format.
+    #[arg(long, value_enum, default_value = "table")]
+    pub format: FormatArg,
+    #[command(flatten)]
+    pub time: TimeArgs,
+}
+
+// Arguments of `predict`.
+#[derive(clap::Args)]
+pub struct PredictArgs {
+    #[command(flatten)]
+    pub event: EventArgs,
+    /// CSV file with columns station,latitude,longitude,elevation_m.
+    #[arg(long)]
+    pub stations: PathBuf,
+    /// Output format.
+    #[arg(long, value_enum, default_value = "table")]
+    pub format: FormatArg,
+}
+
+// Arguments of `reduce`.
+#[derive(clap::Args)]
+pub struct ReduceArgs {
+    /// CSV file with columns station,latitude,longitude,elevation_m,contact,time_utc[,sigma_s].
+    pub observations: PathBuf,
+    /// venus or mercury (with --date; otherwise the event is inferred from the timings).
+    #[arg(long, requires = "date")]
+    pub planet: Option<String>,
+    /// A date within one day of greatest transit, YYYY-MM-DD (with --planet).
+    #[arg(long, requires = "planet")]
+    pub date: Option<String>,
+    /// The a-priori solar parallax in arcsec (default: the IAU 2009 value, 8.794143).
+    #[arg(long = "prior-parallax", value_name = "ARCSEC")]
+    pub prior_parallax: Option<f64>,
+    /// Stop at the first invalid row (exit status 2, line named) instead of listing it.
+    #[arg(long)]
+    pub strict: bool,
+    /// Rejection threshold, in robust standard deviations of the normalised residuals.
+    #[arg(
+        long = "outlier-threshold",
+        value_name = "SIGMAS",
+        default_value_t = 5.0
+    )]
+    pub outlier_threshold: f64,
+    /// Output format.
+    #[arg(long, value_enum, default_value = "table")]
+    pub format: FormatArg,
+    /// Also write a report: FILE.html (self-contained page) or FILE.md (with SVG charts).
+    #[arg(long, value_name = "FILE")]
+    pub report: Option<PathBuf>,
+    #[command(flatten)]
+    pub time: TimeArgs,
+}
+
+// Arguments of `plan`.
+#[derive(clap::Args)]
+pub struct PlanArgs {
+    #[command(flatten)]
+    pub event: EventArgs,
+    /// CSV file of candidate sites (columns of a stations file).
+    #[arg(long)]
+    pub sites: PathBuf,
+    /// Choose this many sites that together minimise the forecast uncertainty.
+    #[arg(long, value_name = "N")]
+    pub choose: Option<usize>,
+    /// Standard uncertainty of one timing, seconds.
+    #[arg(long = "sigma-s", value_name = "S", default_value_t = 10.0)]
+    pub sigma_s: f64,
+    /// Least altitude of the Sun for a contact to count, degrees.
+    #[arg(
+        long = "min-altitude",
+        value_name = "DEG",
+        default_value_t = 5.0,
+        allow_hyphen_values = true
+    )]
+    pub min_altitude: f64,
+    /// Output format.
+    #[arg(long, value_enum, default_value = "table")]
+    pub format: FormatArg,
+    /// Draw a world map of the sensitivity of one contact (with --contact) to this SVG file.
+    #[arg(long, value_name = "FILE.svg", requires = "contact")]
+    pub map: Option<PathBuf>,
+    /// The contact for --map and --grid-csv: 1-4 or I-IV.
+    #[arg(long)]
+    pub contact: Option<String>,
+    /// Grid spacing of the map, degrees.
+    #[arg(long = "grid-deg", value_name = "DEG", default_value_t = 2.0)]
+    pub grid_deg: f64,
+    /// Also write the grid as CSV (with --contact).
+    #[arg(long = "grid-csv", value_name = "FILE.csv", requires = "contact")]
+    pub grid_csv: Option<PathBuf>,
+}
+
+// Arguments of `simulate`.
+#[derive(clap::Args)]
+pub struct SimulateArgs {
+    #[command(flatten)]
+    pub event: EventArgs,
+    /// CSV file of the network's stations.
+    #[arg(long)]
+    pub network: PathBuf,
+    /// Number of simulated campaigns.
+    #[arg(long, default_value_t = 200)]
+    pub trials: usize,
+    /// Standard uncertainty of one timing, seconds (all contacts).
+    #[arg(long = "sigma-s", value_name = "S", default_value_t = 10.0)]
+    pub sigma_s: f64,
+    /// Seed of the random generator (the same seed gives the same result).
+    #[arg(long, default_value_t = 1)]
+    pub seed: u64,
+    /// Black-drop bias in seconds (II seen late, III early by this much).
+    #[arg(long = "black-drop", value_name = "S", default_value_t = 0.0)]
+    pub black_drop: f64,
+    /// Probability that a station is clouded out.
+    #[arg(long = "weather-loss", value_name = "P", default_value_t = 0.0)]
+    pub weather_loss: f64,
+    /// Probability that a timing carries a blunder.
+    #[arg(long = "blunder-rate", value_name = "P", default_value_t = 0.0)]
+    pub blunder_rate: f64,
+    /// Probability that a station's clock is wrong.
+    #[arg(long = "clock-error-rate", value_name = "P", default_value_t = 0.0)]
+    pub clock_error_rate: f64,
+    /// Size of a clock error, seconds.
+    #[arg(long = "clock-error-s", value_name = "S", default_value_t = 60.0)]
+    pub clock_error_s: f64,
+    /// Least altitude of the Sun for a contact to be timed, degrees.
+    #[arg(
+        long = "min-altitude",
+        value_name = "DEG",
+        default_value_t = 5.0,
+        allow_hyphen_values = true
+    )]
+    pub min_altitude: f64,
+    /// Worker threads (default: all cores).
+    #[arg(long)]
+    pub threads: Option<usize>,
+    /// Write a histogram of the AU estimates to this SVG file.
+    #[arg(long, value_name = "FILE.svg")]
+    pub histogram: Option<PathBuf>,
+    /// Output format.
+    #[arg(long, value_enum, default_value = "table")]
+    pub format: FormatArg,
+}
+
+// Arguments of `demo`.
+#[derive(clap::Args)]
+pub struct DemoArgs {
+    /// Where to write the report (default: transit-parallax-demo.html in the current folder).
+    #[arg(
+        long,
+        value_name = "FILE",
+        default_value = "transit-parallax-demo.html"
+    )]
+    pub report: PathBuf,
+}
+
+pub fn planet_of(text: &str) -> Result<Planet, Error> {
+    Planet::parse(text).ok_or_else(|| {
+        Error::argument(format!(
+            "--planet '{text}' is not a transiting planet; give venus or mercury"
+        ))
+    })
+}
+
+pub fn date_of(text: &str) -> Result<chrono::NaiveDate, Error> {
+    scales::parse_date(text).map_err(|m| Error::argument(format!("--date: {m}")))
+}
+
+impl FormatArg {
+    /// The library's output format.
+    pub fn format(self) -> Format {
+        match self {
+            FormatArg::Table => Format::Table,
+            FormatArg::Csv => Format::Csv,
+            FormatArg::Json => Format::Json,
+        }
+    }
+}

@@ -1,0 +1,226 @@
+//! One function per command: check the values clap could not, call the library, render the
+//! result. No science here.
+
+use crate::args::{date_of, planet_of};
+use crate::args::{
+    Command, DemoArgs, PlanArgs, PredictArgs, ReduceArgs, SimulateArgs, TransitsArgs,
+};
+use std::path::Path;
+use transit_parallax::geometry::station::read_stations;
+use transit_parallax::observations::timings::read_observations;
+use transit_parallax::planning::{simulation, sites};
+use transit_parallax::reduction::{reduce, ReduceOptions};
+use transit_parallax::render::text::Format;
+use transit_parallax::render::{charts, document, planning, prediction, reduction};
+use transit_parallax::sky::constants::{nominal_parallax_arcsec, AU_KM};
+use transit_parallax::{Contact, Error};
+
+/// Run one command; the text to print on success.
+pub fn run(command: Command) -> Result<String, Error> {
+    match command {
+        Command::Transits(a) => transits(a),
+        Command::Predict(a) => predict(a),
+        Command::Reduce(a) => reduce_timings(a),
+        Command::Plan(a) => plan(a),
+        Command::Simulate(a) => simulate(a),
+        Command::Demo(a) => demo(a),
+    }
+}
+
+fn transits(a: TransitsArgs) -> Result<String, Error> {
+    let planet = planet_of(&a.planet)?;
+    let events = transit_parallax::transits_in_years(planet, a.from, a.to, &a.time.model()?)?;
+    Ok(match a.format.format() {
+        Format::Table => prediction::transits_table(&events),
+        Format::Csv => prediction::transits_csv(&events),
+        Format::Json => pretty(&prediction::transits_json(&events)),
+    })
+}
+
+fn predict(a: PredictArgs) -> Result<String, Error> {
+    let stations = read_stations(&a.stations)?;
+    let event = a.event.transit()?;
+    let predictions: Vec<_> = stations.iter().map(|s| event.predict(s)).collect();
+    Ok(match a.format.format() {
+        Format::Table => prediction::predictions_table(&event, &predictions),
+        Format::Csv => prediction::predictions_csv(&event, &predictions),
+        Format::Json => pretty(&prediction::predictions_json(&event, &predictions)),
+    })
+}
+
+fn reduce_timings(a: ReduceArgs) -> Result<String, Error> {
+    let event = match (&a.planet, &a.date) {
+        (Some(p), Some(d)) => Some((planet_of(p)?, date_of(d)?)),
+        _ => None,
+    };
+    if !(2.0..=20.0).contains(&a.outlier_threshold) {
+        return Err(Error::argument(format!(
+            "--outlier-threshold {} is outside 2 to 20 robust standard deviations",
+            a.outlier_threshold
+        )));
+    }
+    let options = ReduceOptions {
+        event,
+        prior_parallax_arcsec: a.prior_parallax.unwrap_or_else(nominal_parallax_arcsec),
+        time_model: a.time.model()?,
+        outlier_threshold: a.outlier_threshold,
+        follow_convergence: a.report.is_some(),
+    };
+    let set = read_observations(&a.observations, a.strict)?;
+    let red = reduce(set, &options)?;
+    let json = a.format.format() == Format::Json;
+    let mut text = if json {
+        pretty(&reduction::reduction_json(&red))
+    } else {
+        reduction::reduction_table(&red)
+    };
+    if let Some(path) = &a.report {
+        for p in document::write_report(&red, path)? {
+            if !json {
+                text.push_str(&format!("report written: {}\n", p.display()));
+            }
+        }
+    }
+    Ok(text)
+}
+
+fn plan(a: PlanArgs) -> Result<String, Error> {
+    check_range("--sigma-s", a.sigma_s, 0.01, 3600.0)?;
+    check_range("--min-altitude", a.min_altitude, -1.0, 60.0)?;
+    check_range("--grid-deg", a.grid_deg, 0.1, 30.0)?;
+    let stations = read_stations(&a.sites)?;
+    let event = a.event.transit()?;
+    let plan = sites::plan(&event, &stations, a.sigma_s, a.min_altitude, a.choose);
+    let format = a.format.format();
+    let mut text = match format {
+        Format::Table => planning::plan_table(&event, &plan, a.min_altitude),
+        Format::Csv => planning::plan_csv(&event, &plan),
+        Format::Json => pretty(&planning::plan_json(&event, &plan, a.min_altitude)),
+    };
+    let Some(c) = &a.contact else {
+        return Ok(text);
+    };
+    let contact = Contact::parse(c).ok_or_else(|| {
+        Error::argument(format!(
+            "--contact '{c}' is not a contact; give 1-4 or I-IV"
+        ))
+    })?;
+    let grid = sites::sensitivity_grid(&event, contact, a.grid_deg);
+    if let Some(path) = &a.map {
+        let title = format!(
+            "Transit of {} {}: sensitivity of contact {}",
+            event.planet,
+            event.date(),
+            contact.roman()
+        );
+        let svg = charts::sensitivity_map_svg(&grid, a.grid_deg, contact, a.min_altitude, &title);
+        write_file(path, &svg)?;
+        if format == Format::Table {
+            text.push_str(&format!("map written: {}\n", path.display()));
+        }
+    }
+    if let Some(path) = &a.grid_csv {
+        write_file(path, &planning::grid_csv(&event, &grid, a.min_altitude))?;
+        if format == Format::Table {
+            text.push_str(&format!("grid written: {}\n", path.display()));
+        }
+    }
+    Ok(text)
+}
+
+fn simulation_settings(a: &SimulateArgs) -> Result<simulation::SimulationSettings, Error> {
+    check_range("--trials", a.trials as f64, 1.0, 1_000_000.0)?;
+    check_range("--sigma-s", a.sigma_s, 0.01, 3600.0)?;
+    check_range("--black-drop", a.black_drop, -600.0, 600.0)?;
+    for (name, p) in [
+        ("--weather-loss", a.weather_loss),
+        ("--blunder-rate", a.blunder_rate),
+        ("--clock-error-rate", a.clock_error_rate),
+    ] {
+        check_range(name, p, 0.0, 1.0)?;
+    }
+    check_range("--clock-error-s", a.clock_error_s, 0.0, 86_400.0)?;
+    check_range("--min-altitude", a.min_altitude, -1.0, 60.0)?;
+    Ok(simulation::SimulationSettings {
+        sigma_s: [a.sigma_s; 4],
+        black_drop_bias_s: a.black_drop,
+        min_altitude_deg: a.min_altitude,
+        weather_loss: a.weather_loss,
+        blunder_rate: a.blunder_rate,
+        clock_error_rate: a.clock_error_rate,
+        clock_error_s: a.clock_error_s,
+    })
+}
+
+fn simulate(a: SimulateArgs) -> Result<String, Error> {
+    let settings = simulation_settings(&a)?;
+    let stations = read_stations(&a.network)?;
+    let event = a.event.transit()?;
+    let threads = a.threads.unwrap_or_else(|| {
+        std::thread::available_parallelism()
+            .map(|n| n.get())
+            .unwrap_or(1)
+    });
+    let bar = indicatif::ProgressBar::new(a.trials as u64);
+    bar.set_style(
+        indicatif::ProgressStyle::with_template("{bar:40} {pos}/{len} campaigns ({eta} left)")
+            .unwrap_or_else(|_| indicatif::ProgressStyle::default_bar()),
+    );
+    let tick = || bar.inc(1);
+    let summary = simulation::monte_carlo(
+        &event, &stations, &settings, a.trials, a.seed, threads, &tick,
+    );
+    bar.finish_and_clear();
+    let json = a.format.format() == Format::Json;
+    let mut text = if json {
+        let v = planning::simulation_json(&event, &summary, &settings, stations.len(), a.seed);
+        pretty(&v)
+    } else {
+        planning::simulation_table(&event, &summary, stations.len())
+    };
+    if let Some(path) = &a.histogram {
+        let title = format!(
+            "AU from {} simulated campaigns, transit of {} {}",
+            summary.solved,
+            event.planet,
+            event.date()
+        );
+        let svg = charts::histogram_svg(
+            &summary.au_estimates_km,
+            AU_KM,
+            "astronomical unit (km)",
+            &title,
+        );
+        write_file(path, &svg)?;
+        if !json {
+            text.push_str(&format!("histogram written: {}\n", path.display()));
+        }
+    }
+    Ok(text)
+}
+
+fn demo(a: DemoArgs) -> Result<String, Error> {
+    transit_parallax::demo::run_demo(&a.report)
+}
+
+fn check_range(name: &str, value: f64, min: f64, max: f64) -> Result<(), Error> {
+    if !value.is_finite() || value < min || value > max {
+        return Err(Error::argument(format!(
+            "{name} {value} is outside {min} to {max}"
+        )));
+    }
+    Ok(())
+}
+
+fn write_file(path: &Path, text: &str) -> Result<(), Error> {
+    std::fs::write(path, text).map_err(|source| Error::Io {
+        path: path.to_path_buf(),
+        source,
+    })
+}
+
+fn pretty(v: &serde_json::Value) -> String {
+    let mut s = serde_json::to_string_pretty(v).unwrap_or_default();
+    s.push('\n');
+    s
+}

@@ -1,0 +1,15 @@
+//! Stage 3, geometry: from the bodies' places to each station's contacts.
+//!
+//! Takes the ephemeris and stations on WGS 84 and gives an event's fundamental-plane elements,
+//! the transits in a span of years, and for every station the contact times I-IV with the
+//! Sun's altitude and azimuth, the position and vertex angles and the sensitivity of each
+//! contact to the solar parallax.
+//!
+//! - `station.rs`: stations on WGS 84, their geocentric coordinates, reading station files.
+//! - `besselian.rs`: the fundamental-plane elements of an event, fitted as Chebyshev series.
+//! - `contacts.rs`: a station's contacts, circumstances, partial derivatives, full-model check.
+//! - `transit.rs`: finding transits, naming an event by date, predicting stations.
+pub mod besselian;
+pub mod contacts;
+pub mod station;
+pub mod transit;

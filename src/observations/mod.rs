@@ -1,0 +1,9 @@
+//! Stage 4, observations: from submitted files to timings the reduction can use.
+//!
+//! Takes CSV files as observers wrote them and gives validated timings, with every row that
+//! cannot be used kept with its line, a reason and a sentence saying how to fix it.
+//!
+//! - `csv_table.rs`: CSV reading with the line and column of every value.
+//! - `timings.rs`: reading and validating timings; rejected rows and their reasons.
+pub mod csv_table;
+pub mod timings;

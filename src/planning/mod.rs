@@ -1,0 +1,10 @@
+//! Stage 6, planning: before the event, which sites to recruit and how precise the result will be.
+//!
+//! Takes candidate sites and an event and gives each site's contacts, visibility and gain to
+//! the network, a greedy choice of N sites with its forecast, sensitivity maps, and Monte
+//! Carlo campaigns run through the real reduction.
+//!
+//! - `sites.rs`: site ranking, greedy network choice, forecasts, sensitivity grids.
+//! - `simulation.rs`: simulated campaigns and Monte Carlo forecasts.
+pub mod simulation;
+pub mod sites;

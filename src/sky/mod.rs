@@ -1,0 +1,14 @@
+//! Stage 2, the sky: where the Sun and the planet are seen from the Earth's centre.
+//!
+//! Takes TT instants and gives apparent geocentric positions (light time, aberration,
+//! precession-nutation) and the Earth's rotation angle, with the constants every later stage
+//! shares.
+//!
+//! - `constants.rs`: physical and conventional constants, each with unit and authority.
+//! - `vector.rs`: small 3-vector helpers.
+//! - `chebyshev.rs`: Chebyshev interpolation and evaluation with derivatives.
+//! - `ephemeris.rs`: VSOP87A positions, light time, aberration, precession-nutation, sidereal time.
+pub mod chebyshev;
+pub mod constants;
+pub mod ephemeris;
+pub mod vector;
