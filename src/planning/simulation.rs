@@ -341,7 +341,7 @@ pub fn monte_carlo(
         trials,
         solved: solved.len(),
         au_estimates_km: solved.iter().map(|r| r.0).collect(),
-        au_sigma_forecast_km: crate::reduction::least_squares::median(&sigmas),
+        au_sigma_forecast_km: crate::reduction::statistics::median(&sigmas),
         au_scatter_km: scatter,
         au_bias_km: mean - truth_km,
         coverage_95: solved.iter().filter(|r| r.2).count() as f64 / m,

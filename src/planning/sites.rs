@@ -16,7 +16,8 @@
 use crate::geometry::contacts::Contact;
 use crate::geometry::station::Station;
 use crate::geometry::transit::TransitEvent;
-use crate::reduction::{condition_row, nominal_theta, N_PARAMS};
+use crate::reduction::equations::{condition_row, nominal_theta};
+use crate::reduction::parameters::N_CLASSIC as N_PARAMS;
 use nalgebra::{DMatrix, SMatrix};
 
 type Info = SMatrix<f64, N_PARAMS, N_PARAMS>;
@@ -89,7 +90,7 @@ pub fn forecast_sigma(n: &Info) -> Option<f64> {
     let d: Vec<f64> = (0..idx.len()).map(|a| m[(a, a)].sqrt()).collect();
     let corr = DMatrix::from_fn(idx.len(), idx.len(), |a, b| m[(a, b)] / (d[a] * d[b]));
     if corr.clone().symmetric_eigenvalues().min()
-        < crate::reduction::least_squares::RANK_TOLERANCE.powi(2)
+        < crate::reduction::identifiability::RANK_TOLERANCE.powi(2)
     {
         return None;
     }

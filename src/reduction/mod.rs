@@ -1,5 +1,42 @@
-//! Stage 5, the reduction.
+//! Stage 5, the reduction: from contact timings to the solar parallax and the astronomical
+//! unit.
+//!
+//! Takes validated timings and an event; gives a [`Reduction`]: the parallax and the AU with
+//! honest uncertainties, every parameter and its correlations, the chi-square statistics,
+//! each station's share of the information and influence, and every row not used with the
+//! blunder that explains it. `pipeline.rs` calls the pieces in the order of docs/reduction.md:
+//!
+//! - `parameters.rs`: the campaign's parameter set (global and per-station, units, priors,
+//!   held fixed).
+//! - `equations.rs`: the condition equations (computed times and partial derivatives).
+//! - `normal_equations.rs`: the normal equations with per-station parameters eliminated block
+//!   by block.
+//! - `identifiability.rs`: the rank test and what to hold fixed when the timings cannot
+//!   separate parameters.
+//! - `fit.rs`: Gauss-Newton iteration.
+//! - `statistics.rs`: chi-square, p-value, Birge ratio, coverage factors, robust scale.
+//! - `screening.rs`: timings of the event, visibility, pre-screening, sigma clipping.
+//! - `diagnosis.rs`: the blunder rules (zone time, date, contacts exchanged, coordinates,
+//!   clocks).
+//! - `rejection.rs`: station-wide tests and the record of every row not used.
+//! - `contributions.rs`: information shares, influence, Halley chords, convergence.
+//! - `result.rs`: the settings and the result types.
+//! - `pipeline.rs`: [`reduce`] and [`reduce_for_event`].
+pub mod contributions;
 pub mod diagnosis;
-pub mod least_squares;
+pub mod equations;
+pub mod fit;
+pub mod identifiability;
+pub mod normal_equations;
+pub mod parameters;
 pub mod pipeline;
-pub use pipeline::*;
+pub mod rejection;
+pub mod result;
+pub mod screening;
+pub mod statistics;
+
+pub use pipeline::{reduce, reduce_for_event};
+pub use result::{
+    Chord, ConvergencePoint, Headline, Parameter, ReduceOptions, Reduction, StationContribution,
+    UsedTiming,
+};

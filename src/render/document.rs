@@ -2,7 +2,7 @@
 //! script, nothing fetched) or Markdown with the charts as SVG files beside it.
 
 use crate::error::{Error, Result};
-use crate::reduction::{Reduction, PARAMETER_NAMES};
+use crate::reduction::Reduction;
 use crate::render::charts::{
     convergence_svg, disc_exaggeration, esc, residuals_svg, solar_disc_svg, station_map_svg,
 };
@@ -77,8 +77,9 @@ fn parameters_rows(red: &Reduction) -> Vec<Vec<String>> {
                     .unwrap_or_else(|| "held fixed".into()),
                 p.unit.clone(),
             ];
-            for c in &red.correlation[i] {
-                row.push(format!("{c:+.3}"));
+            match red.correlation.get(i) {
+                Some(r) => row.extend(r.iter().map(|c| format!("{c:+.3}"))),
+                None => row.extend(vec![String::new(); red.correlation.len()]),
             }
             row
         })
@@ -208,14 +209,14 @@ fn md_table(headers: &[&str], rows: &[Vec<String>]) -> String {
     s
 }
 
-fn param_headers() -> Vec<String> {
+fn param_headers(n_correlated: usize) -> Vec<String> {
     let mut h = vec![
         "parameter".to_string(),
         "value".into(),
         "standard uncertainty".into(),
         "unit".into(),
     ];
-    for i in 0..PARAMETER_NAMES.len() {
+    for i in 0..n_correlated {
         h.push(format!("corr. p{}", i + 1));
     }
     h
@@ -274,7 +275,7 @@ pub fn html_report(red: &Reduction) -> String {
     let _ = writeln!(s, "<h2>Residuals</h2>\n<figure>\n{}<figcaption>O - C of every timing with its standard uncertainty, by contact. Red marks: timings not used, numbered as in the table below (a triangle at the edge: off the scale).</figcaption>\n</figure>", residuals_svg(red));
     let _ = writeln!(s, "<h2>How the answer firmed up</h2>\n<figure>\n{}<figcaption>The solar parallax (line) and its standard uncertainty (band) as timings are added in the order of the file.</figcaption>\n</figure>", convergence_svg(red));
     s.push_str("<h2>Parameters</h2>\n");
-    let ph = param_headers();
+    let ph = param_headers(red.correlation.len());
     let ph_ref: Vec<&str> = ph.iter().map(String::as_str).collect();
     s.push_str(&html_table(&ph_ref, &parameters_rows(red)));
     s.push_str("<h2>Stations, ranked by their share of the information on the parallax</h2>\n");
@@ -337,7 +338,7 @@ pub fn markdown_report(red: &Reduction, stem: &str) -> (String, Vec<(String, Str
         let _ = write!(s, "![{}]({})\n\n", md_cell(cap), file);
     }
     s.push_str("## Parameters\n\n");
-    let ph = param_headers();
+    let ph = param_headers(red.correlation.len());
     let ph_ref: Vec<&str> = ph.iter().map(String::as_str).collect();
     s.push_str(&md_table(&ph_ref, &parameters_rows(red)));
     s.push_str("\n## Stations, ranked by their share of the information on the parallax\n\n");

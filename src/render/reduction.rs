@@ -1,7 +1,7 @@
 //! Rendering a reduction: the JSON object of the stable interface and a readable terminal
 //! report (solution, parameters, correlations, stations ranked by contribution, rejected rows).
 
-use crate::reduction::{Reduction, PARAMETER_NAMES};
+use crate::reduction::Reduction;
 use crate::render::text::{round as r, SAFETY_CAUTION};
 use serde_json::{json, Value};
 
@@ -155,7 +155,7 @@ pub fn reduction_table(red: &Reduction) -> String {
         }
     }
     s.push_str("\nCorrelations\n  ");
-    for (i, _) in PARAMETER_NAMES.iter().enumerate() {
+    for i in 0..red.correlation.len() {
         s.push_str(&format!("{:>8}", format!("p{}", i + 1)));
     }
     s.push('\n');

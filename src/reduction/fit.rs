@@ -1,0 +1,346 @@
+//! The fit: Gauss-Newton iteration of the condition equations over a campaign's parameter
+//! set, with priors as pseudo-observations and each station's own parameters eliminated block
+//! by block.
+//!
+//! Each step linearises every timing at the current values, tests (once) which parameters the
+//! timings can determine, solves the reduced normal equations and applies the corrections.
+//! The iteration stops when the parallax changes by less than 1e-6 arcsec and every other
+//! parameter by less than 1e-4, or after 40 steps.
+//!
+//! References: P. R. Bevington and D. K. Robinson, *Data Reduction and Error Analysis*, 3rd ed.
+//! (2003), chapter 8 (non-linear least squares by linearisation); W. H. Press et al.,
+//! *Numerical Recipes*, 3rd ed. (2007), section 15.5.
+
+use super::equations::{linearise, Timing};
+use super::identifiability::{describe_confusion, hold_fixed_what_cannot_be_separated};
+use super::normal_equations::{reduced_normal, solve, LinearSystem, LocalPartials};
+use super::parameters::{ParameterSet, PARALLAX, RADIUS_DIFFERENCE, RADIUS_SUM};
+use crate::geometry::transit::TransitEvent;
+use nalgebra::{DMatrix, DVector};
+
+/// Largest number of Gauss-Newton steps.
+pub const MAX_ITERATIONS: usize = 40;
+
+/// The outcome of one fit.
+#[derive(Clone, Debug)]
+pub struct FitOutcome {
+    /// Values of every parameter.
+    pub theta: Vec<f64>,
+    /// Unscaled covariance of the global parameters (zero rows for fixed ones; all zero when
+    /// the fit could not be solved).
+    pub covariance: DMatrix<f64>,
+    /// Unscaled standard uncertainty of every parameter (`None` for fixed ones).
+    pub sigma: Vec<Option<f64>>,
+    /// O - C of the timings in the fit, seconds, in the order of `used`.
+    pub residuals_s: Vec<f64>,
+    /// The design of the global parameters (s per unit), with each station's own parameters
+    /// projected out.
+    pub jacobian: DMatrix<f64>,
+    /// Which parameters were fitted.
+    pub free: Vec<bool>,
+    /// Gauss-Newton steps taken.
+    pub iterations: usize,
+    /// Whether the iteration converged.
+    pub converged: bool,
+    /// Timings whose contact does not occur at their station under the current values.
+    pub unsolvable: Vec<usize>,
+    /// Sentences for the user (parameters held fixed and why).
+    pub messages: Vec<String>,
+}
+
+/// The linearised equations of the timings in the fit.
+struct Linearisation {
+    global: DMatrix<f64>,
+    local: Vec<LocalPartials>,
+    residuals: Vec<f64>,
+    weights: Vec<f64>,
+    unsolvable: Vec<usize>,
+}
+
+fn linearise_all(
+    event: &TransitEvent,
+    timings: &[Timing],
+    used: &[usize],
+    params: &ParameterSet,
+    theta: &[f64],
+) -> Linearisation {
+    let n_global = params.n_global();
+    let er = event.earth_radii_per_arcsec();
+    let mut rows = Vec::with_capacity(used.len());
+    let mut local = Vec::with_capacity(used.len());
+    let mut residuals = Vec::with_capacity(used.len());
+    let mut weights = Vec::with_capacity(used.len());
+    let mut unsolvable = Vec::new();
+    for &i in used {
+        let t = &timings[i];
+        match linearise(event, t, params, theta, er) {
+            Some(l) => {
+                rows.push(l.global);
+                local.push(LocalPartials {
+                    station: t.station,
+                    partials: l.local,
+                });
+                residuals.push((t.observed_h - l.computed_h) * 3600.0);
+                weights.push(1.0 / (t.obs.sigma_s * t.obs.sigma_s));
+            }
+            None => unsolvable.push(i),
+        }
+    }
+    let global = DMatrix::from_fn(rows.len(), n_global, |i, j| rows[i][j]);
+    Linearisation {
+        global,
+        local,
+        residuals,
+        weights,
+        unsolvable,
+    }
+}
+
+/// Which parameters start free: those not held fixed by the set, less the radius corrections
+/// of contact kinds with no timing.
+fn initial_free(
+    params: &ParameterSet,
+    timings: &[Timing],
+    used: &[usize],
+) -> (Vec<bool>, Vec<String>) {
+    let mut free: Vec<bool> = params.specs().iter().map(|s| !s.fixed).collect();
+    let mut messages = Vec::new();
+    free[RADIUS_SUM] &= used.iter().any(|&i| timings[i].obs.contact.is_exterior());
+    free[RADIUS_DIFFERENCE] &= used.iter().any(|&i| !timings[i].obs.contact.is_exterior());
+    if !free[RADIUS_SUM] {
+        messages.push("no exterior contact (I or IV) is in the solution, so the correction to the sum of the radii is held at 0".to_string());
+    }
+    if !free[RADIUS_DIFFERENCE] {
+        messages.push("no interior contact (II or III) is in the solution, so the correction to the difference of the radii is held at 0".to_string());
+    }
+    (free, messages)
+}
+
+/// Hold fixed what the timings cannot determine, and say so.
+fn check_rank(
+    sys: &LinearSystem,
+    params: &ParameterSet,
+    (free, theta): (&mut [bool], &[f64]),
+    timings: &[Timing],
+    used: &[usize],
+    messages: &mut Vec<String>,
+) {
+    let g = params.n_global();
+    let names: Vec<&str> = params.specs()[..g]
+        .iter()
+        .map(|s| s.name.as_str())
+        .collect();
+    let confused = match reduced_normal(sys, params, free, theta) {
+        Some(normal) => {
+            hold_fixed_what_cannot_be_separated(&normal, &mut free[..g], &names, PARALLAX)
+        }
+        None => Vec::new(),
+    };
+    if !confused.is_empty() {
+        let list: Vec<&Timing> = used.iter().map(|&i| &timings[i]).collect();
+        messages.push(describe_confusion(&list, &confused));
+    }
+    if !free[PARALLAX] {
+        messages.push("the solar parallax cannot be determined from these timings; it is held at the a-priori value and no result is given".to_string());
+    }
+}
+
+/// Fit the parameters to the timings `used` (indices into `timings`), starting from `theta0`.
+///
+/// Arguments: `event`; `timings`; `used`; `params`, the campaign's parameter set; `theta0`,
+/// the starting values of every parameter.
+/// Returns: the outcome; `unsolvable` lists timings whose contact vanished (the caller drops
+/// them and fits again).
+pub fn fit(
+    event: &TransitEvent,
+    timings: &[Timing],
+    used: &[usize],
+    params: &ParameterSet,
+    theta0: &[f64],
+) -> FitOutcome {
+    let g = params.n_global();
+    let mut theta = theta0.to_vec();
+    let (mut free, mut messages) = initial_free(params, timings, used);
+    let mut rank_checked = false;
+    let mut iterations = 0;
+    loop {
+        let lin = linearise_all(event, timings, used, params, &theta);
+        let (r, w) = (
+            DVector::from_vec(lin.residuals.clone()),
+            DVector::from_vec(lin.weights.clone()),
+        );
+        let sys = LinearSystem {
+            global: &lin.global,
+            local: &lin.local,
+            residuals: &r,
+            weights: &w,
+        };
+        let stop =
+            |theta: Vec<f64>, free: Vec<bool>, messages: Vec<String>, converged| FitOutcome {
+                theta,
+                covariance: DMatrix::zeros(g, g),
+                sigma: vec![None; params.len()],
+                residuals_s: lin.residuals.clone(),
+                jacobian: lin.global.clone(),
+                free,
+                iterations,
+                converged,
+                unsolvable: lin.unsolvable.clone(),
+                messages,
+            };
+        if !lin.unsolvable.is_empty() || lin.residuals.is_empty() {
+            return stop(theta, free, messages, false);
+        }
+        if !rank_checked {
+            check_rank(
+                &sys,
+                params,
+                (&mut free, &theta),
+                timings,
+                used,
+                &mut messages,
+            );
+            rank_checked = true;
+        }
+        let solution = if free.iter().any(|&f| f) {
+            solve(&sys, params, &free, &theta)
+        } else {
+            None
+        };
+        let Some(sol) = solution else {
+            let converged = !free[PARALLAX];
+            return stop(theta, free, messages, converged);
+        };
+        let converged = iterations > 0
+            && sol.correction[PARALLAX].abs() < 1e-6
+            && sol.correction.iter().skip(1).all(|c| c.abs() < 1e-4);
+        if converged || iterations >= MAX_ITERATIONS {
+            return FitOutcome {
+                theta,
+                covariance: sol.covariance_global,
+                sigma: sol.sigma,
+                residuals_s: lin.residuals,
+                jacobian: sol.projected_global,
+                free,
+                iterations,
+                converged,
+                unsolvable: lin.unsolvable,
+                messages,
+            };
+        }
+        for j in (0..theta.len()).filter(|&j| free[j]) {
+            theta[j] += sol.correction[j];
+        }
+        // Keep the parallax in a physical range while iterating.
+        theta[PARALLAX] = theta[PARALLAX].clamp(1.0, 30.0);
+        iterations += 1;
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::geometry::contacts::Contact;
+    use crate::observations::timings::Observation;
+    use crate::planning::simulation::{global_stations, stations_seeing};
+    use crate::reduction::equations::perturbation;
+    use crate::{transit_on_date, Planet, TimeModel};
+
+    /// Synthetic timings of Venus 2012 with every visible contact at every station that sees
+    /// all four, made from known parameters and known clock errors, without noise.
+    fn synthetic(
+        truth: &[f64],
+        clocks_s: &[(usize, f64)],
+    ) -> (crate::TransitEvent, Vec<Timing>, usize) {
+        let date = chrono::NaiveDate::from_ymd_opt(2012, 6, 6).unwrap();
+        let event = transit_on_date(Planet::Venus, date, &TimeModel::default()).unwrap();
+        let stations = stations_seeing(&event, global_stations(120, "s"), 4, 5.0);
+        let p = perturbation(truth, event.earth_radii_per_arcsec());
+        let mut timings = Vec::new();
+        for (k, st) in stations.iter().enumerate() {
+            let geo = st.geocentric();
+            let clock = clocks_s.iter().find(|c| c.0 == k).map_or(0.0, |c| c.1);
+            for c in Contact::ALL {
+                let h = event.contact_hours_perturbed(&geo, c, &p).unwrap();
+                timings.push(Timing {
+                    obs: Observation {
+                        line: timings.len() as u64 + 2,
+                        station: st.clone(),
+                        contact: c,
+                        time_label: chrono::NaiveDateTime::default(),
+                        sigma_s: 5.0,
+                        sigma_given: true,
+                    },
+                    geo: geo.clone(),
+                    observed_h: h + clock / 3600.0,
+                    station: k,
+                });
+            }
+        }
+        (event, timings, stations.len())
+    }
+
+    #[test]
+    fn recovers_global_and_per_station_parameters() {
+        // Truth: a parallax 0.1" above the prior, offsets and radius corrections of a few
+        // hundredths of an arcsec, and three stations whose clocks are wrong.
+        let truth = [8.894_143, 0.03, -0.02, 0.05, -0.04];
+        let clocks = [(0, 42.0), (3, -17.5), (7, 6.25)];
+        let (event, timings, n_stations) = synthetic(&truth, &clocks);
+        assert!(n_stations >= 10, "{n_stations} stations");
+        let mut params = ParameterSet::classic(8.794_143);
+        let clock_index: Vec<usize> = clocks
+            .iter()
+            .map(|&(k, _)| {
+                let name = timings[4 * k].obs.station.name.clone();
+                params.add_station_parameter(k, ParameterSet::clock_offset(&name, None))
+            })
+            .collect();
+        let used: Vec<usize> = (0..timings.len()).collect();
+        let out = fit(&event, &timings, &used, &params, &params.start_values());
+        assert!(out.converged, "{:?}", out.messages);
+        for (j, t) in truth.iter().enumerate() {
+            assert!(
+                (out.theta[j] - t).abs() < 2e-5,
+                "parameter {j}: {} vs {t}",
+                out.theta[j]
+            );
+        }
+        for (&j, &(_, c)) in clock_index.iter().zip(&clocks) {
+            assert!(
+                (out.theta[j] - c).abs() < 1e-3,
+                "clock {} vs {c}",
+                out.theta[j]
+            );
+            assert!(out.sigma[j].is_some_and(|s| s > 0.0 && s < 5.0));
+        }
+        assert!(out.residuals_s.iter().all(|r| r.abs() < 1e-3));
+    }
+
+    #[test]
+    fn a_prior_on_a_clock_pulls_it_and_is_honoured() {
+        // The same campaign with one clock error, fitted with a tight prior of 0 +- 0.01 s on
+        // it: the clock stays near 0 and the residuals of that station take up the error.
+        let truth = [8.794_143, 0.0, 0.0, 0.0, 0.0];
+        let (event, timings, _) = synthetic(&truth, &[(2, 30.0)]);
+        let mut params = ParameterSet::classic(8.794_143);
+        let prior = crate::reduction::parameters::Prior {
+            value: 0.0,
+            sigma: 0.01,
+        };
+        let j = params.add_station_parameter(2, ParameterSet::clock_offset("c", Some(prior)));
+        let used: Vec<usize> = (0..timings.len()).collect();
+        let out = fit(&event, &timings, &used, &params, &params.start_values());
+        assert!(out.theta[j].abs() < 0.1, "clock {}", out.theta[j]);
+        let station_rows: Vec<f64> = used
+            .iter()
+            .zip(&out.residuals_s)
+            .filter(|(&i, _)| timings[i].station == 2)
+            .map(|(_, r)| *r)
+            .collect();
+        assert!(
+            station_rows.iter().all(|r| r.abs() > 10.0),
+            "{station_rows:?}"
+        );
+    }
+}

@@ -1,0 +1,196 @@
+//! Accounting for every timing not used: the station-wide blunder tests and the record of
+//! each rejected row with its reason and the diagnosis that explains it.
+//!
+//! A station at least half of whose timings could not be used is tested as a whole (the
+//! longitude's sign, latitude and longitude exchanged, a clock error); a station with two or
+//! more timings is also tested for a common clock offset, which can hide below the rejection
+//! threshold. The rules themselves are in `diagnosis.rs`.
+//!
+//! References: the blunders of pooled public timings and their signatures are common
+//! practice (no single source); see docs/reduction.md.
+
+use super::diagnosis::{clock_offset_s, explain_row, explain_station, StationTiming};
+use super::equations::{perturbation, residual_s, Timing};
+use super::fit::FitOutcome;
+use super::parameters::ParameterSet;
+use super::screening::Screened;
+use crate::geometry::contacts::Perturbation;
+use crate::geometry::transit::TransitEvent;
+use crate::observations::timings::{RejectReason, Rejected};
+
+/// Rows of one station and the sentence that explains them all.
+pub type StationVerdict = (Vec<usize>, String);
+
+fn station_timings(timings: &[Timing], rows: &[usize]) -> Vec<StationTiming> {
+    rows.iter()
+        .map(|&i| StationTiming {
+            contact: timings[i].obs.contact,
+            observed_h: timings[i].observed_h,
+            sigma_s: timings[i].obs.sigma_s,
+        })
+        .collect()
+}
+
+/// A common clock offset over all the rows of a station, as a verdict.
+fn clock_verdict(
+    event: &TransitEvent,
+    timings: &[Timing],
+    params: &ParameterSet,
+    s: &Screened,
+    (rows, name, threshold): (&[usize], &str, f64),
+) -> Option<StationVerdict> {
+    let er = event.earth_radii_per_arcsec();
+    let res: Option<Vec<f64>> = rows
+        .iter()
+        .map(|&i| residual_s(event, &timings[i], params, &s.outcome.theta, er))
+        .collect();
+    let sig: Vec<f64> = rows.iter().map(|&i| timings[i].obs.sigma_s).collect();
+    let offset = clock_offset_s(&res?, &sig, s.scatter, threshold)?;
+    Some((
+        rows.to_vec(),
+        format!(
+            "all {} timings of station '{}' are off by about {offset:+.1} s: its clock was probably wrong by that much",
+            rows.len(),
+            name
+        ),
+    ))
+}
+
+/// Test each station as a whole; the verdicts for stations a station-wide blunder explains.
+pub fn station_wide(
+    event: &TransitEvent,
+    timings: &[Timing],
+    params: &ParameterSet,
+    s: &Screened,
+    threshold: f64,
+) -> Vec<StationVerdict> {
+    let p_now = perturbation(&s.outcome.theta, event.earth_radii_per_arcsec());
+    let not_used = |i: usize| {
+        s.outliers.contains(&i)
+            || s.not_visible.iter().any(|(j, _)| *j == i)
+            || s.no_contact.contains(&i)
+    };
+    let mut names: Vec<&str> = timings
+        .iter()
+        .map(|t| t.obs.station.name.as_str())
+        .collect();
+    names.sort();
+    names.dedup();
+    let mut verdicts = Vec::new();
+    for name in names {
+        let rows: Vec<usize> = (0..timings.len())
+            .filter(|&i| timings[i].obs.station.name == name)
+            .collect();
+        let bad = rows.iter().filter(|&&i| not_used(i)).count();
+        if bad == 0 || 2 * bad < rows.len() {
+            if rows.len() >= 2 {
+                verdicts.extend(clock_verdict(
+                    event,
+                    timings,
+                    params,
+                    s,
+                    (&rows, name, threshold),
+                ));
+            }
+            continue;
+        }
+        let st = station_timings(timings, &rows);
+        let station = &timings[rows[0]].obs.station;
+        if let Some(d) = explain_station(event, station, &st, &p_now, s.scatter, threshold) {
+            verdicts.push((rows, d));
+        }
+    }
+    verdicts
+}
+
+/// The blunder that explains one timing alone, or as a station of one timing.
+fn diagnose(
+    event: &TransitEvent,
+    t: &Timing,
+    p: &Perturbation,
+    (scatter, threshold): (f64, f64),
+) -> Option<String> {
+    let tolerance_s = (4.0 * scatter * t.obs.sigma_s).max(20.0);
+    explain_row(
+        event,
+        &t.obs.station,
+        t.obs.contact,
+        t.observed_h,
+        p,
+        tolerance_s,
+    )
+    .or_else(|| {
+        let row = station_timings(std::slice::from_ref(t), &[0]);
+        explain_station(event, &t.obs.station, &row, p, scatter, threshold)
+    })
+}
+
+/// Record every timing not used, with its reason and diagnosis, sorted by line.
+pub fn record_rejections(
+    event: &TransitEvent,
+    timings: &[Timing],
+    params: &ParameterSet,
+    s: &Screened,
+    (verdicts, threshold): (&[StationVerdict], f64),
+    rejected: &mut Vec<Rejected>,
+) {
+    let outcome: &FitOutcome = &s.outcome;
+    let er = event.earth_radii_per_arcsec();
+    let p_final = perturbation(&outcome.theta, er);
+    let residual_at = |i: usize| residual_s(event, &timings[i], params, &outcome.theta, er);
+    let diagnosis = |i: usize| diagnose(event, &timings[i], &p_final, (s.scatter, threshold));
+    let reject = |i: usize, reason: RejectReason, diagnosis: Option<String>| Rejected {
+        line: timings[i].obs.line,
+        station: timings[i].obs.station.name.clone(),
+        contact: Some(timings[i].obs.contact.number()),
+        reason,
+        diagnosis,
+        o_c_s: residual_at(i),
+    };
+    for (rows, d) in verdicts {
+        for &i in rows {
+            rejected.push(reject(i, RejectReason::Outlier, Some(d.clone())));
+        }
+    }
+    for &i in &s.outliers {
+        let d = diagnosis(i).or_else(|| {
+            residual_at(i).map(|r| {
+                format!(
+                    "O - C is {r:+.1} s, {:.1} times the robust scatter of its uncertainty; no known blunder fits",
+                    (r / timings[i].obs.sigma_s / s.scatter).abs()
+                )
+            })
+        });
+        rejected.push(reject(i, RejectReason::Outlier, d));
+    }
+    for &(i, alt) in &s.not_visible {
+        rejected.push(match diagnosis(i) {
+            Some(d) => reject(i, RejectReason::Outlier, Some(d)),
+            None => reject(
+                i,
+                RejectReason::NotVisible,
+                Some(format!(
+                    "the Sun's centre was {:.1} degrees below the horizon at this time and place; check the time, date and coordinates",
+                    -alt
+                )),
+            ),
+        });
+    }
+    let mut no_contact = s.no_contact.clone();
+    no_contact.sort();
+    no_contact.dedup();
+    for &i in &no_contact {
+        rejected.push(match diagnosis(i) {
+            Some(d) => reject(i, RejectReason::Outlier, Some(d)),
+            None => reject(
+                i,
+                RejectReason::Invalid,
+                Some(format!(
+                    "contact {} of this transit does not occur at this station (the planet's path as seen from there misses that circle); check the contact number and the coordinates",
+                    timings[i].obs.contact.roman()
+                )),
+            ),
+        });
+    }
+    rejected.sort_by_key(|r| r.line);
+}

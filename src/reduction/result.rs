@@ -1,0 +1,212 @@
+//! What a reduction gives: its settings, the fitted parameters, each station's contribution,
+//! the statistics and every row not used, in one [`Reduction`].
+
+use super::equations::perturbation;
+#[cfg(doc)]
+use super::parameters::CLASSIC_NAMES;
+use crate::geometry::contacts::Perturbation;
+use crate::geometry::transit::TransitEvent;
+use crate::observations::timings::Rejected;
+use crate::reduction::statistics::FitStatistics;
+use crate::sky::constants::nominal_parallax_arcsec;
+use crate::sky::ephemeris::Planet;
+use crate::time::scales::TimeModel;
+use serde::Serialize;
+
+/// Settings of a reduction.
+#[derive(Clone, Copy, Debug)]
+pub struct ReduceOptions {
+    /// The event; inferred from the timings when `None`.
+    pub event: Option<(Planet, chrono::NaiveDate)>,
+    /// The a-priori solar parallax, arcsec.
+    pub prior_parallax_arcsec: f64,
+    /// Delta T and DUT1.
+    pub time_model: TimeModel,
+    /// Rejection threshold in robust standard deviations.
+    pub outlier_threshold: f64,
+    /// Whether to follow the solution as timings are added (for the report's convergence
+    /// chart; Monte Carlo forecasts leave it out for speed).
+    pub follow_convergence: bool,
+}
+
+impl Default for ReduceOptions {
+    fn default() -> Self {
+        ReduceOptions {
+            event: None,
+            prior_parallax_arcsec: nominal_parallax_arcsec(),
+            time_model: TimeModel::default(),
+            outlier_threshold: 5.0,
+            follow_convergence: true,
+        }
+    }
+}
+
+/// A fitted (or fixed) parameter.
+#[derive(Clone, Debug, PartialEq, Serialize)]
+pub struct Parameter {
+    /// Name (see [`CLASSIC_NAMES`] for the global ones).
+    pub name: String,
+    /// Value.
+    pub value: f64,
+    /// Standard uncertainty (scaled by the Birge ratio when above 1); `None` if held fixed.
+    pub sigma: Option<f64>,
+    /// Unit.
+    pub unit: String,
+    /// Whether the data could not determine it and it was held at its a-priori value.
+    pub fixed: bool,
+}
+
+/// The Halley chord of one station: the planet's apparent path across the disc between a pair
+/// of contacts.
+#[derive(Clone, Debug, PartialEq, Serialize)]
+pub struct Chord {
+    /// "interior" (II-III) or "exterior" (I-IV).
+    pub pair: String,
+    /// Path length between the observed contacts, arcsec.
+    pub observed_arcsec: f64,
+    /// Path length between the predicted contacts (fitted parameters), arcsec.
+    pub predicted_arcsec: f64,
+    /// Duration observed minus predicted, seconds.
+    pub duration_o_c_s: f64,
+    /// Closest approach of the station's path to the Sun's centre minus the geocentric
+    /// path's, arcsec (positive: displaced away from the centre by parallax).
+    pub parallax_displacement_arcsec: f64,
+}
+
+/// One station's part in the solution.
+#[derive(Clone, Debug, PartialEq, Serialize)]
+pub struct StationContribution {
+    /// Name.
+    pub station: String,
+    /// Latitude, degrees.
+    pub latitude_deg: f64,
+    /// Longitude, degrees east.
+    pub longitude_deg: f64,
+    /// Elevation, metres.
+    pub elevation_m: f64,
+    /// Timings used.
+    pub timings: usize,
+    /// Share of the information on the parallax (the stations' shares sum to 1).
+    pub information_share: f64,
+    /// Change of the parallax if the station is left out, arcsec (`None` when the rest cannot
+    /// determine it).
+    pub influence_arcsec: Option<f64>,
+    /// O - C of the used timings, seconds, in the order of `contacts`.
+    pub residuals_s: Vec<f64>,
+    /// The contacts of those timings.
+    pub contacts: Vec<u8>,
+    /// Mean of the normalised residuals (O - C)/sigma.
+    pub mean_normalised_residual: f64,
+    /// The Halley chord, where a pair of contacts was timed.
+    pub chord: Option<Chord>,
+}
+
+/// The result of a reduction.
+#[derive(Clone, Debug)]
+pub struct Reduction {
+    /// The event.
+    pub event: TransitEvent,
+    /// The a-priori parallax, arcsec.
+    pub prior_parallax_arcsec: f64,
+    /// The solar parallax (None when the timings cannot determine it).
+    pub parallax_arcsec: Option<f64>,
+    /// Its standard uncertainty.
+    pub parallax_sigma_arcsec: Option<f64>,
+    /// 95 % interval of the parallax.
+    pub parallax_interval_95: Option<(f64, f64)>,
+    /// The AU in km.
+    pub au_km: Option<f64>,
+    /// Its standard uncertainty, km: half the width of the exact image of pi -+ sigma.
+    pub au_sigma_km: Option<f64>,
+    /// 95 % interval of the AU (exact mapping of the parallax interval), km.
+    pub au_interval_95_km: Option<(f64, f64)>,
+    /// Data rows read.
+    pub timings_total: usize,
+    /// Timings in the solution.
+    pub timings_used: usize,
+    /// Rows not used, by line.
+    pub rejected: Vec<Rejected>,
+    /// Stations ranked by information share.
+    pub stations: Vec<StationContribution>,
+    /// All parameters.
+    pub parameters: Vec<Parameter>,
+    /// Correlation matrix of the parameters (fixed ones have zero rows).
+    pub correlation: Vec<Vec<f64>>,
+    /// Chi-square statistics.
+    pub statistics: FitStatistics,
+    /// Robust scale of the normalised residuals of the used timings.
+    pub robust_scatter: f64,
+    /// Gauss-Newton iterations of the final fit.
+    pub iterations: usize,
+    /// Sentences the user must read (identifiability, scaling, convergence).
+    pub warnings: Vec<String>,
+    /// Rows used, with their final residuals (line, station, contact, O - C s, sigma s).
+    pub used: Vec<UsedTiming>,
+    /// How the parallax firmed up as timings were added in file order.
+    pub convergence: Vec<ConvergencePoint>,
+}
+
+/// The result in one place: parallax and AU with their uncertainties and 95 % intervals.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Headline {
+    /// Solar parallax, arcsec.
+    pub parallax_arcsec: f64,
+    /// Its standard uncertainty, arcsec.
+    pub parallax_sigma_arcsec: f64,
+    /// 95 % interval, arcsec.
+    pub parallax_interval_95: (f64, f64),
+    /// AU, km.
+    pub au_km: f64,
+    /// Its standard uncertainty, km.
+    pub au_sigma_km: f64,
+    /// 95 % interval, km.
+    pub au_interval_95_km: (f64, f64),
+}
+
+impl Reduction {
+    /// The headline numbers, when the parallax was determined.
+    pub fn headline(&self) -> Option<Headline> {
+        let p = self.parallax_arcsec?;
+        let au = self.au_km?;
+        Some(Headline {
+            parallax_arcsec: p,
+            parallax_sigma_arcsec: self.parallax_sigma_arcsec?,
+            parallax_interval_95: self.parallax_interval_95.unwrap_or((p, p)),
+            au_km: au,
+            au_sigma_km: self.au_sigma_km?,
+            au_interval_95_km: self.au_interval_95_km.unwrap_or((au, au)),
+        })
+    }
+
+    /// The fitted parameters as changes to the elements.
+    pub fn perturbation(&self) -> Perturbation {
+        let theta: Vec<f64> = self.parameters.iter().map(|p| p.value).collect();
+        perturbation(&theta, self.event.earth_radii_per_arcsec())
+    }
+}
+
+/// The solution after the first `timings` used timings (in the order of the file).
+#[derive(Clone, Copy, Debug, PartialEq, Serialize)]
+pub struct ConvergencePoint {
+    /// Number of timings in this partial solution.
+    pub timings: usize,
+    /// Parallax, arcsec.
+    pub parallax_arcsec: f64,
+    /// Its standard uncertainty (Birge-scaled), arcsec.
+    pub sigma_arcsec: f64,
+}
+
+/// A timing in the solution.
+#[derive(Clone, Debug, PartialEq, Serialize)]
+pub struct UsedTiming {
+    /// Line in the file.
+    pub line: u64,
+    /// Station name.
+    pub station: String,
+    /// Contact 1-4.
+    pub contact: u8,
+    /// O - C, seconds.
+    pub o_c_s: f64,
+    /// Standard uncertainty used, seconds.
+    pub sigma_s: f64,
+}

@@ -1,0 +1,232 @@
+//! Screening and rejection: which timings go into the solution.
+//!
+//! In order: timings far from the event are invalid; timings made with the Sun set, or of a
+//! contact that does not occur at the station, wait for diagnosis; gross blunders are
+//! screened at the a-priori values (per contact, distance from the median O - C against a
+//! robust scale, with a floor of 10 minutes); then the fit rejects, round by round, every
+//! timing beyond the threshold in robust standard deviations (1.4826 x the median absolute
+//! deviation of the normalised residuals), at most 30 % of the timings in all.
+//!
+//! References: F. R. Hampel, JASA 69, 383 (1974) (the median absolute deviation as a robust
+//! scale); sigma clipping against a robust scale is common practice (no single source).
+
+use super::equations::{residual_s, Timing};
+use super::fit::{fit, FitOutcome};
+use super::parameters::ParameterSet;
+use super::statistics::{median, robust_sigma};
+use crate::geometry::contacts::{sun_alt_az_parallactic, Contact};
+use crate::geometry::transit::TransitEvent;
+use crate::observations::timings::{Observation, RejectReason, Rejected};
+use crate::time::scales::TimeModel;
+use crate::Result;
+
+/// How far from greatest transit a timing may lie and still belong to the event, hours.
+pub const EVENT_WINDOW_H: f64 = 36.0;
+
+/// The Sun's true altitude below which a timing is taken as made with the Sun set (degrees):
+/// refraction (~0.6 deg) and the semidiameter (~0.27 deg) still show the limb at -0.9 deg.
+pub const MIN_VISIBLE_ALTITUDE_DEG: f64 = -1.0;
+
+/// Where each timing stands after screening.
+#[derive(Clone, Debug)]
+pub struct Screened {
+    /// Timings in the solution.
+    pub used: Vec<usize>,
+    /// Rejected as outliers (pre-screen or clipping).
+    pub outliers: Vec<usize>,
+    /// Made with the Sun below the horizon, with the Sun's altitude (degrees).
+    pub not_visible: Vec<(usize, f64)>,
+    /// Of a contact that does not occur at the station.
+    pub no_contact: Vec<usize>,
+    /// The fit on `used`.
+    pub outcome: FitOutcome,
+    /// Robust scale of the normalised residuals of `used` (at least 0.5).
+    pub scatter: f64,
+}
+
+/// Turn valid rows into timings of the event: a time more than [`EVENT_WINDOW_H`] from
+/// greatest transit is rejected as invalid. Stations are numbered by first appearance.
+pub fn timings_of_event(
+    valid: &[Observation],
+    event: &TransitEvent,
+    model: &TimeModel,
+    rejected: &mut Vec<Rejected>,
+) -> Result<Vec<Timing>> {
+    let greatest_h = event.hours_of_greatest();
+    let mut names: Vec<&str> = Vec::new();
+    let mut timings = Vec::new();
+    for obs in valid {
+        let observed_h = event.elements.hours(model.tt_from_label(obs.time_label)?);
+        if (observed_h - greatest_h).abs() > EVENT_WINDOW_H {
+            rejected.push(Rejected {
+                line: obs.line,
+                station: obs.station.name.clone(),
+                contact: Some(obs.contact.number()),
+                reason: RejectReason::Invalid,
+                diagnosis: Some(format!(
+                    "the time is {:.1} days from greatest transit ({}); it cannot belong to this event",
+                    (observed_h - greatest_h) / 24.0,
+                    event.greatest_utc()
+                )),
+                o_c_s: None,
+            });
+            continue;
+        }
+        let station = match names.iter().position(|n| *n == obs.station.name) {
+            Some(k) => k,
+            None => {
+                names.push(&obs.station.name);
+                names.len() - 1
+            }
+        };
+        timings.push(Timing {
+            geo: obs.station.geocentric(),
+            obs: obs.clone(),
+            observed_h,
+            station,
+        });
+    }
+    Ok(timings)
+}
+
+/// Sort the timings at the a-priori values: computable and visible ones go forward (with
+/// their O - C); the rest wait for diagnosis.
+fn sort_by_visibility(
+    event: &TransitEvent,
+    timings: &[Timing],
+    params: &ParameterSet,
+    theta_prior: &[f64],
+) -> (Vec<usize>, Vec<(usize, f64)>, Vec<usize>, Vec<f64>) {
+    let er = event.earth_radii_per_arcsec();
+    let (mut candidates, mut not_visible, mut no_contact) = (Vec::new(), Vec::new(), Vec::new());
+    let mut prior_residual_s = vec![0.0; timings.len()];
+    for (i, t) in timings.iter().enumerate() {
+        let alt = if event.elements.covers(t.observed_h) {
+            sun_alt_az_parallactic(&event.elements, &t.geo, t.observed_h).0
+        } else {
+            f64::NAN
+        };
+        match residual_s(event, t, params, theta_prior, er) {
+            None => no_contact.push(i),
+            Some(r) => {
+                prior_residual_s[i] = r;
+                if alt.is_finite() && alt < MIN_VISIBLE_ALTITUDE_DEG {
+                    not_visible.push((i, alt));
+                } else {
+                    candidates.push(i);
+                }
+            }
+        }
+    }
+    (candidates, not_visible, no_contact, prior_residual_s)
+}
+
+/// Screen gross blunders at the prior: per contact, distance from the median O - C against a
+/// robust scale, with a floor of 10 minutes. Needs five or more candidates.
+fn prescreen(
+    timings: &[Timing],
+    candidates: Vec<usize>,
+    prior_residual_s: &[f64],
+) -> (Vec<usize>, Vec<usize>) {
+    if candidates.len() < 5 {
+        return (candidates, Vec::new());
+    }
+    let mut med = [0.0; 4];
+    for c in Contact::ALL {
+        let v: Vec<f64> = candidates
+            .iter()
+            .filter(|&&i| timings[i].obs.contact == c)
+            .map(|&i| prior_residual_s[i])
+            .collect();
+        med[c.index()] = median(&v);
+    }
+    let z: Vec<f64> = candidates
+        .iter()
+        .map(|&i| {
+            (prior_residual_s[i] - med[timings[i].obs.contact.index()]) / timings[i].obs.sigma_s
+        })
+        .collect();
+    let s0 = robust_sigma(&z).max(0.5);
+    let mut outliers = Vec::new();
+    let keep = candidates
+        .iter()
+        .zip(&z)
+        .filter_map(|(&i, &zi)| {
+            let dev_s = (zi * timings[i].obs.sigma_s).abs();
+            if dev_s > (10.0 * s0 * timings[i].obs.sigma_s).max(600.0) {
+                outliers.push(i);
+                None
+            } else {
+                Some(i)
+            }
+        })
+        .collect();
+    (keep, outliers)
+}
+
+/// Robust scale of the normalised residuals of a fit (at least 0.5).
+pub fn scatter_of(timings: &[Timing], used: &[usize], outcome: &FitOutcome) -> f64 {
+    let z: Vec<f64> = used
+        .iter()
+        .zip(&outcome.residuals_s)
+        .map(|(&i, r)| r / timings[i].obs.sigma_s)
+        .collect();
+    robust_sigma(&z).max(0.5)
+}
+
+/// Screen, fit, and reject the worst timings round by round while any lies beyond
+/// `threshold` robust standard deviations.
+pub fn screen(
+    event: &TransitEvent,
+    timings: &[Timing],
+    params: &ParameterSet,
+    threshold: f64,
+) -> Screened {
+    let theta_prior = params.start_values();
+    let (candidates, not_visible, mut no_contact, prior_r) =
+        sort_by_visibility(event, timings, params, &theta_prior);
+    let (mut used, mut outliers) = prescreen(timings, candidates, &prior_r);
+    let max_rejections = (used.len() as f64 * 0.3).floor() as usize;
+    let mut rejected_by_fit = 0;
+    let mut outcome = fit(event, timings, &used, params, &theta_prior);
+    loop {
+        if !outcome.unsolvable.is_empty() {
+            no_contact.extend(outcome.unsolvable.iter().copied());
+            used.retain(|i| !outcome.unsolvable.contains(i));
+            outcome = fit(event, timings, &used, params, &theta_prior);
+            continue;
+        }
+        let scatter = scatter_of(timings, &used, &outcome);
+        let n_free = outcome.free.iter().filter(|&&f| f).count();
+        // Every timing beyond the threshold goes in one round (the robust scale is not
+        // inflated by the outliers it is meant to find).
+        let limit = threshold * scatter;
+        let z: Vec<f64> = used
+            .iter()
+            .zip(&outcome.residuals_s)
+            .map(|(&i, r)| r / timings[i].obs.sigma_s)
+            .collect();
+        let mut beyond: Vec<usize> = (0..used.len()).filter(|&k| z[k].abs() > limit).collect();
+        let room = max_rejections
+            .saturating_sub(rejected_by_fit)
+            .min(used.len().saturating_sub(n_free + 2));
+        if beyond.is_empty() || room == 0 {
+            return Screened {
+                used,
+                outliers,
+                not_visible,
+                no_contact,
+                outcome,
+                scatter,
+            };
+        }
+        beyond.sort_by(|&a, &b| z[b].abs().total_cmp(&z[a].abs()));
+        beyond.truncate(room);
+        beyond.sort_unstable();
+        for &k in beyond.iter().rev() {
+            outliers.push(used.remove(k));
+            rejected_by_fit += 1;
+        }
+        outcome = fit(event, timings, &used, params, &outcome.theta);
+    }
+}

@@ -1,0 +1,126 @@
+//! Statistics of a solution: chi-square, p-value, the Birge ratio and coverage factors, and
+//! the robust scale that screening uses.
+//!
+//! References: P. R. Bevington and D. K. Robinson, *Data Reduction and Error Analysis for the
+//! Physical Sciences*, 3rd ed. (2003), chapters 7-8 (chi-square, covariance); R. T. Birge,
+//! Phys. Rev. 40, 207 (1932) (the ratio sqrt(chi^2/dof) as a test of stated uncertainties);
+//! F. R. Hampel, JASA 69, 383 (1974) (the median absolute deviation).
+
+use statrs::distribution::{ChiSquared, ContinuousCDF, StudentsT};
+
+/// Chi-square statistics of a solution.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct FitStatistics {
+    /// Weighted sum of squared residuals.
+    pub chi2: f64,
+    /// Degrees of freedom (timings used minus free parameters).
+    pub dof: usize,
+    /// Probability of a chi-square at least this large if the stated sigmas are right.
+    pub p_value: Option<f64>,
+    /// Birge ratio sqrt(chi2 / dof).
+    pub birge_ratio: Option<f64>,
+    /// Factor applied to the uncertainties: max(1, Birge ratio).
+    pub sigma_scale: f64,
+    /// Two-sided 95 % coverage factor: Student's t with `dof` degrees of freedom when the
+    /// uncertainties were scaled from the scatter, else the normal 1.96.
+    pub coverage_factor_95: f64,
+}
+
+impl FitStatistics {
+    /// "chi2 for dof degrees of freedom, p = ..., Birge ratio ..." for reports.
+    pub fn describe(&self) -> String {
+        format!(
+            "{:.1} for {} degrees of freedom{}{}",
+            self.chi2,
+            self.dof,
+            self.p_value
+                .map(|p| format!(", p = {p:.3}"))
+                .unwrap_or_default(),
+            self.birge_ratio
+                .map(|b| format!(", Birge ratio {b:.2}"))
+                .unwrap_or_default()
+        )
+    }
+}
+
+/// Statistics from the chi-square and the degrees of freedom.
+pub fn statistics(chi2: f64, dof: usize) -> FitStatistics {
+    // An empty sum of floats is -0.0; print it as 0.
+    let chi2 = chi2 + 0.0;
+    if dof == 0 {
+        return FitStatistics {
+            chi2,
+            dof,
+            p_value: None,
+            birge_ratio: None,
+            sigma_scale: 1.0,
+            coverage_factor_95: 1.959_963_984_540_054,
+        };
+    }
+    let d = dof as f64;
+    let p_value = ChiSquared::new(d).ok().map(|c| 1.0 - c.cdf(chi2));
+    let birge = (chi2 / d).sqrt();
+    let scaled = birge > 1.0;
+    let coverage = if scaled {
+        StudentsT::new(0.0, 1.0, d)
+            .map(|t| t.inverse_cdf(0.975))
+            .unwrap_or(1.959_963_984_540_054)
+    } else {
+        1.959_963_984_540_054
+    };
+    FitStatistics {
+        chi2,
+        dof,
+        p_value,
+        birge_ratio: Some(birge),
+        sigma_scale: birge.max(1.0),
+        coverage_factor_95: coverage,
+    }
+}
+
+/// Median of a slice (NaN-free); 0 for an empty slice.
+pub fn median(values: &[f64]) -> f64 {
+    if values.is_empty() {
+        return 0.0;
+    }
+    let mut v = values.to_vec();
+    v.sort_by(|a, b| a.total_cmp(b));
+    let n = v.len();
+    if n % 2 == 1 {
+        v[n / 2]
+    } else {
+        0.5 * (v[n / 2 - 1] + v[n / 2])
+    }
+}
+
+/// Robust standard deviation: 1.4826 x the median absolute deviation from the median
+/// (consistent with sigma for a normal distribution; Hampel 1974, JASA 69, 383).
+pub fn robust_sigma(values: &[f64]) -> f64 {
+    let m = median(values);
+    let dev: Vec<f64> = values.iter().map(|v| (v - m).abs()).collect();
+    1.4826 * median(&dev)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn statistics_follow_the_distributions() {
+        // Source: standard tables: chi-square with 10 dof has P(>18.307) = 0.05; Student's t
+        // with 10 dof has a 97.5 % point of 2.228.
+        let s = statistics(18.307, 10);
+        assert!((s.p_value.unwrap() - 0.05).abs() < 1e-4);
+        assert!((s.coverage_factor_95 - 2.228).abs() < 1e-3);
+        let s = statistics(5.0, 10);
+        assert_eq!(s.sigma_scale, 1.0);
+        assert!((s.coverage_factor_95 - 1.96).abs() < 1e-3);
+    }
+
+    #[test]
+    fn robust_sigma_ignores_a_wild_point() {
+        let v = [-1.0, -0.5, 0.0, 0.5, 1.0, 1000.0];
+        assert!(robust_sigma(&v) < 2.0);
+        assert_eq!(median(&[3.0, 1.0, 2.0]), 2.0);
+    }
+}
