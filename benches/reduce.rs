@@ -8,7 +8,8 @@ use transit_parallax::planning::simulation::{
     global_stations, simulate_campaign, visible_contacts, SimulationSettings,
 };
 use transit_parallax::reduction::{reduce, ReduceOptions};
-use transit_parallax::time::scales::{parse_date, TimeModel};
+use transit_parallax::time::iso::parse_date;
+use transit_parallax::time::scales::TimeModel;
 use transit_parallax::{transit_on_date, Planet};
 
 fn bench(c: &mut Criterion) {

@@ -3,7 +3,8 @@
 //! Used by tools/compare_speed.sh.
 
 use std::time::Instant;
-use transit_parallax::time::scales::{parse_date, TimeModel};
+use transit_parallax::time::iso::parse_date;
+use transit_parallax::time::scales::TimeModel;
 use transit_parallax::{transit_on_date, Planet, Station};
 
 fn main() {

@@ -9,7 +9,8 @@ use transit_parallax::planning::simulation::{
     global_stations, monte_carlo, stations_seeing, SimulationSettings,
 };
 use transit_parallax::planning::sites::{plan, sensitivity_grid};
-use transit_parallax::time::scales::{parse_date, TimeModel};
+use transit_parallax::time::iso::parse_date;
+use transit_parallax::time::scales::TimeModel;
 use transit_parallax::{transit_on_date, Contact, Planet, Station, TransitEvent};
 
 fn venus_2012() -> TransitEvent {

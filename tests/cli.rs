@@ -424,7 +424,7 @@ fn delta_t_override_moves_pre_1972_contacts() {
     let ja: serde_json::Value = serde_json::from_str(&stdout(&a)).unwrap();
     let jb: serde_json::Value = serde_json::from_str(&stdout(&b)).unwrap();
     let t = |j: &serde_json::Value| {
-        transit_parallax::time::scales::parse_utc(j[0]["greatest_utc"].as_str().unwrap()).unwrap()
+        transit_parallax::time::iso::parse_utc(j[0]["greatest_utc"].as_str().unwrap()).unwrap()
     };
     let diff = (t(&ja) - t(&jb)).num_milliseconds();
     assert!((diff - 10_000).abs() <= 20, "{diff}");

@@ -1,7 +1,8 @@
 //! Checks against handbook worked examples and published catalogues.
 
 use transit_parallax::geometry::contacts::Contact;
-use transit_parallax::time::scales::{format_utc, TimeModel};
+use transit_parallax::time::iso::format_utc;
+use transit_parallax::time::scales::TimeModel;
 use transit_parallax::{transits_in_years, Planet};
 
 fn hms_to_seconds(h: f64, m: f64, s: f64) -> f64 {

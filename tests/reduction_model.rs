@@ -10,7 +10,8 @@ use transit_parallax::observations::csv_table::CsvTable;
 use transit_parallax::observations::timings::observations_from_table;
 use transit_parallax::planning::simulation::{simulate_campaign, SimulationSettings};
 use transit_parallax::reduction::{reduce, ReduceOptions};
-use transit_parallax::time::scales::{parse_date, TimeModel};
+use transit_parallax::time::iso::parse_date;
+use transit_parallax::time::scales::TimeModel;
 use transit_parallax::{transit_on_date, Contact, Planet, Station, TransitEvent};
 
 fn venus_2012() -> TransitEvent {

@@ -10,7 +10,8 @@ use transit_parallax::planning::simulation::{
 };
 use transit_parallax::reduction::{reduce_for_event, ReduceOptions};
 use transit_parallax::sky::constants::nominal_parallax_arcsec;
-use transit_parallax::time::scales::{parse_date, TimeModel};
+use transit_parallax::time::iso::parse_date;
+use transit_parallax::time::scales::TimeModel;
 use transit_parallax::{transit_on_date, Planet, Station, TransitEvent};
 
 fn network(event: &TransitEvent, n: usize, min_alt: f64) -> Vec<Station> {

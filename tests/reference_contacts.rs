@@ -4,7 +4,8 @@
 //! to the same value on both sides so that the geometry is what is compared).
 
 use transit_parallax::geometry::contacts::{circumstances, Contact};
-use transit_parallax::time::scales::{parse_date, parse_utc, TimeModel};
+use transit_parallax::time::iso::{parse_date, parse_utc};
+use transit_parallax::time::scales::TimeModel;
 use transit_parallax::{transit_on_date, Planet, Station};
 
 struct Row {

@@ -16,7 +16,8 @@ use transit_parallax::planning::simulation::{
 use transit_parallax::reduction::{reduce, ReduceOptions, Reduction};
 use transit_parallax::render::document::{html_report, markdown_report, write_report};
 use transit_parallax::render::reduction::reduction_json;
-use transit_parallax::time::scales::{parse_date, TimeModel};
+use transit_parallax::time::iso::parse_date;
+use transit_parallax::time::scales::TimeModel;
 use transit_parallax::{transit_on_date, Planet};
 
 fn reduce_text(text: &str) -> Reduction {

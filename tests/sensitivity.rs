@@ -6,7 +6,8 @@
 use proptest::prelude::*;
 use transit_parallax::geometry::contacts::{full_model_contact, Contact};
 use transit_parallax::sky::constants::nominal_parallax_arcsec;
-use transit_parallax::time::scales::{parse_date, TimeModel};
+use transit_parallax::time::iso::parse_date;
+use transit_parallax::time::scales::TimeModel;
 use transit_parallax::{transit_on_date, Planet, Station, TransitEvent};
 
 fn check(ev: &TransitEvent, st: &Station, contact: Contact) -> Option<(f64, f64)> {

@@ -4,7 +4,7 @@
 use clap::{Parser, Subcommand, ValueEnum};
 use std::path::PathBuf;
 use transit_parallax::render::text::Format;
-use transit_parallax::time::scales;
+use transit_parallax::time::iso;
 use transit_parallax::{Error, Planet, TimeModel};
 
 #[derive(Parser)]
@@ -266,7 +266,7 @@ pub fn planet_of(text: &str) -> Result<Planet, Error> {
 }
 
 pub fn date_of(text: &str) -> Result<chrono::NaiveDate, Error> {
-    scales::parse_date(text).map_err(|m| Error::argument(format!("--date: {m}")))
+    iso::parse_date(text).map_err(|m| Error::argument(format!("--date: {m}")))
 }
 
 impl FormatArg {

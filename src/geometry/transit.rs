@@ -20,7 +20,8 @@ use crate::sky::constants::ARCSEC_RAD;
 use crate::sky::ephemeris::{
     geocentric_state, geometric_elongation_rad, heliocentric_longitude_difference_rad, Planet,
 };
-use crate::time::scales::{format_utc, TimeModel, Tt, MAX_YEAR, MIN_YEAR};
+use crate::time::iso::format_utc;
+use crate::time::scales::{TimeModel, Tt, MAX_YEAR, MIN_YEAR};
 use chrono::{Datelike, NaiveDate, NaiveDateTime};
 
 /// One transit of Mercury or Venus, with its elements.

@@ -29,34 +29,11 @@ impl CsvTable {
     }
 
     /// Parse CSV text held in memory; `path` labels it in messages.
+    ///
+    /// Errors: not UTF-8; empty; a CSV syntax error (line named).
     pub fn from_bytes(path: &Path, bytes: &[u8]) -> Result<CsvTable> {
-        let text = match std::str::from_utf8(bytes) {
-            Ok(t) => t,
-            Err(e) => {
-                let before = &bytes[..e.valid_up_to()];
-                let line = before.iter().filter(|&&b| b == b'\n').count() as u64 + 1;
-                let col = before.iter().rev().take_while(|&&b| b != b'\n').count() + 1;
-                return Err(Error::Input {
-                    location: Location {
-                        file: path.to_path_buf(),
-                        line,
-                        column: Some((col, "byte".into())),
-                    },
-                    message: "the file is not valid UTF-8 text".into(),
-                    hint: "save it as UTF-8 (plain text CSV)".into(),
-                });
-            }
-        };
-        let text = text.strip_prefix('\u{feff}').unwrap_or(text);
-        // Windows line endings: the csv crate counts a CRLF pair as two line breaks in its
-        // positions, so normalise them first (regression test: crlf_line_numbers).
-        let normalised;
-        let text = if text.contains('\r') {
-            normalised = text.replace("\r\n", "\n").replace('\r', "\n");
-            normalised.as_str()
-        } else {
-            text
-        };
+        let text = decode_text(path, bytes)?;
+        let text = text.as_ref();
         if text.trim().is_empty() {
             return Err(Error::Input {
                 location: Location {
@@ -79,28 +56,7 @@ impl CsvTable {
             .iter()
             .map(|h| h.trim().to_ascii_lowercase())
             .collect();
-        // Line numbers are counted from the records' byte offsets (the csv crate's own line
-        // count skips comment lines).
-        let newline_offsets: Vec<usize> = text
-            .bytes()
-            .enumerate()
-            .filter_map(|(i, b)| (b == b'\n').then_some(i))
-            .collect();
-        let line_of = |byte: u64| {
-            // The reader's position may point at blank or comment lines it skipped first.
-            let mut b = (byte as usize).min(text.len());
-            while b < text.len() {
-                let rest = &text[b..];
-                let end = rest.find('\n').map(|i| i + 1).unwrap_or(rest.len());
-                let t = rest[..end].trim();
-                if t.is_empty() || t.starts_with('#') {
-                    b += end;
-                } else {
-                    break;
-                }
-            }
-            newline_offsets.partition_point(|&nl| nl < b) as u64 + 1
-        };
+        let line_of = line_finder(text);
         let mut records = Vec::new();
         for rec in reader.records() {
             let rec = rec.map_err(|e| csv_error(path, &e))?;
@@ -183,6 +139,60 @@ impl CsvTable {
             });
         }
         Ok(value)
+    }
+}
+
+/// The file's bytes as text: UTF-8 (with a byte-order mark dropped) and Unix line endings.
+/// Windows line endings: the csv crate counts a CRLF pair as two line breaks in its
+/// positions, so they are normalised first (regression test: crlf_line_numbers).
+fn decode_text<'a>(path: &Path, bytes: &'a [u8]) -> Result<std::borrow::Cow<'a, str>> {
+    let text = match std::str::from_utf8(bytes) {
+        Ok(t) => t,
+        Err(e) => {
+            let before = &bytes[..e.valid_up_to()];
+            let line = before.iter().filter(|&&b| b == b'\n').count() as u64 + 1;
+            let col = before.iter().rev().take_while(|&&b| b != b'\n').count() + 1;
+            return Err(Error::Input {
+                location: Location {
+                    file: path.to_path_buf(),
+                    line,
+                    column: Some((col, "byte".into())),
+                },
+                message: "the file is not valid UTF-8 text".into(),
+                hint: "save it as UTF-8 (plain text CSV)".into(),
+            });
+        }
+    };
+    let text = text.strip_prefix('\u{feff}').unwrap_or(text);
+    Ok(if text.contains('\r') {
+        std::borrow::Cow::Owned(text.replace("\r\n", "\n").replace('\r', "\n"))
+    } else {
+        std::borrow::Cow::Borrowed(text)
+    })
+}
+
+/// Line numbers counted from the records' byte offsets (the csv crate's own line count skips
+/// comment lines): the line of the first non-blank, non-comment line at or after a byte.
+fn line_finder(text: &str) -> impl Fn(u64) -> u64 + '_ {
+    let newline_offsets: Vec<usize> = text
+        .bytes()
+        .enumerate()
+        .filter_map(|(i, b)| (b == b'\n').then_some(i))
+        .collect();
+    move |byte: u64| {
+        // The reader's position may point at blank or comment lines it skipped first.
+        let mut b = (byte as usize).min(text.len());
+        while b < text.len() {
+            let rest = &text[b..];
+            let end = rest.find('\n').map(|i| i + 1).unwrap_or(rest.len());
+            let t = rest[..end].trim();
+            if t.is_empty() || t.starts_with('#') {
+                b += end;
+            } else {
+                break;
+            }
+        }
+        newline_offsets.partition_point(|&nl| nl < b) as u64 + 1
     }
 }
 

@@ -10,7 +10,8 @@ use crate::geometry::station::{
     normalise_longitude_deg, Station, MAX_ELEVATION_M, MIN_ELEVATION_M,
 };
 use crate::observations::csv_table::CsvTable;
-use crate::time::scales::{parse_utc, MAX_YEAR, MIN_YEAR};
+use crate::time::iso::parse_utc;
+use crate::time::scales::{MAX_YEAR, MIN_YEAR};
 use chrono::{Datelike, NaiveDateTime};
 use serde::Serialize;
 use std::collections::HashMap;
@@ -133,63 +134,21 @@ pub fn observations_from_table(table: &CsvTable, strict: bool) -> Result<Observa
         rejected: Vec::new(),
     };
     // First line of each station, with its coordinates; first line of each station+contact.
-    let mut first_coords: HashMap<String, (u64, f64, f64, f64)> = HashMap::new();
+    let mut first_coords: FirstCoordinates = HashMap::new();
     let mut first_contact: HashMap<(String, u8), (u64, NaiveDateTime)> = HashMap::new();
     for (line, rec) in &table.records {
         let name = table.text(rec, cols.station).to_string();
         match parse_row(table, *line, rec, &cols) {
             Ok(obs) => {
                 let key = (obs.station.name.clone(), obs.contact.number());
-                let coords = (
-                    obs.station.latitude_deg,
-                    obs.station.longitude_deg,
-                    obs.station.elevation_m,
-                );
-                if let Some(&(l0, la, lo, el)) = first_coords.get(&obs.station.name) {
-                    let moved = (la - coords.0).abs() > 1e-4
-                        || normalise_longitude_deg(lo - coords.1).abs() > 1e-4
-                        || (el - coords.2).abs() > 1.0;
-                    if moved {
-                        let message = format!(
-                            "station '{}' was given on line {l0} at {la}, {lo}, {el} m but here at {}, {}, {} m; give each station one set of coordinates (or a different name)",
-                            obs.station.name, coords.0, coords.1, coords.2
-                        );
-                        reject_or_fail(
-                            table,
-                            &mut set,
-                            *line,
-                            &name,
-                            Some(obs.contact.number()),
-                            message,
-                            Some(cols.station),
-                            strict,
-                        )?;
-                        continue;
-                    }
-                } else {
-                    first_coords.insert(
-                        obs.station.name.clone(),
-                        (*line, coords.0, coords.1, coords.2),
-                    );
+                if let Some(message) = moved_station(&mut first_coords, &obs, *line) {
+                    let c = Some(obs.contact.number());
+                    let col = Some(cols.station);
+                    reject_or_fail(table, &mut set, *line, &name, c, message, col, strict)?;
+                    continue;
                 }
                 if let Some(&(l0, t0)) = first_contact.get(&key) {
-                    let diff = (obs.time_label - t0).num_milliseconds() as f64 / 1000.0;
-                    let diagnosis = if diff == 0.0 {
-                        format!("the same timing was given on line {l0}")
-                    } else {
-                        format!(
-                            "contact {} at this station was already timed on line {l0} ({diff:+.1} s from it); the first is kept",
-                            obs.contact.roman()
-                        )
-                    };
-                    set.rejected.push(Rejected {
-                        line: *line,
-                        station: name,
-                        contact: Some(obs.contact.number()),
-                        reason: RejectReason::Duplicate,
-                        diagnosis: Some(diagnosis),
-                        o_c_s: None,
-                    });
+                    set.rejected.push(duplicate(&obs, name, *line, (l0, t0)));
                     continue;
                 }
                 first_contact.insert(key, (*line, obs.time_label));
@@ -204,6 +163,56 @@ pub fn observations_from_table(table: &CsvTable, strict: bool) -> Result<Observa
         }
     }
     Ok(set)
+}
+
+/// First line of each station, with its latitude, longitude and elevation.
+type FirstCoordinates = HashMap<String, (u64, f64, f64, f64)>;
+
+/// If the station was given before with other coordinates, the sentence that says so;
+/// otherwise remember its coordinates.
+fn moved_station(first: &mut FirstCoordinates, obs: &Observation, line: u64) -> Option<String> {
+    let st = &obs.station;
+    let coords = (st.latitude_deg, st.longitude_deg, st.elevation_m);
+    let Some(&(l0, la, lo, el)) = first.get(&st.name) else {
+        first.insert(st.name.clone(), (line, coords.0, coords.1, coords.2));
+        return None;
+    };
+    let moved = (la - coords.0).abs() > 1e-4
+        || normalise_longitude_deg(lo - coords.1).abs() > 1e-4
+        || (el - coords.2).abs() > 1.0;
+    moved.then(|| {
+        format!(
+            "station '{}' was given on line {l0} at {la}, {lo}, {el} m but here at {}, {}, {} m; give each station one set of coordinates (or a different name)",
+            st.name, coords.0, coords.1, coords.2
+        )
+    })
+}
+
+/// A second timing of the same contact at the same station (the first, on line `l0` at
+/// `t0`, is kept).
+fn duplicate(
+    obs: &Observation,
+    name: String,
+    line: u64,
+    (l0, t0): (u64, NaiveDateTime),
+) -> Rejected {
+    let diff = (obs.time_label - t0).num_milliseconds() as f64 / 1000.0;
+    let diagnosis = if diff == 0.0 {
+        format!("the same timing was given on line {l0}")
+    } else {
+        format!(
+            "contact {} at this station was already timed on line {l0} ({diff:+.1} s from it); the first is kept",
+            obs.contact.roman()
+        )
+    };
+    Rejected {
+        line,
+        station: name,
+        contact: Some(obs.contact.number()),
+        reason: RejectReason::Duplicate,
+        diagnosis: Some(diagnosis),
+        o_c_s: None,
+    }
 }
 
 #[allow(clippy::too_many_arguments)]

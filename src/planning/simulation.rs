@@ -112,27 +112,7 @@ pub fn simulate_campaign<R: Rng + ?Sized>(
             let mut label = c;
             let mut injected = clock.map(|_| InjectedBlunder::Clock);
             if rng.gen::<f64>() < settings.blunder_rate {
-                let kind = rng.gen_range(0..3);
-                injected = Some(match kind {
-                    0 => {
-                        let h = rng.gen_range(1..=10) * if rng.gen::<bool>() { 1 } else { -1 };
-                        error_s += f64::from(h) * 3600.0;
-                        InjectedBlunder::ZoneHours(h)
-                    }
-                    1 => {
-                        error_s += 86_400.0;
-                        InjectedBlunder::Day
-                    }
-                    _ => {
-                        label = match c {
-                            Contact::I => Contact::II,
-                            Contact::II => Contact::I,
-                            Contact::III => Contact::IV,
-                            Contact::IV => Contact::III,
-                        };
-                        InjectedBlunder::Mislabelled
-                    }
-                });
+                injected = Some(inject_blunder(rng, &mut error_s, &mut label));
             }
             let tt = event.elements.instant(cc.hours).add_seconds(error_s);
             let index = valid.len();
@@ -149,8 +129,44 @@ pub fn simulate_campaign<R: Rng + ?Sized>(
             });
         }
     }
-    // A mislabelled timing may collide with the true timing of the contact it was labelled as:
-    // keep the campaign readable as a file would be (one row per station and contact).
+    one_row_per_contact(valid, blunders)
+}
+
+/// One blunder on a timing of contact `label`: a zone time of 1-10 h either way, a day late,
+/// or the contact mislabelled (I for II, III for IV, and the reverse).
+fn inject_blunder<R: Rng + ?Sized>(
+    rng: &mut R,
+    error_s: &mut f64,
+    label: &mut Contact,
+) -> InjectedBlunder {
+    match rng.gen_range(0..3) {
+        0 => {
+            let h = rng.gen_range(1..=10) * if rng.gen::<bool>() { 1 } else { -1 };
+            *error_s += f64::from(h) * 3600.0;
+            InjectedBlunder::ZoneHours(h)
+        }
+        1 => {
+            *error_s += 86_400.0;
+            InjectedBlunder::Day
+        }
+        _ => {
+            *label = match *label {
+                Contact::I => Contact::II,
+                Contact::II => Contact::I,
+                Contact::III => Contact::IV,
+                Contact::IV => Contact::III,
+            };
+            InjectedBlunder::Mislabelled
+        }
+    }
+}
+
+/// A mislabelled timing may collide with the true timing of the contact it was labelled as:
+/// keep the campaign readable as a file would be (one row per station and contact).
+fn one_row_per_contact(
+    valid: Vec<Observation>,
+    blunders: Vec<(usize, InjectedBlunder)>,
+) -> SimulatedCampaign {
     let mut seen = std::collections::HashSet::new();
     let mut keep = Vec::new();
     let mut kept_blunders = Vec::new();
@@ -230,7 +246,7 @@ pub fn campaign_csv(set: &ObservationSet) -> String {
             o.station.longitude_deg,
             o.station.elevation_m,
             o.contact.number(),
-            crate::time::scales::format_utc(o.time_label, 1),
+            crate::time::iso::format_utc(o.time_label, 1),
             o.sigma_s
         ));
     }
@@ -328,6 +344,11 @@ pub fn monte_carlo(
     });
     indexed.sort_by_key(|(k, _)| *k);
     let results: Vec<TrialOutcome> = indexed.into_iter().map(|(_, r)| r).collect();
+    summarise_trials(&results, trials, truth_km)
+}
+
+/// The statistics of the trials' outcomes, in trial order.
+fn summarise_trials(results: &[TrialOutcome], trials: usize, truth_km: f64) -> MonteCarloSummary {
     let solved: Vec<(f64, f64, bool)> = results.iter().filter_map(|r| r.0).collect();
     let m = solved.len().max(1) as f64;
     let mean = solved.iter().map(|r| r.0).sum::<f64>() / m;

@@ -110,13 +110,120 @@ pub struct StationTiming {
     pub sigma_s: f64,
 }
 
+/// A hypothesis about a station: its score (chi-square, plus twice its fitted constants), the
+/// sentence that names it, and a short name for alternatives.
+type Hypothesis = (f64, String, String);
+
+/// The chi-square of a station's timings at corrected coordinates, if every corrected
+/// residual lies within max(4 scatter sigma, 20 s) and the chi-square per timing is under 9.
+fn fits_at(
+    event: &TransitEvent,
+    st: &Station,
+    rows: &[StationTiming],
+    p: &Perturbation,
+    scatter: f64,
+) -> Option<f64> {
+    let geo = st.geocentric();
+    let mut chi2 = 0.0;
+    for r in rows {
+        let h = predicted_hours(event, &geo, r.contact, p)?;
+        let d = (r.observed_h - h) * 3600.0;
+        if d.abs() > (4.0 * scatter * r.sigma_s).max(20.0) {
+            return None;
+        }
+        chi2 += (d / (r.sigma_s * scatter)).powi(2);
+    }
+    (chi2 / (rows.len() as f64) < 9.0).then_some(chi2)
+}
+
+/// The coordinate blunders: the longitude's sign, latitude and longitude exchanged.
+fn coordinate_hypotheses(
+    event: &TransitEvent,
+    station: &Station,
+    rows: &[StationTiming],
+    p: &Perturbation,
+    scatter: f64,
+) -> Vec<Hypothesis> {
+    let mut found = Vec::new();
+    let (lat, lon) = (station.latitude_deg, station.longitude_deg);
+    if lon.abs() > 0.5 {
+        let flipped = Station {
+            longitude_deg: -lon,
+            ..station.clone()
+        };
+        if let Some(score) = fits_at(event, &flipped, rows, p, scatter) {
+            found.push((
+                score,
+                format!(
+                    "the station's timings fit its longitude with the sign reversed ({:.4} instead of {:.4}): west was probably entered as east or the reverse",
+                    -lon, lon
+                ),
+                "a longitude with the sign reversed".to_string(),
+            ));
+        }
+    }
+    if lon.abs() <= 90.0 && (lat - lon).abs() > 0.5 {
+        let swapped = Station {
+            latitude_deg: lon,
+            longitude_deg: lat,
+            ..station.clone()
+        };
+        if let Some(score) = fits_at(event, &swapped, rows, p, scatter) {
+            found.push((
+                score,
+                format!(
+                    "the station's timings fit latitude and longitude exchanged (latitude {lon:.4}, longitude {lat:.4})"
+                ),
+                "latitude and longitude exchanged".to_string(),
+            ));
+        }
+    }
+    found
+}
+
+/// A clock off by a constant: every timing shares one offset (two or more timings).
+fn clock_hypothesis(
+    event: &TransitEvent,
+    station: &Station,
+    rows: &[StationTiming],
+    p: &Perturbation,
+    (scatter, threshold): (f64, f64),
+) -> Option<Hypothesis> {
+    if rows.len() < 2 {
+        return None;
+    }
+    let geo = station.geocentric();
+    let res: Vec<f64> = rows
+        .iter()
+        .map(|r| predicted_hours(event, &geo, r.contact, p).map(|h| (r.observed_h - h) * 3600.0))
+        .collect::<Option<_>>()?;
+    let sig: Vec<f64> = rows.iter().map(|r| r.sigma_s).collect();
+    let offset = clock_offset_s(&res, &sig, scatter, threshold)?;
+    let chi2: f64 = res
+        .iter()
+        .zip(&sig)
+        .map(|(r, s)| ((r - offset) / (s * scatter)).powi(2))
+        .sum();
+    (chi2 / ((rows.len() - 1) as f64) < 9.0).then(|| {
+        (
+            chi2 + 2.0,
+            format!(
+                "all {} timings of station '{}' are off by about {offset:+.1} s: its clock was probably wrong by that much",
+                rows.len(),
+                station.name
+            ),
+            format!("a clock off by {offset:+.1} s"),
+        )
+    })
+}
+
 /// Explain a station whose timings do not fit by a blunder common to all of them: the
 /// longitude's sign flipped, latitude and longitude exchanged, or the clock off by a constant.
 /// A hypothesis is acceptable when every corrected residual lies within max(4 scatter sigma,
 /// 20 s) and its chi-square per degree of freedom (normalised by `scatter`) is under 9; they
 /// are ranked by chi-square plus twice the number of fitted constants (Akaike's criterion:
-/// the clock offset is one), and any within 2 of the best is named as an alternative that
-/// these timings cannot rule out.
+/// the clock offset is one; H. Akaike, IEEE Trans. Autom. Control 19, 716 (1974)), and any
+/// within 2 of the best is named as an alternative that these timings cannot rule out.
 pub fn explain_station(
     event: &TransitEvent,
     station: &Station,
@@ -126,91 +233,14 @@ pub fn explain_station(
     threshold: f64,
 ) -> Option<String> {
     let scatter = scatter.max(1.0);
-    let fits = |st: &Station| -> Option<(f64, Vec<f64>)> {
-        let geo = st.geocentric();
-        let mut chi2 = 0.0;
-        let mut res = Vec::new();
-        for r in rows {
-            let h = predicted_hours(event, &geo, r.contact, p)?;
-            let d = (r.observed_h - h) * 3600.0;
-            if d.abs() > (4.0 * scatter * r.sigma_s).max(20.0) {
-                return None;
-            }
-            chi2 += (d / (r.sigma_s * scatter)).powi(2);
-            res.push(d);
-        }
-        if chi2 / rows.len() as f64 >= 9.0 {
-            return None;
-        }
-        Some((chi2, res))
-    };
-    let mut found: Vec<(f64, String, String)> = Vec::new();
-    let mut consider = |score: f64, text: String, short: String| found.push((score, text, short));
-    if station.longitude_deg.abs() > 0.5 {
-        let flipped = Station {
-            longitude_deg: -station.longitude_deg,
-            ..station.clone()
-        };
-        if let Some((score, _)) = fits(&flipped) {
-            consider(
-                score,
-                format!(
-                    "the station's timings fit its longitude with the sign reversed ({:.4} instead of {:.4}): west was probably entered as east or the reverse",
-                    -station.longitude_deg, station.longitude_deg
-                ),
-                "a longitude with the sign reversed".to_string(),
-            );
-        }
-    }
-    if station.longitude_deg.abs() <= 90.0
-        && (station.latitude_deg - station.longitude_deg).abs() > 0.5
-    {
-        let swapped = Station {
-            latitude_deg: station.longitude_deg,
-            longitude_deg: station.latitude_deg,
-            ..station.clone()
-        };
-        if let Some((score, _)) = fits(&swapped) {
-            consider(
-                score,
-                format!(
-                    "the station's timings fit latitude and longitude exchanged (latitude {:.4}, longitude {:.4})",
-                    station.longitude_deg, station.latitude_deg
-                ),
-                "latitude and longitude exchanged".to_string(),
-            );
-        }
-    }
-    if rows.len() >= 2 {
-        let geo = station.geocentric();
-        let res: Option<Vec<f64>> = rows
-            .iter()
-            .map(|r| {
-                predicted_hours(event, &geo, r.contact, p).map(|h| (r.observed_h - h) * 3600.0)
-            })
-            .collect();
-        if let Some(res) = res {
-            let sig: Vec<f64> = rows.iter().map(|r| r.sigma_s).collect();
-            if let Some(offset) = clock_offset_s(&res, &sig, scatter, threshold) {
-                let chi2: f64 = res
-                    .iter()
-                    .zip(&sig)
-                    .map(|(r, s)| ((r - offset) / (s * scatter)).powi(2))
-                    .sum();
-                if chi2 / ((rows.len() - 1) as f64) < 9.0 {
-                    consider(
-                        chi2 + 2.0,
-                        format!(
-                            "all {} timings of station '{}' are off by about {offset:+.1} s: its clock was probably wrong by that much",
-                            rows.len(),
-                            station.name
-                        ),
-                        format!("a clock off by {offset:+.1} s"),
-                    );
-                }
-            }
-        }
-    }
+    let mut found = coordinate_hypotheses(event, station, rows, p, scatter);
+    found.extend(clock_hypothesis(
+        event,
+        station,
+        rows,
+        p,
+        (scatter, threshold),
+    ));
     found.sort_by(|a, b| a.0.total_cmp(&b.0));
     let (best_score, best_text, _) = found.first()?.clone();
     let alternatives: Vec<&str> = found[1..]

@@ -13,7 +13,7 @@
 
 use super::equations::{linearise, Timing};
 use super::identifiability::{describe_confusion, hold_fixed_what_cannot_be_separated};
-use super::normal_equations::{reduced_normal, solve, LinearSystem, LocalPartials};
+use super::normal_equations::{reduced_normal, solve, BlockSolution, LinearSystem, LocalPartials};
 use super::parameters::{ParameterSet, PARALLAX, RADIUS_DIFFERENCE, RADIUS_SUM};
 use crate::geometry::transit::TransitEvent;
 use nalgebra::{DMatrix, DVector};
@@ -52,9 +52,52 @@ pub struct FitOutcome {
 struct Linearisation {
     global: DMatrix<f64>,
     local: Vec<LocalPartials>,
-    residuals: Vec<f64>,
-    weights: Vec<f64>,
+    residuals: DVector<f64>,
+    weights: DVector<f64>,
     unsolvable: Vec<usize>,
+}
+
+/// Where the iteration stands when it ends.
+struct Ending {
+    theta: Vec<f64>,
+    free: Vec<bool>,
+    messages: Vec<String>,
+    iterations: usize,
+    converged: bool,
+}
+
+impl Linearisation {
+    fn system(&self) -> LinearSystem<'_> {
+        LinearSystem {
+            global: &self.global,
+            local: &self.local,
+            residuals: &self.residuals,
+            weights: &self.weights,
+        }
+    }
+
+    /// The outcome at these values: from the step's solution, or, where it could not be
+    /// solved, with zero covariance and no uncertainties.
+    fn outcome(self, end: Ending, solution: Option<BlockSolution>, n_params: usize) -> FitOutcome {
+        let g = self.global.ncols();
+        let residuals_s = self.residuals.iter().copied().collect();
+        let (covariance, sigma, jacobian) = match solution {
+            Some(sol) => (sol.covariance_global, sol.sigma, sol.projected_global),
+            None => (DMatrix::zeros(g, g), vec![None; n_params], self.global),
+        };
+        FitOutcome {
+            theta: end.theta,
+            covariance,
+            sigma,
+            residuals_s,
+            jacobian,
+            free: end.free,
+            iterations: end.iterations,
+            converged: end.converged,
+            unsolvable: self.unsolvable,
+            messages: end.messages,
+        }
+    }
 }
 
 fn linearise_all(
@@ -90,8 +133,8 @@ fn linearise_all(
     Linearisation {
         global,
         local,
-        residuals,
-        weights,
+        residuals: DVector::from_vec(residuals),
+        weights: DVector::from_vec(weights),
         unsolvable,
     }
 }
@@ -121,8 +164,7 @@ fn check_rank(
     sys: &LinearSystem,
     params: &ParameterSet,
     (free, theta): (&mut [bool], &[f64]),
-    timings: &[Timing],
-    used: &[usize],
+    (timings, used): (&[Timing], &[usize]),
     messages: &mut Vec<String>,
 ) {
     let g = params.n_global();
@@ -158,75 +200,46 @@ pub fn fit(
     params: &ParameterSet,
     theta0: &[f64],
 ) -> FitOutcome {
-    let g = params.n_global();
     let mut theta = theta0.to_vec();
     let (mut free, mut messages) = initial_free(params, timings, used);
-    let mut rank_checked = false;
     let mut iterations = 0;
     loop {
         let lin = linearise_all(event, timings, used, params, &theta);
-        let (r, w) = (
-            DVector::from_vec(lin.residuals.clone()),
-            DVector::from_vec(lin.weights.clone()),
-        );
-        let sys = LinearSystem {
-            global: &lin.global,
-            local: &lin.local,
-            residuals: &r,
-            weights: &w,
+        let end = |theta, free, messages, converged| Ending {
+            theta,
+            free,
+            messages,
+            iterations,
+            converged,
         };
-        let stop =
-            |theta: Vec<f64>, free: Vec<bool>, messages: Vec<String>, converged| FitOutcome {
-                theta,
-                covariance: DMatrix::zeros(g, g),
-                sigma: vec![None; params.len()],
-                residuals_s: lin.residuals.clone(),
-                jacobian: lin.global.clone(),
-                free,
-                iterations,
-                converged,
-                unsolvable: lin.unsolvable.clone(),
-                messages,
-            };
         if !lin.unsolvable.is_empty() || lin.residuals.is_empty() {
-            return stop(theta, free, messages, false);
+            return lin.outcome(end(theta, free, messages, false), None, params.len());
         }
-        if !rank_checked {
+        if iterations == 0 {
+            let sys = lin.system();
             check_rank(
                 &sys,
                 params,
                 (&mut free, &theta),
-                timings,
-                used,
+                (timings, used),
                 &mut messages,
             );
-            rank_checked = true;
         }
         let solution = if free.iter().any(|&f| f) {
-            solve(&sys, params, &free, &theta)
+            solve(&lin.system(), params, &free, &theta)
         } else {
             None
         };
         let Some(sol) = solution else {
             let converged = !free[PARALLAX];
-            return stop(theta, free, messages, converged);
+            return lin.outcome(end(theta, free, messages, converged), None, params.len());
         };
         let converged = iterations > 0
             && sol.correction[PARALLAX].abs() < 1e-6
             && sol.correction.iter().skip(1).all(|c| c.abs() < 1e-4);
         if converged || iterations >= MAX_ITERATIONS {
-            return FitOutcome {
-                theta,
-                covariance: sol.covariance_global,
-                sigma: sol.sigma,
-                residuals_s: lin.residuals,
-                jacobian: sol.projected_global,
-                free,
-                iterations,
-                converged,
-                unsolvable: lin.unsolvable,
-                messages,
-            };
+            let ending = end(theta, free, messages, converged);
+            return lin.outcome(ending, Some(sol), params.len());
         }
         for j in (0..theta.len()).filter(|&j| free[j]) {
             theta[j] += sol.correction[j];
@@ -271,7 +284,7 @@ mod tests {
                         sigma_s: 5.0,
                         sigma_given: true,
                     },
-                    geo: geo.clone(),
+                    geo,
                     observed_h: h + clock / 3600.0,
                     station: k,
                 });

@@ -154,6 +154,10 @@ fn rows_by_station(sys: &LinearSystem, params: &ParameterSet, free: &[bool]) -> 
     rows
 }
 
+/// Free global indices, the reduced normal matrix and right-hand side over them, and the
+/// station blocks for back substitution.
+type Eliminated = (Vec<usize>, DMatrix<f64>, DVector<f64>, Vec<StationBlock>);
+
 /// The free-global normal matrix and right-hand side with every station block eliminated,
 /// and the blocks for back substitution; `None` when a station's free parameters are not
 /// determined by its timings and priors.
@@ -162,7 +166,7 @@ fn eliminate(
     params: &ParameterSet,
     free: &[bool],
     theta: &[f64],
-) -> Option<(Vec<usize>, DMatrix<f64>, DVector<f64>, Vec<StationBlock>)> {
+) -> Option<Eliminated> {
     let (idx, mut normal, mut rhs) = global_normal(sys, params, free, theta);
     let mut blocks = Vec::new();
     for (s, rows) in rows_by_station(sys, params, free).into_iter().enumerate() {

@@ -89,6 +89,10 @@ pub fn timings_of_event(
     Ok(timings)
 }
 
+/// Candidates, timings with the Sun set (and its altitude), timings of no such contact, and
+/// every timing's O - C at the a-priori values (s).
+type Sorted = (Vec<usize>, Vec<(usize, f64)>, Vec<usize>, Vec<f64>);
+
 /// Sort the timings at the a-priori values: computable and visible ones go forward (with
 /// their O - C); the rest wait for diagnosis.
 fn sort_by_visibility(
@@ -96,7 +100,7 @@ fn sort_by_visibility(
     timings: &[Timing],
     params: &ParameterSet,
     theta_prior: &[f64],
-) -> (Vec<usize>, Vec<(usize, f64)>, Vec<usize>, Vec<f64>) {
+) -> Sorted {
     let er = event.earth_radii_per_arcsec();
     let (mut candidates, mut not_visible, mut no_contact) = (Vec::new(), Vec::new(), Vec::new());
     let mut prior_residual_s = vec![0.0; timings.len()];

@@ -358,41 +358,13 @@ pub fn residuals_svg(red: &Reduction) -> String {
     s
 }
 
-/// The parallax and its uncertainty as timings are added in the order of the file.
-pub fn convergence_svg(red: &Reduction) -> String {
-    let (w, h) = (720.0, 300.0);
-    let (left, right, top, bottom) = (70.0, 20.0, 20.0, 40.0);
-    let mut s = svg_open(w, h, "Convergence of the solar parallax");
-    let _ = writeln!(s, "<rect width=\"100%\" height=\"100%\" fill=\"#ffffff\"/>");
-    let pts = &red.convergence;
-    let Some(last) = pts.last() else {
-        let _ = writeln!(s, "<text x=\"20\" y=\"40\">Too few timings to follow the solution as they are added.</text></svg>");
-        return s;
-    };
-    let final_pi = red.parallax_arcsec.unwrap_or(last.parallax_arcsec);
-    let spread = pts
-        .iter()
-        .map(|p| (p.parallax_arcsec - final_pi).abs() + p.sigma_arcsec)
-        .fold(0.05, f64::max)
-        .min(3.0);
-    let (ylo, yhi) = (final_pi - spread * 1.1, final_pi + spread * 1.1);
-    let nmax = last.timings as f64;
-    let x_of = |n: f64| left + (w - left - right) * n / nmax;
-    let y_of = |v: f64| top + (h - top - bottom) * (yhi - v.clamp(ylo, yhi)) / (yhi - ylo);
-    for t in ticks(ylo, yhi, 6) {
-        let y = y_of(t);
-        let _ = writeln!(s, "<line x1=\"{left}\" y1=\"{y:.1}\" x2=\"{}\" y2=\"{y:.1}\" stroke=\"#e5e7eb\"/><text x=\"{}\" y=\"{:.1}\" text-anchor=\"end\">{t:.3}</text>", w - right, left - 5.0, y + 4.0);
-    }
-    for t in ticks(0.0, nmax, 8) {
-        let x = x_of(t);
-        let _ = writeln!(
-            s,
-            "<text x=\"{x:.1}\" y=\"{}\" text-anchor=\"middle\">{t}</text>",
-            h - bottom + 16.0
-        );
-    }
-    let _ = writeln!(s, "<text x=\"{}\" y=\"{}\" text-anchor=\"middle\">timings in the solution (file order)</text>", (left + w - right) / 2.0, h - 6.0);
-    let _ = writeln!(s, "<text x=\"14\" y=\"{}\" transform=\"rotate(-90 14 {})\" text-anchor=\"middle\">solar parallax (arcsec)</text>", h / 2.0, h / 2.0);
+/// The convergence chart's one-sigma band and the parallax's line.
+fn convergence_band(
+    pts: &[crate::reduction::ConvergencePoint],
+    x_of: &dyn Fn(f64) -> f64,
+    y_of: &dyn Fn(f64) -> f64,
+) -> String {
+    let mut s = String::new();
     let upper: Vec<String> = pts
         .iter()
         .map(|p| {
@@ -435,6 +407,45 @@ pub fn convergence_svg(red: &Reduction) -> String {
         "<polyline points=\"{}\" fill=\"none\" stroke=\"#1d4ed8\" stroke-width=\"1.8\"/>",
         line.join(" ")
     );
+    s
+}
+
+/// The parallax and its uncertainty as timings are added in the order of the file.
+pub fn convergence_svg(red: &Reduction) -> String {
+    let (w, h) = (720.0, 300.0);
+    let (left, right, top, bottom) = (70.0, 20.0, 20.0, 40.0);
+    let mut s = svg_open(w, h, "Convergence of the solar parallax");
+    let _ = writeln!(s, "<rect width=\"100%\" height=\"100%\" fill=\"#ffffff\"/>");
+    let pts = &red.convergence;
+    let Some(last) = pts.last() else {
+        let _ = writeln!(s, "<text x=\"20\" y=\"40\">Too few timings to follow the solution as they are added.</text></svg>");
+        return s;
+    };
+    let final_pi = red.parallax_arcsec.unwrap_or(last.parallax_arcsec);
+    let spread = pts
+        .iter()
+        .map(|p| (p.parallax_arcsec - final_pi).abs() + p.sigma_arcsec)
+        .fold(0.05, f64::max)
+        .min(3.0);
+    let (ylo, yhi) = (final_pi - spread * 1.1, final_pi + spread * 1.1);
+    let nmax = last.timings as f64;
+    let x_of = |n: f64| left + (w - left - right) * n / nmax;
+    let y_of = |v: f64| top + (h - top - bottom) * (yhi - v.clamp(ylo, yhi)) / (yhi - ylo);
+    for t in ticks(ylo, yhi, 6) {
+        let y = y_of(t);
+        let _ = writeln!(s, "<line x1=\"{left}\" y1=\"{y:.1}\" x2=\"{}\" y2=\"{y:.1}\" stroke=\"#e5e7eb\"/><text x=\"{}\" y=\"{:.1}\" text-anchor=\"end\">{t:.3}</text>", w - right, left - 5.0, y + 4.0);
+    }
+    for t in ticks(0.0, nmax, 8) {
+        let x = x_of(t);
+        let _ = writeln!(
+            s,
+            "<text x=\"{x:.1}\" y=\"{}\" text-anchor=\"middle\">{t}</text>",
+            h - bottom + 16.0
+        );
+    }
+    let _ = writeln!(s, "<text x=\"{}\" y=\"{}\" text-anchor=\"middle\">timings in the solution (file order)</text>", (left + w - right) / 2.0, h - 6.0);
+    let _ = writeln!(s, "<text x=\"14\" y=\"{}\" transform=\"rotate(-90 14 {})\" text-anchor=\"middle\">solar parallax (arcsec)</text>", h / 2.0, h / 2.0);
+    s.push_str(&convergence_band(pts, &x_of, &y_of));
     let y = y_of(crate::sky::constants::nominal_parallax_arcsec());
     let _ = writeln!(s, "<line x1=\"{left}\" y1=\"{y:.1}\" x2=\"{}\" y2=\"{y:.1}\" stroke=\"#16a34a\" stroke-dasharray=\"5,4\"/><text x=\"{}\" y=\"{:.1}\" text-anchor=\"end\" fill=\"#16a34a\">IAU 2009 value 8.794143\"</text>", w - right, w - right - 4.0, y - 4.0);
     s.push_str("</svg>\n");

@@ -5,7 +5,7 @@ use crate::planning::simulation::{MonteCarloSummary, SimulationSettings};
 use crate::planning::sites::{GridPoint, Plan};
 use crate::render::text::{csv_field, round as r, SAFETY_CAUTION};
 use crate::sky::constants::AU_KM;
-use crate::time::scales::format_utc;
+use crate::time::iso::format_utc;
 use serde_json::{json, Value};
 
 /// The columns of `plan` CSV output, in order.

@@ -4,7 +4,7 @@
 use crate::geometry::contacts::Contact;
 use crate::geometry::transit::{StationPrediction, TransitEvent};
 use crate::render::text::{csv_field, round, SAFETY_CAUTION};
-use crate::time::scales::format_utc;
+use crate::time::iso::format_utc;
 use serde_json::{json, Value};
 
 fn opt_num(v: Option<f64>, decimals: usize) -> String {

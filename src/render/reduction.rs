@@ -12,10 +12,8 @@ fn opt(x: Option<f64>, decimals: i32) -> Value {
     }
 }
 
-/// The JSON object of `reduce --format json` (keys of shared/interface.md, and more).
-pub fn reduction_json(red: &Reduction) -> Value {
-    let stations: Vec<Value> = red
-        .stations
+fn stations_json(red: &Reduction) -> Vec<Value> {
+    red.stations
         .iter()
         .map(|s| {
             json!({
@@ -37,9 +35,11 @@ pub fn reduction_json(red: &Reduction) -> Value {
                 })),
             })
         })
-        .collect();
-    let rejected: Vec<Value> = red
-        .rejected
+        .collect()
+}
+
+fn rejected_json(red: &Reduction) -> Vec<Value> {
+    red.rejected
         .iter()
         .map(|x| {
             json!({
@@ -51,9 +51,11 @@ pub fn reduction_json(red: &Reduction) -> Value {
                 "o_c_s": opt(x.o_c_s, 2),
             })
         })
-        .collect();
-    let parameters: Vec<Value> = red
-        .parameters
+        .collect()
+}
+
+fn parameters_json(red: &Reduction) -> Vec<Value> {
+    red.parameters
         .iter()
         .map(|p| {
             json!({
@@ -64,7 +66,11 @@ pub fn reduction_json(red: &Reduction) -> Value {
                 "fixed": p.fixed,
             })
         })
-        .collect();
+        .collect()
+}
+
+/// The JSON object of `reduce --format json` (keys of shared/interface.md, and more).
+pub fn reduction_json(red: &Reduction) -> Value {
     let st = &red.statistics;
     json!({
         "planet": red.event.planet.name(),
@@ -79,9 +85,9 @@ pub fn reduction_json(red: &Reduction) -> Value {
         "au_interval_95_km": red.au_interval_95_km.map(|(a, b)| vec![r(a, 0), r(b, 0)]),
         "timings_total": red.timings_total,
         "timings_used": red.timings_used,
-        "rejected": rejected,
-        "stations": stations,
-        "parameters": parameters,
+        "rejected": rejected_json(red),
+        "stations": stations_json(red),
+        "parameters": parameters_json(red),
         "correlation": red.correlation.iter().map(|row| row.iter().map(|x| r(*x, 4)).collect::<Vec<f64>>()).collect::<Vec<_>>(),
         "chi2": r(st.chi2, 3),
         "dof": st.dof,
@@ -100,9 +106,8 @@ pub fn reduction_json(red: &Reduction) -> Value {
     })
 }
 
-/// A readable report for the terminal.
-pub fn reduction_table(red: &Reduction) -> String {
-    let mut s = String::new();
+/// The result, the chi-square and the warnings.
+fn headline_section(red: &Reduction, s: &mut String) {
     s.push_str(&format!(
         "Reduction of {} timings of the transit of {} on {} (greatest transit {})\n\n",
         red.timings_total,
@@ -141,6 +146,10 @@ pub fn reduction_table(red: &Reduction) -> String {
     for w in &red.warnings {
         s.push_str(&format!("  warning: {w}\n"));
     }
+}
+
+/// The parameters and their correlations.
+fn parameters_section(red: &Reduction, s: &mut String) {
     s.push_str("\nParameters (arcsec)\n");
     for p in &red.parameters {
         match p.sigma {
@@ -167,6 +176,10 @@ pub fn reduction_table(red: &Reduction) -> String {
         s.push('\n');
     }
     s.push_str("  (p1..p5 in the order of the parameters above)\n");
+}
+
+/// The stations ranked by their share of the information.
+fn stations_section(red: &Reduction, s: &mut String) {
     s.push_str("\nStations by share of the information on the parallax\n");
     s.push_str(&format!(
         "  {:<24} {:>4} {:>8} {:>12} {:>10}  {}\n",
@@ -192,6 +205,14 @@ pub fn reduction_table(red: &Reduction) -> String {
             oc.join(" ")
         ));
     }
+}
+
+/// A readable report for the terminal.
+pub fn reduction_table(red: &Reduction) -> String {
+    let mut s = String::new();
+    headline_section(red, &mut s);
+    parameters_section(red, &mut s);
+    stations_section(red, &mut s);
     if !red.rejected.is_empty() {
         s.push_str("\nRows not used\n");
         for x in &red.rejected {

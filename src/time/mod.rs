@@ -5,6 +5,7 @@
 //! polynomials outside the table, or a fixed value given by the user), with a rough
 //! uncertainty of Delta T.
 //!
-//! - `scales.rs`: the leap-second table, Delta T, [`scales::TimeModel`], [`scales::Tt`], and
-//!   parsing and formatting of ISO 8601 labels.
+//! - `scales.rs`: the leap-second table, Delta T, [`scales::TimeModel`], [`scales::Tt`].
+//! - `iso.rs`: parsing and formatting ISO 8601 labels.
+pub mod iso;
 pub mod scales;
