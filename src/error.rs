@@ -78,6 +78,16 @@ pub enum Error {
         /// Upper limit.
         max: String,
     },
+    /// Not one timing of a file could be used: every row is listed with its reason.
+    #[error("{}: {why}; {}", file.display(), rows_text(rows))]
+    NoUsableTiming {
+        /// The file.
+        file: PathBuf,
+        /// Why nothing could be used, in a phrase.
+        why: String,
+        /// Each row not used: line, station, contact, reason and sentence.
+        rows: Vec<String>,
+    },
     /// A numerical method failed to converge or met a degenerate case.
     #[error("computation failed: {0}")]
     Numerical(String),
@@ -95,6 +105,18 @@ impl Error {
             message: message.into(),
         }
     }
+}
+
+fn rows_text(rows: &[String]) -> String {
+    if rows.is_empty() {
+        return "add one row per timing below the header".to_string();
+    }
+    let mut s = String::from("fix these rows and run again:");
+    for r in rows {
+        s.push_str("\n  ");
+        s.push_str(r);
+    }
+    s
 }
 
 /// Result type of the library.

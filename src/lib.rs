@@ -16,7 +16,8 @@
 //! | [`planning`] | candidate sites, an event | ranked sites, chosen networks, simulated campaigns |
 //! | [`render`] | any of the above | tables, CSV, JSON, charts and reports |
 //!
-//! [`demo`] holds the embedded invented campaign and [`error`] the typed errors of every stage.
+//! [`demo`] holds the embedded invented campaign, [`error`] the typed errors of every stage and
+//! [`words`] the phrasing they share.
 //!
 //! ```
 //! use transit_parallax::{Planet, Station, TimeModel, transit_on_date};
@@ -38,6 +39,7 @@ pub mod reduction;
 pub mod render;
 pub mod sky;
 pub mod time;
+pub mod words;
 
 pub use error::{Error, Result};
 pub use geometry::contacts::{Contact, ContactCircumstances};

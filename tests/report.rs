@@ -79,7 +79,11 @@ fn demo_report_is_well_formed_and_complete() {
     let pi = json["parallax_arcsec"].as_f64().unwrap();
     let au = json["au_km"].as_f64().unwrap();
     assert!(html.contains(&format!("{pi:.4}")), "parallax {pi}");
-    assert!(html.contains(&format!("{au:.0} km")), "AU {au}");
+    // The AU in millions of km, to about three digits of its uncertainty.
+    let au_sigma = json["au_sigma_km"].as_f64().unwrap();
+    let d = transit_parallax::render::text::decimals_for(au_sigma / 1e6);
+    let expected = format!("{:.d$} ± {:.d$} million km", au / 1e6, au_sigma / 1e6);
+    assert!(html.contains(&expected), "AU {expected}");
     for r in json["rejected"].as_array().unwrap() {
         assert!(
             html.contains(&format!("<td>{}</td>", r["line"])),

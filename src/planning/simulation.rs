@@ -309,7 +309,8 @@ pub fn monte_carlo(
             crate::reduction::reduce_for_event(camp.observations, event.clone(), &options).ok();
         let out = result.as_ref().and_then(|r| {
             let (lo, hi) = r.au_interval_95_km?;
-            Some((r.au_km?, r.au_sigma_km?, lo <= truth_km && truth_km <= hi))
+            let holds = lo <= truth_km && hi.map_or(true, |hi| truth_km <= hi);
+            Some((r.au_km?, r.au_sigma_km?, holds))
         });
         let caught = result
             .as_ref()

@@ -208,8 +208,8 @@ fn clock_hypothesis(
         (
             chi2 + 2.0,
             format!(
-                "all {} timings of station '{}' are off by about {offset:+.1} s: its clock was probably wrong by that much",
-                rows.len(),
+                "{} of station '{}' are off by about {offset:+.1} s: its clock was probably wrong by that much",
+                crate::words::all_of(rows.len(), "timings"),
                 station.name
             ),
             format!("a clock off by {offset:+.1} s"),

@@ -12,7 +12,9 @@
 //! *Numerical Recipes*, 3rd ed. (2007), section 15.5.
 
 use super::equations::{linearise, Timing};
-use super::identifiability::{describe_confusion, hold_fixed_what_cannot_be_separated};
+use super::identifiability::{
+    describe_confusion, hold_fixed_what_cannot_be_separated, parallax_inseparable,
+};
 use super::normal_equations::{reduced_normal, solve, BlockSolution, LinearSystem, LocalPartials};
 use super::parameters::{ParameterSet, PARALLAX, RADIUS_DIFFERENCE, RADIUS_SUM};
 use crate::geometry::transit::TransitEvent;
@@ -172,15 +174,27 @@ fn check_rank(
         .iter()
         .map(|s| s.name.as_str())
         .collect();
-    let confused = match reduced_normal(sys, params, free, theta) {
-        Some(normal) => {
-            hold_fixed_what_cannot_be_separated(&normal, &mut free[..g], &names, PARALLAX)
-        }
-        None => Vec::new(),
+    let Some(normal) = reduced_normal(sys, params, free, theta) else {
+        return;
     };
-    if !confused.is_empty() {
-        let list: Vec<&Timing> = used.iter().map(|&i| &timings[i]).collect();
-        messages.push(describe_confusion(&list, &confused));
+    let separation = hold_fixed_what_cannot_be_separated(&normal, &mut free[..g], &names, PARALLAX);
+    let list: Vec<&Timing> = used.iter().map(|&i| &timings[i]).collect();
+    if !separation.confused.is_empty() {
+        messages.push(describe_confusion(&list, &separation.confused));
+    }
+    if free[PARALLAX] {
+        let why = if separation.parallax_entangled {
+            Some(format!(
+                "the solar parallax is entangled with {}, which the timings cannot determine; holding those at their a-priori values would make the parallax rest on that assumption",
+                separation.entangled_with.join(", ")
+            ))
+        } else {
+            parallax_inseparable(&normal, &free[..g], &names, PARALLAX)
+        };
+        if let Some(why) = why {
+            free[PARALLAX] = false;
+            messages.push(why);
+        }
     }
     if !free[PARALLAX] {
         messages.push("the solar parallax cannot be determined from these timings; it is held at the a-priori value and no result is given".to_string());

@@ -25,18 +25,40 @@ use super::{equations::Timing, fit::fit};
 use crate::error::{Error, Result};
 use crate::geometry::besselian::check_parallax;
 use crate::geometry::transit::{transit_on_date, TransitEvent};
-use crate::observations::timings::{Observation, ObservationSet};
+use crate::observations::timings::{Observation, ObservationSet, Rejected};
 use crate::sky::constants::au_km_from_parallax_arcsec;
 use crate::sky::ephemeris::Planet;
 use crate::time::scales::TimeModel;
 
+/// The error when not one timing can be used, listing every row with its reason.
+fn no_usable_timing(path: &std::path::Path, rows_total: usize, rejected: &[Rejected]) -> Error {
+    let why = if rows_total == 0 {
+        "the file has a header and no rows".to_string()
+    } else {
+        format!("none of its {rows_total} rows can be used")
+    };
+    let rows = rejected
+        .iter()
+        .map(|r| {
+            format!(
+                "line {}: station '{}', contact {}: {}: {}",
+                r.line,
+                r.station,
+                r.contact.map_or("-".to_string(), |c| c.to_string()),
+                r.reason.as_str(),
+                r.diagnosis.as_deref().unwrap_or("no diagnosis")
+            )
+        })
+        .collect();
+    Error::NoUsableTiming {
+        file: path.to_path_buf(),
+        why,
+        rows,
+    }
+}
+
 fn infer_event(valid: &[Observation], model: &TimeModel) -> Result<TransitEvent> {
     let mut times: Vec<chrono::NaiveDateTime> = valid.iter().map(|o| o.time_label).collect();
-    if times.is_empty() {
-        return Err(Error::argument(
-            "no valid timing to reduce; see the rejected rows",
-        ));
-    }
     times.sort();
     let mid = times[times.len() / 2].date();
     for planet in [Planet::Venus, Planet::Mercury] {
@@ -51,8 +73,11 @@ fn infer_event(valid: &[Observation], model: &TimeModel) -> Result<TransitEvent>
 
 /// Reduce a set of timings.
 ///
-/// Errors: an invalid prior parallax; no event found; no usable timing.
+/// Errors: an invalid prior parallax; no event found; no usable timing (every row listed).
 pub fn reduce(set: ObservationSet, options: &ReduceOptions) -> Result<Reduction> {
+    if set.valid.is_empty() {
+        return Err(no_usable_timing(&set.path, set.rows_total, &set.rejected));
+    }
     let model = options.time_model;
     let event = match options.event {
         Some((planet, date)) => transit_on_date(planet, date, &model)?,
@@ -98,6 +123,9 @@ pub fn reduce_for_event(
         (&verdicts, threshold),
         &mut rejected,
     );
+    if screened.used.is_empty() {
+        return Err(no_usable_timing(&set.path, set.rows_total, &rejected));
+    }
     let campaign = Campaign {
         params: &params,
         timings: &timings,
@@ -118,7 +146,7 @@ fn fit_warnings(outcome: &FitOutcome, stats: &FitStatistics) -> Vec<String> {
     let mut warnings = outcome.messages.clone();
     if !outcome.converged && outcome.free[PARALLAX] {
         warnings.push(format!(
-            "the iteration did not converge in {} steps; treat the result with caution",
+            "the iteration did not converge in {} steps; the parallax is not determined and no result is given",
             outcome.iterations
         ));
     }
@@ -186,22 +214,35 @@ fn correlation_of(outcome: &FitOutcome) -> Vec<Vec<f64>> {
         .collect()
 }
 
-/// The headline figures: parallax, its sigma and 95 % interval, the AU, its sigma (half the
-/// width of the exact image of pi -+ sigma; to first order AU cot(pi) sigma_pi, from which it
-/// differs by (sigma_pi/pi)^2 relatively) and its 95 % interval (the exact image).
+/// The sentence when the parallax's one-sigma range reaches zero.
+pub const AU_UNBOUNDED: &str = "the parallax's one-sigma range reaches zero, so these timings set no upper bound on the astronomical unit: no AU is given";
+
+/// The headline figures: parallax, its sigma and 95 % interval; the AU = a_e / sin(pi), its
+/// sigma (half the width of the exact image of pi -+ sigma; to first order AU cot(pi)
+/// sigma_pi, from which it differs by (sigma_pi/pi)^2 relatively) and its 95 % interval (the
+/// exact image of the parallax interval, unbounded above where that reaches zero). No AU when
+/// pi - sigma reaches zero; nothing when the sigma is not a positive number.
 fn headline_into(red: &mut Reduction, coverage_factor_95: f64) {
     let pi = red.parameters[PARALLAX].value;
-    let s = red.parameters[PARALLAX].sigma.unwrap_or(f64::NAN);
+    let Some(s) = red.parameters[PARALLAX].sigma.filter(|s| s.is_finite() && *s > 0.0) else {
+        red.warnings.push("the fit gave no positive uncertainty for the parallax; it is not determined and no result is given".into());
+        return;
+    };
     let k = coverage_factor_95;
     red.parallax_arcsec = Some(pi);
     red.parallax_sigma_arcsec = Some(s);
-    red.parallax_interval_95 = Some((pi - k * s, pi + k * s));
+    // A parallax is positive: the interval is clipped at zero.
+    red.parallax_interval_95 = Some(((pi - k * s).max(0.0), pi + k * s));
+    if pi - s <= 0.0 {
+        red.warnings.push(AU_UNBOUNDED.into());
+        return;
+    }
     red.au_km = Some(au_km_from_parallax_arcsec(pi));
     red.au_sigma_km =
         Some(0.5 * (au_km_from_parallax_arcsec(pi - s) - au_km_from_parallax_arcsec(pi + s)));
     red.au_interval_95_km = Some((
         au_km_from_parallax_arcsec(pi + k * s),
-        au_km_from_parallax_arcsec(pi - k * s),
+        (pi - k * s > 0.0).then(|| au_km_from_parallax_arcsec(pi - k * s)),
     ));
 }
 
@@ -224,7 +265,7 @@ fn summarise(
     c: &Campaign,
     options: &ReduceOptions,
     s: &Screened,
-    rejected: Vec<crate::observations::timings::Rejected>,
+    rejected: Vec<Rejected>,
 ) -> Reduction {
     let (outcome, used) = (&s.outcome, &s.used);
     let n = used.len();
@@ -240,7 +281,7 @@ fn summarise(
         .map(|(r, w)| r * r * w)
         .sum();
     let stats = statistics(chi2, n.saturating_sub(n_free));
-    let determined = outcome.free[PARALLAX] && n > 0;
+    let determined = outcome.free[PARALLAX] && n > 0 && outcome.converged;
     let er = event.earth_radii_per_arcsec();
     let stations = contributions(&event, c.timings, used, outcome, &w, er);
     let convergence = if determined && options.follow_convergence {

@@ -49,8 +49,8 @@ fn clock_verdict(
     Some((
         rows.to_vec(),
         format!(
-            "all {} timings of station '{}' are off by about {offset:+.1} s: its clock was probably wrong by that much",
-            rows.len(),
+            "{} of station '{}' are off by about {offset:+.1} s: its clock was probably wrong by that much",
+            crate::words::all_of(rows.len(), "timings"),
             name
         ),
     ))

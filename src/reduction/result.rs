@@ -116,10 +116,12 @@ pub struct Reduction {
     pub parallax_interval_95: Option<(f64, f64)>,
     /// The AU in km.
     pub au_km: Option<f64>,
-    /// Its standard uncertainty, km: half the width of the exact image of pi -+ sigma.
+    /// Its standard uncertainty, km: half the width of the exact image of pi -+ sigma (the AU
+    /// is not given when pi - sigma reaches zero).
     pub au_sigma_km: Option<f64>,
-    /// 95 % interval of the AU (exact mapping of the parallax interval), km.
-    pub au_interval_95_km: Option<(f64, f64)>,
+    /// 95 % interval of the AU (the exact image of the parallax interval), km; the upper end
+    /// is `None` (unbounded) when the parallax interval reaches zero.
+    pub au_interval_95_km: Option<(f64, Option<f64>)>,
     /// Data rows read.
     pub timings_total: usize,
     /// Timings in the solution.
@@ -146,6 +148,17 @@ pub struct Reduction {
     pub convergence: Vec<ConvergencePoint>,
 }
 
+/// The AU from a determined parallax.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct AuFigure {
+    /// AU, km.
+    pub au_km: f64,
+    /// Its standard uncertainty, km.
+    pub au_sigma_km: f64,
+    /// 95 % interval, km (upper end `None`: unbounded).
+    pub au_interval_95_km: (f64, Option<f64>),
+}
+
 /// The result in one place: parallax and AU with their uncertainties and 95 % intervals.
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub struct Headline {
@@ -155,26 +168,27 @@ pub struct Headline {
     pub parallax_sigma_arcsec: f64,
     /// 95 % interval, arcsec.
     pub parallax_interval_95: (f64, f64),
-    /// AU, km.
-    pub au_km: f64,
-    /// Its standard uncertainty, km.
-    pub au_sigma_km: f64,
-    /// 95 % interval, km.
-    pub au_interval_95_km: (f64, f64),
+    /// The AU, unless the parallax's one-sigma range reaches zero.
+    pub au: Option<AuFigure>,
 }
 
 impl Reduction {
     /// The headline numbers, when the parallax was determined.
     pub fn headline(&self) -> Option<Headline> {
         let p = self.parallax_arcsec?;
-        let au = self.au_km?;
+        let au = match (self.au_km, self.au_sigma_km, self.au_interval_95_km) {
+            (Some(au_km), Some(au_sigma_km), Some(au_interval_95_km)) => Some(AuFigure {
+                au_km,
+                au_sigma_km,
+                au_interval_95_km,
+            }),
+            _ => None,
+        };
         Some(Headline {
             parallax_arcsec: p,
             parallax_sigma_arcsec: self.parallax_sigma_arcsec?,
-            parallax_interval_95: self.parallax_interval_95.unwrap_or((p, p)),
-            au_km: au,
-            au_sigma_km: self.au_sigma_km?,
-            au_interval_95_km: self.au_interval_95_km.unwrap_or((au, au)),
+            parallax_interval_95: self.parallax_interval_95?,
+            au,
         })
     }
 

@@ -7,7 +7,8 @@ use crate::render::charts::{
     convergence_svg, disc_exaggeration, esc, residuals_svg, solar_disc_svg, station_map_svg,
 };
 use crate::render::reduction::chi2_sentence;
-use crate::render::text::SAFETY_CAUTION;
+use crate::render::reduction::correlation_notes;
+use crate::render::text::{au_text, SAFETY_CAUTION};
 use std::fmt::Write;
 use std::path::{Path, PathBuf};
 
@@ -30,7 +31,6 @@ fn summary(red: &Reduction) -> Summary {
     match red.headline() {
         Some(h) => {
             let (lo, hi) = h.parallax_interval_95;
-            let (alo, ahi) = h.au_interval_95_km;
             headline.push((
                 "Solar parallax".into(),
                 format!(
@@ -38,13 +38,7 @@ fn summary(red: &Reduction) -> Summary {
                     h.parallax_arcsec, h.parallax_sigma_arcsec
                 ),
             ));
-            headline.push((
-                "Astronomical unit".into(),
-                format!(
-                    "{:.0} km ± {:.0} km (95 % interval {alo:.0} to {ahi:.0} km)",
-                    h.au_km, h.au_sigma_km
-                ),
-            ));
+            headline.push(("Astronomical unit".into(), au_text(&h, "±")));
         }
         None => headline.push((
             "Solar parallax".into(),
@@ -278,6 +272,9 @@ pub fn html_report(red: &Reduction) -> String {
     let ph = param_headers(red.correlation.len());
     let ph_ref: Vec<&str> = ph.iter().map(String::as_str).collect();
     s.push_str(&html_table(&ph_ref, &parameters_rows(red)));
+    for note in correlation_notes(red) {
+        let _ = writeln!(s, "<p>{}</p>", esc(&note));
+    }
     s.push_str("<h2>Stations, ranked by their share of the information on the parallax</h2>\n");
     s.push_str(&html_table(&STATION_HEADERS, &station_rows(red)));
     s.push_str("<h2>Rows not used</h2>\n");
@@ -341,6 +338,9 @@ pub fn markdown_report(red: &Reduction, stem: &str) -> (String, Vec<(String, Str
     let ph = param_headers(red.correlation.len());
     let ph_ref: Vec<&str> = ph.iter().map(String::as_str).collect();
     s.push_str(&md_table(&ph_ref, &parameters_rows(red)));
+    for note in correlation_notes(red) {
+        let _ = write!(s, "\n{}\n", md_cell(&note));
+    }
     s.push_str("\n## Stations, ranked by their share of the information on the parallax\n\n");
     s.push_str(&md_table(&STATION_HEADERS, &station_rows(red)));
     s.push_str("\n## Rows not used\n\n");

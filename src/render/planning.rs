@@ -4,6 +4,7 @@ use crate::geometry::transit::TransitEvent;
 use crate::planning::simulation::{MonteCarloSummary, SimulationSettings};
 use crate::planning::sites::{GridPoint, Plan};
 use crate::render::text::{csv_field, round as r, SAFETY_CAUTION};
+use crate::words::count;
 use crate::sky::constants::AU_KM;
 use crate::time::iso::format_utc;
 use serde_json::{json, Value};
@@ -82,7 +83,7 @@ fn au_sigma_km(parallax_sigma_arcsec: f64) -> f64 {
 pub fn plan_table(event: &TransitEvent, plan: &Plan, min_altitude_deg: f64) -> String {
     let mut s = format!(
         "Planning for the transit of {} on {} (timings of {:.0} s assumed; contacts counted with the Sun at least {:.0} deg up)\n\n",
-        event.planet.name(),
+        event.planet.title(),
         event.date(),
         plan.sigma_s,
         min_altitude_deg
@@ -223,10 +224,10 @@ pub fn simulation_json(
 /// A readable Monte Carlo forecast.
 pub fn simulation_table(event: &TransitEvent, m: &MonteCarloSummary, stations: usize) -> String {
     let mut s = format!(
-        "Monte Carlo forecast: {} simulated campaigns of {} stations, transit of {} on {}\n\n",
-        m.trials,
-        stations,
-        event.planet.name(),
+        "Monte Carlo forecast: {} of {}, transit of {} on {}\n\n",
+        count(m.trials, "simulated campaign", "simulated campaigns"),
+        count(stations, "station", "stations"),
+        event.planet.title(),
         event.date()
     );
     s.push_str(&format!(

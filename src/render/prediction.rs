@@ -196,7 +196,7 @@ pub fn predictions_json(event: &TransitEvent, predictions: &[StationPrediction])
 pub fn predictions_table(event: &TransitEvent, predictions: &[StationPrediction]) -> String {
     let mut s = format!(
         "Transit of {} on {} (greatest transit {}, Delta T {:.1} s +- {:.1} s)\n\n",
-        event.planet.name(),
+        event.planet.title(),
         event.date(),
         event.greatest_utc(),
         event.elements.delta_t_s,

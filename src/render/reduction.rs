@@ -2,7 +2,8 @@
 //! report (solution, parameters, correlations, stations ranked by contribution, rejected rows).
 
 use crate::reduction::Reduction;
-use crate::render::text::{round as r, SAFETY_CAUTION};
+use crate::render::text::{au_text, round as r, SAFETY_CAUTION};
+use crate::words::count;
 use serde_json::{json, Value};
 
 fn opt(x: Option<f64>, decimals: i32) -> Value {
@@ -82,7 +83,7 @@ pub fn reduction_json(red: &Reduction) -> Value {
         "parallax_interval_95_arcsec": red.parallax_interval_95.map(|(a, b)| vec![r(a, 6), r(b, 6)]),
         "au_km": opt(red.au_km, 0),
         "au_sigma_km": opt(red.au_sigma_km, 0),
-        "au_interval_95_km": red.au_interval_95_km.map(|(a, b)| vec![r(a, 0), r(b, 0)]),
+        "au_interval_95_km": red.au_interval_95_km.map(|(a, b)| json!([r(a, 0), b.map(|b| r(b, 0))])),
         "timings_total": red.timings_total,
         "timings_used": red.timings_used,
         "rejected": rejected_json(red),
@@ -109,24 +110,21 @@ pub fn reduction_json(red: &Reduction) -> Value {
 /// The result, the chi-square and the warnings.
 fn headline_section(red: &Reduction, s: &mut String) {
     s.push_str(&format!(
-        "Reduction of {} timings of the transit of {} on {} (greatest transit {})\n\n",
-        red.timings_total,
-        red.event.planet.name(),
+        "Reduction of {} of the transit of {} on {} (greatest transit {})\n\n",
+        count(red.timings_total, "timing", "timings"),
+        red.event.planet.title(),
         red.event.date(),
         red.event.greatest_utc()
     ));
     match red.headline() {
         Some(h) => {
             let (lo, hi) = h.parallax_interval_95;
-            let (alo, ahi) = h.au_interval_95_km;
+            let clipped = if lo <= 0.0 { ", clipped at zero" } else { "" };
             s.push_str(&format!(
-                "  solar parallax      {:.4}\" +- {:.4}\"   (95 %: {lo:.4}\" to {hi:.4}\")\n",
+                "  solar parallax      {:.4}\" +- {:.4}\"   (95 %: {lo:.4}\" to {hi:.4}\"{clipped})\n",
                 h.parallax_arcsec, h.parallax_sigma_arcsec
             ));
-            s.push_str(&format!(
-                "  astronomical unit   {:.0} km +- {:.0} km   (95 %: {alo:.0} to {ahi:.0} km)\n",
-                h.au_km, h.au_sigma_km
-            ));
+            s.push_str(&format!("  astronomical unit   {}\n", au_text(&h, "+-")));
         }
         None => {
             s.push_str("  solar parallax      not determined by these timings (see the warnings)\n")
@@ -175,7 +173,35 @@ fn parameters_section(red: &Reduction, s: &mut String) {
         }
         s.push('\n');
     }
-    s.push_str("  (p1..p5 in the order of the parameters above)\n");
+    s.push_str(&format!(
+        "  (p1..p{} in the order of the parameters above)\n",
+        red.correlation.len()
+    ));
+    for note in correlation_notes(red) {
+        s.push_str(&format!("  {note}\n"));
+    }
+}
+
+/// A sentence for each pair of fitted parameters whose correlation prints as +-1.000: the
+/// timings fix their combination, not each alone. Between the planet's cross-path offset and
+/// the radius corrections this is usual (the chord's shift across the disc moves the contacts
+/// almost as the radii do) and the parallax's uncertainty allows for it; a parallax that only
+/// a combination determines is reported as not determined by the reduction itself.
+pub fn correlation_notes(red: &Reduction) -> Vec<String> {
+    let c = &red.correlation;
+    let mut notes = Vec::new();
+    for a in 0..c.len() {
+        for b in (a + 1)..c.len() {
+            let fitted = |k: usize| red.parameters.get(k).is_some_and(|p| !p.fixed);
+            if fitted(a) && fitted(b) && c[a][b].abs() >= 0.9995 {
+                notes.push(format!(
+                    "{} and {} correlate at {:+.3}: the timings fix their combination, not each alone (usual for the planet's offset and the radius corrections; the parallax's uncertainty allows for it)",
+                    red.parameters[a].name, red.parameters[b].name, c[a][b]
+                ));
+            }
+        }
+    }
+    notes
 }
 
 /// The stations ranked by their share of the information.

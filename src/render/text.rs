@@ -1,6 +1,8 @@
 //! Helpers every renderer shares: output formats, rounding for JSON, CSV quoting, and the
 //! solar-observing caution every observer-facing output carries.
 
+use crate::reduction::Headline;
+
 /// The caution printed with every output meant for observers.
 pub const SAFETY_CAUTION: &str = "CAUTION: looking at the Sun can blind. Never look at the Sun, \
 even briefly or partly covered, without a certified solar filter on the front of the telescope \
@@ -32,3 +34,33 @@ pub fn csv_field(text: &str) -> String {
         text.to_string()
     }
 }
+
+/// Decimals that show a value to about three significant digits of its uncertainty.
+pub fn decimals_for(sigma: f64) -> usize {
+    if !(sigma.is_finite() && sigma > 0.0) {
+        return 2;
+    }
+    (2.0 - sigma.log10().floor()).clamp(0.0, 6.0) as usize
+}
+
+/// The AU of a headline in millions of km, with its uncertainty and 95 % interval, e.g.
+/// `148.76 +- 1.09 million km (95 %: 146.64 to 150.94 million km)`; `pm` is the plus-minus
+/// sign to use. Full precision stays in the JSON.
+pub fn au_text(h: &Headline, pm: &str) -> String {
+    let Some(au) = h.au else {
+        return "not given: the parallax's one-sigma range reaches zero, so the timings set no upper bound on it".to_string();
+    };
+    let m = 1e-6;
+    let d = decimals_for(au.au_sigma_km * m);
+    let (lo, hi) = au.au_interval_95_km;
+    let interval = match hi {
+        Some(hi) => format!("95 %: {:.d$} to {:.d$} million km", lo * m, hi * m),
+        None => format!("95 %: from {:.d$} million km, unbounded above", lo * m),
+    };
+    format!(
+        "{:.d$} {pm} {:.d$} million km ({interval})",
+        au.au_km * m,
+        au.au_sigma_km * m
+    )
+}
+

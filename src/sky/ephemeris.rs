@@ -38,6 +38,14 @@ impl Planet {
         }
     }
 
+    /// The name as written in prose: `Mercury`, `Venus` (also the `Display` form).
+    pub fn title(self) -> &'static str {
+        match self {
+            Planet::Mercury => "Mercury",
+            Planet::Venus => "Venus",
+        }
+    }
+
     /// Mean radius in km (IAU WGCCRE, Archinal et al. 2011).
     pub fn radius_km(self) -> f64 {
         match self {
@@ -80,7 +88,7 @@ impl Planet {
 
 impl std::fmt::Display for Planet {
     fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
-        f.write_str(self.name())
+        f.write_str(self.title())
     }
 }
 

@@ -1,0 +1,15 @@
+//! English phrasing shared by every stage: counts with their nouns in the right number.
+
+/// A count with its noun in the right number: `1 timing`, `2 timings`.
+pub fn count(n: usize, one: &str, many: &str) -> String {
+    format!("{n} {}", if n == 1 { one } else { many })
+}
+
+/// `both timings` for two, `all N timings` for more.
+pub fn all_of(n: usize, noun_plural: &str) -> String {
+    if n == 2 {
+        format!("both {noun_plural}")
+    } else {
+        format!("all {n} {noun_plural}")
+    }
+}
