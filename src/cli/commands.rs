@@ -29,7 +29,9 @@ pub fn run(command: Command) -> Result<String, Error> {
 
 fn transits(a: TransitsArgs) -> Result<String, Error> {
     let planet = planet_of(&a.planet)?;
-    let events = transit_parallax::transits_in_years(planet, a.from, a.to, &a.time.model()?)?;
+    let model = a.time.model()?;
+    model.validate_for_year(a.from)?;
+    let events = transit_parallax::transits_in_years(planet, a.from, a.to, &model)?;
     Ok(match a.format.format() {
         Format::Table => prediction::transits_table(&events),
         Format::Csv => prediction::transits_csv(&events),
@@ -59,24 +61,28 @@ fn reduce_timings(a: ReduceArgs) -> Result<String, Error> {
             a.outlier_threshold
         )));
     }
+    let model = a.time.model()?;
+    if let Some((_, date)) = event {
+        model.validate_for_year(chrono::Datelike::year(&date))?;
+    }
     let options = ReduceOptions {
         event,
         prior_parallax_arcsec: a.prior_parallax.unwrap_or_else(nominal_parallax_arcsec),
-        time_model: a.time.model()?,
+        time_model: model,
         outlier_threshold: a.outlier_threshold,
         follow_convergence: a.report.is_some(),
     };
     let set = read_observations(&a.observations, a.strict)?;
     let red = reduce(set, &options)?;
-    let json = a.format.format() == Format::Json;
-    let mut text = if json {
-        pretty(&reduction::reduction_json(&red))
-    } else {
-        reduction::reduction_table(&red)
+    let format = a.format.format();
+    let mut text = match format {
+        Format::Json => pretty(&reduction::reduction_json(&red)),
+        Format::Csv => reduction::reduction_csv(&red),
+        Format::Table => reduction::reduction_table(&red),
     };
     if let Some(path) = &a.report {
         for p in document::write_report(&red, path)? {
-            if !json {
+            if format == Format::Table {
                 text.push_str(&format!("report written: {}\n", p.display()));
             }
         }
@@ -129,7 +135,13 @@ fn plan(a: PlanArgs) -> Result<String, Error> {
 }
 
 fn simulation_settings(a: &SimulateArgs) -> Result<simulation::SimulationSettings, Error> {
-    check_range("--trials", a.trials as f64, 1.0, 1_000_000.0)?;
+    if a.trials < 2 {
+        return Err(Error::argument(format!(
+            "--trials {}: give at least 2 campaigns; the scatter of the estimates needs two or more",
+            a.trials
+        )));
+    }
+    check_range("--trials", a.trials as f64, 2.0, 1_000_000.0)?;
     check_range("--sigma-s", a.sigma_s, 0.01, 3600.0)?;
     check_range("--black-drop", a.black_drop, -600.0, 600.0)?;
     for (name, p) in [
@@ -156,6 +168,7 @@ fn simulate(a: SimulateArgs) -> Result<String, Error> {
     let settings = simulation_settings(&a)?;
     let stations = read_stations(&a.network)?;
     let event = a.event.transit()?;
+    simulation::check_network(&event, &stations, &settings)?;
     let threads = a.threads.unwrap_or_else(|| {
         std::thread::available_parallelism()
             .map(|n| n.get())
@@ -171,12 +184,23 @@ fn simulate(a: SimulateArgs) -> Result<String, Error> {
         &event, &stations, &settings, a.trials, a.seed, threads, &tick,
     );
     bar.finish_and_clear();
-    let json = a.format.format() == Format::Json;
-    let mut text = if json {
-        let v = planning::simulation_json(&event, &summary, &settings, stations.len(), a.seed);
-        pretty(&v)
-    } else {
-        planning::simulation_table(&event, &summary, stations.len())
+    if summary.solved == 0 {
+        return Err(Error::argument(format!(
+            "not one of the {} simulated campaigns determined the parallax: the network cannot separate it from the planet's place and the radii; add stations far apart in latitude that see both ingress and egress, or far apart in longitude that see the same contact (see `plan`)",
+            summary.trials
+        )));
+    }
+    let format = a.format.format();
+    let mut text = match format {
+        Format::Json => pretty(&planning::simulation_json(
+            &event,
+            &summary,
+            &settings,
+            stations.len(),
+            a.seed,
+        )),
+        Format::Csv => planning::simulation_csv(&summary, a.seed),
+        Format::Table => planning::simulation_table(&event, &summary, &settings, stations.len()),
     };
     if let Some(path) = &a.histogram {
         let title = format!(
@@ -192,7 +216,7 @@ fn simulate(a: SimulateArgs) -> Result<String, Error> {
             &title,
         );
         write_file(path, &svg)?;
-        if !json {
+        if format == Format::Table {
             text.push_str(&format!("histogram written: {}\n", path.display()));
         }
     }

@@ -10,7 +10,7 @@ use crate::geometry::station::{
     normalise_longitude_deg, Station, MAX_ELEVATION_M, MIN_ELEVATION_M,
 };
 use crate::observations::csv_table::CsvTable;
-use crate::time::iso::parse_utc;
+use crate::time::iso::{parse_utc_zoned, Zone};
 use crate::time::scales::{MAX_YEAR, MIN_YEAR};
 use chrono::{Datelike, NaiveDateTime};
 use serde::Serialize;
@@ -94,6 +94,27 @@ pub struct ObservationSet {
     pub valid: Vec<Observation>,
     /// Rows rejected so far.
     pub rejected: Vec<Rejected>,
+    /// Lines whose time had no zone and was read as UTC.
+    pub lines_without_zone: Vec<u64>,
+}
+
+impl ObservationSet {
+    /// Sentences about how rows were read that the user should know (times without a zone).
+    pub fn reading_notes(&self) -> Vec<String> {
+        let l = &self.lines_without_zone;
+        if l.is_empty() {
+            return Vec::new();
+        }
+        let shown: Vec<String> = l.iter().take(8).map(|n| n.to_string()).collect();
+        let more = if l.len() > 8 { ", ..." } else { "" };
+        vec![format!(
+            "{} without a trailing Z (line{} {}{more}) {} read as UTC; write times as 2012-06-05T22:25:41.3Z, or with their offset (+08:00)",
+            crate::words::count(l.len(), "time", "times"),
+            if l.len() == 1 { "" } else { "s" },
+            shown.join(", "),
+            if l.len() == 1 { "was" } else { "were" }
+        )]
+    }
 }
 
 /// Read an observations file: columns `station,latitude,longitude,elevation_m,contact,time_utc`
@@ -132,6 +153,7 @@ pub fn observations_from_table(table: &CsvTable, strict: bool) -> Result<Observa
         rows_total: table.records.len(),
         valid: Vec::new(),
         rejected: Vec::new(),
+        lines_without_zone: Vec::new(),
     };
     // First line of each station, with its coordinates; first line of each station+contact.
     let mut first_coords: FirstCoordinates = HashMap::new();
@@ -139,7 +161,10 @@ pub fn observations_from_table(table: &CsvTable, strict: bool) -> Result<Observa
     for (line, rec) in &table.records {
         let name = table.text(rec, cols.station).to_string();
         match parse_row(table, *line, rec, &cols) {
-            Ok(obs) => {
+            Ok((obs, zone)) => {
+                if zone == Zone::Missing {
+                    set.lines_without_zone.push(*line);
+                }
                 let key = (obs.station.name.clone(), obs.contact.number());
                 if let Some(message) = moved_station(&mut first_coords, &obs, *line) {
                     let c = Some(obs.contact.number());
@@ -253,7 +278,7 @@ fn parse_row(
     line: u64,
     rec: &csv::StringRecord,
     cols: &Columns,
-) -> std::result::Result<Observation, RowError> {
+) -> std::result::Result<(Observation, Zone), RowError> {
     let name = table.text(rec, cols.station);
     if name.is_empty() {
         return Err((
@@ -285,7 +310,7 @@ fn parse_row(
         )
     })?;
     let time_text = table.text(rec, cols.time);
-    let time = parse_utc(time_text).map_err(|m| (m, Some(cols.time)))?;
+    let (time, zone) = parse_utc_zoned(time_text).map_err(|m| (m, Some(cols.time)))?;
     if !(MIN_YEAR..=MAX_YEAR).contains(&time.year()) {
         return Err((
             format!("the year {} is outside {MIN_YEAR}-{MAX_YEAR}", time.year()),
@@ -311,7 +336,7 @@ fn parse_row(
         }
         _ => (DEFAULT_SIGMA_S[contact.index()], false),
     };
-    Ok(Observation {
+    Ok((Observation {
         line,
         station: Station {
             name: name.to_string(),
@@ -323,7 +348,7 @@ fn parse_row(
         time_label: time,
         sigma_s,
         sigma_given,
-    })
+    }, zone))
 }
 
 #[cfg(test)]

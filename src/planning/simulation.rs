@@ -187,6 +187,7 @@ fn one_row_per_contact(
             rows_total: keep.len(),
             valid: keep,
             rejected: Vec::new(),
+            lines_without_zone: Vec::new(),
         },
         blunders: kept_blunders,
     }
@@ -255,7 +256,7 @@ pub fn campaign_csv(set: &ObservationSet) -> String {
 
 /// One trial's outcome: (AU km, AU sigma km, interval holds the truth) if solved; blunders
 /// injected; blunders caught; timings.
-type TrialOutcome = (Option<(f64, f64, bool)>, usize, usize, usize);
+pub type TrialOutcome = (Option<(f64, f64, bool)>, usize, usize, usize);
 
 /// Summary of a Monte Carlo series of simulated campaigns reduced with the real reduction.
 #[derive(Clone, Debug, PartialEq)]
@@ -266,14 +267,18 @@ pub struct MonteCarloSummary {
     pub solved: usize,
     /// The AU estimates, km.
     pub au_estimates_km: Vec<f64>,
-    /// Median of the stated AU uncertainties, km (the typical forecast).
-    pub au_sigma_forecast_km: f64,
-    /// Standard deviation of the AU estimates, km.
-    pub au_scatter_km: f64,
-    /// Mean AU estimate minus the true AU, km.
-    pub au_bias_km: f64,
-    /// Share of trials whose 95 % interval holds the true AU.
-    pub coverage_95: f64,
+    /// Every trial in order: (AU km, AU sigma km, interval holds the truth) where solved;
+    /// blunders injected; blunders caught; timings.
+    pub per_trial: Vec<TrialOutcome>,
+    /// Median of the stated AU uncertainties, km (the typical forecast; `None` when no trial
+    /// was solved).
+    pub au_sigma_forecast_km: Option<f64>,
+    /// Standard deviation of the AU estimates, km (`None` with fewer than two solved).
+    pub au_scatter_km: Option<f64>,
+    /// Mean AU estimate minus the true AU, km (`None` when no trial was solved).
+    pub au_bias_km: Option<f64>,
+    /// Share of solved trials whose 95 % interval holds the true AU (`None` when none was).
+    pub coverage_95: Option<f64>,
     /// Blunders injected over all trials.
     pub blunders_injected: usize,
     /// Of those, the ones rejected by the reduction.
@@ -353,22 +358,108 @@ fn summarise_trials(results: &[TrialOutcome], trials: usize, truth_km: f64) -> M
     let solved: Vec<(f64, f64, bool)> = results.iter().filter_map(|r| r.0).collect();
     let m = solved.len().max(1) as f64;
     let mean = solved.iter().map(|r| r.0).sum::<f64>() / m;
-    let scatter = if solved.len() > 1 {
-        (solved.iter().map(|r| (r.0 - mean).powi(2)).sum::<f64>() / (m - 1.0)).sqrt()
-    } else {
-        f64::NAN
-    };
+    let scatter = (solved.len() > 1)
+        .then(|| (solved.iter().map(|r| (r.0 - mean).powi(2)).sum::<f64>() / (m - 1.0)).sqrt());
+    let any = !solved.is_empty();
     let sigmas: Vec<f64> = solved.iter().map(|r| r.1).collect();
     MonteCarloSummary {
         trials,
         solved: solved.len(),
         au_estimates_km: solved.iter().map(|r| r.0).collect(),
-        au_sigma_forecast_km: crate::reduction::statistics::median(&sigmas),
+        per_trial: results.to_vec(),
+        au_sigma_forecast_km: any.then(|| crate::reduction::statistics::median(&sigmas)),
         au_scatter_km: scatter,
-        au_bias_km: mean - truth_km,
-        coverage_95: solved.iter().filter(|r| r.2).count() as f64 / m,
+        au_bias_km: any.then_some(mean - truth_km),
+        coverage_95: any.then(|| solved.iter().filter(|r| r.2).count() as f64 / m),
         blunders_injected: results.iter().map(|r| r.1).sum(),
         blunders_caught: results.iter().map(|r| r.2).sum(),
         mean_timings: results.iter().map(|r| r.3 as f64).sum::<f64>() / results.len().max(1) as f64,
+    }
+}
+
+/// Refuse a network that cannot be simulated: no station sees a contact of the event with the
+/// Sun at least `settings.min_altitude_deg` up.
+///
+/// Errors: an argument error that says why and what to change.
+pub fn check_network(
+    event: &TransitEvent,
+    stations: &[Station],
+    settings: &SimulationSettings,
+) -> crate::Result<()> {
+    let seen: usize = stations
+        .iter()
+        .map(|s| visible_contacts(event, s, settings.min_altitude_deg))
+        .sum();
+    if seen == 0 {
+        return Err(crate::Error::argument(format!(
+            "no station of the network sees any contact of the transit of {} on {} with the Sun at least {} degrees up, so there is nothing to simulate; choose stations where the Sun is up during the transit (see `plan`) or lower --min-altitude",
+            event.planet,
+            event.date(),
+            settings.min_altitude_deg
+        )));
+    }
+    Ok(())
+}
+
+impl MonteCarloSummary {
+    /// Plain sentences where the simulated campaigns depart from their own forecast, and why:
+    /// coverage of the 95 % intervals outside what chance allows (a 99 % binomial band), or a
+    /// scatter of the estimates more than 10 % and chance (a 99 % band for a standard
+    /// deviation) away from the stated uncertainty.
+    ///
+    /// Arguments: `settings` (for the likely causes); `stations`, the network's size.
+    pub fn departures(&self, settings: &SimulationSettings, stations: usize) -> Vec<String> {
+        let mut out = Vec::new();
+        if self.solved < self.trials {
+            out.push(format!(
+                "{} of the {} simulated campaigns gave no parallax (too few timings survived clouds, the Sun's altitude and rejection, or the stations could not separate the parallax from the planet's place and the radii)",
+                self.trials - self.solved,
+                self.trials
+            ));
+        }
+        let causes = likely_causes(settings, stations);
+        let n = self.solved as f64;
+        if let Some(c) = self.coverage_95.filter(|_| self.solved >= 10) {
+            let band = 2.576 * (0.95 * 0.05 / n).sqrt();
+            if (c - 0.95).abs() > band.max(0.01) {
+                out.push(format!(
+                    "the 95 % intervals held the true AU in {:.1} % of the campaigns, not 95 %: the stated uncertainties are {} here{causes}",
+                    100.0 * c,
+                    if c < 0.95 { "too small" } else { "too cautious" }
+                ));
+            }
+        }
+        if let (Some(f), Some(sc)) = (self.au_sigma_forecast_km, self.au_scatter_km) {
+            let ratio = sc / f;
+            let band = 0.10 + 2.576 / (2.0 * (n - 1.0).max(1.0)).sqrt();
+            if self.solved >= 10 && (ratio - 1.0).abs() > band {
+                out.push(format!(
+                    "the estimates scatter {ratio:.2} times the typical stated uncertainty{causes}"
+                ));
+            }
+        }
+        out
+    }
+}
+
+/// The settings that make simulated campaigns depart from their forecast, as a clause.
+fn likely_causes(settings: &SimulationSettings, stations: usize) -> String {
+    let mut c = Vec::new();
+    if settings.blunder_rate > 0.0 || settings.clock_error_rate > 0.0 {
+        c.push("blunders the reduction cannot catch (clock errors at stations with one timing, mislabelled contacts that fit another contact)");
+    }
+    if settings.weather_loss > 0.0 {
+        c.push("clouds that leave some campaigns with few stations");
+    }
+    if stations < 6 {
+        c.push("too few stations for the uncertainties of a least-squares fit to be reliable");
+    }
+    if settings.black_drop_bias_s != 0.0 {
+        c.push("the black drop, which shifts contacts II and III");
+    }
+    if c.is_empty() {
+        String::new()
+    } else {
+        format!("; likely causes: {}", c.join("; "))
     }
 }

@@ -83,6 +83,7 @@ pub fn reduce(set: ObservationSet, options: &ReduceOptions) -> Result<Reduction>
         Some((planet, date)) => transit_on_date(planet, date, &model)?,
         None => infer_event(&set.valid, &model)?,
     };
+    model.validate_for_year(chrono::Datelike::year(&event.date()))?;
     reduce_for_event(set, event, options)
 }
 
@@ -131,7 +132,9 @@ pub fn reduce_for_event(
         timings: &timings,
         rows_total: set.rows_total,
     };
-    Ok(summarise(event, &campaign, options, &screened, rejected))
+    let mut reduction = summarise(event, &campaign, options, &screened, rejected);
+    reduction.warnings.extend(set.reading_notes());
+    Ok(reduction)
 }
 
 /// What `summarise` needs of the campaign besides the event.

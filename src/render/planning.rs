@@ -3,7 +3,7 @@
 use crate::geometry::transit::TransitEvent;
 use crate::planning::simulation::{MonteCarloSummary, SimulationSettings};
 use crate::planning::sites::{GridPoint, Plan};
-use crate::render::text::{csv_field, round as r, SAFETY_CAUTION};
+use crate::render::text::{csv_field, round as r, thousands, SAFETY_CAUTION};
 use crate::words::count;
 use crate::sky::constants::AU_KM;
 use crate::time::iso::format_utc;
@@ -201,11 +201,12 @@ pub fn simulation_json(
         "seed": seed,
         "mean_timings_per_campaign": r(m.mean_timings, 2),
         "au_true_km": AU_KM,
-        "au_mean_km": r(AU_KM + m.au_bias_km, 0),
-        "au_bias_km": r(m.au_bias_km, 0),
-        "au_sigma_forecast_km": r(m.au_sigma_forecast_km, 0),
-        "au_scatter_km": r(m.au_scatter_km, 0),
-        "coverage_95": r(m.coverage_95, 4),
+        "au_mean_km": m.au_bias_km.map(|b| r(AU_KM + b, 0)),
+        "au_bias_km": m.au_bias_km.map(|b| r(b, 0)),
+        "au_sigma_forecast_km": m.au_sigma_forecast_km.map(|x| r(x, 0)),
+        "au_scatter_km": m.au_scatter_km.map(|x| r(x, 0)),
+        "coverage_95": m.coverage_95.map(|x| r(x, 4)),
+        "departures": m.departures(settings, stations),
         "blunders_injected": m.blunders_injected,
         "blunders_caught": m.blunders_caught,
         "blunders_caught_share": if m.blunders_injected > 0 { Some(r(m.blunders_caught as f64 / m.blunders_injected as f64, 4)) } else { None },
@@ -221,8 +222,13 @@ pub fn simulation_json(
     })
 }
 
-/// A readable Monte Carlo forecast.
-pub fn simulation_table(event: &TransitEvent, m: &MonteCarloSummary, stations: usize) -> String {
+/// A readable Monte Carlo forecast, with a sentence wherever the campaigns depart from it.
+pub fn simulation_table(
+    event: &TransitEvent,
+    m: &MonteCarloSummary,
+    settings: &SimulationSettings,
+    stations: usize,
+) -> String {
     let mut s = format!(
         "Monte Carlo forecast: {} of {}, transit of {} on {}\n\n",
         count(m.trials, "simulated campaign", "simulated campaigns"),
@@ -238,22 +244,29 @@ pub fn simulation_table(event: &TransitEvent, m: &MonteCarloSummary, stations: u
         "  campaigns reduced               {} of {}\n",
         m.solved, m.trials
     ));
+    let km = |x: Option<f64>, what: &str| match x {
+        Some(v) => format!("{} km", thousands(v)),
+        None => format!("not determined ({what})"),
+    };
     s.push_str(&format!(
-        "  forecast AU uncertainty         {:.0} km (median of the stated sigmas)\n",
-        m.au_sigma_forecast_km
+        "  forecast AU uncertainty         {} (median of the stated sigmas)\n",
+        km(m.au_sigma_forecast_km, "no campaign gave a parallax")
     ));
     s.push_str(&format!(
-        "  scatter of the AU estimates     {:.0} km\n",
-        m.au_scatter_km
+        "  scatter of the AU estimates     {}\n",
+        km(m.au_scatter_km, "fewer than two campaigns gave a parallax")
     ));
+    let bias = m.au_bias_km.map(|b| format!("{}{} km", if b >= 0.0 { "+" } else { "-" }, thousands(b.abs())));
     s.push_str(&format!(
-        "  bias of the mean AU             {:+.0} km\n",
-        m.au_bias_km
+        "  bias of the mean AU             {}\n",
+        bias.unwrap_or_else(|| "not determined (no campaign gave a parallax)".into())
     ));
-    s.push_str(&format!(
-        "  95 % intervals holding the AU   {:.1} %\n",
-        100.0 * m.coverage_95
-    ));
+    if let Some(c) = m.coverage_95 {
+        s.push_str(&format!(
+            "  95 % intervals holding the AU   {:.1} %\n",
+            100.0 * c
+        ));
+    }
     if m.blunders_injected > 0 {
         s.push_str(&format!(
             "  blunders caught                 {} of {} ({:.1} %)\n",
@@ -262,8 +275,35 @@ pub fn simulation_table(event: &TransitEvent, m: &MonteCarloSummary, stations: u
             100.0 * m.blunders_caught as f64 / m.blunders_injected as f64
         ));
     }
+    for d in m.departures(settings, stations) {
+        s.push_str(&format!("  note: {d}\n"));
+    }
     s.push('\n');
     s.push_str(SAFETY_CAUTION);
     s.push('\n');
+    s
+}
+
+/// CSV of a Monte Carlo series: one row per trial (trial k used seed `seed + k`).
+pub fn simulation_csv(m: &MonteCarloSummary, seed: u64) -> String {
+    let mut s = String::from(
+        "trial,seed,timings,solved,au_km,au_sigma_km,interval_holds_truth,blunders_injected,blunders_caught\n",
+    );
+    for (k, (out, injected, caught, timings)) in m.per_trial.iter().enumerate() {
+        let (solved, au, sigma, holds) = match out {
+            Some((au, sigma, holds)) => (
+                "true",
+                format!("{au:.0}"),
+                format!("{sigma:.0}"),
+                holds.to_string(),
+            ),
+            None => ("false", String::new(), String::new(), String::new()),
+        };
+        s.push_str(&format!(
+            "{},{},{timings},{solved},{au},{sigma},{holds},{injected},{caught}\n",
+            k + 1,
+            seed.wrapping_add(k as u64)
+        ));
+    }
     s
 }

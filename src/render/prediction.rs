@@ -3,7 +3,7 @@
 
 use crate::geometry::contacts::Contact;
 use crate::geometry::transit::{StationPrediction, TransitEvent};
-use crate::render::text::{csv_field, round, SAFETY_CAUTION};
+use crate::render::text::{clock_label, csv_field, round, scale_of, SAFETY_CAUTION};
 use crate::time::iso::format_utc;
 use serde_json::{json, Value};
 
@@ -86,44 +86,47 @@ pub fn transits_csv(events: &[TransitEvent]) -> String {
     s
 }
 
-/// Table for a list of transits.
+/// Table for a list of transits: each contact with its own date (month-day), since contacts
+/// of one transit can fall on two dates.
 pub fn transits_table(events: &[TransitEvent]) -> String {
     let mut s = String::new();
-    s.push_str(&format!(
-        "{:<8} {:<10} {:>12} {:>12} {:>12} {:>12} {:>12} {:>10} {:>16}\n",
-        "planet", "date", "I", "II", "greatest", "III", "IV", "least sep", "Delta T"
-    ));
-    s.push_str(&format!(
-        "{:<8} {:<10} {:>12} {:>12} {:>12} {:>12} {:>12} {:>10} {:>16}\n",
-        "", "(UTC)", "", "", "", "", "", "(arcsec)", "(s)"
-    ));
+    let row = |cells: [&str; 10]| {
+        format!(
+            "{:<8} {:<10} {:<5} {:>14} {:>14} {:>14} {:>14} {:>14} {:>10} {:>16}\n",
+            cells[0], cells[1], cells[2], cells[3], cells[4], cells[5], cells[6], cells[7],
+            cells[8], cells[9]
+        )
+    };
+    s.push_str(&row([
+        "planet", "date", "scale", "I", "II", "greatest", "III", "IV", "least sep", "Delta T",
+    ]));
+    s.push_str(&row(["", "", "", "", "", "", "", "", "(arcsec)", "(s)"]));
     for ev in events {
-        let c = |i: usize| {
-            ev.geocentric_hours[i]
-                .map(|h| format_utc(ev.label(h), 0)[11..19].to_string())
-                .unwrap_or_else(|| "-".into())
-        };
-        s.push_str(&format!(
-            "{:<8} {:<10} {:>12} {:>12} {:>12} {:>12} {:>12} {:>10.1} {:>16}\n",
-            ev.planet.name(),
-            ev.date(),
-            c(0),
-            c(1),
-            &ev.greatest_utc()[11..19],
-            c(2),
-            c(3),
-            ev.min_separation_arcsec,
-            format!(
-                "{:.1} +- {:.1}",
-                ev.elements.delta_t_s,
-                ev.delta_t_sigma_s()
-            )
-        ));
+        let when = |h: f64| format_utc(ev.label(h), 0)[5..19].replace('T', " ");
+        let c = |i: usize| ev.geocentric_hours[i].map(when).unwrap_or_else(|| "-".into());
+        let greatest = ev.greatest_utc()[5..19].replace('T', " ");
+        let date = ev.date().to_string();
+        let sep = format!("{:.1}", ev.min_separation_arcsec);
+        let dt = format!("{:.1} +- {:.1}", ev.elements.delta_t_s, ev.delta_t_sigma_s());
+        let scale = scale_of(ev.label(ev.hours_of_greatest()));
+        let (c1, c2, c3, c4) = (c(0), c(1), c(2), c(3));
+        s.push_str(&row([
+            ev.planet.title(),
+            &date,
+            scale,
+            &c1,
+            &c2,
+            &greatest,
+            &c3,
+            &c4,
+            &sep,
+            &dt,
+        ]));
     }
     if events.is_empty() {
         s.push_str("(no transit in these years)\n");
     }
-    s.push_str("Geocentric contacts; times are UTC from 1972 and UT1 before.\n");
+    s.push_str("Geocentric contacts, month-day and time; times are UTC from 1972 and UT1 (mean solar time at Greenwich) before.\n");
     s.push_str(
         "Delta T = TT - UT1 with a rough uncertainty; give --delta-t to use another value.\n",
     );
@@ -192,19 +195,42 @@ pub fn predictions_json(event: &TransitEvent, predictions: &[StationPrediction])
     Value::Array(rows)
 }
 
+/// What the uncertainty of Delta T does to the times printed, in a sentence for the header.
+pub fn delta_t_note(event: &TransitEvent) -> String {
+    use crate::time::scales::DeltaTSource;
+    let source = event.time_model().delta_t_s(event.greatest).1;
+    let text = match source {
+        DeltaTSource::Fixed => "Delta T fixed by --delta-t.".to_string(),
+        DeltaTSource::LeapSeconds => "Delta T from the leap-second table (UTC); its uncertainty hardly moves the contacts.".to_string(),
+        DeltaTSource::Polynomial => "Times are UT1, which is TT - Delta T: an error in Delta T moves every time printed by about as much.".to_string(),
+        DeltaTSource::PolynomialJoined => "After the leap-second table, times are UTC with TAI - UTC held at its last value, so they stay tied to TT: an error in Delta T moves them only through the Earth's rotation under the event (a few seconds for a minute of Delta T), while the UT1 of each contact, and any leap second still to come, would move by the whole error.".to_string(),
+    };
+    format!("{text}\n")
+}
+
 /// A readable table of station predictions, with the caution.
 pub fn predictions_table(event: &TransitEvent, predictions: &[StationPrediction]) -> String {
+    let greatest = event.label(event.hours_of_greatest());
     let mut s = format!(
-        "Transit of {} on {} (greatest transit {}, Delta T {:.1} s +- {:.1} s)\n\n",
+        "Transit of {} on {} (greatest transit {}, Delta T {:.1} s +- {:.1} s)\n",
         event.planet.title(),
         event.date(),
-        event.greatest_utc(),
+        clock_label(greatest, 2),
         event.elements.delta_t_s,
         event.delta_t_sigma_s()
     );
+    s.push_str(&delta_t_note(event));
+    s.push('\n');
     s.push_str(&format!(
-        "{:<20} {:>3} {:>24} {:>8} {:>8} {:>7} {:>7} {:>9}\n",
-        "station", "", "time (UTC)", "Sun alt", "Sun az", "PA", "vertex", "s/arcsec"
+        "{:<20} {:>3} {:>26} {:>8} {:>8} {:>7} {:>7} {:>9}\n",
+        "station",
+        "",
+        format!("time ({})", scale_of(greatest)),
+        "Sun alt",
+        "Sun az",
+        "PA",
+        "vertex",
+        "s/arcsec"
     ));
     for p in predictions {
         for c in Contact::ALL {
@@ -217,10 +243,10 @@ pub fn predictions_table(event: &TransitEvent, predictions: &[StationPrediction]
                         ""
                     };
                     s.push_str(&format!(
-                        "{:<20} {:>3} {:>24} {:>8.2} {:>8.2} {:>7.1} {:>7.1} {:>9.2}{}\n",
+                        "{:<20} {:>3} {:>26} {:>8.2} {:>8.2} {:>7.1} {:>7.1} {:>9.2}{}\n",
                         name,
                         c.roman(),
-                        format_utc(event.label(x.hours), 2),
+                        clock_label(event.label(x.hours), 2),
                         x.sun_altitude_deg,
                         x.sun_azimuth_deg,
                         x.position_angle_deg,
@@ -230,7 +256,7 @@ pub fn predictions_table(event: &TransitEvent, predictions: &[StationPrediction]
                     ));
                 }
                 None => s.push_str(&format!(
-                    "{:<20} {:>3} {:>24}\n",
+                    "{:<20} {:>3} {:>26}\n",
                     name,
                     c.roman(),
                     "no contact here"

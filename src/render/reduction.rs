@@ -2,7 +2,7 @@
 //! report (solution, parameters, correlations, stations ranked by contribution, rejected rows).
 
 use crate::reduction::Reduction;
-use crate::render::text::{au_text, round as r, SAFETY_CAUTION};
+use crate::render::text::{au_text, csv_field, round as r, SAFETY_CAUTION};
 use crate::words::count;
 use serde_json::{json, Value};
 
@@ -271,4 +271,45 @@ pub fn chi2_sentence(red: &Reduction) -> String {
         (Some(_), Some(_)) => "The scatter of the timings about the solution agrees with their stated uncertainties.".to_string(),
         _ => "With no degrees of freedom the fit cannot check the stated uncertainties.".to_string(),
     }
+}
+
+/// CSV of a reduction: one row per timing in the order of the file, with its station,
+/// contact, state (`used`, or the reason it was not used), O - C and sigma (s) and the
+/// diagnosis.
+pub fn reduction_csv(red: &Reduction) -> String {
+    let mut rows: Vec<(u64, String)> = Vec::new();
+    for u in &red.used {
+        rows.push((
+            u.line,
+            format!(
+                "{},{},{},used,,{:.2},{:.2},",
+                u.line,
+                csv_field(&u.station),
+                u.contact,
+                u.o_c_s,
+                u.sigma_s
+            ),
+        ));
+    }
+    for x in &red.rejected {
+        rows.push((
+            x.line,
+            format!(
+                "{},{},{},rejected,{},{},,{}",
+                x.line,
+                csv_field(&x.station),
+                x.contact.map(|c| c.to_string()).unwrap_or_default(),
+                x.reason.as_str(),
+                x.o_c_s.map(|v| format!("{v:.2}")).unwrap_or_default(),
+                csv_field(x.diagnosis.as_deref().unwrap_or(""))
+            ),
+        ));
+    }
+    rows.sort_by_key(|r| r.0);
+    let mut s = String::from("line,station,contact,state,reason,o_c_s,sigma_s,diagnosis\n");
+    for (_, r) in rows {
+        s.push_str(&r);
+        s.push('\n');
+    }
+    s
 }

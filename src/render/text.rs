@@ -35,6 +35,27 @@ pub fn csv_field(text: &str) -> String {
     }
 }
 
+/// A clock label for people: ISO 8601 with a trailing `Z` from 1972 (UTC), and with ` UT1`
+/// instead before 1972, when the labels are mean solar time at Greenwich (machine-readable
+/// outputs keep the `Z` of the stable interface).
+pub fn clock_label(label: chrono::NaiveDateTime, decimals: u32) -> String {
+    let text = crate::time::iso::format_utc(label, decimals);
+    if chrono::Datelike::year(&label) >= 1972 {
+        text
+    } else {
+        format!("{} UT1", text.trim_end_matches('Z'))
+    }
+}
+
+/// The scale of the labels of an event, for column headers: `UTC` or `UT1`.
+pub fn scale_of(label: chrono::NaiveDateTime) -> &'static str {
+    if chrono::Datelike::year(&label) >= 1972 {
+        "UTC"
+    } else {
+        "UT1"
+    }
+}
+
 /// Decimals that show a value to about three significant digits of its uncertainty.
 pub fn decimals_for(sigma: f64) -> usize {
     if !(sigma.is_finite() && sigma > 0.0) {
@@ -64,3 +85,42 @@ pub fn au_text(h: &Headline, pm: &str) -> String {
     )
 }
 
+
+/// A number rounded to a whole and written with thousands separators: `1,094,605`.
+pub fn thousands(x: f64) -> String {
+    let v = x.round();
+    let digits = format!("{:.0}", v.abs());
+    let mut out = String::new();
+    for (i, ch) in digits.chars().enumerate() {
+        if i > 0 && (digits.len() - i) % 3 == 0 {
+            out.push(',');
+        }
+        out.push(ch);
+    }
+    if v < 0.0 {
+        format!("-{out}")
+    } else {
+        out
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn thousands_separators() {
+        assert_eq!(thousands(1_094_605.4), "1,094,605");
+        assert_eq!(thousands(-1234.0), "-1,234");
+        assert_eq!(thousands(999.0), "999");
+        assert_eq!(thousands(0.2), "0");
+    }
+
+    #[test]
+    fn decimals_follow_the_uncertainty() {
+        assert_eq!(decimals_for(1.09), 2);
+        assert_eq!(decimals_for(0.0123), 4);
+        assert_eq!(decimals_for(250.0), 0);
+        assert_eq!(decimals_for(f64::NAN), 2);
+    }
+}

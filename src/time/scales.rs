@@ -274,6 +274,22 @@ impl TimeModel {
                 self.dut1_s
             )));
         }
+        if self.dut1_s != 0.0 && self.delta_t_override_s.is_some() {
+            return Err(Error::argument(
+                "--dut1 and --delta-t together: a fixed --delta-t already sets UT1; give one of them",
+            ));
+        }
+        Ok(())
+    }
+
+    /// Check that the settings suit an event in `year`: DUT1 belongs to the leap-second era
+    /// (1972 on), when times are UTC; before 1972 times are UT1 and DUT1 has no meaning.
+    pub fn validate_for_year(&self, year: i32) -> Result<()> {
+        if self.dut1_s != 0.0 && year < 1972 {
+            return Err(Error::argument(format!(
+                "--dut1 applies from 1972 on (UTC with leap seconds); times of {year} are UT1 already, so leave --dut1 out (give --delta-t to change TT - UT1)"
+            )));
+        }
         Ok(())
     }
 
@@ -542,5 +558,18 @@ mod tests {
         .is_err());
         assert!(TimeModel::fixed(f64::NAN).validate().is_err());
         assert!(TimeModel::fixed(67.0).validate().is_ok());
+        // Regression: --dut1 with --delta-t, or before 1972, is refused.
+        let both = TimeModel {
+            delta_t_override_s: Some(67.0),
+            dut1_s: 0.3,
+        };
+        assert!(both.validate().is_err());
+        let dut1 = TimeModel {
+            delta_t_override_s: None,
+            dut1_s: 0.3,
+        };
+        assert!(dut1.validate().is_ok());
+        assert!(dut1.validate_for_year(1882).is_err());
+        assert!(dut1.validate_for_year(2012).is_ok());
     }
 }
