@@ -133,6 +133,12 @@ fn markup_in_station_names_appears_only_escaped() {
     assert!(html.contains("&quot;quoted&quot; &amp; &#39;single&#39;"));
     let (md, charts) = markdown_report(&red, "r");
     assert!(!md.contains("<script") && !md.contains("<img"));
+    // Regression: Markdown is escaped for Markdown, not HTML: quotes stay as they are.
+    assert!(
+        !md.contains("&quot;") && !md.contains("&#39;"),
+        "HTML entities for quotes"
+    );
+    assert!(md.contains("\"quoted\" &amp; 'single'"), "quotes kept");
     for (_, svg) in charts {
         assert!(!svg.contains("<script") && !svg.contains("<img"));
     }

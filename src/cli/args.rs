@@ -169,7 +169,12 @@ pub struct PlanArgs {
     #[arg(long, value_name = "N")]
     pub choose: Option<usize>,
     /// Standard uncertainty of one timing, seconds.
-    #[arg(long = "sigma-s", value_name = "S", default_value_t = 10.0)]
+    #[arg(
+        long = "sigma-s",
+        value_name = "S",
+        default_value_t = 10.0,
+        allow_hyphen_values = true
+    )]
     pub sigma_s: f64,
     /// Least altitude of the Sun for a contact to count, degrees.
     #[arg(
@@ -208,7 +213,12 @@ pub struct SimulateArgs {
     #[arg(long, default_value_t = 200)]
     pub trials: usize,
     /// Standard uncertainty of one timing, seconds (all contacts).
-    #[arg(long = "sigma-s", value_name = "S", default_value_t = 10.0)]
+    #[arg(
+        long = "sigma-s",
+        value_name = "S",
+        default_value_t = 10.0,
+        allow_hyphen_values = true
+    )]
     pub sigma_s: f64,
     /// Seed of the random generator (the same seed gives the same result).
     #[arg(long, default_value_t = 1)]

@@ -95,6 +95,21 @@ fn plan(a: PlanArgs) -> Result<String, Error> {
     check_range("--min-altitude", a.min_altitude, -1.0, 60.0)?;
     check_range("--grid-deg", a.grid_deg, 0.1, 30.0)?;
     let stations = read_stations(&a.sites)?;
+    match a.choose {
+        Some(0) => {
+            return Err(Error::argument(
+                "--choose 0: give the number of sites to choose, at least 1",
+            ))
+        }
+        Some(k) if k > stations.len() => {
+            return Err(Error::argument(format!(
+                "--choose {k}, but {} lists {}; give at most that many",
+                a.sites.display(),
+                transit_parallax::words::count(stations.len(), "site", "sites")
+            )))
+        }
+        _ => {}
+    }
     let event = a.event.transit()?;
     let plan = sites::plan(&event, &stations, a.sigma_s, a.min_altitude, a.choose);
     let format = a.format.format();
@@ -229,8 +244,13 @@ fn demo(a: DemoArgs) -> Result<String, Error> {
 
 fn check_range(name: &str, value: f64, min: f64, max: f64) -> Result<(), Error> {
     if !value.is_finite() || value < min || value > max {
+        let must = if min > 0.0 && value <= 0.0 {
+            "must be a positive number"
+        } else {
+            "is outside the range"
+        };
         return Err(Error::argument(format!(
-            "{name} {value} is outside {min} to {max}"
+            "{name} {value} {must}; give a value from {min} to {max}"
         )));
     }
     Ok(())

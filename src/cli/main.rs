@@ -22,7 +22,11 @@ fn main() -> ExitCode {
         Ok(text) => {
             use std::io::Write;
             let mut out = std::io::stdout().lock();
-            if out.write_all(text.as_bytes()).is_err() {
+            if let Err(e) = out.write_all(text.as_bytes()).and_then(|_| out.flush()) {
+                // A closed pipe (`| head`) is the reader's choice, not a failure to report.
+                if e.kind() != std::io::ErrorKind::BrokenPipe {
+                    eprintln!("error: could not write the output: {e}");
+                }
                 return ExitCode::from(1);
             }
             ExitCode::SUCCESS

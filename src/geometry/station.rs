@@ -9,7 +9,7 @@ use std::path::Path;
 /// Lowest elevation accepted, metres (the Dead Sea shore is at about -430 m).
 pub const MIN_ELEVATION_M: f64 = -500.0;
 /// Highest elevation accepted, metres.
-pub const MAX_ELEVATION_M: f64 = 9000.0;
+pub const MAX_ELEVATION_M: f64 = 15_000.0;
 
 /// An observing station.
 #[derive(Clone, Debug, PartialEq, Serialize)]

@@ -61,9 +61,6 @@ impl CsvTable {
         for rec in reader.records() {
             let rec = rec.map_err(|e| csv_error(path, &e))?;
             let line = rec.position().map(|p| line_of(p.byte())).unwrap_or(0);
-            if rec.iter().all(|f| f.is_empty()) {
-                continue;
-            }
             records.push((line, rec));
         }
         Ok(CsvTable {
@@ -127,7 +124,7 @@ impl CsvTable {
             message: if text.is_empty() {
                 format!("'{name}' is empty")
             } else {
-                format!("'{text}' is not a number")
+                format!("{name} '{text}' is not a number")
             },
             hint: format!("give {name} as a decimal number in {unit}"),
         })?;
@@ -135,7 +132,7 @@ impl CsvTable {
             return Err(Error::Input {
                 location: self.location(line, Some(col)),
                 message: format!("{name} {text} is outside {min} to {max} {unit}"),
-                hint: format!("check the value; {name} must lie between {min} and {max} {unit}"),
+                hint: "check the value (a sign, a digit or the decimal point may be wrong)".into(),
             });
         }
         Ok(value)
@@ -156,9 +153,11 @@ fn decode_text<'a>(path: &Path, bytes: &'a [u8]) -> Result<std::borrow::Cow<'a, 
                 location: Location {
                     file: path.to_path_buf(),
                     line,
-                    column: Some((col, "byte".into())),
+                    column: None,
                 },
-                message: "the file is not valid UTF-8 text".into(),
+                message: format!(
+                    "the file is not UTF-8 text: byte {col} of this line is not valid UTF-8 (the file was probably saved in another encoding)"
+                ),
                 hint: "save it as UTF-8 (plain text CSV)".into(),
             });
         }

@@ -96,6 +96,8 @@ pub struct ObservationSet {
     pub rejected: Vec<Rejected>,
     /// Lines whose time had no zone and was read as UTC.
     pub lines_without_zone: Vec<u64>,
+    /// Other sentences about how rows were read (elevations that differ a little).
+    pub notes: Vec<String>,
 }
 
 impl ObservationSet {
@@ -103,7 +105,7 @@ impl ObservationSet {
     pub fn reading_notes(&self) -> Vec<String> {
         let l = &self.lines_without_zone;
         if l.is_empty() {
-            return Vec::new();
+            return self.notes.clone();
         }
         let shown: Vec<String> = l.iter().take(8).map(|n| n.to_string()).collect();
         let more = if l.len() > 8 { ", ..." } else { "" };
@@ -114,6 +116,9 @@ impl ObservationSet {
             shown.join(", "),
             if l.len() == 1 { "was" } else { "were" }
         )]
+        .into_iter()
+        .chain(self.notes.iter().cloned())
+        .collect()
     }
 }
 
@@ -154,6 +159,7 @@ pub fn observations_from_table(table: &CsvTable, strict: bool) -> Result<Observa
         valid: Vec::new(),
         rejected: Vec::new(),
         lines_without_zone: Vec::new(),
+        notes: Vec::new(),
     };
     // First line of each station, with its coordinates; first line of each station+contact.
     let mut first_coords: FirstCoordinates = HashMap::new();
@@ -161,12 +167,13 @@ pub fn observations_from_table(table: &CsvTable, strict: bool) -> Result<Observa
     for (line, rec) in &table.records {
         let name = table.text(rec, cols.station).to_string();
         match parse_row(table, *line, rec, &cols) {
-            Ok((obs, zone)) => {
+            Ok((mut obs, zone)) => {
                 if zone == Zone::Missing {
                     set.lines_without_zone.push(*line);
                 }
                 let key = (obs.station.name.clone(), obs.contact.number());
-                if let Some(message) = moved_station(&mut first_coords, &obs, *line) {
+                let notes = &mut set.notes;
+                if let Some(message) = moved_station(&mut first_coords, &mut obs, *line, notes) {
                     let c = Some(obs.contact.number());
                     let col = Some(cols.station);
                     reject_or_fail(table, &mut set, *line, &name, c, message, col, strict)?;
@@ -193,10 +200,20 @@ pub fn observations_from_table(table: &CsvTable, strict: bool) -> Result<Observa
 /// First line of each station, with its latitude, longitude and elevation.
 type FirstCoordinates = HashMap<String, (u64, f64, f64, f64)>;
 
+/// Elevations of one station that differ by up to this much (metres) are taken as the same
+/// place, with a note: a GPS and a map rarely agree better.
+pub const ELEVATION_TOLERANCE_M: f64 = 50.0;
+
 /// If the station was given before with other coordinates, the sentence that says so;
-/// otherwise remember its coordinates.
-fn moved_station(first: &mut FirstCoordinates, obs: &Observation, line: u64) -> Option<String> {
-    let st = &obs.station;
+/// otherwise remember its coordinates. An elevation within [`ELEVATION_TOLERANCE_M`] of the
+/// first is accepted with a note (the first is used).
+fn moved_station(
+    first: &mut FirstCoordinates,
+    obs: &mut Observation,
+    line: u64,
+    notes: &mut Vec<String>,
+) -> Option<String> {
+    let st = obs.station.clone();
     let coords = (st.latitude_deg, st.longitude_deg, st.elevation_m);
     let Some(&(l0, la, lo, el)) = first.get(&st.name) else {
         first.insert(st.name.clone(), (line, coords.0, coords.1, coords.2));
@@ -204,7 +221,14 @@ fn moved_station(first: &mut FirstCoordinates, obs: &Observation, line: u64) -> 
     };
     let moved = (la - coords.0).abs() > 1e-4
         || normalise_longitude_deg(lo - coords.1).abs() > 1e-4
-        || (el - coords.2).abs() > 1.0;
+        || (el - coords.2).abs() > ELEVATION_TOLERANCE_M;
+    if !moved && (el - coords.2).abs() > 1.0 {
+        notes.push(format!(
+            "station '{}' is at {el} m on line {l0} and {} m on line {line}; the first elevation is used",
+            st.name, coords.2
+        ));
+        obs.station.elevation_m = el;
+    }
     moved.then(|| {
         format!(
             "station '{}' was given on line {l0} at {la}, {lo}, {el} m but here at {}, {}, {} m; give each station one set of coordinates (or a different name)",
@@ -279,6 +303,12 @@ fn parse_row(
     rec: &csv::StringRecord,
     cols: &Columns,
 ) -> std::result::Result<(Observation, Zone), RowError> {
+    if rec.iter().all(|f| f.trim().is_empty()) {
+        return Err((
+            "every field of the row is empty; delete the row or fill it in".into(),
+            None,
+        ));
+    }
     let name = table.text(rec, cols.station);
     if name.is_empty() {
         return Err((
@@ -336,19 +366,22 @@ fn parse_row(
         }
         _ => (DEFAULT_SIGMA_S[contact.index()], false),
     };
-    Ok((Observation {
-        line,
-        station: Station {
-            name: name.to_string(),
-            latitude_deg: lat,
-            longitude_deg: normalise_longitude_deg(lon),
-            elevation_m: elev,
+    Ok((
+        Observation {
+            line,
+            station: Station {
+                name: name.to_string(),
+                latitude_deg: lat,
+                longitude_deg: normalise_longitude_deg(lon),
+                elevation_m: elev,
+            },
+            contact,
+            time_label: time,
+            sigma_s,
+            sigma_given,
         },
-        contact,
-        time_label: time,
-        sigma_s,
-        sigma_given,
-    }, zone))
+        zone,
+    ))
 }
 
 #[cfg(test)]

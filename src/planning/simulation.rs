@@ -188,6 +188,7 @@ fn one_row_per_contact(
             valid: keep,
             rejected: Vec::new(),
             lines_without_zone: Vec::new(),
+            notes: Vec::new(),
         },
         blunders: kept_blunders,
     }

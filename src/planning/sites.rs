@@ -166,8 +166,10 @@ pub fn plan(
     if let Some(k) = choose {
         let mut n = Info::zeros();
         for _ in 0..k.min(sites.len()) {
+            // A site that sees no contact with the Sun up adds nothing: it is never chosen.
             let best = (0..sites.len())
                 .filter(|i| !chosen.contains(i))
+                .filter(|&i| sites[i].contacts.iter().any(|c| c.visible))
                 .map(|i| {
                     let trial = n + information(&sites, &[i], sigma_s);
                     let score = forecast_sigma(&trial)
@@ -185,7 +187,13 @@ pub fn plan(
     } else {
         forecast_sigma(&information(&sites, &chosen, sigma_s))
     };
-    let reasons = explain_choice(&sites, &chosen, chosen_sigma);
+    let mut reasons = explain_choice(&sites, &chosen, chosen_sigma);
+    if let Some(k) = choose.filter(|&k| k > chosen.len()) {
+        reasons.push(format!(
+            "only {} of the {k} sites asked for were chosen: the other sites see no contact with the Sun at least {min_altitude_deg} degrees up and would add nothing",
+            chosen.len()
+        ));
+    }
     Plan {
         sites,
         all_sites_sigma_arcsec: all_sigma,

@@ -121,7 +121,9 @@ pub fn hold_fixed_what_cannot_be_separated<'a>(
 ) -> Separation<'a> {
     let mut out = Separation::default();
     while let Some(v) = confounded(normal, free) {
-        let involved: Vec<usize> = (0..v.len()).filter(|&j| free[j] && v[j].abs() > 0.05).collect();
+        let involved: Vec<usize> = (0..v.len())
+            .filter(|&j| free[j] && v[j].abs() > 0.05)
+            .collect();
         for &j in &involved {
             if !out.confused.contains(&names[j]) {
                 out.confused.push(names[j]);
@@ -277,7 +279,9 @@ mod tests {
         assert!((v - 1.0).abs() < 1e-12);
         assert!(parallax_inseparable(&n, &[true, true], &["p", "a"], 0).is_none());
         // Nearly collinear columns (correlation 0.99999) inflate it beyond the limit.
-        let j = DMatrix::from_fn(3, 2, |i, k| 1.0 + i as f64 + if k == 1 && i == 2 { 0.01 } else { 0.0 });
+        let j = DMatrix::from_fn(3, 2, |i, k| {
+            1.0 + i as f64 + if k == 1 && i == 2 { 0.01 } else { 0.0 }
+        });
         let n = normal_of(&j);
         assert!(variance_inflation(&n, &[true, true], 0).unwrap() > MAX_PARALLAX_INFLATION);
         let why = parallax_inseparable(&n, &[true, true], &["p", "a"], 0).unwrap();

@@ -227,7 +227,10 @@ pub const AU_UNBOUNDED: &str = "the parallax's one-sigma range reaches zero, so 
 /// pi - sigma reaches zero; nothing when the sigma is not a positive number.
 fn headline_into(red: &mut Reduction, coverage_factor_95: f64) {
     let pi = red.parameters[PARALLAX].value;
-    let Some(s) = red.parameters[PARALLAX].sigma.filter(|s| s.is_finite() && *s > 0.0) else {
+    let Some(s) = red.parameters[PARALLAX]
+        .sigma
+        .filter(|s| s.is_finite() && *s > 0.0)
+    else {
         red.warnings.push("the fit gave no positive uncertainty for the parallax; it is not determined and no result is given".into());
         return;
     };

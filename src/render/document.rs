@@ -179,8 +179,27 @@ fn html_table(headers: &[&str], rows: &[Vec<String>]) -> String {
     s
 }
 
+/// Escape text for Markdown (CommonMark): a backslash before every character that could
+/// start emphasis, code, a link or a table cell, entities for `&`, `<` and `>` (so nothing
+/// can be read as raw HTML); line breaks and control characters become spaces. Quotes and apostrophes stay as they are (regression: they used to be HTML
+/// entities).
 fn md_cell(text: &str) -> String {
-    esc(text).replace('|', "\\|").replace('\n', " ")
+    let mut s = String::with_capacity(text.len());
+    for ch in text.chars() {
+        match ch {
+            '\\' | '`' | '*' | '_' | '{' | '}' | '[' | ']' | '#' | '|' | '~' | '!' => {
+                s.push('\\');
+                s.push(ch);
+            }
+            // Entities, not backslashes, for markup: no renderer can take them for HTML.
+            '&' => s.push_str("&amp;"),
+            '<' => s.push_str("&lt;"),
+            '>' => s.push_str("&gt;"),
+            c if c.is_control() => s.push(' '),
+            c => s.push(c),
+        }
+    }
+    s
 }
 
 fn md_table(headers: &[&str], rows: &[Vec<String>]) -> String {

@@ -4,9 +4,9 @@ use crate::geometry::transit::TransitEvent;
 use crate::planning::simulation::{MonteCarloSummary, SimulationSettings};
 use crate::planning::sites::{GridPoint, Plan};
 use crate::render::text::{csv_field, round as r, thousands, SAFETY_CAUTION};
-use crate::words::count;
 use crate::sky::constants::AU_KM;
 use crate::time::iso::format_utc;
+use crate::words::count;
 use serde_json::{json, Value};
 
 /// The columns of `plan` CSV output, in order.
@@ -256,7 +256,13 @@ pub fn simulation_table(
         "  scatter of the AU estimates     {}\n",
         km(m.au_scatter_km, "fewer than two campaigns gave a parallax")
     ));
-    let bias = m.au_bias_km.map(|b| format!("{}{} km", if b >= 0.0 { "+" } else { "-" }, thousands(b.abs())));
+    let bias = m.au_bias_km.map(|b| {
+        format!(
+            "{}{} km",
+            if b >= 0.0 { "+" } else { "-" },
+            thousands(b.abs())
+        )
+    });
     s.push_str(&format!(
         "  bias of the mean AU             {}\n",
         bias.unwrap_or_else(|| "not determined (no campaign gave a parallax)".into())

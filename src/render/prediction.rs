@@ -93,21 +93,46 @@ pub fn transits_table(events: &[TransitEvent]) -> String {
     let row = |cells: [&str; 10]| {
         format!(
             "{:<8} {:<10} {:<5} {:>14} {:>14} {:>14} {:>14} {:>14} {:>10} {:>16}\n",
-            cells[0], cells[1], cells[2], cells[3], cells[4], cells[5], cells[6], cells[7],
-            cells[8], cells[9]
+            cells[0],
+            cells[1],
+            cells[2],
+            cells[3],
+            cells[4],
+            cells[5],
+            cells[6],
+            cells[7],
+            cells[8],
+            cells[9]
         )
     };
     s.push_str(&row([
-        "planet", "date", "scale", "I", "II", "greatest", "III", "IV", "least sep", "Delta T",
+        "planet",
+        "date",
+        "scale",
+        "I",
+        "II",
+        "greatest",
+        "III",
+        "IV",
+        "least sep",
+        "Delta T",
     ]));
     s.push_str(&row(["", "", "", "", "", "", "", "", "(arcsec)", "(s)"]));
     for ev in events {
         let when = |h: f64| format_utc(ev.label(h), 0)[5..19].replace('T', " ");
-        let c = |i: usize| ev.geocentric_hours[i].map(when).unwrap_or_else(|| "-".into());
+        let c = |i: usize| {
+            ev.geocentric_hours[i]
+                .map(when)
+                .unwrap_or_else(|| "-".into())
+        };
         let greatest = ev.greatest_utc()[5..19].replace('T', " ");
         let date = ev.date().to_string();
         let sep = format!("{:.1}", ev.min_separation_arcsec);
-        let dt = format!("{:.1} +- {:.1}", ev.elements.delta_t_s, ev.delta_t_sigma_s());
+        let dt = format!(
+            "{:.1} +- {:.1}",
+            ev.elements.delta_t_s,
+            ev.delta_t_sigma_s()
+        );
         let scale = scale_of(ev.label(ev.hours_of_greatest()));
         let (c1, c2, c3, c4) = (c(0), c(1), c(2), c(3));
         s.push_str(&row([

@@ -85,7 +85,6 @@ pub fn au_text(h: &Headline, pm: &str) -> String {
     )
 }
 
-
 /// A number rounded to a whole and written with thousands separators: `1,094,605`.
 pub fn thousands(x: f64) -> String {
     let v = x.round();

@@ -33,12 +33,18 @@ fn split_zone(text: &str) -> std::result::Result<(&str, Zone), String> {
     let (body, offset) = text.split_at(pos);
     let sign = if offset.starts_with('-') { -1 } else { 1 };
     let digits: String = offset[1..].chars().filter(|c| *c != ':').collect();
-    let bad = || format!("'{text}' has a time-zone offset that is not +HH:MM; give the time in UTC with a trailing Z, e.g. 2012-06-05T22:25:41.3Z");
+    let bad = || {
+        format!("'{text}' has a time-zone offset that is not +HH:MM; give the time in UTC with a trailing Z, e.g. 2012-06-05T22:25:41.3Z")
+    };
     if !(digits.len() == 2 || digits.len() == 4) || !digits.chars().all(|c| c.is_ascii_digit()) {
         return Err(bad());
     }
     let hours: i32 = digits[..2].parse().map_err(|_| bad())?;
-    let minutes: i32 = if digits.len() == 4 { digits[2..].parse().map_err(|_| bad())? } else { 0 };
+    let minutes: i32 = if digits.len() == 4 {
+        digits[2..].parse().map_err(|_| bad())?
+    } else {
+        0
+    };
     if hours > 14 || minutes > 59 {
         return Err(bad());
     }
@@ -49,9 +55,10 @@ fn split_zone(text: &str) -> std::result::Result<(&str, Zone), String> {
 /// before each change of TAI - UTC from 1972 July 1 on).
 fn leap_second_day(date: NaiveDate) -> bool {
     let next = date.succ_opt();
-    crate::time::scales::LEAP_SECONDS.iter().skip(1).any(|&(y, m, d, _)| {
-        next == NaiveDate::from_ymd_opt(y, m, d)
-    })
+    crate::time::scales::LEAP_SECONDS
+        .iter()
+        .skip(1)
+        .any(|&(y, m, d, _)| next == NaiveDate::from_ymd_opt(y, m, d))
 }
 
 /// Parse an ISO 8601 time, `YYYY-MM-DDTHH:MM:SS[.fff]` with a zone: `Z` (UTC), an offset
@@ -129,8 +136,14 @@ mod tests {
         assert!(parse_utc("2012-06-05T22:25:41.3").is_ok());
         assert!(parse_utc("2012-06-05 22:25:41Z").is_ok());
         // Offsets are converted to UTC (regression: they used to be refused).
-        assert_eq!(label("2012-06-06T06:25:41+08:00"), label("2012-06-05T22:25:41Z"));
-        assert_eq!(label("2012-06-05T20:55:41-01:30"), label("2012-06-05T22:25:41Z"));
+        assert_eq!(
+            label("2012-06-06T06:25:41+08:00"),
+            label("2012-06-05T22:25:41Z")
+        );
+        assert_eq!(
+            label("2012-06-05T20:55:41-01:30"),
+            label("2012-06-05T22:25:41Z")
+        );
         assert_eq!(
             parse_utc_zoned("2012-06-05T22:25:41").unwrap().1,
             Zone::Missing
