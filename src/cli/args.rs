@@ -78,17 +78,53 @@ impl EventArgs {
 #[derive(Subcommand)]
 pub enum Command {
     /// List every transit of a planet in a span of years, with geocentric contacts.
+    #[command(
+        after_help = "Examples:\n  transit-parallax transits --planet venus --from 1600 --to 2300\n  transit-parallax transits --planet mercury --from 2030 --to 2060 --format csv"
+    )]
     Transits(TransitsArgs),
     /// Predict contacts I-IV for each station of a file.
+    #[command(
+        after_help = "Examples:\n  transit-parallax predict --planet mercury --date 2032-11-13 --stations stations.csv\n  transit-parallax predict --planet venus --date 2117-12-11 --stations stations.csv --format csv"
+    )]
     Predict(PredictArgs),
     /// Reduce contact timings to the solar parallax and the astronomical unit.
+    #[command(
+        after_help = "Examples:\n  transit-parallax reduce timings.csv\n  transit-parallax reduce timings.csv --planet venus --date 2012-06-06 --report report.html"
+    )]
     Reduce(ReduceArgs),
     /// Rank candidate sites, choose a network and forecast the precision; map a contact's sensitivity.
+    #[command(
+        after_help = "Examples:\n  transit-parallax plan --planet venus --date 2117-12-11 --sites sites.csv --choose 8\n  transit-parallax plan --planet venus --date 2117-12-11 --sites sites.csv --contact 2 --map contact2.svg"
+    )]
     Plan(PlanArgs),
     /// Monte Carlo campaigns through the real reduction: how precise will the AU come out?
+    #[command(
+        after_help = "Examples:\n  transit-parallax simulate --planet venus --date 2117-12-11 --network network.csv --trials 1000\n  transit-parallax simulate --planet venus --date 2117-12-11 --network network.csv --trials 500 --weather-loss 0.2 --blunder-rate 0.03"
+    )]
     Simulate(SimulateArgs),
     /// Run the main job on an embedded, invented campaign and write its HTML report.
+    #[command(
+        after_help = "Examples:\n  transit-parallax demo\n  transit-parallax demo --report /tmp/demo.html"
+    )]
     Demo(DemoArgs),
+    /// Print a shell completion script (bash, zsh, fish, elvish or powershell).
+    #[command(
+        after_help = "Examples:\n  transit-parallax completions bash > /etc/bash_completion.d/transit-parallax\n  transit-parallax completions zsh > ~/.zfunc/_transit-parallax"
+    )]
+    Completions(CompletionsArgs),
+    /// Print the manual page (roff) of the command and its subcommands.
+    #[command(
+        after_help = "Examples:\n  transit-parallax manual > transit-parallax.1\n  transit-parallax manual | man -l -"
+    )]
+    Manual,
+}
+
+// Arguments of `completions`.
+#[derive(clap::Args)]
+pub struct CompletionsArgs {
+    /// The shell.
+    #[arg(value_enum)]
+    pub shell: clap_complete::Shell,
 }
 
 // Arguments of `transits`.

@@ -3,7 +3,7 @@
 
 use crate::args::{date_of, planet_of};
 use crate::args::{
-    Command, DemoArgs, PlanArgs, PredictArgs, ReduceArgs, SimulateArgs, TransitsArgs,
+    Cli, Command, DemoArgs, PlanArgs, PredictArgs, ReduceArgs, SimulateArgs, TransitsArgs,
 };
 use std::path::Path;
 use transit_parallax::geometry::station::read_stations;
@@ -24,7 +24,34 @@ pub fn run(command: Command) -> Result<String, Error> {
         Command::Plan(a) => plan(a),
         Command::Simulate(a) => simulate(a),
         Command::Demo(a) => demo(a),
+        Command::Completions(a) => completions(a.shell),
+        Command::Manual => manual(),
     }
+}
+
+fn completions(shell: clap_complete::Shell) -> Result<String, Error> {
+    use clap::CommandFactory;
+    let mut out = Vec::new();
+    clap_complete::generate(shell, &mut Cli::command(), "transit-parallax", &mut out);
+    String::from_utf8(out).map_err(|e| Error::Numerical(format!("completion script: {e}")))
+}
+
+fn manual() -> Result<String, Error> {
+    use clap::CommandFactory;
+    let command = Cli::command();
+    let mut out = Vec::new();
+    let io = |e: std::io::Error| Error::Numerical(format!("manual page: {e}"));
+    clap_mangen::Man::new(command.clone())
+        .render(&mut out)
+        .map_err(io)?;
+    for sub in command.get_subcommands() {
+        let name = format!("transit-parallax-{}", sub.get_name());
+        // clap wants a static name; the process ends as soon as the page is printed.
+        let sub = sub.clone().name(Box::leak(name.into_boxed_str()) as &str);
+        out.extend_from_slice(b"\n");
+        clap_mangen::Man::new(sub).render(&mut out).map_err(io)?;
+    }
+    String::from_utf8(out).map_err(|e| Error::Numerical(format!("manual page: {e}")))
 }
 
 fn transits(a: TransitsArgs) -> Result<String, Error> {

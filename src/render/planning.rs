@@ -3,7 +3,9 @@
 use crate::geometry::transit::TransitEvent;
 use crate::planning::simulation::{MonteCarloSummary, SimulationSettings};
 use crate::planning::sites::{GridPoint, Plan};
-use crate::render::text::{csv_field, round as r, thousands, SAFETY_CAUTION};
+use crate::render::text::{
+    clock_label, csv_field, name_cell, round as r, scale_of, thousands, SAFETY_CAUTION,
+};
 use crate::sky::constants::AU_KM;
 use crate::time::iso::format_utc;
 use crate::words::count;
@@ -89,19 +91,27 @@ pub fn plan_table(event: &TransitEvent, plan: &Plan, min_altitude_deg: f64) -> S
         min_altitude_deg
     );
     s.push_str(&format!(
-        "{:<24} {:>3} {:>24} {:>8} {:>9} {:>8}\n",
-        "site", "", "time (UTC)", "Sun alt", "s/arcsec", "gain %"
+        "{}  {:>3} {:>26} {:>8} {:>9} {:>8}\n",
+        name_cell("site"),
+        "",
+        format!(
+            "time ({})",
+            scale_of(event.label(event.hours_of_greatest()))
+        ),
+        "Sun alt",
+        "s/arcsec",
+        "gain %"
     ));
     for (i, site) in plan.sites.iter().enumerate() {
-        let name: String = site.station.name.chars().take(23).collect();
+        let name = name_cell(&site.station.name);
         let mark = if plan.chosen.contains(&i) { "*" } else { " " };
         for (k, c) in site.contacts.iter().enumerate() {
             s.push_str(&format!(
-                "{:<23}{} {:>3} {:>24} {:>8.1} {:>9.2} {:>8}{}\n",
-                if k == 0 { name.clone() } else { String::new() },
+                "{}{} {:>3} {:>26} {:>8.1} {:>9.2} {:>8}{}\n",
+                if k == 0 { name.clone() } else { name_cell("") },
                 if k == 0 { mark } else { " " },
                 c.contact.roman(),
-                format_utc(event.label(c.hours), 1),
+                clock_label(event.label(c.hours), 1),
                 c.sun_altitude_deg,
                 c.sensitivity_s_per_arcsec,
                 if k == 0 {

@@ -3,7 +3,7 @@
 
 use crate::geometry::contacts::Contact;
 use crate::geometry::transit::{StationPrediction, TransitEvent};
-use crate::render::text::{clock_label, csv_field, round, scale_of, SAFETY_CAUTION};
+use crate::render::text::{clock_label, csv_field, name_cell, round, scale_of, SAFETY_CAUTION};
 use crate::time::iso::format_utc;
 use serde_json::{json, Value};
 
@@ -247,8 +247,8 @@ pub fn predictions_table(event: &TransitEvent, predictions: &[StationPrediction]
     s.push_str(&delta_t_note(event));
     s.push('\n');
     s.push_str(&format!(
-        "{:<20} {:>3} {:>26} {:>8} {:>8} {:>7} {:>7} {:>9}\n",
-        "station",
+        "{} {:>3} {:>26} {:>8} {:>8} {:>7} {:>7} {:>9}\n",
+        name_cell("station"),
         "",
         format!("time ({})", scale_of(greatest)),
         "Sun alt",
@@ -259,7 +259,7 @@ pub fn predictions_table(event: &TransitEvent, predictions: &[StationPrediction]
     ));
     for p in predictions {
         for c in Contact::ALL {
-            let name: String = p.station.name.chars().take(20).collect();
+            let name = name_cell(&p.station.name);
             match p.contacts[c.index()] {
                 Some(x) => {
                     let below = if x.sun_altitude_deg < -1.0 {
@@ -268,7 +268,7 @@ pub fn predictions_table(event: &TransitEvent, predictions: &[StationPrediction]
                         ""
                     };
                     s.push_str(&format!(
-                        "{:<20} {:>3} {:>26} {:>8.2} {:>8.2} {:>7.1} {:>7.1} {:>9.2}{}\n",
+                        "{} {:>3} {:>26} {:>8.2} {:>8.2} {:>7.1} {:>7.1} {:>9.2}{}\n",
                         name,
                         c.roman(),
                         clock_label(event.label(x.hours), 2),
@@ -281,7 +281,7 @@ pub fn predictions_table(event: &TransitEvent, predictions: &[StationPrediction]
                     ));
                 }
                 None => s.push_str(&format!(
-                    "{:<20} {:>3} {:>26}\n",
+                    "{} {:>3} {:>26}\n",
                     name,
                     c.roman(),
                     "no contact here"

@@ -2,7 +2,7 @@
 //! report (solution, parameters, correlations, stations ranked by contribution, rejected rows).
 
 use crate::reduction::Reduction;
-use crate::render::text::{au_text, csv_field, round as r, SAFETY_CAUTION};
+use crate::render::text::{au_text, csv_field, name_cell, round as r, SAFETY_CAUTION};
 use crate::words::count;
 use serde_json::{json, Value};
 
@@ -190,13 +190,13 @@ fn parameters_section(red: &Reduction, s: &mut String) {
 pub fn correlation_notes(red: &Reduction) -> Vec<String> {
     let c = &red.correlation;
     let mut notes = Vec::new();
-    for a in 0..c.len() {
-        for b in (a + 1)..c.len() {
-            let fitted = |k: usize| red.parameters.get(k).is_some_and(|p| !p.fixed);
-            if fitted(a) && fitted(b) && c[a][b].abs() >= 0.9995 {
+    let fitted = |k: usize| red.parameters.get(k).is_some_and(|p| !p.fixed);
+    for (a, row) in c.iter().enumerate() {
+        for (b, &r) in row.iter().enumerate().skip(a + 1) {
+            if fitted(a) && fitted(b) && r.abs() >= 0.9995 {
                 notes.push(format!(
-                    "{} and {} correlate at {:+.3}: the timings fix their combination, not each alone (usual for the planet's offset and the radius corrections; the parallax's uncertainty allows for it)",
-                    red.parameters[a].name, red.parameters[b].name, c[a][b]
+                    "{} and {} correlate at {r:+.3}: the timings fix their combination, not each alone (usual for the planet's offset and the radius corrections; the parallax's uncertainty allows for it)",
+                    red.parameters[a].name, red.parameters[b].name
                 ));
             }
         }
@@ -208,11 +208,16 @@ pub fn correlation_notes(red: &Reduction) -> Vec<String> {
 fn stations_section(red: &Reduction, s: &mut String) {
     s.push_str("\nStations by share of the information on the parallax\n");
     s.push_str(&format!(
-        "  {:<24} {:>4} {:>8} {:>12} {:>10}  {}\n",
-        "station", "n", "share", "influence\"", "mean z", "O-C (s) by contact"
+        "  {} {:>4} {:>8} {:>12} {:>10}  {}\n",
+        name_cell("station"),
+        "n",
+        "share",
+        "influence\"",
+        "mean z",
+        "O-C (s) by contact"
     ));
     for st in &red.stations {
-        let name: String = st.station.chars().take(24).collect();
+        let name = name_cell(&st.station);
         let oc: Vec<String> = st
             .contacts
             .iter()
@@ -220,7 +225,7 @@ fn stations_section(red: &Reduction, s: &mut String) {
             .map(|(c, r)| format!("{}:{:+.1}", c, r))
             .collect();
         s.push_str(&format!(
-            "  {:<24} {:>4} {:>8.4} {:>12} {:>10.2}  {}\n",
+            "  {} {:>4} {:>8.4} {:>12} {:>10.2}  {}\n",
             name,
             st.timings,
             st.information_share,
@@ -243,9 +248,9 @@ pub fn reduction_table(red: &Reduction) -> String {
         s.push_str("\nRows not used\n");
         for x in &red.rejected {
             s.push_str(&format!(
-                "  line {:>5}  {:<20} contact {:<2} {:<11} {}\n",
+                "  line {:>5}  {} contact {:<2} {:<11} {}\n",
                 x.line,
-                x.station.chars().take(20).collect::<String>(),
+                name_cell(&x.station),
                 x.contact
                     .map(|c| c.to_string())
                     .unwrap_or_else(|| "-".into()),

@@ -103,9 +103,53 @@ pub fn thousands(x: f64) -> String {
     }
 }
 
+/// Width of the station-name column of every table, in display columns.
+pub const NAME_COLUMNS: usize = 24;
+
+/// A station name fitted to [`NAME_COLUMNS`] display columns (wide characters count two):
+/// cut with an ellipsis when longer, padded with spaces when shorter.
+pub fn name_cell(name: &str) -> String {
+    use unicode_width::UnicodeWidthChar;
+    let width = unicode_width::UnicodeWidthStr::width(name);
+    let mut out = String::new();
+    let mut used = 0;
+    if width <= NAME_COLUMNS {
+        out.push_str(name);
+        used = width;
+    } else {
+        for ch in name.chars() {
+            let w = ch.width().unwrap_or(0);
+            if used + w > NAME_COLUMNS - 1 {
+                break;
+            }
+            out.push(ch);
+            used += w;
+        }
+        out.push('…');
+        used += 1;
+    }
+    out.push_str(&" ".repeat(NAME_COLUMNS.saturating_sub(used)));
+    out
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn names_fill_the_same_display_width() {
+        use unicode_width::UnicodeWidthStr;
+        for name in [
+            "Kestrel",
+            "天文台北极星观测站天文台北极星",
+            "A very long station name indeed, far too long",
+            "",
+        ] {
+            assert_eq!(name_cell(name).width(), NAME_COLUMNS, "{name}");
+        }
+        assert!(name_cell("A very long station name indeed").ends_with('…'));
+        assert_eq!(name_cell("Kestrel").trim_end(), "Kestrel");
+    }
 
     #[test]
     fn thousands_separators() {
