@@ -250,7 +250,7 @@ fn bad_longitude_and_elevation_are_refused() {
     assert_usage_error(&predict_with(&f), &["badlon.csv:2:3", "longitude"]);
     let f = TempFile::new(
         "badel.csv",
-        b"station,latitude,longitude,elevation_m\na,10,10,9100\n",
+        b"station,latitude,longitude,elevation_m\na,10,10,15100\n",
     );
     assert_usage_error(&predict_with(&f), &["badel.csv:2:4", "elevation_m"]);
     let f = TempFile::new(

@@ -184,6 +184,10 @@ mod tests {
     fn ranges_are_checked() {
         assert!(Station::new("a", 91.0, 0.0, 0.0).is_err());
         assert!(Station::new("a", 0.0, 361.0, 0.0).is_err());
-        assert!(Station::new("a", 0.0, 0.0, 9500.0).is_err());
+        assert!(Station::new("a", 0.0, 0.0, 15_500.0).is_err());
+        assert!(
+            Station::new("a", 0.0, 0.0, 12_000.0).is_ok(),
+            "airborne observers"
+        );
     }
 }

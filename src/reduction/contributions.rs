@@ -24,6 +24,7 @@ use super::statistics::statistics;
 use crate::geometry::contacts::{offset_on_plane, Contact, Perturbation};
 use crate::geometry::station::GeocentricStation;
 use crate::geometry::transit::TransitEvent;
+use crate::observations::timings::Rejected;
 use nalgebra::{DMatrix, DVector};
 
 /// Partial solutions on the first k used timings (file order), at up to 25 values of k.
@@ -274,9 +275,51 @@ pub fn contributions(
                     .sum::<f64>()
                     / rows.len() as f64,
                 chord: chord(event, &own, &p, er),
+                not_used: None,
             }
         })
         .collect();
     out.sort_by(|a, b| b.information_share.total_cmp(&a.information_share));
+    out
+}
+
+/// The stations none of whose timings was used, kept in the list (after the others) with the
+/// reason, so that no station vanishes from the table or the map.
+pub fn stations_not_used(
+    timings: &[Timing],
+    used: &[usize],
+    rejected: &[Rejected],
+) -> Vec<StationContribution> {
+    let mut out: Vec<StationContribution> = Vec::new();
+    for t in timings {
+        let name = &t.obs.station.name;
+        if used.iter().any(|&i| &timings[i].obs.station.name == name)
+            || out.iter().any(|s| &s.station == name)
+        {
+            continue;
+        }
+        let why = rejected
+            .iter()
+            .find(|r| &r.station == name)
+            .map(|r| {
+                let d = r.diagnosis.as_deref().unwrap_or("no diagnosis");
+                format!("{}: {d}", r.reason.as_str())
+            })
+            .unwrap_or_else(|| "not used".into());
+        out.push(StationContribution {
+            station: name.clone(),
+            latitude_deg: t.obs.station.latitude_deg,
+            longitude_deg: t.obs.station.longitude_deg,
+            elevation_m: t.obs.station.elevation_m,
+            timings: 0,
+            information_share: 0.0,
+            influence_arcsec: None,
+            residuals_s: Vec::new(),
+            contacts: Vec::new(),
+            mean_normalised_residual: 0.0,
+            chord: None,
+            not_used: Some(why),
+        });
+    }
     out
 }

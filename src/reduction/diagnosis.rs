@@ -96,7 +96,25 @@ pub fn explain_row(
             }
         }
     }
-    None
+    let c_h = predicted_hours(event, &geo, contact, p)?;
+    minute_typo((observed_h - c_h) * 3600.0, tolerance_s.min(15.0))
+}
+
+/// A typing slip in the minutes: O - C within `tolerance_s` of 1-9 whole minutes (the last
+/// digit) or of 10, 20, 30, 40 or 50 (the tens digit). Common practice, no single source.
+fn minute_typo(r: f64, tolerance_s: f64) -> Option<String> {
+    let minutes = (r / 60.0).round();
+    let m = minutes.abs();
+    let plausible = (1.0..=9.0).contains(&m) || (m % 10.0 == 0.0 && (10.0..=50.0).contains(&m));
+    if !plausible || (r - 60.0 * minutes).abs() >= tolerance_s {
+        return None;
+    }
+    Some(format!(
+        "O - C is {r:+.1} s, {} within {:.0} s: a digit of the minutes was probably mistyped; {} {m:.0} min to correct it",
+        crate::words::count(m as usize, "whole minute", "whole minutes"),
+        (r - 60.0 * minutes).abs(),
+        if minutes > 0.0 { "subtract" } else { "add" }
+    ))
 }
 
 /// One timing of a station, for station-level diagnosis.
@@ -162,6 +180,22 @@ fn coordinate_hypotheses(
             ));
         }
     }
+    if lat.abs() > 0.5 {
+        let flipped = Station {
+            latitude_deg: -lat,
+            ..station.clone()
+        };
+        if let Some(score) = fits_at(event, &flipped, rows, p, scatter) {
+            found.push((
+                score,
+                format!(
+                    "the station's timings fit its latitude with the sign reversed ({:.4} instead of {lat:.4}): south was probably entered as north or the reverse",
+                    -lat
+                ),
+                "a latitude with the sign reversed".to_string(),
+            ));
+        }
+    }
     if lon.abs() <= 90.0 && (lat - lon).abs() > 0.5 {
         let swapped = Station {
             latitude_deg: lon,
@@ -207,11 +241,7 @@ fn clock_hypothesis(
     (chi2 / ((rows.len() - 1) as f64) < 9.0).then(|| {
         (
             chi2 + 2.0,
-            format!(
-                "{} of station '{}' are off by about {offset:+.1} s: its clock was probably wrong by that much",
-                crate::words::all_of(rows.len(), "timings"),
-                station.name
-            ),
+            station_offset_sentence(offset, rows.len(), &station.name),
             format!("a clock off by {offset:+.1} s"),
         )
     })
@@ -258,6 +288,34 @@ pub fn explain_station(
     }
 }
 
+/// The sentence for an offset common to every timing of a station: a time zone left in when
+/// it is a whole number of hours or half hours (within 2 minutes), the date off when a whole
+/// day, else a clock that was wrong by that much.
+pub fn station_offset_sentence(offset_s: f64, n: usize, station: &str) -> String {
+    let all = crate::words::all_of(n, "timings");
+    let hours = offset_s / 3600.0;
+    let days = (offset_s / 86_400.0).round();
+    if days != 0.0 && (offset_s - 86_400.0 * days).abs() < 120.0 {
+        return format!(
+            "{all} of station '{station}' are off by {hours:+.2} h, {} day{}: the date is probably wrong by that much",
+            days.abs(),
+            if days.abs() == 1.0 { "" } else { "s" }
+        );
+    }
+    let half = (offset_s / 1800.0).round();
+    if half != 0.0 && half.abs() <= 28.0 && (offset_s - 1800.0 * half).abs() < 120.0 {
+        let h = half / 2.0;
+        return format!(
+            "{all} of station '{station}' are off by {hours:+.3} h: a time zone of {h:+} h was probably left in (local time given as UTC); {} {} h to correct them",
+            if h > 0.0 { "subtract" } else { "add" },
+            h.abs()
+        );
+    }
+    format!(
+        "{all} of station '{station}' are off by about {offset_s:+.1} s: its clock was probably wrong by that much"
+    )
+}
+
 /// The signature of a station clock error: every timing of the station off by nearly the same
 /// amount, well beyond its uncertainty.
 ///
@@ -278,10 +336,12 @@ pub fn clock_offset_s(
     let wsum: f64 = w.iter().sum();
     let mean = residuals_s.iter().zip(&w).map(|(r, w)| r * w).sum::<f64>() / wsum;
     let se = scatter.max(1.0) / wsum.sqrt();
-    let sigma_max = sigmas_s.iter().cloned().fold(0.0, f64::max) * scatter.max(1.0);
+    // Every row must share the offset within its own uncertainty (regression: one row off by
+    // 90 s at a station whose other rows fit was called a clock error of the whole station).
     let consistent = residuals_s
         .iter()
-        .all(|r| (r - mean).abs() <= (3.0 * sigma_max).max(0.2 * mean.abs()));
+        .zip(sigmas_s)
+        .all(|(r, s)| (r - mean).abs() <= (3.0 * s * scatter.max(1.0)).max(0.2 * mean.abs()));
     if mean.abs() > threshold * se && mean.abs() > 30.0 && consistent {
         Some(mean)
     } else {

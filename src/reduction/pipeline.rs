@@ -14,7 +14,7 @@
 //! References: J. F. Encke (1822, 1824) and S. Newcomb (1891) for the condition equations;
 //! Bevington and Robinson (2003), chapter 8; R. T. Birge, Phys. Rev. 40, 207 (1932).
 
-use super::contributions::{contributions, convergence};
+use super::contributions::{contributions, convergence, stations_not_used};
 use super::fit::FitOutcome;
 use super::parameters::{ParameterSet, PARALLAX};
 use super::rejection::{record_rejections, station_wide};
@@ -289,7 +289,8 @@ fn summarise(
     let stats = statistics(chi2, n.saturating_sub(n_free));
     let determined = outcome.free[PARALLAX] && n > 0 && outcome.converged;
     let er = event.earth_radii_per_arcsec();
-    let stations = contributions(&event, c.timings, used, outcome, &w, er);
+    let mut stations = contributions(&event, c.timings, used, outcome, &w, er);
+    stations.extend(stations_not_used(c.timings, used, &rejected));
     let convergence = if determined && options.follow_convergence {
         convergence(&event, c.timings, used, c.params, &outcome.theta)
     } else {

@@ -9,7 +9,9 @@
 //! References: the blunders of pooled public timings and their signatures are common
 //! practice (no single source); see docs/reduction.md.
 
-use super::diagnosis::{clock_offset_s, explain_row, explain_station, StationTiming};
+use super::diagnosis::{
+    clock_offset_s, explain_row, explain_station, station_offset_sentence, StationTiming,
+};
 use super::equations::{perturbation, residual_s, Timing};
 use super::fit::FitOutcome;
 use super::parameters::ParameterSet;
@@ -48,11 +50,7 @@ fn clock_verdict(
     let offset = clock_offset_s(&res?, &sig, s.scatter, threshold)?;
     Some((
         rows.to_vec(),
-        format!(
-            "{} of station '{}' are off by about {offset:+.1} s: its clock was probably wrong by that much",
-            crate::words::all_of(rows.len(), "timings"),
-            name
-        ),
+        station_offset_sentence(offset, rows.len(), name),
     ))
 }
 
@@ -103,25 +101,24 @@ pub fn station_wide(
     verdicts
 }
 
-/// The blunder that explains one timing alone, or as a station of one timing.
+/// The blunder that explains one timing alone; a station-wide cause (coordinates, clock) only
+/// when the timing is its station's only one, since otherwise the station's other rows would
+/// have to fit that cause better (regression: one row off by a minute at a station whose
+/// other rows fit was blamed on a reversed longitude).
 fn diagnose(
     event: &TransitEvent,
     t: &Timing,
     p: &Perturbation,
-    (scatter, threshold): (f64, f64),
+    (scatter, threshold, alone): (f64, f64, bool),
 ) -> Option<String> {
     let tolerance_s = (4.0 * scatter * t.obs.sigma_s).max(20.0);
-    explain_row(
-        event,
-        &t.obs.station,
-        t.obs.contact,
-        t.observed_h,
-        p,
-        tolerance_s,
-    )
-    .or_else(|| {
+    let station = &t.obs.station;
+    explain_row(event, station, t.obs.contact, t.observed_h, p, tolerance_s).or_else(|| {
+        if !alone {
+            return None;
+        }
         let row = station_timings(std::slice::from_ref(t), &[0]);
-        explain_station(event, &t.obs.station, &row, p, scatter, threshold)
+        explain_station(event, station, &row, p, scatter, threshold)
     })
 }
 
@@ -138,7 +135,21 @@ pub fn record_rejections(
     let er = event.earth_radii_per_arcsec();
     let p_final = perturbation(&outcome.theta, er);
     let residual_at = |i: usize| residual_s(event, &timings[i], params, &outcome.theta, er);
-    let diagnosis = |i: usize| diagnose(event, &timings[i], &p_final, (s.scatter, threshold));
+    let alone = |i: usize| {
+        timings
+            .iter()
+            .filter(|t| t.station == timings[i].station)
+            .count()
+            == 1
+    };
+    let diagnosis = |i: usize| {
+        diagnose(
+            event,
+            &timings[i],
+            &p_final,
+            (s.scatter, threshold, alone(i)),
+        )
+    };
     let reject = |i: usize, reason: RejectReason, diagnosis: Option<String>| Rejected {
         line: timings[i].obs.line,
         station: timings[i].obs.station.name.clone(),

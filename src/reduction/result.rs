@@ -99,6 +99,8 @@ pub struct StationContribution {
     pub mean_normalised_residual: f64,
     /// The Halley chord, where a pair of contacts was timed.
     pub chord: Option<Chord>,
+    /// For a station none of whose timings was used: why (the first rejected row's sentence).
+    pub not_used: Option<String>,
 }
 
 /// The result of a reduction.

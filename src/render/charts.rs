@@ -266,6 +266,17 @@ pub fn station_map_svg(red: &Reduction) -> String {
     let _ = writeln!(s, "</g>");
     for (i, st) in red.stations.iter().enumerate() {
         let (x, y) = px(st.longitude_deg, st.latitude_deg);
+        if let Some(why) = &st.not_used {
+            let _ = writeln!(
+                s,
+                "<g class=\"not-used\" stroke=\"#b91c1c\" stroke-width=\"1.6\"><line x1=\"{:.1}\" y1=\"{:.1}\" x2=\"{:.1}\" y2=\"{:.1}\"/><line x1=\"{:.1}\" y1=\"{:.1}\" x2=\"{:.1}\" y2=\"{:.1}\"/><title>{} (#{}): not used: {}</title></g>",
+                x - 4.0, y - 4.0, x + 4.0, y + 4.0, x - 4.0, y + 4.0, x + 4.0, y - 4.0,
+                esc(&st.station),
+                i + 1,
+                esc(why)
+            );
+            continue;
+        }
         let r = 2.5 + 30.0 * st.information_share.max(0.0).sqrt();
         let _ = writeln!(
             s,
@@ -282,7 +293,7 @@ pub fn station_map_svg(red: &Reduction) -> String {
         let x = 10.0 + 28.0 * k as f64;
         let _ = writeln!(s, "<rect x=\"{x}\" y=\"{}\" width=\"26\" height=\"10\" fill=\"{}\" stroke=\"#1f2937\" stroke-width=\"0.3\"/><text x=\"{}\" y=\"{}\" text-anchor=\"middle\" font-size=\"9\">{z:+.0}</text>", legend_y - 10.0, residual_colour(*z), x + 13.0, legend_y + 10.0);
     }
-    let _ = writeln!(s, "<text x=\"160\" y=\"{legend_y}\">Colour: mean (O - C)/sigma of the station's timings. Area: share of the information on the parallax.</text>");
+    let _ = writeln!(s, "<text x=\"160\" y=\"{legend_y}\">Colour: mean (O - C)/sigma of the station's timings. Area: share of the information on the parallax. Red cross: no timing used.</text>");
     let _ = writeln!(s, "<text x=\"160\" y=\"{}\" font-size=\"9\">Land: Natural Earth 1:110m (public domain).</text>", legend_y + 14.0);
     s.push_str("</svg>\n");
     s

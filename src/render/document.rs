@@ -111,7 +111,10 @@ fn station_rows(red: &Reduction) -> Vec<Vec<String>> {
                 chord_o,
                 chord_p,
                 disp,
-                oc.join("; "),
+                match &s.not_used {
+                    Some(why) => format!("not used: {why}"),
+                    None => oc.join("; "),
+                },
             ]
         })
         .collect()
@@ -127,7 +130,7 @@ const STATION_HEADERS: [&str; 10] = [
     "chord observed (arcsec)",
     "chord predicted (arcsec)",
     "parallax displacement of the path (arcsec)",
-    "O - C by contact (s)",
+    "O - C by contact (s), or why no timing was used",
 ];
 
 fn rejected_rows(red: &Reduction) -> Vec<Vec<String>> {

@@ -27,6 +27,7 @@ fn stations_json(red: &Reduction) -> Vec<Value> {
                 "residuals_s": s.residuals_s.iter().map(|x| r(*x, 2)).collect::<Vec<f64>>(),
                 "contacts": s.contacts,
                 "mean_normalised_residual": r(s.mean_normalised_residual, 3),
+                "not_used": s.not_used,
                 "chord": s.chord.as_ref().map(|c| json!({
                     "pair": c.pair,
                     "observed_arcsec": r(c.observed_arcsec, 3),
@@ -218,6 +219,10 @@ fn stations_section(red: &Reduction, s: &mut String) {
     ));
     for st in &red.stations {
         let name = name_cell(&st.station);
+        if let Some(why) = &st.not_used {
+            s.push_str(&format!("  {name}    0  not used: {why}\n"));
+            continue;
+        }
         let oc: Vec<String> = st
             .contacts
             .iter()
