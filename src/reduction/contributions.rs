@@ -210,11 +210,15 @@ fn chord(event: &TransitEvent, station: &[&Timing], p: &Perturbation, er: f64) -
 /// The positions in `used` of each station's timings, stations in order of first appearance.
 fn rows_by_station<'a>(timings: &'a [Timing], used: &[usize]) -> Vec<(&'a str, Vec<usize>)> {
     let mut out: Vec<(&str, Vec<usize>)> = Vec::new();
+    let mut index: std::collections::HashMap<&str, usize> = Default::default();
     for (k, &i) in used.iter().enumerate() {
         let name = timings[i].obs.station.name.as_str();
-        match out.iter_mut().find(|(n, _)| *n == name) {
-            Some((_, rows)) => rows.push(k),
-            None => out.push((name, vec![k])),
+        match index.get(name) {
+            Some(&j) => out[j].1.push(k),
+            None => {
+                index.insert(name, out.len());
+                out.push((name, vec![k]));
+            }
         }
     }
     out
@@ -291,11 +295,13 @@ pub fn stations_not_used(
     rejected: &[Rejected],
 ) -> Vec<StationContribution> {
     let mut out: Vec<StationContribution> = Vec::new();
+    let mut seen: std::collections::HashSet<&str> = used
+        .iter()
+        .map(|&i| timings[i].obs.station.name.as_str())
+        .collect();
     for t in timings {
         let name = &t.obs.station.name;
-        if used.iter().any(|&i| &timings[i].obs.station.name == name)
-            || out.iter().any(|s| &s.station == name)
-        {
+        if !seen.insert(name.as_str()) {
             continue;
         }
         let why = rejected

@@ -203,10 +203,9 @@ fn spread_km(stations: &[&GeocentricStation]) -> f64 {
 /// timings would separate them.
 pub fn describe_confusion(timings: &[&Timing], names: &[&str]) -> String {
     let mut stations: Vec<&GeocentricStation> = Vec::new();
-    let mut names_seen: Vec<&str> = Vec::new();
+    let mut names_seen: std::collections::HashSet<&str> = Default::default();
     for t in timings {
-        if !names_seen.contains(&t.obs.station.name.as_str()) {
-            names_seen.push(&t.obs.station.name);
+        if names_seen.insert(t.obs.station.name.as_str()) {
             stations.push(&t.geo);
         }
     }

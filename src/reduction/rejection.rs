@@ -63,23 +63,31 @@ pub fn station_wide(
     threshold: f64,
 ) -> Vec<StationVerdict> {
     let p_now = perturbation(&s.outcome.theta, event.earth_radii_per_arcsec());
-    let not_used = |i: usize| {
-        s.outliers.contains(&i)
-            || s.not_visible.iter().any(|(j, _)| *j == i)
-            || s.no_contact.contains(&i)
-    };
-    let mut names: Vec<&str> = timings
-        .iter()
-        .map(|t| t.obs.station.name.as_str())
-        .collect();
-    names.sort();
-    names.dedup();
+    let mut unused = vec![false; timings.len()];
+    let not_visible = s.not_visible.iter().map(|(i, _)| i);
+    for &i in s.outliers.iter().chain(not_visible).chain(&s.no_contact) {
+        unused[i] = true;
+    }
+    // Each station's rows, stations in the order of their names (linear in the rows).
+    let mut by_station: Vec<Vec<usize>> = Vec::new();
+    for (i, t) in timings.iter().enumerate() {
+        if by_station.len() <= t.station {
+            by_station.resize(t.station + 1, Vec::new());
+        }
+        by_station[t.station].push(i);
+    }
+    by_station.retain(|r| !r.is_empty());
+    by_station.sort_by(|a, b| {
+        timings[a[0]]
+            .obs
+            .station
+            .name
+            .cmp(&timings[b[0]].obs.station.name)
+    });
     let mut verdicts = Vec::new();
-    for name in names {
-        let rows: Vec<usize> = (0..timings.len())
-            .filter(|&i| timings[i].obs.station.name == name)
-            .collect();
-        let bad = rows.iter().filter(|&&i| not_used(i)).count();
+    for rows in by_station {
+        let name = timings[rows[0]].obs.station.name.as_str();
+        let bad = rows.iter().filter(|&&i| unused[i]).count();
         if bad == 0 || 2 * bad < rows.len() {
             if rows.len() >= 2 {
                 verdicts.extend(clock_verdict(

@@ -114,7 +114,8 @@ fn station_paths(red: &Reduction, factor: f64) -> (Vec<NamedPath>, f64) {
         .map(|i| at(h0 + (h1 - h0) * i as f64 / n as f64, None))
         .collect();
     out.push(("geocentre".to_string(), geo_path, Vec::new()));
-    for s in &red.stations {
+    let drawn = red.stations.iter().filter(|s| s.not_used.is_none());
+    for s in drawn.take(DISC_STATIONS_MAX) {
         let Ok(st) = Station::new(&s.station, s.latitude_deg, s.longitude_deg, s.elevation_m)
         else {
             continue;
@@ -142,6 +143,40 @@ fn station_paths(red: &Reduction, factor: f64) -> (Vec<NamedPath>, f64) {
         out.push((s.station.clone(), path, points));
     }
     (out, max_disp)
+}
+
+/// Most station paths drawn on the solar disc (those with the largest shares).
+pub const DISC_STATIONS_MAX: usize = 40;
+/// Most stations drawn on the map (by share; stations with no timing used after them).
+pub const MAP_STATIONS_MAX: usize = 2000;
+/// Most timings drawn per contact on the residual chart (an even sample beyond it), and most
+/// rejected timings marked per contact.
+pub const RESIDUALS_PER_CONTACT_MAX: usize = 400;
+/// See [`RESIDUALS_PER_CONTACT_MAX`].
+pub const REJECTED_PER_CONTACT_MAX: usize = 100;
+
+/// Every k-th item of a list so that at most `max` are kept, in order.
+fn thin<T>(items: Vec<T>, max: usize) -> Vec<T> {
+    if items.len() <= max || max == 0 {
+        return items;
+    }
+    let step = items.len().div_ceil(max);
+    items.into_iter().step_by(step).collect()
+}
+
+/// A sentence saying what a chart leaves out, or nothing when it shows everything.
+pub fn sampling_note(red: &Reduction) -> Option<String> {
+    let stations = red.stations.len();
+    let used = red.used.len();
+    let big = stations > DISC_STATIONS_MAX
+        || stations > MAP_STATIONS_MAX
+        || Contact::ALL.iter().any(|c| {
+            red.used.iter().filter(|u| u.contact == c.number()).count() > RESIDUALS_PER_CONTACT_MAX
+        });
+    big.then(|| format!(
+        "This campaign is large ({stations} stations, {used} timings used), so the charts show a part of it: the solar disc the {} stations with the largest shares of the information, the map at most {MAP_STATIONS_MAX} stations, the residual chart an even sample of at most {RESIDUALS_PER_CONTACT_MAX} timings and {REJECTED_PER_CONTACT_MAX} rejected ones per contact. The JSON and CSV outputs of reduce list every station and timing.",
+        DISC_STATIONS_MAX.min(stations)
+    ))
 }
 
 /// The solar disc with the geocentric path, each station's path (parallax displacement
@@ -264,7 +299,7 @@ pub fn station_map_svg(red: &Reduction) -> String {
         let _ = writeln!(s, "<line x1=\"0\" y1=\"{y}\" x2=\"{w}\" y2=\"{y}\"/>");
     }
     let _ = writeln!(s, "</g>");
-    for (i, st) in red.stations.iter().enumerate() {
+    for (i, st) in red.stations.iter().enumerate().take(MAP_STATIONS_MAX) {
         let (x, y) = px(st.longitude_deg, st.latitude_deg);
         if let Some(why) = &st.not_used {
             let _ = writeln!(
@@ -327,12 +362,14 @@ pub fn residuals_svg(red: &Reduction) -> String {
             .iter()
             .filter(|u| u.contact == c.number())
             .collect();
+        let rows = thin(rows, RESIDUALS_PER_CONTACT_MAX);
         let rej: Vec<(usize, &crate::observations::timings::Rejected)> = red
             .rejected
             .iter()
             .enumerate()
             .filter(|(_, r)| r.contact == Some(c.number()) && r.o_c_s.is_some())
             .collect();
+        let rej = thin(rej, REJECTED_PER_CONTACT_MAX);
         let n = (rows.len() + rej.len()).max(1);
         for (k, u) in rows.iter().enumerate() {
             let x = x0 + group_w * (k as f64 + 0.5) / n as f64;

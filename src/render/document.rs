@@ -4,7 +4,8 @@
 use crate::error::{Error, Result};
 use crate::reduction::Reduction;
 use crate::render::charts::{
-    convergence_svg, disc_exaggeration, esc, residuals_svg, solar_disc_svg, station_map_svg,
+    convergence_svg, disc_exaggeration, esc, residuals_svg, sampling_note, solar_disc_svg,
+    station_map_svg,
 };
 use crate::render::reduction::chi2_sentence;
 use crate::render::reduction::correlation_notes;
@@ -80,9 +81,38 @@ fn parameters_rows(red: &Reduction) -> Vec<Vec<String>> {
         .collect()
 }
 
+/// Most stations listed in a report's table (those with the largest shares).
+pub const STATION_ROWS_MAX: usize = 300;
+/// Most rows not used listed in a report's table (in the order of the file).
+pub const REJECTED_ROWS_MAX: usize = 500;
+
+/// Sentences saying what the tables leave out of a large campaign.
+fn table_notes(red: &Reduction) -> (Option<String>, Option<String>) {
+    let n = red.stations.len();
+    let stations = (n > STATION_ROWS_MAX).then(|| {
+        let rest: f64 = red.stations[STATION_ROWS_MAX..]
+            .iter()
+            .map(|s| s.information_share)
+            .sum();
+        format!(
+            "The table lists the {STATION_ROWS_MAX} stations with the largest shares of the information; the other {} carry {:.1} % of it. `reduce --format json` lists every station.",
+            n - STATION_ROWS_MAX,
+            100.0 * rest
+        )
+    });
+    let r = red.rejected.len();
+    let rows = (r > REJECTED_ROWS_MAX).then(|| {
+        format!(
+            "The table lists the first {REJECTED_ROWS_MAX} of the {r} rows not used; `reduce --format csv` lists every row with its reason."
+        )
+    });
+    (stations, rows)
+}
+
 fn station_rows(red: &Reduction) -> Vec<Vec<String>> {
     red.stations
         .iter()
+        .take(STATION_ROWS_MAX)
         .enumerate()
         .map(|(i, s)| {
             let oc: Vec<String> = s
@@ -136,6 +166,7 @@ const STATION_HEADERS: [&str; 10] = [
 fn rejected_rows(red: &Reduction) -> Vec<Vec<String>> {
     red.rejected
         .iter()
+        .take(REJECTED_ROWS_MAX)
         .enumerate()
         .map(|(i, r)| {
             vec![
@@ -281,6 +312,9 @@ pub fn html_report(red: &Reduction) -> String {
         "<h2>How the result was obtained</h2>\n<p>{}</p>",
         esc(METHOD)
     );
+    if let Some(note) = sampling_note(red) {
+        let _ = writeln!(s, "<p class=\"note\">{}</p>", esc(&note));
+    }
     let _ = writeln!(
         s,
         "<h2>The planet's path across the Sun</h2>\n<figure>\n{}<figcaption>North is up and east to the left, as the Sun appears in the sky. Each station's path is displaced from the geocentric one by parallax; the displacement is drawn {:.0} times larger than it is.</figcaption>\n</figure>",
@@ -297,12 +331,19 @@ pub fn html_report(red: &Reduction) -> String {
     for note in correlation_notes(red) {
         let _ = writeln!(s, "<p>{}</p>", esc(&note));
     }
+    let (station_note, rows_note) = table_notes(red);
     s.push_str("<h2>Stations, ranked by their share of the information on the parallax</h2>\n");
+    if let Some(n) = &station_note {
+        let _ = writeln!(s, "<p>{}</p>", esc(n));
+    }
     s.push_str(&html_table(&STATION_HEADERS, &station_rows(red)));
     s.push_str("<h2>Rows not used</h2>\n");
     if red.rejected.is_empty() {
         s.push_str("<p>Every row was used.</p>\n");
     } else {
+        if let Some(n) = &rows_note {
+            let _ = writeln!(s, "<p>{}</p>", esc(n));
+        }
         s.push_str(&html_table(&REJECTED_HEADERS, &rejected_rows(red)));
     }
     let _ = writeln!(
@@ -356,6 +397,9 @@ pub fn markdown_report(red: &Reduction, stem: &str) -> (String, Vec<(String, Str
     for ((file, _), cap) in charts.iter().zip(&captions) {
         let _ = write!(s, "![{}]({})\n\n", md_cell(cap), file);
     }
+    if let Some(note) = sampling_note(red) {
+        let _ = write!(s, "{}\n\n", md_cell(&note));
+    }
     s.push_str("## Parameters\n\n");
     let ph = param_headers(red.correlation.len());
     let ph_ref: Vec<&str> = ph.iter().map(String::as_str).collect();
@@ -363,12 +407,19 @@ pub fn markdown_report(red: &Reduction, stem: &str) -> (String, Vec<(String, Str
     for note in correlation_notes(red) {
         let _ = write!(s, "\n{}\n", md_cell(&note));
     }
+    let (station_note, rows_note) = table_notes(red);
     s.push_str("\n## Stations, ranked by their share of the information on the parallax\n\n");
+    if let Some(n) = &station_note {
+        let _ = write!(s, "{}\n\n", md_cell(n));
+    }
     s.push_str(&md_table(&STATION_HEADERS, &station_rows(red)));
     s.push_str("\n## Rows not used\n\n");
     if red.rejected.is_empty() {
         s.push_str("Every row was used.\n");
     } else {
+        if let Some(n) = &rows_note {
+            let _ = write!(s, "{}\n\n", md_cell(n));
+        }
         s.push_str(&md_table(&REJECTED_HEADERS, &rejected_rows(red)));
     }
     (s, charts)

@@ -3,13 +3,15 @@
 
 use crate::geometry::contacts::Contact;
 use crate::geometry::transit::{StationPrediction, TransitEvent};
-use crate::render::text::{clock_label, csv_field, name_cell, round, scale_of, SAFETY_CAUTION};
+use crate::render::text::{
+    clock_label, csv_field, fixed, name_cell, round, scale_of, SAFETY_CAUTION,
+};
 use crate::time::iso::format_utc;
 use serde_json::{json, Value};
 
 fn opt_num(v: Option<f64>, decimals: usize) -> String {
     match v {
-        Some(x) if x.is_finite() => format!("{x:.decimals$}"),
+        Some(x) if x.is_finite() => fixed(x, decimals),
         _ => String::new(),
     }
 }
@@ -49,7 +51,7 @@ pub fn transits_json(events: &[TransitEvent]) -> Value {
 
 /// A coordinate printed with at most 6 decimals and no trailing zeros.
 fn trim_number(x: f64) -> String {
-    let s = format!("{x:.6}");
+    let s = fixed(x, 6);
     let s = s.trim_end_matches('0').trim_end_matches('.');
     if s == "-0" {
         "0".into()
@@ -177,11 +179,15 @@ pub fn predictions_csv(event: &TransitEvent, predictions: &[StationPrediction]) 
     let mut s = PREDICT_COLUMNS.join(",");
     s.push('\n');
     for p in predictions {
+        let name = csv_field(&p.station.name);
+        let (lat, lon) = (
+            trim_number(p.station.latitude_deg),
+            trim_number(p.station.longitude_deg),
+        );
         for c in Contact::ALL {
             let cc = p.contacts[c.index()];
             s.push_str(&format!(
-                "{},{},{},{},{},{},{},{},{},{}\n",
-                csv_field(&p.station.name),
+                "{name},{},{},{},{},{},{},{},{lat},{lon}\n",
                 c.number(),
                 cc.map(|x| format_utc(event.label(x.hours), 2))
                     .unwrap_or_default(),
@@ -190,8 +196,6 @@ pub fn predictions_csv(event: &TransitEvent, predictions: &[StationPrediction]) 
                 opt_num(cc.map(|x| x.position_angle_deg), 2),
                 opt_num(cc.map(|x| x.vertex_angle_deg), 2),
                 opt_num(cc.map(|x| x.sensitivity_s_per_arcsec), 3),
-                trim_number(p.station.latitude_deg),
-                trim_number(p.station.longitude_deg),
             ));
         }
     }

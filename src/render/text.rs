@@ -56,6 +56,31 @@ pub fn scale_of(label: chrono::NaiveDateTime) -> &'static str {
     }
 }
 
+/// A number with `decimals` digits after the point, as `format!("{x:.decimals$}")` writes
+/// it, but by integer arithmetic where the scaled value fits (the exact decimal expansion
+/// behind `{:.N}` dominated the output of `predict` for tens of thousands of stations).
+pub fn fixed(x: f64, decimals: usize) -> String {
+    let d = decimals.min(9);
+    let p = 10f64.powi(d as i32);
+    let raw = x * p;
+    let scaled = raw.round();
+    // Near a tie the product's rounding error could decide it: leave those (and huge values)
+    // to the exact formatting, which rounds ties to even.
+    if !scaled.is_finite()
+        || scaled.abs() >= 9.0e15
+        || ((raw - raw.trunc()).abs() - 0.5).abs() < 1e-6
+    {
+        return format!("{x:.decimals$}");
+    }
+    let v = scaled.abs() as u64;
+    let ip = 10u64.pow(d as u32);
+    let sign = if x.is_sign_negative() { "-" } else { "" };
+    if d == 0 {
+        return format!("{sign}{v}");
+    }
+    format!("{sign}{}.{:0d$}", v / ip, v % ip)
+}
+
 /// Decimals that show a value to about three significant digits of its uncertainty.
 pub fn decimals_for(sigma: f64) -> usize {
     if !(sigma.is_finite() && sigma > 0.0) {
@@ -149,6 +174,23 @@ mod tests {
         }
         assert!(name_cell("A very long station name indeed").ends_with('…'));
         assert_eq!(name_cell("Kestrel").trim_end(), "Kestrel");
+    }
+
+    #[test]
+    fn fixed_matches_the_standard_formatting() {
+        for &(x, d) in &[
+            (12.3456, 3),
+            (-0.0004, 3),
+            (359.9996, 3),
+            (0.5, 0),
+            (2.5, 0),
+            (0.125, 2),
+            (-45.125_001, 2),
+            (1e20, 2),
+            (1.005, 2),
+        ] {
+            assert_eq!(fixed(x, d), format!("{x:.d$}"), "{x} {d}");
+        }
     }
 
     #[test]

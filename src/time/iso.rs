@@ -112,15 +112,29 @@ pub fn format_utc(label: NaiveDateTime, decimals: u32) -> String {
     let whole_s = rounded.div_euclid(1_000_000_000) as i64;
     let rest_ns = rounded.rem_euclid(1_000_000_000) as i64;
     let t = epoch + TimeDelta::seconds(whole_s) + TimeDelta::nanoseconds(rest_ns);
-    if decimals == 0 {
-        return t.format("%Y-%m-%dT%H:%M:%SZ").to_string();
+    // Written field by field (chrono's strftime parses its pattern on every call, which
+    // dominated `predict` for tens of thousands of stations). A leap second shows as :60.
+    use chrono::{Datelike, Timelike};
+    let (mut second, mut nanos) = (t.second(), t.nanosecond());
+    if nanos >= 1_000_000_000 {
+        second += 1;
+        nanos -= 1_000_000_000;
     }
-    let frac = t.format("%.9f").to_string();
-    format!(
-        "{}{}Z",
-        t.format("%Y-%m-%dT%H:%M:%S"),
-        &frac[..(1 + decimals as usize).min(frac.len())]
-    )
+    let mut out = format!(
+        "{:04}-{:02}-{:02}T{:02}:{:02}:{second:02}",
+        t.year(),
+        t.month(),
+        t.day(),
+        t.hour(),
+        t.minute()
+    );
+    if decimals > 0 {
+        let digits = format!("{nanos:09}");
+        out.push('.');
+        out.push_str(&digits[..(decimals.min(9) as usize)]);
+    }
+    out.push('Z');
+    out
 }
 
 #[cfg(test)]
