@@ -11,7 +11,7 @@ use transit_parallax::observations::timings::read_observations;
 use transit_parallax::planning::{simulation, sites};
 use transit_parallax::reduction::{reduce, ReduceOptions};
 use transit_parallax::render::text::Format;
-use transit_parallax::render::{charts, document, planning, prediction, reduction};
+use transit_parallax::render::{document, planning, planning_charts, prediction, reduction};
 use transit_parallax::sky::constants::{nominal_parallax_arcsec, AU_KM};
 use transit_parallax::{Contact, Error};
 
@@ -161,7 +161,13 @@ fn plan(a: PlanArgs) -> Result<String, Error> {
             event.date(),
             contact.roman()
         );
-        let svg = charts::sensitivity_map_svg(&grid, a.grid_deg, contact, a.min_altitude, &title);
+        let svg = planning_charts::sensitivity_map_svg(
+            &grid,
+            a.grid_deg,
+            contact,
+            a.min_altitude,
+            &title,
+        );
         write_file(path, &svg)?;
         if format == Format::Table {
             text.push_str(&format!("map written: {}\n", path.display()));
@@ -251,7 +257,7 @@ fn simulate(a: SimulateArgs) -> Result<String, Error> {
             event.planet,
             event.date()
         );
-        let svg = charts::histogram_svg(
+        let svg = planning_charts::histogram_svg(
             &summary.au_estimates_km,
             AU_KM,
             "astronomical unit (km)",

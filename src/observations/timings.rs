@@ -297,6 +297,23 @@ fn reject_or_fail(
 
 type RowError = (String, Option<usize>);
 
+/// A timing's standard uncertainty, seconds: positive, at most an hour.
+fn parse_sigma(text: &str, column: usize) -> std::result::Result<f64, RowError> {
+    let v: f64 = text.parse().map_err(|_| {
+        (
+            format!("sigma_s '{text}' is not a number of seconds"),
+            Some(column),
+        )
+    })?;
+    if !v.is_finite() || v <= 0.0 || v > 3600.0 {
+        return Err((
+            format!("sigma_s {text} must be a positive number of seconds, at most 3600"),
+            Some(column),
+        ));
+    }
+    Ok(v)
+}
+
 fn parse_row(
     table: &CsvTable,
     line: u64,
@@ -348,22 +365,7 @@ fn parse_row(
         ));
     }
     let (sigma_s, sigma_given) = match cols.sigma {
-        Some(c) if !table.text(rec, c).is_empty() => {
-            let text = table.text(rec, c);
-            let v: f64 = text.parse().map_err(|_| {
-                (
-                    format!("sigma_s '{text}' is not a number of seconds"),
-                    Some(c),
-                )
-            })?;
-            if !v.is_finite() || v <= 0.0 || v > 3600.0 {
-                return Err((
-                    format!("sigma_s {text} must be a positive number of seconds, at most 3600"),
-                    Some(c),
-                ));
-            }
-            (v, true)
-        }
+        Some(c) if !table.text(rec, c).is_empty() => (parse_sigma(table.text(rec, c), c)?, true),
         _ => (DEFAULT_SIGMA_S[contact.index()], false),
     };
     Ok((

@@ -112,6 +112,58 @@ fn forecast_sigma_regularised(n: &Info) -> f64 {
         .unwrap_or(f64::INFINITY)
 }
 
+/// One candidate's contacts, circumstances and condition-equation rows.
+fn evaluate_site(event: &TransitEvent, st: &Station, min_altitude_deg: f64) -> Site {
+    let theta = nominal_theta();
+    let geo = st.geocentric();
+    let pred = event.predict(st);
+    let contacts = Contact::ALL
+        .iter()
+        .filter_map(|&c| {
+            let cc = pred.contacts[c.index()]?;
+            let (_, row) = condition_row(event, &geo, c, &theta)?;
+            Some(SiteContact {
+                contact: c,
+                hours: cc.hours,
+                sun_altitude_deg: cc.sun_altitude_deg,
+                sensitivity_s_per_arcsec: cc.sensitivity_s_per_arcsec,
+                visible: cc.sun_altitude_deg >= min_altitude_deg,
+                row,
+            })
+        })
+        .collect();
+    Site {
+        station: st.clone(),
+        contacts,
+        gain_percent: None,
+    }
+}
+
+/// Choose up to `k` sites one at a time, each the one that most lowers the forecast sigma
+/// (greedy forward selection; a weak prior ranks sites while the set cannot yet determine
+/// everything). A site that sees no contact with the Sun up is never chosen.
+fn choose_greedily(sites: &[Site], k: usize, sigma_s: f64) -> Vec<usize> {
+    let mut chosen = Vec::new();
+    let mut n = Info::zeros();
+    for _ in 0..k.min(sites.len()) {
+        // A site that sees no contact with the Sun up adds nothing: it is never chosen.
+        let best = (0..sites.len())
+            .filter(|i| !chosen.contains(i))
+            .filter(|&i| sites[i].contacts.iter().any(|c| c.visible))
+            .map(|i| {
+                let trial = n + information(sites, &[i], sigma_s);
+                let score = forecast_sigma(&trial)
+                    .unwrap_or_else(|| 1e6 * forecast_sigma_regularised(&trial));
+                (i, score)
+            })
+            .min_by(|a, b| a.1.total_cmp(&b.1));
+        let Some((i, _)) = best else { break };
+        n += information(sites, &[i], sigma_s);
+        chosen.push(i);
+    }
+    chosen
+}
+
 /// Evaluate every candidate site and, with `choose`, pick that many greedily.
 ///
 /// Arguments: `event`; `stations`; `sigma_s`, the timing uncertainty assumed for every contact;
@@ -123,33 +175,9 @@ pub fn plan(
     min_altitude_deg: f64,
     choose: Option<usize>,
 ) -> Plan {
-    let theta = nominal_theta();
     let mut sites: Vec<Site> = stations
         .iter()
-        .map(|st| {
-            let geo = st.geocentric();
-            let pred = event.predict(st);
-            let contacts = Contact::ALL
-                .iter()
-                .filter_map(|&c| {
-                    let cc = pred.contacts[c.index()]?;
-                    let (_, row) = condition_row(event, &geo, c, &theta)?;
-                    Some(SiteContact {
-                        contact: c,
-                        hours: cc.hours,
-                        sun_altitude_deg: cc.sun_altitude_deg,
-                        sensitivity_s_per_arcsec: cc.sensitivity_s_per_arcsec,
-                        visible: cc.sun_altitude_deg >= min_altitude_deg,
-                        row,
-                    })
-                })
-                .collect();
-            Site {
-                station: st.clone(),
-                contacts,
-                gain_percent: None,
-            }
-        })
+        .map(|st| evaluate_site(event, st, min_altitude_deg))
         .collect();
     let all: Vec<usize> = (0..sites.len()).collect();
     let n_all = information(&sites, &all, sigma_s);
@@ -162,26 +190,7 @@ pub fn plan(
             _ => None,
         };
     }
-    let mut chosen = Vec::new();
-    if let Some(k) = choose {
-        let mut n = Info::zeros();
-        for _ in 0..k.min(sites.len()) {
-            // A site that sees no contact with the Sun up adds nothing: it is never chosen.
-            let best = (0..sites.len())
-                .filter(|i| !chosen.contains(i))
-                .filter(|&i| sites[i].contacts.iter().any(|c| c.visible))
-                .map(|i| {
-                    let trial = n + information(&sites, &[i], sigma_s);
-                    let score = forecast_sigma(&trial)
-                        .unwrap_or_else(|| 1e6 * forecast_sigma_regularised(&trial));
-                    (i, score)
-                })
-                .min_by(|a, b| a.1.total_cmp(&b.1));
-            let Some((i, _)) = best else { break };
-            n += information(&sites, &[i], sigma_s);
-            chosen.push(i);
-        }
-    }
+    let chosen = choose.map_or_else(Vec::new, |k| choose_greedily(&sites, k, sigma_s));
     let chosen_sigma = if chosen.is_empty() {
         None
     } else {

@@ -130,6 +130,19 @@ fn diagnose(
     })
 }
 
+fn sun_set_sentence(altitude_deg: f64) -> String {
+    format!(
+        "the Sun's centre was {:.1} degrees below the horizon at this time and place; check the time, date and coordinates",
+        -altitude_deg
+    )
+}
+
+fn no_contact_sentence(contact: &str) -> String {
+    format!(
+        "contact {contact} of this transit does not occur at this station (the planet's path as seen from there misses that circle); check the contact number and the coordinates"
+    )
+}
+
 /// Record every timing not used, with its reason and diagnosis, sorted by line.
 pub fn record_rejections(
     event: &TransitEvent,
@@ -143,13 +156,11 @@ pub fn record_rejections(
     let er = event.earth_radii_per_arcsec();
     let p_final = perturbation(&outcome.theta, er);
     let residual_at = |i: usize| residual_s(event, &timings[i], params, &outcome.theta, er);
-    let alone = |i: usize| {
-        timings
-            .iter()
-            .filter(|t| t.station == timings[i].station)
-            .count()
-            == 1
-    };
+    let mut per_station = vec![0usize; timings.iter().map(|t| t.station + 1).max().unwrap_or(0)];
+    for t in timings {
+        per_station[t.station] += 1;
+    }
+    let alone = |i: usize| per_station[timings[i].station] == 1;
     let diagnosis = |i: usize| {
         diagnose(
             event,
@@ -185,14 +196,7 @@ pub fn record_rejections(
     for &(i, alt) in &s.not_visible {
         rejected.push(match diagnosis(i) {
             Some(d) => reject(i, RejectReason::Outlier, Some(d)),
-            None => reject(
-                i,
-                RejectReason::NotVisible,
-                Some(format!(
-                    "the Sun's centre was {:.1} degrees below the horizon at this time and place; check the time, date and coordinates",
-                    -alt
-                )),
-            ),
+            None => reject(i, RejectReason::NotVisible, Some(sun_set_sentence(alt))),
         });
     }
     let mut no_contact = s.no_contact.clone();
@@ -204,10 +208,7 @@ pub fn record_rejections(
             None => reject(
                 i,
                 RejectReason::Invalid,
-                Some(format!(
-                    "contact {} of this transit does not occur at this station (the planet's path as seen from there misses that circle); check the contact number and the coordinates",
-                    timings[i].obs.contact.roman()
-                )),
+                Some(no_contact_sentence(timings[i].obs.contact.roman())),
             ),
         });
     }

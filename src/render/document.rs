@@ -4,11 +4,12 @@
 use crate::error::{Error, Result};
 use crate::reduction::Reduction;
 use crate::render::charts::{
-    convergence_svg, disc_exaggeration, esc, residuals_svg, sampling_note, solar_disc_svg,
+    convergence_svg, disc_exaggeration, residuals_svg, sampling_note, solar_disc_svg,
     station_map_svg,
 };
 use crate::render::reduction::chi2_sentence;
 use crate::render::reduction::correlation_notes;
+use crate::render::svg::esc;
 use crate::render::text::{au_text, SAFETY_CAUTION};
 use std::fmt::Write;
 use std::path::{Path, PathBuf};

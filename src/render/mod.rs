@@ -8,12 +8,15 @@
 //! - `prediction.rs`: `transits` and `predict` tables, CSV and JSON.
 //! - `planning.rs`: `plan` and `simulate` tables, CSV and JSON; sensitivity grids.
 //! - `reduction.rs`: `reduce` table and JSON.
-//! - `charts.rs`: the SVG charts (solar disc, station map, residuals, convergence, sensitivity
-//!   map, histogram) and escaping.
+//! - `svg.rs`: what every chart shares: escaping, the SVG opening, ticks, land outlines.
+//! - `charts.rs`: the reduction's charts (solar disc, station map, residuals, convergence).
+//! - `planning_charts.rs`: the sensitivity map and the histogram of simulated AU estimates.
 //! - `document.rs`: the HTML and Markdown reports.
 pub mod charts;
 pub mod document;
 pub mod planning;
+pub mod planning_charts;
 pub mod prediction;
 pub mod reduction;
+pub mod svg;
 pub mod text;

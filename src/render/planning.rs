@@ -81,6 +81,39 @@ fn au_sigma_km(parallax_sigma_arcsec: f64) -> f64 {
     AU_KM * parallax_sigma_arcsec * crate::sky::constants::ARCSEC_RAD / pi.tan()
 }
 
+/// The forecasts and the reasons for the choice, below the table of sites.
+fn plan_summary(plan: &Plan, s: &mut String) {
+    s.push_str("\ngain %: how much larger the forecast uncertainty of the whole candidate network would be without the site.\n");
+    if let Some(a) = plan.all_sites_sigma_arcsec {
+        s.push_str(&format!(
+            "Forecast with every site: parallax +- {a:.4}\" (AU +- {} km).\n",
+            thousands(au_sigma_km(a))
+        ));
+    }
+    if !plan.chosen.is_empty() {
+        let names: Vec<&str> = plan
+            .chosen
+            .iter()
+            .map(|&i| plan.sites[i].station.name.as_str())
+            .collect();
+        s.push_str(&format!(
+            "\nChosen ({}, marked *): {}\n",
+            names.len(),
+            names.join(", ")
+        ));
+        match plan.chosen_sigma_arcsec {
+            Some(x) => s.push_str(&format!(
+                "Forecast for the chosen sites: parallax +- {x:.4}\" (AU +- {} km).\n",
+                thousands(au_sigma_km(x))
+            )),
+            None => s.push_str("The chosen sites cannot determine the parallax by themselves.\n"),
+        }
+        for reason in &plan.reasons {
+            s.push_str(&format!("  - {reason}\n"));
+        }
+    }
+}
+
 /// A readable plan.
 pub fn plan_table(event: &TransitEvent, plan: &Plan, min_altitude_deg: f64) -> String {
     let mut s = format!(
@@ -129,40 +162,10 @@ pub fn plan_table(event: &TransitEvent, plan: &Plan, min_altitude_deg: f64) -> S
             ));
         }
         if site.contacts.is_empty() {
-            s.push_str(&format!(
-                "{name:<23}{mark} no contact of this transit here\n"
-            ));
+            s.push_str(&format!("{name}{mark} no contact of this transit here\n"));
         }
     }
-    s.push_str("\ngain %: how much larger the forecast uncertainty of the whole candidate network would be without the site.\n");
-    if let Some(a) = plan.all_sites_sigma_arcsec {
-        s.push_str(&format!(
-            "Forecast with every site: parallax +- {a:.4}\" (AU +- {:.0} km).\n",
-            au_sigma_km(a)
-        ));
-    }
-    if !plan.chosen.is_empty() {
-        let names: Vec<&str> = plan
-            .chosen
-            .iter()
-            .map(|&i| plan.sites[i].station.name.as_str())
-            .collect();
-        s.push_str(&format!(
-            "\nChosen ({}, marked *): {}\n",
-            names.len(),
-            names.join(", ")
-        ));
-        match plan.chosen_sigma_arcsec {
-            Some(x) => s.push_str(&format!(
-                "Forecast for the chosen sites: parallax +- {x:.4}\" (AU +- {:.0} km).\n",
-                au_sigma_km(x)
-            )),
-            None => s.push_str("The chosen sites cannot determine the parallax by themselves.\n"),
-        }
-        for reason in &plan.reasons {
-            s.push_str(&format!("  - {reason}\n"));
-        }
-    }
+    plan_summary(plan, &mut s);
     s.push('\n');
     s.push_str(SAFETY_CAUTION);
     s.push('\n');

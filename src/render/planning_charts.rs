@@ -1,0 +1,127 @@
+//! Charts of planning and simulation as self-contained SVG: a contact's sensitivity to the
+//! parallax over the Earth, and the histogram of simulated AU estimates.
+
+use crate::geometry::contacts::Contact;
+use crate::render::charts::residual_colour;
+use crate::render::svg::{esc, land_svg, svg_open, ticks};
+use std::fmt::Write;
+
+/// Colour for a sensitivity (s/arcsec) on a diverging scale saturating at `limit`.
+fn sensitivity_colour(v: f64, limit: f64) -> String {
+    residual_colour(2.0 * v / limit.max(1e-9))
+}
+
+/// A world map of one contact's sensitivity to the parallax (s/arcsec) where the contact is
+/// seen with the Sun at least `min_altitude_deg` up; grey where it is not.
+pub fn sensitivity_map_svg(
+    points: &[crate::planning::sites::GridPoint],
+    step_deg: f64,
+    contact: Contact,
+    min_altitude_deg: f64,
+    title: &str,
+) -> String {
+    let (w, h) = (720.0, 360.0);
+    let px = |lon: f64, lat: f64| ((lon + 180.0) * 2.0, (90.0 - lat) * 2.0);
+    let limit = points
+        .iter()
+        .filter(|p| p.sun_altitude_deg >= min_altitude_deg)
+        .map(|p| p.sensitivity_s_per_arcsec.abs())
+        .filter(|v| v.is_finite())
+        .fold(1e-3, f64::max);
+    let mut s = svg_open(w, h + 50.0, title);
+    let _ = writeln!(s, "<rect width=\"{w}\" height=\"{h}\" fill=\"#d1d5db\"/>");
+    // Cells merged into runs of one colour along each row of latitude.
+    let bin = |p: &crate::planning::sites::GridPoint| -> Option<i32> {
+        (p.sun_altitude_deg >= min_altitude_deg && p.sensitivity_s_per_arcsec.is_finite())
+            .then(|| (p.sensitivity_s_per_arcsec / limit * 8.0).round() as i32)
+    };
+    let mut i = 0;
+    while i < points.len() {
+        let p = &points[i];
+        let b = bin(p);
+        let mut j = i + 1;
+        while j < points.len() && points[j].latitude_deg == p.latitude_deg && bin(&points[j]) == b {
+            j += 1;
+        }
+        if let Some(b) = b {
+            let (x0, y0) = px(
+                p.longitude_deg - step_deg / 2.0,
+                p.latitude_deg + step_deg / 2.0,
+            );
+            let (x1, _) = px(points[j - 1].longitude_deg + step_deg / 2.0, p.latitude_deg);
+            let _ = writeln!(
+                s,
+                "<rect x=\"{x0:.1}\" y=\"{y0:.1}\" width=\"{:.1}\" height=\"{:.1}\" fill=\"{}\"/>",
+                x1 - x0,
+                step_deg * 2.0,
+                sensitivity_colour(f64::from(b) / 8.0 * limit, limit)
+            );
+        }
+        i = j;
+    }
+    s.push_str(&land_svg("none", "#374151", 0.5));
+    let ly = h + 18.0;
+    for (k, f) in [-1.0, -0.5, 0.0, 0.5, 1.0].iter().enumerate() {
+        let x = 10.0 + 40.0 * k as f64;
+        let _ = writeln!(s, "<rect x=\"{x}\" y=\"{}\" width=\"38\" height=\"10\" fill=\"{}\" stroke=\"#1f2937\" stroke-width=\"0.3\"/><text x=\"{}\" y=\"{}\" text-anchor=\"middle\" font-size=\"9\">{:+.1}</text>", ly - 10.0, sensitivity_colour(f * limit, limit), x + 19.0, ly + 10.0, f * limit);
+    }
+    let _ = writeln!(s, "<text x=\"220\" y=\"{ly}\">Contact {}: seconds per arcsecond of solar parallax. Grey: not seen with the Sun {min_altitude_deg:.0} degrees up.</text>", contact.roman());
+    let _ = writeln!(s, "<text x=\"220\" y=\"{}\" font-size=\"9\">{}. Land: Natural Earth 1:110m (public domain).</text>", ly + 14.0, esc(title));
+    s.push_str("</svg>\n");
+    s
+}
+
+/// A histogram of values (e.g. AU estimates in km) with the true value marked.
+pub fn histogram_svg(values: &[f64], truth: f64, x_label: &str, title: &str) -> String {
+    let (w, h) = (720.0, 320.0);
+    let (left, right, top, bottom) = (60.0, 20.0, 30.0, 50.0);
+    let mut s = svg_open(w, h, title);
+    let _ = writeln!(s, "<rect width=\"100%\" height=\"100%\" fill=\"#ffffff\"/><text x=\"{}\" y=\"18\" text-anchor=\"middle\">{}</text>", w / 2.0, esc(title));
+    if values.is_empty() {
+        s.push_str("<text x=\"20\" y=\"60\">No estimates.</text></svg>\n");
+        return s;
+    }
+    let lo = values
+        .iter()
+        .cloned()
+        .fold(f64::INFINITY, f64::min)
+        .min(truth);
+    let hi = values
+        .iter()
+        .cloned()
+        .fold(f64::NEG_INFINITY, f64::max)
+        .max(truth);
+    let span = (hi - lo).max(1e-9);
+    let bins = ((values.len() as f64).sqrt().ceil() as usize).clamp(5, 60);
+    let mut counts = vec![0usize; bins];
+    for v in values {
+        let k = (((v - lo) / span) * bins as f64).floor() as usize;
+        counts[k.min(bins - 1)] += 1;
+    }
+    let cmax = counts.iter().copied().max().unwrap_or(1).max(1) as f64;
+    let x_of = |v: f64| left + (w - left - right) * (v - lo) / span;
+    let bw = (w - left - right) / bins as f64;
+    for (k, c) in counts.iter().enumerate() {
+        let bh = (h - top - bottom) * *c as f64 / cmax;
+        let _ = writeln!(s, "<rect x=\"{:.1}\" y=\"{:.1}\" width=\"{:.1}\" height=\"{bh:.1}\" fill=\"#93c5fd\" stroke=\"#1d4ed8\" stroke-width=\"0.5\"/>", left + bw * k as f64, h - bottom - bh, bw);
+    }
+    for t in ticks(lo, hi, 6) {
+        let _ = writeln!(
+            s,
+            "<text x=\"{:.1}\" y=\"{}\" text-anchor=\"middle\" font-size=\"9\">{t}</text>",
+            x_of(t),
+            h - bottom + 14.0
+        );
+    }
+    let xt = x_of(truth);
+    let _ = writeln!(s, "<line x1=\"{xt:.1}\" y1=\"{top}\" x2=\"{xt:.1}\" y2=\"{}\" stroke=\"#16a34a\" stroke-width=\"2\"/><text x=\"{:.1}\" y=\"{}\" fill=\"#16a34a\">true value</text>", h - bottom, xt + 4.0, top + 12.0);
+    let _ = writeln!(
+        s,
+        "<text x=\"{}\" y=\"{}\" text-anchor=\"middle\">{}</text>",
+        w / 2.0,
+        h - 12.0,
+        esc(x_label)
+    );
+    s.push_str("</svg>\n");
+    s
+}

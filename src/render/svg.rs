@@ -1,0 +1,115 @@
+//! SVG basics every chart shares: escaping, the opening of a self-contained SVG, round tick
+//! values and the land outlines (Natural Earth 1:110m, public domain).
+
+use std::fmt::Write;
+
+/// Escape text for XML and HTML (element content and quoted attributes).
+pub fn esc(text: &str) -> String {
+    let mut s = String::with_capacity(text.len());
+    for ch in text.chars() {
+        match ch {
+            '&' => s.push_str("&amp;"),
+            '<' => s.push_str("&lt;"),
+            '>' => s.push_str("&gt;"),
+            '"' => s.push_str("&quot;"),
+            '\'' => s.push_str("&#39;"),
+            c if (c as u32) < 0x20 && c != '\n' && c != '\t' => s.push(' '),
+            c => s.push(c),
+        }
+    }
+    s
+}
+
+/// The opening tag of a self-contained SVG of that size, labelled for screen readers.
+pub fn svg_open(width: f64, height: f64, label: &str) -> String {
+    format!(
+        "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{width:.0}\" height=\"{height:.0}\" viewBox=\"0 0 {width:.0} {height:.0}\" role=\"img\" aria-label=\"{}\" font-family=\"sans-serif\" font-size=\"11\">\n",
+        esc(label)
+    )
+}
+
+/// "Nice" tick values covering [lo, hi].
+pub fn ticks(lo: f64, hi: f64, target: usize) -> Vec<f64> {
+    let span = (hi - lo).abs().max(1e-12);
+    let raw = span / target.max(1) as f64;
+    let mag = 10f64.powf(raw.log10().floor());
+    let step = [1.0, 2.0, 5.0, 10.0]
+        .iter()
+        .map(|m| m * mag)
+        .find(|s| *s >= raw)
+        .unwrap_or(10.0 * mag);
+    let start = (lo / step).ceil() * step;
+    let mut out = Vec::new();
+    let mut v = start;
+    while v <= hi + 1e-9 * span && out.len() < 50 {
+        out.push(if v.abs() < 1e-12 * span { 0.0 } else { v });
+        v += step;
+    }
+    out
+}
+
+/// The land outlines as rings of (longitude, latitude) in degrees (Natural Earth 1:110m,
+/// public domain; converted by tools/convert_land.py).
+pub fn land_rings() -> impl Iterator<Item = Vec<(f64, f64)>> {
+    const LAND: &str = include_str!("../data/land_110m.txt");
+    LAND.lines()
+        .filter(|l| !l.starts_with('#') && !l.trim().is_empty())
+        .flat_map(|line| {
+            let ring: Vec<(f64, f64)> = line
+                .split_whitespace()
+                .filter_map(|p| {
+                    let (a, b) = p.split_once(',')?;
+                    Some((a.parse().ok()?, b.parse().ok()?))
+                })
+                .collect();
+            // Rings that cross the antimeridian are cut there, so that no edge spans the map.
+            let mut parts: Vec<Vec<(f64, f64)>> = vec![Vec::new()];
+            for (k, &p) in ring.iter().enumerate() {
+                if k > 0 && (p.0 - ring[k - 1].0).abs() > 180.0 {
+                    parts.push(Vec::new());
+                }
+                if let Some(last) = parts.last_mut() {
+                    last.push(p);
+                }
+            }
+            parts.into_iter().filter(|r| r.len() >= 3)
+        })
+}
+
+/// Land outlines as an SVG group on the 720 x 360 equirectangular frame (2 px per degree).
+pub fn land_svg(fill: &str, stroke: &str, width: f64) -> String {
+    let mut s = format!("<g fill=\"{fill}\" stroke=\"{stroke}\" stroke-width=\"{width}\">\n");
+    for ring in land_rings() {
+        let pts: Vec<String> = ring
+            .iter()
+            .map(|&(lon, lat)| format!("{:.1},{:.1}", (lon + 180.0) * 2.0, (90.0 - lat) * 2.0))
+            .collect();
+        let _ = writeln!(s, "<polygon points=\"{}\"/>", pts.join(" "));
+    }
+    s.push_str("</g>\n");
+    s
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn escaping_neutralises_markup() {
+        assert_eq!(
+            esc("<script>\"x\" & 'y'</script>"),
+            "&lt;script&gt;&quot;x&quot; &amp; &#39;y&#39;&lt;/script&gt;"
+        );
+    }
+
+    #[test]
+    fn ticks_are_round_numbers() {
+        assert_eq!(ticks(0.0, 10.0, 5), vec![0.0, 2.0, 4.0, 6.0, 8.0, 10.0]);
+        assert!(ticks(-37.0, 37.0, 8).contains(&0.0));
+    }
+
+    #[test]
+    fn land_outlines_load() {
+        assert!(land_rings().count() > 100);
+    }
+}
