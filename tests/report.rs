@@ -281,3 +281,90 @@ fn a_browser_renders_the_demo_report() {
         "too little drawn ({non_white} dark pixels)"
     );
 }
+
+/// A text of an SVG: x, y and its content.
+type PlacedText = (f64, f64, String);
+
+/// The view box of an SVG and the (x, y) of every `<text>` in it.
+fn text_positions(svg: &str) -> ((f64, f64), Vec<PlacedText>) {
+    let mut reader = Reader::from_str(svg);
+    let mut view = (0.0, 0.0);
+    let mut texts = Vec::new();
+    let mut pending: Option<(f64, f64)> = None;
+    loop {
+        match reader.read_event() {
+            Ok(Event::Start(e)) | Ok(Event::Empty(e)) => {
+                let attr = |name: &[u8]| {
+                    e.attributes()
+                        .flatten()
+                        .find(|a| a.key.as_ref() == name)
+                        .map(|a| String::from_utf8_lossy(&a.value).into_owned())
+                };
+                if e.name().as_ref() == b"svg" {
+                    let vb: Vec<f64> = attr(b"viewBox")
+                        .unwrap()
+                        .split(' ')
+                        .map(|v| v.parse().unwrap())
+                        .collect();
+                    view = (vb[2], vb[3]);
+                }
+                if e.name().as_ref() == b"text" {
+                    let num = |n: &[u8]| attr(n).and_then(|v| v.parse().ok()).unwrap_or(0.0);
+                    pending = Some((num(b"x"), num(b"y")));
+                }
+            }
+            Ok(Event::Text(t)) => {
+                if let Some((x, y)) = pending.take() {
+                    texts.push((x, y, String::from_utf8_lossy(&t).into_owned()));
+                }
+            }
+            Ok(Event::Eof) => break,
+            Ok(_) => {}
+            Err(e) => panic!("not well-formed: {e}"),
+        }
+    }
+    (view, texts)
+}
+
+#[test]
+fn charts_carry_their_labels_inside_the_view_box() {
+    // Regression (charts judged from screenshots): a count axis and million-km ticks on the
+    // histogram, the true-value label above the bars, graticule labels and a size key on the
+    // map, tick labels without needless decimals on the convergence chart.
+    let red = demo();
+    let values: Vec<f64> = (0..200)
+        .map(|k| 149.6e6 + 1.0e4 * f64::from(k - 100))
+        .collect();
+    let hist = transit_parallax::render::planning_charts::histogram_svg(
+        &values,
+        149_597_870.7,
+        ("astronomical unit (million km)", 1e6),
+        "AU from 200 campaigns",
+    );
+    let map = transit_parallax::render::charts::station_map_svg(&red);
+    let conv = transit_parallax::render::charts::convergence_svg(&red);
+    for (svg, needles) in [
+        (&hist, vec!["campaigns", "true value", "million km", "150"]),
+        (
+            &map,
+            vec!["60°N", "120°W", "Share of the information", "20 %"],
+        ),
+        (&conv, vec!["solar parallax (arcsec)"]),
+    ] {
+        let ((w, h), texts) = text_positions(svg);
+        for n in needles {
+            assert!(texts.iter().any(|t| t.2.contains(n)), "label {n}");
+        }
+        for (x, y, t) in &texts {
+            assert!(
+                (0.0..=w).contains(x) && (0.0..=h).contains(y),
+                "{t} at {x},{y}"
+            );
+            assert!(!t.ends_with(".000"), "needless decimals: {t}");
+        }
+    }
+    // The true-value label sits above the plotting area, clear of the bars.
+    let (_, texts) = text_positions(&hist);
+    let label = texts.iter().find(|t| t.2 == "true value").unwrap();
+    assert!(label.1 < 50.0, "{label:?}");
+}

@@ -260,7 +260,7 @@ fn simulate(a: SimulateArgs) -> Result<String, Error> {
         let svg = planning_charts::histogram_svg(
             &summary.au_estimates_km,
             AU_KM,
-            "astronomical unit (km)",
+            ("astronomical unit (million km)", 1e6),
             &title,
         );
         write_file(path, &svg)?;

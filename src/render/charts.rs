@@ -5,7 +5,7 @@
 use crate::geometry::contacts::{offset_on_plane, Contact};
 use crate::geometry::station::Station;
 use crate::reduction::Reduction;
-use crate::render::svg::{esc, land_svg, svg_open, ticks};
+use crate::render::svg::{esc, land_svg, svg_open, ticks, trim_tick};
 use crate::sky::constants::{sun_radius_au, ARCSEC_RAD};
 use crate::sky::vector::norm;
 use std::fmt::Write;
@@ -207,7 +207,7 @@ pub fn solar_disc_svg(red: &Reduction) -> String {
 pub fn station_map_svg(red: &Reduction) -> String {
     let (w, h) = (720.0, 360.0);
     let px = |lon: f64, lat: f64| ((lon + 180.0) * 2.0, (90.0 - lat) * 2.0);
-    let mut s = svg_open(w, h + 40.0, "World map of the stations");
+    let mut s = svg_open(w, h + 80.0, "World map of the stations");
     let _ = writeln!(s, "<rect width=\"{w}\" height=\"{h}\" fill=\"#dbeafe\"/>");
     s.push_str(&land_svg("#e7e2d3", "#9c9581", 0.4));
     let _ = writeln!(s, "<g stroke=\"#94a3b8\" stroke-width=\"0.3\">");
@@ -215,7 +215,12 @@ pub fn station_map_svg(red: &Reduction) -> String {
         let (_, y) = px(0.0, lat);
         let _ = writeln!(s, "<line x1=\"0\" y1=\"{y}\" x2=\"{w}\" y2=\"{y}\"/>");
     }
+    for lon in [-120.0, -60.0, 0.0, 60.0, 120.0] {
+        let (x, _) = px(lon, 0.0);
+        let _ = writeln!(s, "<line x1=\"{x}\" y1=\"0\" x2=\"{x}\" y2=\"{h}\"/>");
+    }
     let _ = writeln!(s, "</g>");
+    s.push_str(&graticule_labels(h));
     for (i, st) in red.stations.iter().enumerate().take(MAP_STATIONS_MAX) {
         let (x, y) = px(st.longitude_deg, st.latitude_deg);
         if let Some(why) = &st.not_used {
@@ -245,9 +250,52 @@ pub fn station_map_svg(red: &Reduction) -> String {
         let x = 10.0 + 28.0 * k as f64;
         let _ = writeln!(s, "<rect x=\"{x}\" y=\"{}\" width=\"26\" height=\"10\" fill=\"{}\" stroke=\"#1f2937\" stroke-width=\"0.3\"/><text x=\"{}\" y=\"{}\" text-anchor=\"middle\" font-size=\"9\">{z:+.0}</text>", legend_y - 10.0, residual_colour(*z), x + 13.0, legend_y + 10.0);
     }
-    let _ = writeln!(s, "<text x=\"160\" y=\"{legend_y}\">Colour: mean (O - C)/sigma of the station's timings. Area: share of the information on the parallax. Red cross: no timing used.</text>");
-    let _ = writeln!(s, "<text x=\"160\" y=\"{}\" font-size=\"9\">Land: Natural Earth 1:110m (public domain).</text>", legend_y + 14.0);
+    let _ = writeln!(s, "<text x=\"160\" y=\"{legend_y}\">Colour: mean (O - C)/sigma of the station's timings. Area: share of the information on the parallax.</text>");
+    let _ = writeln!(s, "<text x=\"160\" y=\"{}\" font-size=\"9\">Red cross: a station none of whose timings was used. Land: Natural Earth 1:110m (public domain).</text>", legend_y + 14.0);
+    // Size key: marker areas for three shares of the information.
+    let key_y = legend_y + 34.0;
+    let _ = writeln!(
+        s,
+        "<text x=\"10\" y=\"{}\" font-size=\"10\">Share of the information:</text>",
+        key_y + 4.0
+    );
+    for (k, share) in [0.01f64, 0.05, 0.2].iter().enumerate() {
+        let x = 190.0 + 90.0 * k as f64;
+        let r = 2.5 + 30.0 * share.sqrt();
+        let _ = writeln!(s, "<circle cx=\"{x}\" cy=\"{key_y}\" r=\"{r:.1}\" fill=\"#e5e7eb\" stroke=\"#1f2937\" stroke-width=\"0.6\"/><text x=\"{:.1}\" y=\"{:.1}\" font-size=\"10\">{:.0} %</text>", x + r + 4.0, key_y + 4.0, 100.0 * share);
+    }
     s.push_str("</svg>\n");
+    s
+}
+
+/// Latitude labels at the left edge and longitude labels along the bottom of the 2 px per
+/// degree equirectangular frame.
+fn graticule_labels(h: f64) -> String {
+    let mut s = String::from("<g font-size=\"9\" fill=\"#475569\">");
+    for lat in [-60i32, -30, 0, 30, 60] {
+        let y = f64::from(90 - lat) * 2.0;
+        let label = match lat.cmp(&0) {
+            std::cmp::Ordering::Less => format!("{}°S", -lat),
+            std::cmp::Ordering::Greater => format!("{lat}°N"),
+            std::cmp::Ordering::Equal => "0°".into(),
+        };
+        let _ = write!(s, "<text x=\"3\" y=\"{:.1}\">{label}</text>", y - 2.0);
+    }
+    for lon in [-120i32, -60, 0, 60, 120] {
+        let x = f64::from(lon + 180) * 2.0;
+        let label = match lon.cmp(&0) {
+            std::cmp::Ordering::Less => format!("{}°W", -lon),
+            std::cmp::Ordering::Greater => format!("{lon}°E"),
+            std::cmp::Ordering::Equal => "0°".into(),
+        };
+        let _ = write!(
+            s,
+            "<text x=\"{:.1}\" y=\"{:.1}\">{label}</text>",
+            x + 2.0,
+            h - 3.0
+        );
+    }
+    s.push_str("</g>\n");
     s
 }
 
@@ -390,15 +438,14 @@ pub fn convergence_svg(red: &Reduction) -> String {
     let spread = pts
         .iter()
         .map(|p| (p.parallax_arcsec - final_pi).abs() + p.sigma_arcsec)
-        .fold(0.05, f64::max)
-        .min(3.0);
+        .fold(0.05, f64::max);
     let (ylo, yhi) = (final_pi - spread * 1.1, final_pi + spread * 1.1);
     let nmax = last.timings as f64;
     let x_of = |n: f64| left + (w - left - right) * n / nmax;
     let y_of = |v: f64| top + (h - top - bottom) * (yhi - v.clamp(ylo, yhi)) / (yhi - ylo);
     for t in ticks(ylo, yhi, 6) {
         let y = y_of(t);
-        let _ = writeln!(s, "<line x1=\"{left}\" y1=\"{y:.1}\" x2=\"{}\" y2=\"{y:.1}\" stroke=\"#e5e7eb\"/><text x=\"{}\" y=\"{:.1}\" text-anchor=\"end\">{t:.3}</text>", w - right, left - 5.0, y + 4.0);
+        let _ = writeln!(s, "<line x1=\"{left}\" y1=\"{y:.1}\" x2=\"{}\" y2=\"{y:.1}\" stroke=\"#e5e7eb\"/><text x=\"{}\" y=\"{:.1}\" text-anchor=\"end\">{}</text>", w - right, left - 5.0, y + 4.0, trim_tick(t));
     }
     for t in ticks(0.0, nmax, 8) {
         let x = x_of(t);

@@ -3,7 +3,7 @@
 
 use crate::geometry::contacts::Contact;
 use crate::render::charts::residual_colour;
-use crate::render::svg::{esc, land_svg, svg_open, ticks};
+use crate::render::svg::{esc, land_svg, svg_open, ticks, trim_tick};
 use std::fmt::Write;
 
 /// Colour for a sensitivity (s/arcsec) on a diverging scale saturating at `limit`.
@@ -72,9 +72,14 @@ pub fn sensitivity_map_svg(
 }
 
 /// A histogram of values (e.g. AU estimates in km) with the true value marked.
-pub fn histogram_svg(values: &[f64], truth: f64, x_label: &str, title: &str) -> String {
-    let (w, h) = (720.0, 320.0);
-    let (left, right, top, bottom) = (60.0, 20.0, 30.0, 50.0);
+pub fn histogram_svg(
+    values: &[f64],
+    truth: f64,
+    (x_label, tick_scale): (&str, f64),
+    title: &str,
+) -> String {
+    let (w, h) = (720.0, 340.0);
+    let (left, right, top, bottom) = (70.0, 20.0, 50.0, 50.0);
     let mut s = svg_open(w, h, title);
     let _ = writeln!(s, "<rect width=\"100%\" height=\"100%\" fill=\"#ffffff\"/><text x=\"{}\" y=\"18\" text-anchor=\"middle\">{}</text>", w / 2.0, esc(title));
     if values.is_empty() {
@@ -105,16 +110,30 @@ pub fn histogram_svg(values: &[f64], truth: f64, x_label: &str, title: &str) -> 
         let bh = (h - top - bottom) * *c as f64 / cmax;
         let _ = writeln!(s, "<rect x=\"{:.1}\" y=\"{:.1}\" width=\"{:.1}\" height=\"{bh:.1}\" fill=\"#93c5fd\" stroke=\"#1d4ed8\" stroke-width=\"0.5\"/>", left + bw * k as f64, h - bottom - bh, bw);
     }
-    for t in ticks(lo, hi, 6) {
+    for t in ticks(lo / tick_scale, hi / tick_scale, 6) {
+        let x = x_of(t * tick_scale);
+        if !(left - 1.0..=w - right + 1.0).contains(&x) {
+            continue;
+        }
         let _ = writeln!(
             s,
-            "<text x=\"{:.1}\" y=\"{}\" text-anchor=\"middle\" font-size=\"9\">{t}</text>",
-            x_of(t),
-            h - bottom + 14.0
+            "<line x1=\"{x:.1}\" y1=\"{}\" x2=\"{x:.1}\" y2=\"{}\" stroke=\"#6b7280\"/><text x=\"{x:.1}\" y=\"{}\" text-anchor=\"middle\" font-size=\"10\">{}</text>",
+            h - bottom,
+            h - bottom + 4.0,
+            h - bottom + 16.0,
+            trim_tick(t)
         );
     }
+    // The count axis.
+    let y_of = |c: f64| h - bottom - (h - top - bottom) * c / cmax;
+    for c in ticks(0.0, cmax, 5) {
+        let y = y_of(c);
+        let _ = writeln!(s, "<line x1=\"{}\" y1=\"{y:.1}\" x2=\"{left}\" y2=\"{y:.1}\" stroke=\"#6b7280\"/><text x=\"{}\" y=\"{:.1}\" text-anchor=\"end\" font-size=\"10\">{c}</text>", left - 4.0, left - 6.0, y + 3.0);
+    }
+    let _ = writeln!(s, "<line x1=\"{left}\" y1=\"{top}\" x2=\"{left}\" y2=\"{}\" stroke=\"#6b7280\"/><text x=\"16\" y=\"{}\" transform=\"rotate(-90 16 {})\" text-anchor=\"middle\">campaigns</text>", h - bottom, (top + h - bottom) / 2.0, (top + h - bottom) / 2.0);
+    // The true value, labelled above the bars.
     let xt = x_of(truth);
-    let _ = writeln!(s, "<line x1=\"{xt:.1}\" y1=\"{top}\" x2=\"{xt:.1}\" y2=\"{}\" stroke=\"#16a34a\" stroke-width=\"2\"/><text x=\"{:.1}\" y=\"{}\" fill=\"#16a34a\">true value</text>", h - bottom, xt + 4.0, top + 12.0);
+    let _ = writeln!(s, "<line x1=\"{xt:.1}\" y1=\"{}\" x2=\"{xt:.1}\" y2=\"{}\" stroke=\"#16a34a\" stroke-width=\"2\"/><text x=\"{xt:.1}\" y=\"{}\" text-anchor=\"middle\" fill=\"#16a34a\">true value</text>", top - 8.0, h - bottom, top - 12.0);
     let _ = writeln!(
         s,
         "<text x=\"{}\" y=\"{}\" text-anchor=\"middle\">{}</text>",

@@ -90,6 +90,17 @@ pub fn land_svg(fill: &str, stroke: &str, width: f64) -> String {
     s
 }
 
+/// A tick value without needless decimals (`148`, `148.5`, not `148.000`).
+pub fn trim_tick(t: f64) -> String {
+    let s = format!("{t:.6}");
+    let s = s.trim_end_matches('0').trim_end_matches('.');
+    if s == "-0" {
+        "0".into()
+    } else {
+        s.to_string()
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -100,6 +111,13 @@ mod tests {
             esc("<script>\"x\" & 'y'</script>"),
             "&lt;script&gt;&quot;x&quot; &amp; &#39;y&#39;&lt;/script&gt;"
         );
+    }
+
+    #[test]
+    fn tick_labels_have_no_needless_decimals() {
+        assert_eq!(trim_tick(12.0), "12");
+        assert_eq!(trim_tick(8.85), "8.85");
+        assert_eq!(trim_tick(-0.0), "0");
     }
 
     #[test]
