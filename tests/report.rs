@@ -342,6 +342,7 @@ fn charts_carry_their_labels_inside_the_view_box() {
         "AU from 200 campaigns",
     );
     let map = transit_parallax::render::charts::station_map_svg(&red);
+    let disc = transit_parallax::render::charts::solar_disc_svg(&red);
     let conv = transit_parallax::render::charts::convergence_svg(&red);
     for (svg, needles) in [
         (&hist, vec!["campaigns", "true value", "million km", "150"]),
@@ -350,6 +351,7 @@ fn charts_carry_their_labels_inside_the_view_box() {
             vec!["60°N", "120°W", "Share of the information", "20 %"],
         ),
         (&conv, vec!["solar parallax (arcsec)"]),
+        (&disc, vec!["100\"", "drawn to scale", "lie off the limb"]),
     ] {
         let ((w, h), texts) = text_positions(svg);
         for n in needles {
@@ -361,6 +363,20 @@ fn charts_carry_their_labels_inside_the_view_box() {
                 "{t} at {x},{y}"
             );
             assert!(!t.ends_with(".000"), "needless decimals: {t}");
+        }
+    }
+    // Station numbers on the disc never sit within 12 px of one another.
+    let (_, texts) = text_positions(&disc);
+    let numbers: Vec<&PlacedText> = texts
+        .iter()
+        .filter(|t| t.2.parse::<u32>().is_ok())
+        .collect();
+    for (a, p) in numbers.iter().enumerate() {
+        for q in &numbers[a + 1..] {
+            assert!(
+                (p.0 - q.0).hypot(p.1 - q.1) > 12.0,
+                "{p:?} and {q:?} overprint"
+            );
         }
     }
     // The true-value label sits above the plotting area, clear of the bars.

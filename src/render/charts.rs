@@ -23,6 +23,14 @@ pub fn residual_colour(z: f64) -> String {
 }
 
 /// The Sun's apparent semidiameter (arcsec) at greatest transit.
+/// The planet's apparent semidiameter at greatest transit, arcsec.
+fn planet_semidiameter_arcsec(red: &Reduction) -> f64 {
+    let ev = &red.event;
+    let p_er = norm(ev.elements.planet_earth_radii(ev.hours_of_greatest()));
+    let p_au = p_er / crate::geometry::besselian::earth_radii_per_au();
+    (ev.planet.radius_au() / p_au).asin() / ARCSEC_RAD
+}
+
 fn sun_semidiameter_arcsec(red: &Reduction) -> f64 {
     let ev = &red.event;
     let s_er = norm(ev.elements.sun_earth_radii(ev.hours_of_greatest()));
@@ -149,7 +157,7 @@ pub fn solar_disc_svg(red: &Reduction) -> String {
     let (paths, _) = station_paths(red, factor);
     let mut s = svg_open(
         size,
-        size + 40.0,
+        size + 52.0,
         "Solar disc with the planet's path from each station",
     );
     let _ = writeln!(s, "<rect width=\"100%\" height=\"100%\" fill=\"#ffffff\"/>");
@@ -158,6 +166,7 @@ pub fn solar_disc_svg(red: &Reduction) -> String {
     let _ = writeln!(s, "<text x=\"{c}\" y=\"16\" text-anchor=\"middle\">N</text><text x=\"12\" y=\"{}\" text-anchor=\"middle\">E</text><text x=\"{}\" y=\"{}\" text-anchor=\"middle\">W</text>", c + 4.0, size - 12.0, c + 4.0);
     let xy = |e: f64, n: f64| (c - e * scale, c - n * scale);
     let _ = writeln!(s, "<g clip-path=\"url(#disc-area)\" fill=\"none\">");
+    let mut placed: Vec<(f64, f64)> = Vec::new();
     for (i, (name, path, points)) in paths.iter().enumerate() {
         let d: Vec<String> = path
             .iter()
@@ -177,29 +186,67 @@ pub fn solar_disc_svg(red: &Reduction) -> String {
             let _ = writeln!(s, "<circle cx=\"{x:.1}\" cy=\"{y:.1}\" r=\"2.5\" fill=\"#c53030\"><title>{} contact {}</title></circle>", esc(name), cn);
         }
         if i > 0 {
-            if let Some(&(e, n)) = path
+            // Number the path where it is closest to the disc's centre, and only where no
+            // other number is within 12 px (they crowd at ingress and egress otherwise).
+            let closest = path
                 .iter()
-                .find(|&&(e, n)| (e * e + n * n).sqrt() < sd * 1.02)
-            {
+                .copied()
+                .min_by(|a, b| (a.0 * a.0 + a.1 * a.1).total_cmp(&(b.0 * b.0 + b.1 * b.1)));
+            if let Some((e, n)) = closest {
                 let (x, y) = xy(e, n);
-                let _ = writeln!(
-                    s,
-                    "<text x=\"{:.1}\" y=\"{:.1}\" font-size=\"9\" fill=\"#2b6cb0\">{}</text>",
-                    x + 3.0,
-                    y - 3.0,
-                    i
-                );
+                let (lx, ly) = (x + 3.0, y - 3.0 - 9.0 * (i % 3) as f64);
+                if placed
+                    .iter()
+                    .all(|&(px, py): &(f64, f64)| (px - lx).hypot(py - ly) > 12.0)
+                {
+                    placed.push((lx, ly));
+                    let _ = writeln!(
+                        s,
+                        "<text x=\"{lx:.1}\" y=\"{ly:.1}\" font-size=\"9\" fill=\"#2b6cb0\">{i}</text>"
+                    );
+                }
             }
         }
     }
     let _ = writeln!(s, "</g>");
-    let _ = writeln!(
-        s,
-        "<text x=\"10\" y=\"{}\">Black: geocentric path. Blue: each station's path (numbered as in the station table), its parallax displacement exaggerated {factor:.0} times. Red dots: contacts.</text>",
-        size + 25.0
-    );
+    s.push_str(&disc_scale(red, (c, size), scale));
+    let caption = [
+        "Black: the geocentric path. Blue: each station's path, numbered as in the station table,",
+        &format!("its parallax displacement drawn {factor:.0} times larger than it is, so the red contact dots"),
+        "lie off the limb by the same factor. The planet is drawn to scale at greatest transit.",
+    ];
+    for (k, line) in caption.iter().enumerate() {
+        let _ = writeln!(
+            s,
+            "<text x=\"10\" y=\"{}\">{}</text>",
+            size + 14.0 + 14.0 * k as f64,
+            esc(line)
+        );
+    }
     s.push_str("</svg>\n");
     s
+}
+
+/// The planet's disc to scale at the geocentric greatest-transit point, and a scale bar of
+/// 100 arcsec.
+fn disc_scale(red: &Reduction, (c, size): (f64, f64), scale: f64) -> String {
+    let ev = &red.event;
+    let p = red.perturbation();
+    let k = 1.0 / (ev.earth_radii_per_arcsec() * p.length_scale);
+    let (u, v) = offset_on_plane(&ev.elements, None, ev.hours_of_greatest(), &p);
+    let (x, y) = (c - u * k * scale, c - v * k * scale);
+    let r = planet_semidiameter_arcsec(red) * scale;
+    let bar = 100.0 * scale;
+    format!(
+        "<circle cx=\"{x:.1}\" cy=\"{y:.1}\" r=\"{r:.2}\" fill=\"#111827\"><title>{} to scale at greatest transit</title></circle>\n<g stroke=\"#374151\" stroke-width=\"1.5\"><line x1=\"{:.1}\" y1=\"{:.1}\" x2=\"{:.1}\" y2=\"{:.1}\"/></g><text x=\"{:.1}\" y=\"{:.1}\" text-anchor=\"middle\" font-size=\"10\">100\"</text>\n",
+        ev.planet,
+        size - 20.0 - bar,
+        size - 24.0,
+        size - 20.0,
+        size - 24.0,
+        size - 20.0 - bar / 2.0,
+        size - 28.0
+    )
 }
 
 /// A world map (equirectangular) with each station: marker area by its information share,
