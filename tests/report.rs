@@ -343,6 +343,23 @@ fn charts_carry_their_labels_inside_the_view_box() {
     );
     let map = transit_parallax::render::charts::station_map_svg(&red);
     let disc = transit_parallax::render::charts::solar_disc_svg(&red);
+    let grid = transit_parallax::planning::sites::sensitivity_grid(
+        &red.event,
+        transit_parallax::Contact::II,
+        10.0,
+    );
+    let site = transit_parallax::Station::new("Ice Point", -77.8, 166.7, 20.0).unwrap();
+    let plan_map = transit_parallax::render::planning_charts::sensitivity_map_svg(
+        &grid,
+        (10.0, 5.0),
+        transit_parallax::Contact::II,
+        std::slice::from_ref(&site),
+        "test map",
+    );
+    assert!(
+        plan_map.contains("<title>Ice Point (#1)</title>"),
+        "the sites are plotted"
+    );
     let conv = transit_parallax::render::charts::convergence_svg(&red);
     for (svg, needles) in [
         (&hist, vec!["campaigns", "true value", "million km", "150"]),
@@ -352,6 +369,7 @@ fn charts_carry_their_labels_inside_the_view_box() {
         ),
         (&conv, vec!["solar parallax (arcsec)"]),
         (&disc, vec!["100\"", "drawn to scale", "lie off the limb"]),
+        (&plan_map, vec!["30°N", "60°E", "Triangles: the sites"]),
     ] {
         let ((w, h), texts) = text_positions(svg);
         for n in needles {

@@ -163,9 +163,9 @@ fn plan(a: PlanArgs) -> Result<String, Error> {
         );
         let svg = planning_charts::sensitivity_map_svg(
             &grid,
-            a.grid_deg,
+            (a.grid_deg, a.min_altitude),
             contact,
-            a.min_altitude,
+            &stations,
             &title,
         );
         write_file(path, &svg)?;

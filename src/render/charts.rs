@@ -5,7 +5,7 @@
 use crate::geometry::contacts::{offset_on_plane, Contact};
 use crate::geometry::station::Station;
 use crate::reduction::Reduction;
-use crate::render::svg::{esc, land_svg, svg_open, ticks, trim_tick};
+use crate::render::svg::{esc, graticule_labels, land_svg, svg_open, ticks, trim_tick};
 use crate::sky::constants::{sun_radius_au, ARCSEC_RAD};
 use crate::sky::vector::norm;
 use std::fmt::Write;
@@ -312,37 +312,6 @@ pub fn station_map_svg(red: &Reduction) -> String {
         let _ = writeln!(s, "<circle cx=\"{x}\" cy=\"{key_y}\" r=\"{r:.1}\" fill=\"#e5e7eb\" stroke=\"#1f2937\" stroke-width=\"0.6\"/><text x=\"{:.1}\" y=\"{:.1}\" font-size=\"10\">{:.0} %</text>", x + r + 4.0, key_y + 4.0, 100.0 * share);
     }
     s.push_str("</svg>\n");
-    s
-}
-
-/// Latitude labels at the left edge and longitude labels along the bottom of the 2 px per
-/// degree equirectangular frame.
-fn graticule_labels(h: f64) -> String {
-    let mut s = String::from("<g font-size=\"9\" fill=\"#475569\">");
-    for lat in [-60i32, -30, 0, 30, 60] {
-        let y = f64::from(90 - lat) * 2.0;
-        let label = match lat.cmp(&0) {
-            std::cmp::Ordering::Less => format!("{}°S", -lat),
-            std::cmp::Ordering::Greater => format!("{lat}°N"),
-            std::cmp::Ordering::Equal => "0°".into(),
-        };
-        let _ = write!(s, "<text x=\"3\" y=\"{:.1}\">{label}</text>", y - 2.0);
-    }
-    for lon in [-120i32, -60, 0, 60, 120] {
-        let x = f64::from(lon + 180) * 2.0;
-        let label = match lon.cmp(&0) {
-            std::cmp::Ordering::Less => format!("{}°W", -lon),
-            std::cmp::Ordering::Greater => format!("{lon}°E"),
-            std::cmp::Ordering::Equal => "0°".into(),
-        };
-        let _ = write!(
-            s,
-            "<text x=\"{:.1}\" y=\"{:.1}\">{label}</text>",
-            x + 2.0,
-            h - 3.0
-        );
-    }
-    s.push_str("</g>\n");
     s
 }
 

@@ -8,7 +8,8 @@
 //! - `prediction.rs`: `transits` and `predict` tables, CSV and JSON.
 //! - `planning.rs`: `plan` and `simulate` tables, CSV and JSON; sensitivity grids.
 //! - `reduction.rs`: `reduce` table and JSON.
-//! - `svg.rs`: what every chart shares: escaping, the SVG opening, ticks, land outlines.
+//! - `svg.rs`: what every chart shares: escaping, the SVG opening, ticks, land outlines and
+//!   graticule labels.
 //! - `charts.rs`: the reduction's charts (solar disc, station map, residuals, convergence).
 //! - `planning_charts.rs`: the sensitivity map and the histogram of simulated AU estimates.
 //! - `document.rs`: the HTML and Markdown reports.

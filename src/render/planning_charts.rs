@@ -2,8 +2,9 @@
 //! parallax over the Earth, and the histogram of simulated AU estimates.
 
 use crate::geometry::contacts::Contact;
+use crate::geometry::station::Station;
 use crate::render::charts::residual_colour;
-use crate::render::svg::{esc, land_svg, svg_open, ticks, trim_tick};
+use crate::render::svg::{esc, graticule_labels, land_svg, svg_open, ticks, trim_tick};
 use std::fmt::Write;
 
 /// Colour for a sensitivity (s/arcsec) on a diverging scale saturating at `limit`.
@@ -15,9 +16,9 @@ fn sensitivity_colour(v: f64, limit: f64) -> String {
 /// seen with the Sun at least `min_altitude_deg` up; grey where it is not.
 pub fn sensitivity_map_svg(
     points: &[crate::planning::sites::GridPoint],
-    step_deg: f64,
+    (step_deg, min_altitude_deg): (f64, f64),
     contact: Contact,
-    min_altitude_deg: f64,
+    sites: &[Station],
     title: &str,
 ) -> String {
     let (w, h) = (720.0, 360.0);
@@ -29,7 +30,7 @@ pub fn sensitivity_map_svg(
         .filter(|v| v.is_finite())
         .fold(1e-3, f64::max);
     let mut s = svg_open(w, h + 50.0, title);
-    let _ = writeln!(s, "<rect width=\"{w}\" height=\"{h}\" fill=\"#d1d5db\"/>");
+    let _ = writeln!(s, "<rect width=\"{w}\" height=\"{h}\" fill=\"#f3f4f6\"/>");
     // Cells merged into runs of one colour along each row of latitude.
     let bin = |p: &crate::planning::sites::GridPoint| -> Option<i32> {
         (p.sun_altitude_deg >= min_altitude_deg && p.sensitivity_s_per_arcsec.is_finite())
@@ -59,14 +60,21 @@ pub fn sensitivity_map_svg(
         }
         i = j;
     }
-    s.push_str(&land_svg("none", "#374151", 0.5));
+    // Land shaded lightly over everything, so that ocean tells from land where the contact is
+    // not seen as well as where it is.
+    s.push_str(&land_svg("rgba(55,65,81,0.22)", "#374151", 0.5));
+    s.push_str(&graticule_labels(h));
+    for (k, site) in sites.iter().enumerate() {
+        let (x, y) = px(site.longitude_deg, site.latitude_deg);
+        let _ = writeln!(s, "<path d=\"M{x:.1},{:.1} l4,7 l-8,0 z\" fill=\"#111827\" stroke=\"#ffffff\" stroke-width=\"0.6\"><title>{} (#{})</title></path>", y - 4.0, esc(&site.name), k + 1);
+    }
     let ly = h + 18.0;
     for (k, f) in [-1.0, -0.5, 0.0, 0.5, 1.0].iter().enumerate() {
         let x = 10.0 + 40.0 * k as f64;
         let _ = writeln!(s, "<rect x=\"{x}\" y=\"{}\" width=\"38\" height=\"10\" fill=\"{}\" stroke=\"#1f2937\" stroke-width=\"0.3\"/><text x=\"{}\" y=\"{}\" text-anchor=\"middle\" font-size=\"9\">{:+.1}</text>", ly - 10.0, sensitivity_colour(f * limit, limit), x + 19.0, ly + 10.0, f * limit);
     }
-    let _ = writeln!(s, "<text x=\"220\" y=\"{ly}\">Contact {}: seconds per arcsecond of solar parallax. Grey: not seen with the Sun {min_altitude_deg:.0} degrees up.</text>", contact.roman());
-    let _ = writeln!(s, "<text x=\"220\" y=\"{}\" font-size=\"9\">{}. Land: Natural Earth 1:110m (public domain).</text>", ly + 14.0, esc(title));
+    let _ = writeln!(s, "<text x=\"220\" y=\"{ly}\">Contact {}: seconds per arcsecond of solar parallax. Light: not seen with the Sun {min_altitude_deg:.0} degrees up.</text>", contact.roman());
+    let _ = writeln!(s, "<text x=\"220\" y=\"{}\" font-size=\"9\">{}. Triangles: the sites. Land (shaded): Natural Earth 1:110m (public domain).</text>", ly + 14.0, esc(title));
     s.push_str("</svg>\n");
     s
 }

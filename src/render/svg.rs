@@ -101,6 +101,37 @@ pub fn trim_tick(t: f64) -> String {
     }
 }
 
+/// Latitude labels at the left edge and longitude labels along the bottom of the 2 px per
+/// degree equirectangular frame.
+pub fn graticule_labels(h: f64) -> String {
+    let mut s = String::from("<g font-size=\"9\" fill=\"#475569\">");
+    for lat in [-60i32, -30, 0, 30, 60] {
+        let y = f64::from(90 - lat) * 2.0;
+        let label = match lat.cmp(&0) {
+            std::cmp::Ordering::Less => format!("{}°S", -lat),
+            std::cmp::Ordering::Greater => format!("{lat}°N"),
+            std::cmp::Ordering::Equal => "0°".into(),
+        };
+        let _ = write!(s, "<text x=\"3\" y=\"{:.1}\">{label}</text>", y - 2.0);
+    }
+    for lon in [-120i32, -60, 0, 60, 120] {
+        let x = f64::from(lon + 180) * 2.0;
+        let label = match lon.cmp(&0) {
+            std::cmp::Ordering::Less => format!("{}°W", -lon),
+            std::cmp::Ordering::Greater => format!("{lon}°E"),
+            std::cmp::Ordering::Equal => "0°".into(),
+        };
+        let _ = write!(
+            s,
+            "<text x=\"{:.1}\" y=\"{:.1}\">{label}</text>",
+            x + 2.0,
+            h - 3.0
+        );
+    }
+    s.push_str("</g>\n");
+    s
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
