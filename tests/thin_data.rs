@@ -4,30 +4,9 @@
 //! as a new user would (common practice of the trade: a result with no support is "not
 //! determined", said in words).
 
-use std::path::PathBuf;
-use std::process::{Command, Output};
+mod common;
 
-fn data(name: &str) -> String {
-    let p: PathBuf = [env!("CARGO_MANIFEST_DIR"), "tests", "data", name]
-        .iter()
-        .collect();
-    p.to_string_lossy().into_owned()
-}
-
-fn run(args: &[&str]) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_transit-parallax"))
-        .args(args)
-        .output()
-        .expect("binary runs")
-}
-
-fn out(o: &Output) -> String {
-    String::from_utf8_lossy(&o.stdout).into_owned()
-}
-
-fn err(o: &Output) -> String {
-    String::from_utf8_lossy(&o.stderr).into_owned()
-}
+use common::*;
 
 fn json(args: &[&str]) -> serde_json::Value {
     let o = run(args);

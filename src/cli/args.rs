@@ -68,9 +68,7 @@ impl EventArgs {
     pub fn transit(&self) -> Result<transit_parallax::TransitEvent, Error> {
         let planet = planet_of(&self.planet)?;
         let date = date_of(&self.date)?;
-        let model = self.time.model()?;
-        model.validate_for_year(chrono::Datelike::year(&date))?;
-        transit_parallax::transit_on_date(planet, date, &model)
+        transit_parallax::transit_on_date(planet, date, &self.time.model()?)
     }
 }
 

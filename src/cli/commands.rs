@@ -57,7 +57,6 @@ fn manual() -> Result<String, Error> {
 fn transits(a: TransitsArgs) -> Result<String, Error> {
     let planet = planet_of(&a.planet)?;
     let model = a.time.model()?;
-    model.validate_for_year(a.from)?;
     let events = transit_parallax::transits_in_years(planet, a.from, a.to, &model)?;
     Ok(match a.format.format() {
         Format::Table => prediction::transits_table(&events),
@@ -89,9 +88,6 @@ fn reduce_timings(a: ReduceArgs) -> Result<String, Error> {
         )));
     }
     let model = a.time.model()?;
-    if let Some((_, date)) = event {
-        model.validate_for_year(chrono::Datelike::year(&date))?;
-    }
     let options = ReduceOptions {
         event,
         prior_parallax_arcsec: a.prior_parallax.unwrap_or_else(nominal_parallax_arcsec),

@@ -385,6 +385,17 @@ pub fn transits_in_years(
     time_model: &TimeModel,
 ) -> Result<Vec<TransitEvent>> {
     check_years(from_year, to_year)?;
+    time_model.validate_for_year(from_year)?;
+    find_transits(planet, from_year, to_year, time_model)
+}
+
+/// The transits of the years (checked by the callers).
+fn find_transits(
+    planet: Planet,
+    from_year: i32,
+    to_year: i32,
+    time_model: &TimeModel,
+) -> Result<Vec<TransitEvent>> {
     let start = jd_of_date(from_year, 1, 1) - 2.0;
     let end = jd_of_date(to_year + 1, 1, 1) + 2.0;
     let mut out = Vec::new();
@@ -411,9 +422,10 @@ pub fn transit_on_date(
 ) -> Result<TransitEvent> {
     let y = date.year();
     check_years(y, y)?;
+    time_model.validate_for_year(y)?;
     let lo = (y - 1).max(MIN_YEAR);
     let hi = (y + 1).min(MAX_YEAR);
-    for ev in transits_in_years(planet, lo, hi, time_model)? {
+    for ev in find_transits(planet, lo, hi, time_model)? {
         if (ev.date() - date).num_days().abs() <= 1 {
             return Ok(ev);
         }

@@ -201,7 +201,7 @@ pub fn observations_from_table(table: &CsvTable, strict: bool) -> Result<Observa
 type FirstCoordinates = HashMap<String, (u64, f64, f64, f64)>;
 
 /// Elevations of one station that differ by up to this much (metres) are taken as the same
-/// place, with a note: a GPS and a map rarely agree better.
+/// place, with a note: a GPS and a map rarely agree better (common practice, no source).
 pub const ELEVATION_TOLERANCE_M: f64 = 50.0;
 
 /// If the station was given before with other coordinates, the sentence that says so;

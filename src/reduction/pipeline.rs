@@ -83,7 +83,6 @@ pub fn reduce(set: ObservationSet, options: &ReduceOptions) -> Result<Reduction>
         Some((planet, date)) => transit_on_date(planet, date, &model)?,
         None => infer_event(&set.valid, &model)?,
     };
-    model.validate_for_year(chrono::Datelike::year(&event.date()))?;
     reduce_for_event(set, event, options)
 }
 

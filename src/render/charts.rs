@@ -394,43 +394,22 @@ fn convergence_band(
     y_of: &dyn Fn(f64) -> f64,
 ) -> String {
     let mut s = String::new();
-    let upper: Vec<String> = pts
-        .iter()
-        .map(|p| {
-            format!(
-                "{:.1},{:.1}",
-                x_of(p.timings as f64),
-                y_of(p.parallax_arcsec + p.sigma_arcsec)
-            )
-        })
-        .collect();
-    let lower: Vec<String> = pts
-        .iter()
-        .rev()
-        .map(|p| {
-            format!(
-                "{:.1},{:.1}",
-                x_of(p.timings as f64),
-                y_of(p.parallax_arcsec - p.sigma_arcsec)
-            )
-        })
-        .collect();
+    let points = |it: &mut dyn Iterator<Item = &crate::reduction::ConvergencePoint>,
+                  value: &dyn Fn(&crate::reduction::ConvergencePoint) -> f64| {
+        it.map(|p| format!("{:.1},{:.1}", x_of(p.timings as f64), y_of(value(p))))
+            .collect::<Vec<String>>()
+    };
+    let upper = points(&mut pts.iter(), &|p| p.parallax_arcsec + p.sigma_arcsec);
+    let lower = points(&mut pts.iter().rev(), &|p| {
+        p.parallax_arcsec - p.sigma_arcsec
+    });
     let _ = writeln!(
         s,
         "<polygon points=\"{} {}\" fill=\"#bfdbfe\" stroke=\"none\"/>",
         upper.join(" "),
         lower.join(" ")
     );
-    let line: Vec<String> = pts
-        .iter()
-        .map(|p| {
-            format!(
-                "{:.1},{:.1}",
-                x_of(p.timings as f64),
-                y_of(p.parallax_arcsec)
-            )
-        })
-        .collect();
+    let line = points(&mut pts.iter(), &|p| p.parallax_arcsec);
     let _ = writeln!(
         s,
         "<polyline points=\"{}\" fill=\"none\" stroke=\"#1d4ed8\" stroke-width=\"1.8\"/>",

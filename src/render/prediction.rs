@@ -232,7 +232,7 @@ pub fn delta_t_note(event: &TransitEvent) -> String {
         DeltaTSource::Fixed => "Delta T fixed by --delta-t.".to_string(),
         DeltaTSource::LeapSeconds => "Delta T from the leap-second table (UTC); its uncertainty hardly moves the contacts.".to_string(),
         DeltaTSource::Polynomial => "Times are UT1, which is TT - Delta T: an error in Delta T moves every time printed by about as much.".to_string(),
-        DeltaTSource::PolynomialJoined => "After the leap-second table, times are UTC with TAI - UTC held at its last value, so they stay tied to TT: an error in Delta T moves them only through the Earth's rotation under the event (a few seconds for a minute of Delta T), while the UT1 of each contact, and any leap second still to come, would move by the whole error.".to_string(),
+        DeltaTSource::PolynomialJoined => "After the leap-second table, times are UTC with TAI - UTC held at its last value, so they stay tied to TT: an error in Delta T moves them only through the Earth's rotation under the event (seconds for minutes of Delta T), while the UT1 of each contact, and any leap second still to come, would move by the whole error.".to_string(),
     };
     format!("{text}\n")
 }

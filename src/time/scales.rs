@@ -282,7 +282,8 @@ impl TimeModel {
         Ok(())
     }
 
-    /// Check that the settings suit an event in `year`: DUT1 belongs to the leap-second era
+    /// Check that the settings suit an event in `year` (called where an event is named:
+    /// `transit_on_date`, `transits_in_years`): DUT1 belongs to the leap-second era
     /// (1972 on), when times are UTC; before 1972 times are UT1 and DUT1 has no meaning.
     pub fn validate_for_year(&self, year: i32) -> Result<()> {
         if self.dut1_s != 0.0 && year < 1972 {

@@ -1,0 +1,40 @@
+//! Helpers shared by the integration tests that run the binary.
+#![allow(dead_code)]
+
+use std::path::PathBuf;
+use std::process::{Command, Output};
+
+/// A file under tests/data.
+pub fn data(name: &str) -> String {
+    let p: PathBuf = [env!("CARGO_MANIFEST_DIR"), "tests", "data", name]
+        .iter()
+        .collect();
+    p.to_string_lossy().into_owned()
+}
+
+/// Run the binary with these arguments.
+pub fn run(args: &[&str]) -> Output {
+    Command::new(env!("CARGO_BIN_EXE_transit-parallax"))
+        .args(args)
+        .output()
+        .expect("binary runs")
+}
+
+/// Standard output as text.
+pub fn out(o: &Output) -> String {
+    String::from_utf8_lossy(&o.stdout).into_owned()
+}
+
+/// Standard error as text.
+pub fn err(o: &Output) -> String {
+    String::from_utf8_lossy(&o.stderr).into_owned()
+}
+
+/// A file with these bytes in this test process's temporary folder; its path.
+pub fn temp(name: &str, bytes: &[u8]) -> String {
+    let dir = std::env::temp_dir().join(format!("tp-tests-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let p = dir.join(name);
+    std::fs::write(&p, bytes).unwrap();
+    p.to_string_lossy().into_owned()
+}
