@@ -5,6 +5,7 @@
 use crate::geometry::contacts::{offset_on_plane, Contact};
 use crate::geometry::station::Station;
 use crate::reduction::Reduction;
+use crate::render::labels::{LabelPlacer, TextBox};
 use crate::render::svg::{esc, graticule_labels, land_svg, svg_open, ticks, trim_tick};
 use crate::sky::constants::{sun_radius_au, ARCSEC_RAD};
 use crate::sky::vector::norm;
@@ -268,6 +269,8 @@ pub fn station_map_svg(red: &Reduction) -> String {
     }
     let _ = writeln!(s, "</g>");
     s.push_str(&graticule_labels(h));
+    // Markers near the frame are cut at it, as on any map.
+    let _ = writeln!(s, "<defs><clipPath id=\"map-frame\"><rect width=\"{w}\" height=\"{h}\"/></clipPath></defs>\n<g clip-path=\"url(#map-frame)\">");
     for (i, st) in red.stations.iter().enumerate().take(MAP_STATIONS_MAX) {
         let (x, y) = px(st.longitude_deg, st.latitude_deg);
         if let Some(why) = &st.not_used {
@@ -292,6 +295,7 @@ pub fn station_map_svg(red: &Reduction) -> String {
             st.mean_normalised_residual
         );
     }
+    s.push_str("</g>\n");
     let legend_y = h + 18.0;
     for (k, z) in [-2.0, -1.0, 0.0, 1.0, 2.0].iter().enumerate() {
         let x = 10.0 + 28.0 * k as f64;
@@ -313,6 +317,44 @@ pub fn station_map_svg(red: &Reduction) -> String {
     }
     s.push_str("</svg>\n");
     s
+}
+
+/// A rejected timing on the residual chart: a cross, or a triangle at the edge pointing off
+/// the scale, with its number from the table of rows not used where the number fits.
+fn rejected_mark(
+    r: &crate::observations::timings::Rejected,
+    number: usize,
+    (x, y): (f64, f64),
+    off_scale: bool,
+    placer: &mut LabelPlacer,
+) -> String {
+    let v = r.o_c_s.unwrap_or(0.0);
+    let up = if v > 0.0 { 1.0 } else { -1.0 };
+    let (mark, centre) = if off_scale {
+        (
+            format!(
+                "<path d=\"M{x:.1},{y:.1} l-4,{:.1} l8,0 z\" fill=\"#dc2626\"/>",
+                7.0 * up
+            ),
+            (x, y + 3.5 * up),
+        )
+    } else {
+        (
+            format!("<path d=\"M{:.1},{:.1} l6,6 M{:.1},{:.1} l6,-6\" stroke=\"#dc2626\" stroke-width=\"1.6\"/>", x - 3.0, y - 3.0, x - 3.0, y + 3.0),
+            (x, y),
+        )
+    };
+    let number = number.to_string();
+    let label = placer
+        .place(&number, 9.0, centre, 4.0)
+        .map(|(lx, ly)| format!("<text x=\"{lx:.1}\" y=\"{ly:.1}\" font-size=\"9\" fill=\"#dc2626\">{number}</text>"))
+        .unwrap_or_default();
+    format!(
+        "<g><title>not used, {} line {}: O - C {v:+.1} s; {}</title>{mark}{label}</g>\n",
+        esc(&r.station),
+        r.line,
+        esc(r.diagnosis.as_deref().unwrap_or(""))
+    )
 }
 
 /// O - C of every timing with its error bar, grouped by contact; rejected timings marked (off
@@ -351,36 +393,34 @@ pub fn residuals_svg(red: &Reduction) -> String {
             .filter(|(_, r)| r.contact == Some(c.number()) && r.o_c_s.is_some())
             .collect();
         let rej = thin(rej, REJECTED_PER_CONTACT_MAX);
-        let n = (rows.len() + rej.len()).max(1);
-        for (k, u) in rows.iter().enumerate() {
-            let x = x0 + group_w * (k as f64 + 0.5) / n as f64;
+        // Used and rejected timings side by side in the order of the file.
+        let mut order: Vec<u64> = rows
+            .iter()
+            .map(|u| u.line)
+            .chain(rej.iter().map(|(_, r)| r.line))
+            .collect();
+        order.sort_unstable();
+        let n = order.len().max(1) as f64;
+        let x_at =
+            |line: u64| x0 + group_w * (order.partition_point(|&l| l < line) as f64 + 0.5) / n;
+        for u in &rows {
+            let x = x_at(u.line);
             let _ = writeln!(
                 s,
                 "<g><title>{} line {}: O - C {:+.1} s, sigma {:.1} s</title><line x1=\"{x:.1}\" y1=\"{:.1}\" x2=\"{x:.1}\" y2=\"{:.1}\" stroke=\"#6b7280\"/><circle cx=\"{x:.1}\" cy=\"{:.1}\" r=\"2.2\" fill=\"#1d4ed8\"/></g>",
                 esc(&u.station), u.line, u.o_c_s, u.sigma_s, y_of(u.o_c_s - u.sigma_s), y_of(u.o_c_s + u.sigma_s), y_of(u.o_c_s)
             );
         }
-        for (k, (idx, r)) in rej.iter().enumerate() {
-            let x = x0 + group_w * ((rows.len() + k) as f64 + 0.5) / n as f64;
+        let mut placer = LabelPlacer::new(TextBox {
+            x0: x0 + 1.0,
+            y0: top,
+            x1: x0 + group_w - 1.0,
+            y1: h - bottom,
+        });
+        for (idx, r) in &rej {
             let v = r.o_c_s.unwrap_or(0.0);
-            let y = y_of(v);
-            let off = v.abs() > ymax;
-            let mark = if off {
-                let dir = if v > 0.0 { -1.0 } else { 1.0 };
-                format!(
-                    "<path d=\"M{:.1},{:.1} l-4,{:.1} l8,0 z\" fill=\"#dc2626\"/>",
-                    x,
-                    y,
-                    7.0 * -dir
-                )
-            } else {
-                format!("<path d=\"M{:.1},{:.1} l6,6 M{:.1},{:.1} l6,-6\" stroke=\"#dc2626\" stroke-width=\"1.6\"/>", x - 3.0, y - 3.0, x - 3.0, y + 3.0)
-            };
-            let _ = writeln!(
-                s,
-                "<g><title>not used, {} line {}: O - C {:+.1} s; {}</title>{mark}<text x=\"{:.1}\" y=\"{:.1}\" font-size=\"9\" fill=\"#dc2626\">{}</text></g>",
-                esc(&r.station), r.line, v, esc(r.diagnosis.as_deref().unwrap_or("")), x + 4.0, if off && v < 0.0 { y - 8.0 } else { y + 12.0 }, idx + 1
-            );
+            let at = (x_at(r.line), y_of(v));
+            s.push_str(&rejected_mark(r, *idx + 1, at, v.abs() > ymax, &mut placer));
         }
     }
     s.push_str("</svg>\n");

@@ -323,7 +323,7 @@ pub fn html_report(red: &Reduction) -> String {
         disc_exaggeration(red)
     );
     let _ = writeln!(s, "<h2>Where the stations were</h2>\n<figure>\n{}<figcaption>Station markers: area by share of the information on the parallax, colour by mean normalised residual.</figcaption>\n</figure>", station_map_svg(red));
-    let _ = writeln!(s, "<h2>Residuals</h2>\n<figure>\n{}<figcaption>O - C of every timing with its standard uncertainty, by contact. Red marks: timings not used, numbered as in the table below (a triangle at the edge: off the scale).</figcaption>\n</figure>", residuals_svg(red));
+    let _ = writeln!(s, "<h2>Residuals</h2>\n<figure>\n{}<figcaption>O - C of every timing with its standard uncertainty, by contact. Red marks: timings not used, numbered as in the table below where the number fits beside the mark (a triangle at the edge: off the scale).</figcaption>\n</figure>", residuals_svg(red));
     let _ = writeln!(s, "<h2>How the answer firmed up</h2>\n<figure>\n{}<figcaption>The solar parallax (line) and its standard uncertainty (band) as timings are added in the order of the file.</figcaption>\n</figure>", convergence_svg(red));
     s.push_str("<h2>Parameters</h2>\n");
     let ph = param_headers(red.correlation.len());

@@ -10,11 +10,14 @@
 //! - `reduction.rs`: `reduce` table and JSON.
 //! - `svg.rs`: what every chart shares: escaping, the SVG opening, ticks, land outlines and
 //!   graticule labels.
+//! - `labels.rs`: labels placed beside their marks where they fit, captions wrapped to a
+//!   chart's width.
 //! - `charts.rs`: the reduction's charts (solar disc, station map, residuals, convergence).
 //! - `planning_charts.rs`: the sensitivity map and the histogram of simulated AU estimates.
 //! - `document.rs`: the HTML and Markdown reports.
 pub mod charts;
 pub mod document;
+pub mod labels;
 pub mod planning;
 pub mod planning_charts;
 pub mod prediction;

@@ -4,6 +4,7 @@
 use crate::geometry::contacts::Contact;
 use crate::geometry::station::Station;
 use crate::render::charts::residual_colour;
+use crate::render::labels::wrapped_text;
 use crate::render::svg::{esc, graticule_labels, land_svg, svg_open, ticks, trim_tick};
 use std::fmt::Write;
 
@@ -29,7 +30,12 @@ pub fn sensitivity_map_svg(
         .map(|p| p.sensitivity_s_per_arcsec.abs())
         .filter(|v| v.is_finite())
         .fold(1e-3, f64::max);
-    let mut s = svg_open(w, h + 50.0, title);
+    let ly = h + 18.0;
+    let note = format!(
+        "{title}. Triangles: the sites. Land (shaded): Natural Earth 1:110m (public domain)."
+    );
+    let (note_lines, after) = wrapped_text(&note, (220.0, ly + 14.0), (9.0, 12.0), w - 230.0);
+    let mut s = svg_open(w, after - 6.0, title);
     let _ = writeln!(s, "<rect width=\"{w}\" height=\"{h}\" fill=\"#f3f4f6\"/>");
     // Cells merged into runs of one colour along each row of latitude.
     let bin = |p: &crate::planning::sites::GridPoint| -> Option<i32> {
@@ -68,13 +74,12 @@ pub fn sensitivity_map_svg(
         let (x, y) = px(site.longitude_deg, site.latitude_deg);
         let _ = writeln!(s, "<path d=\"M{x:.1},{:.1} l4,7 l-8,0 z\" fill=\"#111827\" stroke=\"#ffffff\" stroke-width=\"0.6\"><title>{} (#{})</title></path>", y - 4.0, esc(&site.name), k + 1);
     }
-    let ly = h + 18.0;
     for (k, f) in [-1.0, -0.5, 0.0, 0.5, 1.0].iter().enumerate() {
         let x = 10.0 + 40.0 * k as f64;
         let _ = writeln!(s, "<rect x=\"{x}\" y=\"{}\" width=\"38\" height=\"10\" fill=\"{}\" stroke=\"#1f2937\" stroke-width=\"0.3\"/><text x=\"{}\" y=\"{}\" text-anchor=\"middle\" font-size=\"9\">{:+.1}</text>", ly - 10.0, sensitivity_colour(f * limit, limit), x + 19.0, ly + 10.0, f * limit);
     }
     let _ = writeln!(s, "<text x=\"220\" y=\"{ly}\">Contact {}: seconds per arcsecond of solar parallax. Light: not seen with the Sun {min_altitude_deg:.0} degrees up.</text>", contact.roman());
-    let _ = writeln!(s, "<text x=\"220\" y=\"{}\" font-size=\"9\">{}. Triangles: the sites. Land (shaded): Natural Earth 1:110m (public domain).</text>", ly + 14.0, esc(title));
+    s.push_str(&note_lines);
     s.push_str("</svg>\n");
     s
 }

@@ -1,0 +1,358 @@
+//! The reports and charts as a browser lays them out. Headless Chromium (Debian's `chromium`,
+//! which `.ci/run` installs) renders each page the binary writes; a script added to a copy of
+//! the page measures every chart in Chromium's own layout and writes what it found into the
+//! page, which `--dump-dom` returns. Checked: every text has a box, no text's box overlaps
+//! another's, nothing drawn reaches outside the chart's view box, and the chart is drawn at its
+//! own aspect ratio. Without chromium the tests say SKIPPED and pass (CI installs it).
+
+mod common;
+
+use common::{data, run, temp};
+use std::path::{Path, PathBuf};
+use std::process::Command;
+
+fn find_chromium() -> Option<PathBuf> {
+    [
+        "/usr/bin/chromium",
+        "/usr/bin/chromium-browser",
+        "/usr/bin/google-chrome",
+    ]
+    .iter()
+    .map(PathBuf::from)
+    .find(|p| p.exists())
+}
+
+/// A fresh folder for one test's files.
+fn temp_dir(name: &str) -> PathBuf {
+    let d = std::env::temp_dir().join(format!("tp-browser-{}-{name}", std::process::id()));
+    std::fs::create_dir_all(&d).unwrap();
+    d
+}
+
+/// Headless Chromium on a local page with these extra arguments; its output.
+fn chromium(browser: &Path, page: &Path, profile: &Path, extra: &[String]) -> std::process::Output {
+    Command::new(browser)
+        .args([
+            "--headless",
+            "--no-sandbox",
+            "--disable-gpu",
+            "--disable-quic",
+            "--no-first-run",
+            "--disable-background-networking",
+            "--disable-component-update",
+            "--disable-sync",
+            "--disable-default-apps",
+            "--hide-scrollbars",
+            "--window-size=1200,3000",
+        ])
+        .arg(format!("--user-data-dir={}", profile.display()))
+        .args(extra)
+        .arg(format!("file://{}", page.display()))
+        .output()
+        .expect("chromium runs")
+}
+
+/// Measures every `<svg>` of the page in the browser's layout and appends the findings as
+/// JSON in `<pre id="layout-findings">`.
+const MEASURE: &str = r#"<script>
+(function () {
+  var problems = [], texts = 0, shapes = 0;
+  var svgs = document.querySelectorAll('svg');
+  svgs.forEach(function (svg, k) {
+    var name = svg.getAttribute('aria-label') || ('chart ' + k);
+    var v = svg.getBoundingClientRect();
+    var vb = svg.viewBox.baseVal;
+    if (!vb || vb.width <= 0 || Math.abs(v.width / v.height - vb.width / vb.height) > 0.01) {
+      problems.push(name + ': not drawn at its view box aspect ratio');
+    }
+    var inside = function (r, tol) {
+      return r.left >= v.left - tol && r.right <= v.right + tol &&
+             r.top >= v.top - tol && r.bottom <= v.bottom + tol;
+    };
+    var boxes = [];
+    svg.querySelectorAll('text').forEach(function (t) {
+      var s = t.textContent.trim();
+      if (!s) return;
+      texts++;
+      var r = t.getBoundingClientRect();
+      if (r.width <= 0 || r.height <= 0) problems.push(name + ': text ' + s + ' has no box');
+      if (!inside(r, 0.5)) problems.push(name + ': text ' + s + ' reaches outside the view box');
+      boxes.push({ r: r, s: s });
+    });
+    for (var i = 0; i < boxes.length; i++) {
+      for (var j = i + 1; j < boxes.length; j++) {
+        var a = boxes[i].r, b = boxes[j].r;
+        var dx = Math.min(a.right, b.right) - Math.max(a.left, b.left);
+        var dy = Math.min(a.bottom, b.bottom) - Math.max(a.top, b.top);
+        if (dx > 1 && dy > 1.5) {
+          problems.push(name + ': text ' + boxes[i].s + ' overlaps text ' + boxes[j].s);
+        }
+      }
+    }
+    svg.querySelectorAll('circle, ellipse, rect, line, path, polyline, polygon').forEach(function (e) {
+      if (e.closest('defs, clipPath, mask, symbol, [clip-path]')) return;
+      shapes++;
+      if (!inside(e.getBoundingClientRect(), 1.0)) {
+        problems.push(name + ': a ' + e.tagName + ' reaches outside the view box');
+      }
+    });
+  });
+  var pre = document.createElement('pre');
+  pre.id = 'layout-findings';
+  pre.textContent = JSON.stringify({ svgs: svgs.length, texts: texts, shapes: shapes, problems: problems });
+  document.body.appendChild(pre);
+})();
+</script>"#;
+
+/// What the measuring script found on a page.
+struct Findings {
+    svgs: u64,
+    texts: u64,
+    shapes: u64,
+    problems: Vec<String>,
+}
+
+/// Lay out this HTML page in Chromium and return what the measuring script found.
+fn measure(browser: &Path, dir: &Path, name: &str, html: &str) -> Findings {
+    let page = dir.join(format!("{name}.html"));
+    let body_end = html.rfind("</body>").unwrap_or(html.len());
+    let measured = format!("{}{MEASURE}\n{}", &html[..body_end], &html[body_end..]);
+    std::fs::write(&page, measured).unwrap();
+    let o = chromium(
+        browser,
+        &page,
+        &dir.join(format!("profile-{name}")),
+        &["--dump-dom".into(), "--virtual-time-budget=5000".into()],
+    );
+    let dom = String::from_utf8_lossy(&o.stdout);
+    let start = dom.find("<pre id=\"layout-findings\">").unwrap_or_else(|| {
+        panic!(
+            "{name}: no findings; stderr: {}",
+            String::from_utf8_lossy(&o.stderr)
+        )
+    });
+    let rest = &dom[start + "<pre id=\"layout-findings\">".len()..];
+    let text = &rest[..rest.find("</pre>").unwrap()];
+    let text = text
+        .replace("&lt;", "<")
+        .replace("&gt;", ">")
+        .replace("&quot;", "\"")
+        .replace("&amp;", "&");
+    let v: serde_json::Value = serde_json::from_str(&text).unwrap();
+    Findings {
+        svgs: v["svgs"].as_u64().unwrap(),
+        texts: v["texts"].as_u64().unwrap(),
+        shapes: v["shapes"].as_u64().unwrap(),
+        problems: v["problems"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .map(|p| p.as_str().unwrap().to_string())
+            .collect(),
+    }
+}
+
+/// A page holding standalone SVG files, as a browser opens them side by side.
+fn page_of(svgs: &[String]) -> String {
+    let mut s =
+        String::from("<!DOCTYPE html>\n<html><head><meta charset=\"utf-8\"></head><body>\n");
+    for svg in svgs {
+        let start = svg.find("<svg").unwrap_or(0);
+        s.push_str(&svg[start..]);
+        s.push_str("\n<br>\n");
+    }
+    s.push_str("</body></html>\n");
+    s
+}
+
+#[test]
+fn a_browser_renders_the_demo_report() {
+    let Some(browser) = find_chromium() else {
+        eprintln!(
+            "SKIPPED: no chromium installed (CI installs Debian's chromium and runs this test)"
+        );
+        return;
+    };
+    let dir = temp_dir("shot");
+    let page = dir.join("demo.html");
+    let o = run(&["demo", "--report", page.to_str().unwrap()]);
+    assert!(o.status.success());
+    let shot = dir.join("demo.png");
+    let o = chromium(
+        &browser,
+        &page,
+        &dir.join("profile"),
+        &[format!("--screenshot={}", shot.display())],
+    );
+    assert!(
+        shot.exists(),
+        "no screenshot: {}",
+        String::from_utf8_lossy(&o.stderr)
+    );
+    let decoder = png::Decoder::new(std::fs::File::open(&shot).unwrap());
+    let mut reader = decoder.read_info().unwrap();
+    let mut buf = vec![0; reader.output_buffer_size()];
+    let info = reader.next_frame(&mut buf).unwrap();
+    assert_eq!(
+        (info.width, info.height),
+        (1200, 3000),
+        "rendered at full size"
+    );
+    let bytes = &buf[..info.buffer_size()];
+    let step = info.color_type.samples();
+    let mut distinct = std::collections::HashSet::new();
+    let mut non_white = 0usize;
+    for px in bytes.chunks(step) {
+        distinct.insert(px.to_vec());
+        if px.iter().take(3).any(|&c| c < 200) {
+            non_white += 1;
+        }
+    }
+    assert!(
+        distinct.len() > 50,
+        "the page looks blank ({} colours)",
+        distinct.len()
+    );
+    assert!(
+        non_white > 10_000,
+        "too little drawn ({non_white} dark pixels)"
+    );
+}
+
+/// The reports of campaigns large and small, as the binary writes them.
+fn reports(dir: &Path) -> Vec<(String, String)> {
+    let big = temp("browser-big.csv", &big_campaign());
+    let mut pages = Vec::new();
+    for (name, args) in [
+        ("demo", vec!["demo", "--report"]),
+        (
+            "one-station",
+            vec!["reduce", &data("one_station.csv"), "--report"][..].to_vec(),
+        ),
+        (
+            "mercury",
+            vec!["reduce", &data("two_stations_mercury.csv"), "--report"],
+        ),
+        ("big", vec!["reduce", &big, "--report"]),
+    ] {
+        let file = dir.join(format!("{name}-report.html"));
+        let mut a = args.clone();
+        a.push(file.to_str().unwrap());
+        let o = run(&a);
+        assert!(
+            o.status.success(),
+            "{name}: {}",
+            String::from_utf8_lossy(&o.stderr)
+        );
+        pages.push((name.to_string(), std::fs::read_to_string(&file).unwrap()));
+    }
+    pages
+}
+
+/// A campaign of 1,500 simulated stations with a few blunders, written by the binary's own
+/// simulation through the library, so the residual chart is sampled and the map crowded.
+fn big_campaign() -> Vec<u8> {
+    use rand::SeedableRng;
+    use transit_parallax::planning::simulation::{
+        global_stations, simulate_campaign, SimulationSettings,
+    };
+    let event = transit_parallax::transit_on_date(
+        transit_parallax::Planet::Venus,
+        transit_parallax::time::iso::parse_date("2012-06-06").unwrap(),
+        &transit_parallax::time::scales::TimeModel::default(),
+    )
+    .unwrap();
+    let stations = global_stations(1500, "grid");
+    let settings = SimulationSettings {
+        blunder_rate: 0.01,
+        ..SimulationSettings::default()
+    };
+    let mut rng = rand_chacha::ChaCha8Rng::seed_from_u64(11);
+    let camp = simulate_campaign(&event, &stations, &settings, &mut rng);
+    let mut s = String::from("station,latitude,longitude,elevation_m,contact,time_utc,sigma_s\n");
+    for t in &camp.observations.valid {
+        s.push_str(&format!(
+            "{},{},{},{},{},{},{}\n",
+            t.station.name,
+            t.station.latitude_deg,
+            t.station.longitude_deg,
+            t.station.elevation_m,
+            t.contact.number(),
+            transit_parallax::time::iso::format_utc(t.time_label, 2),
+            t.sigma_s
+        ));
+    }
+    s.into_bytes()
+}
+
+#[test]
+fn report_charts_are_laid_out_cleanly_in_a_browser() {
+    let Some(browser) = find_chromium() else {
+        eprintln!(
+            "SKIPPED: no chromium installed (CI installs Debian's chromium and runs this test)"
+        );
+        return;
+    };
+    let dir = temp_dir("layout");
+    for (name, html) in reports(&dir) {
+        let f = measure(&browser, &dir, &name, &html);
+        assert_eq!(f.svgs, 4, "{name}: the four charts");
+        assert!(
+            f.texts > 20 && f.shapes > 20,
+            "{name}: {} texts, {} shapes",
+            f.texts,
+            f.shapes
+        );
+        assert!(f.problems.is_empty(), "{name}:\n{}", f.problems.join("\n"));
+    }
+}
+
+#[test]
+fn planning_charts_are_laid_out_cleanly_in_a_browser() {
+    let Some(browser) = find_chromium() else {
+        eprintln!(
+            "SKIPPED: no chromium installed (CI installs Debian's chromium and runs this test)"
+        );
+        return;
+    };
+    let dir = temp_dir("planning");
+    let map = dir.join("plan.svg");
+    let hist = dir.join("hist.svg");
+    let o = run(&[
+        "plan",
+        "--planet",
+        "venus",
+        "--date",
+        "2012-06-06",
+        "--sites",
+        &data("candidate_sites.csv"),
+        "--choose",
+        "3",
+        "--contact",
+        "II",
+        "--grid-deg",
+        "5",
+        "--map",
+        map.to_str().unwrap(),
+    ]);
+    assert!(o.status.success(), "{}", String::from_utf8_lossy(&o.stderr));
+    let o = run(&[
+        "simulate",
+        "--planet",
+        "venus",
+        "--date",
+        "2012-06-06",
+        "--network",
+        &data("candidate_sites.csv"),
+        "--trials",
+        "60",
+        "--histogram",
+        hist.to_str().unwrap(),
+    ]);
+    assert!(o.status.success(), "{}", String::from_utf8_lossy(&o.stderr));
+    let svgs = [map, hist].map(|p| std::fs::read_to_string(p).unwrap());
+    let f = measure(&browser, &dir, "planning", &page_of(&svgs));
+    assert_eq!(f.svgs, 2);
+    assert!(f.texts > 10, "{} texts", f.texts);
+    assert!(f.problems.is_empty(), "{}", f.problems.join("\n"));
+}
