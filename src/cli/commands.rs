@@ -292,7 +292,7 @@ fn write_file(path: &Path, text: &str) -> Result<(), Error> {
     })
 }
 
-fn pretty(v: &serde_json::Value) -> String {
+fn pretty<T: serde::Serialize + ?Sized>(v: &T) -> String {
     let mut s = serde_json::to_string_pretty(v).unwrap_or_default();
     s.push('\n');
     s

@@ -118,9 +118,10 @@ pub fn stations_from_table(table: &CsvTable) -> Result<Vec<Station>> {
     let c_lon = table.require("longitude")?;
     let c_elev = table.optional("elevation_m");
     let mut out: Vec<Station> = Vec::with_capacity(table.records.len());
-    let mut seen: std::collections::HashMap<String, u64> = Default::default();
+    let mut seen: std::collections::HashMap<&str, u64> =
+        std::collections::HashMap::with_capacity(table.records.len());
     for (line, rec) in &table.records {
-        let name = table.text(rec, c_name).to_string();
+        let name = table.text(rec, c_name);
         if name.is_empty() {
             return Err(Error::Input {
                 location: table.location(*line, Some(c_name)),
@@ -128,7 +129,7 @@ pub fn stations_from_table(table: &CsvTable) -> Result<Vec<Station>> {
                 hint: "give every station a name".into(),
             });
         }
-        if let Some(first) = seen.insert(name.clone(), *line) {
+        if let Some(first) = seen.insert(name, *line) {
             return Err(Error::Input {
                 location: table.location(*line, Some(c_name)),
                 message: format!("station '{name}' was already given on line {first}"),
@@ -144,7 +145,7 @@ pub fn stations_from_table(table: &CsvTable) -> Result<Vec<Station>> {
             _ => 0.0,
         };
         out.push(Station {
-            name,
+            name: name.to_string(),
             latitude_deg: lat,
             longitude_deg: normalise_longitude_deg(lon),
             elevation_m: elev,

@@ -4,17 +4,11 @@
 use crate::geometry::contacts::Contact;
 use crate::geometry::transit::{StationPrediction, TransitEvent};
 use crate::render::text::{
-    clock_label, csv_field, fixed, name_cell, round, scale_of, SAFETY_CAUTION,
+    clock_label, csv_field, fixed, name_cell, push_fixed, push_right, round, scale_of,
+    SAFETY_CAUTION,
 };
-use crate::time::iso::format_utc;
+use crate::time::iso::{format_utc, push_digits, push_utc};
 use serde_json::{json, Value};
-
-fn opt_num(v: Option<f64>, decimals: usize) -> String {
-    match v {
-        Some(x) if x.is_finite() => fixed(x, decimals),
-        _ => String::new(),
-    }
-}
 
 /// JSON for a list of transits (`transits` command).
 pub fn transits_json(events: &[TransitEvent]) -> Value {
@@ -174,54 +168,85 @@ pub const PREDICT_COLUMNS: [&str; 10] = [
     "longitude",
 ];
 
-/// CSV for station predictions: one row per station and contact.
+/// CSV for station predictions: one row per station and contact. Written field by field into
+/// one buffer (for a 1-degree grid of 64,800 stations, `format!` per row took longer than the
+/// predictions themselves).
 pub fn predictions_csv(event: &TransitEvent, predictions: &[StationPrediction]) -> String {
-    let mut s = PREDICT_COLUMNS.join(",");
+    let mut s = String::with_capacity(96 * 4 * predictions.len() + 128);
+    s.push_str(&PREDICT_COLUMNS.join(","));
     s.push('\n');
+    let opt = |s: &mut String, v: Option<f64>, decimals: usize| {
+        s.push(',');
+        if let Some(x) = v.filter(|x| x.is_finite()) {
+            push_fixed(s, x, decimals);
+        }
+    };
     for p in predictions {
         let name = csv_field(&p.station.name);
-        let (lat, lon) = (
+        let place = format!(
+            ",{},{}\n",
             trim_number(p.station.latitude_deg),
-            trim_number(p.station.longitude_deg),
+            trim_number(p.station.longitude_deg)
         );
         for c in Contact::ALL {
             let cc = p.contacts[c.index()];
-            s.push_str(&format!(
-                "{name},{},{},{},{},{},{},{},{lat},{lon}\n",
-                c.number(),
-                cc.map(|x| format_utc(event.label(x.hours), 2))
-                    .unwrap_or_default(),
-                opt_num(cc.map(|x| x.sun_altitude_deg), 3),
-                opt_num(cc.map(|x| x.sun_azimuth_deg), 3),
-                opt_num(cc.map(|x| x.position_angle_deg), 2),
-                opt_num(cc.map(|x| x.vertex_angle_deg), 2),
-                opt_num(cc.map(|x| x.sensitivity_s_per_arcsec), 3),
-            ));
+            s.push_str(&name);
+            s.push(',');
+            push_digits(&mut s, u64::from(c.number()), 1);
+            s.push(',');
+            if let Some(x) = cc {
+                push_utc(&mut s, event.label(x.hours), 2);
+            }
+            opt(&mut s, cc.map(|x| x.sun_altitude_deg), 3);
+            opt(&mut s, cc.map(|x| x.sun_azimuth_deg), 3);
+            opt(&mut s, cc.map(|x| x.position_angle_deg), 2);
+            opt(&mut s, cc.map(|x| x.vertex_angle_deg), 2);
+            opt(&mut s, cc.map(|x| x.sensitivity_s_per_arcsec), 3);
+            s.push_str(&place);
         }
     }
     s
 }
 
-/// JSON for station predictions: an array of objects, one per station and contact.
-pub fn predictions_json(event: &TransitEvent, predictions: &[StationPrediction]) -> Value {
-    let mut rows = Vec::new();
+/// One station and contact of `predict --format json` (keys of the stable interface).
+/// Fields in alphabetical order, as every other JSON output writes its keys.
+#[derive(serde::Serialize)]
+pub struct PredictionRow<'a> {
+    contact: u8,
+    position_angle_deg: Option<f64>,
+    sensitivity_s_per_arcsec: Option<f64>,
+    station: &'a str,
+    sun_altitude_deg: Option<f64>,
+    sun_azimuth_deg: Option<f64>,
+    time_utc: Option<String>,
+    vertex_angle_deg: Option<f64>,
+    visible: Option<bool>,
+}
+
+/// JSON for station predictions: one object per station and contact, serialised straight from
+/// these rows (a `serde_json::Value` tree per row dominated the command for large grids).
+pub fn predictions_json<'a>(
+    event: &TransitEvent,
+    predictions: &'a [StationPrediction],
+) -> Vec<PredictionRow<'a>> {
+    let mut rows = Vec::with_capacity(4 * predictions.len());
     for p in predictions {
         for c in Contact::ALL {
             let cc = p.contacts[c.index()];
-            rows.push(json!({
-                "station": p.station.name,
-                "contact": c.number(),
-                "time_utc": cc.map(|x| format_utc(event.label(x.hours), 2)),
-                "sun_altitude_deg": cc.map(|x| round(x.sun_altitude_deg, 3)),
-                "sun_azimuth_deg": cc.map(|x| round(x.sun_azimuth_deg, 3)),
-                "position_angle_deg": cc.map(|x| round(x.position_angle_deg, 2)),
-                "vertex_angle_deg": cc.map(|x| round(x.vertex_angle_deg, 2)),
-                "sensitivity_s_per_arcsec": cc.map(|x| round(x.sensitivity_s_per_arcsec, 3)),
-                "visible": cc.map(|x| x.sun_altitude_deg > -1.0),
-            }));
+            rows.push(PredictionRow {
+                station: &p.station.name,
+                contact: c.number(),
+                time_utc: cc.map(|x| format_utc(event.label(x.hours), 2)),
+                sun_altitude_deg: cc.map(|x| round(x.sun_altitude_deg, 3)),
+                sun_azimuth_deg: cc.map(|x| round(x.sun_azimuth_deg, 3)),
+                position_angle_deg: cc.map(|x| round(x.position_angle_deg, 2)),
+                vertex_angle_deg: cc.map(|x| round(x.vertex_angle_deg, 2)),
+                sensitivity_s_per_arcsec: cc.map(|x| round(x.sensitivity_s_per_arcsec, 3)),
+                visible: cc.map(|x| x.sun_altitude_deg > -1.0),
+            });
         }
     }
-    Value::Array(rows)
+    rows
 }
 
 /// What the uncertainty of Delta T does to the times printed, in a sentence for the header.
@@ -261,36 +286,37 @@ pub fn predictions_table(event: &TransitEvent, predictions: &[StationPrediction]
         "vertex",
         "s/arcsec"
     ));
+    // Written field by field into one buffer, as `format!` would pad them.
+    let mut cell = String::with_capacity(32);
     for p in predictions {
+        let name = name_cell(&p.station.name);
         for c in Contact::ALL {
-            let name = name_cell(&p.station.name);
-            match p.contacts[c.index()] {
-                Some(x) => {
-                    let below = if x.sun_altitude_deg < -1.0 {
-                        "  Sun below horizon"
-                    } else {
-                        ""
-                    };
-                    s.push_str(&format!(
-                        "{} {:>3} {:>26} {:>8.2} {:>8.2} {:>7.1} {:>7.1} {:>9.2}{}\n",
-                        name,
-                        c.roman(),
-                        clock_label(event.label(x.hours), 2),
-                        x.sun_altitude_deg,
-                        x.sun_azimuth_deg,
-                        x.position_angle_deg,
-                        x.vertex_angle_deg,
-                        x.sensitivity_s_per_arcsec,
-                        below
-                    ));
-                }
-                None => s.push_str(&format!(
-                    "{} {:>3} {:>26}\n",
-                    name,
-                    c.roman(),
-                    "no contact here"
-                )),
+            s.push_str(&name);
+            s.push(' ');
+            push_right(&mut s, c.roman(), 3);
+            s.push(' ');
+            let Some(x) = p.contacts[c.index()] else {
+                push_right(&mut s, "no contact here", 26);
+                s.push('\n');
+                continue;
+            };
+            push_right(&mut s, &clock_label(event.label(x.hours), 2), 26);
+            for (v, decimals, width) in [
+                (x.sun_altitude_deg, 2, 8),
+                (x.sun_azimuth_deg, 2, 8),
+                (x.position_angle_deg, 1, 7),
+                (x.vertex_angle_deg, 1, 7),
+                (x.sensitivity_s_per_arcsec, 2, 9),
+            ] {
+                s.push(' ');
+                cell.clear();
+                push_fixed(&mut cell, v, decimals);
+                push_right(&mut s, &cell, width);
             }
+            if x.sun_altitude_deg < -1.0 {
+                s.push_str("  Sun below horizon");
+            }
+            s.push('\n');
         }
     }
     s.push_str(

@@ -2,6 +2,7 @@
 //! solar-observing caution every observer-facing output carries.
 
 use crate::reduction::Headline;
+use crate::time::iso::push_digits;
 
 /// The caution printed with every output meant for observers.
 pub const SAFETY_CAUTION: &str = "CAUTION: looking at the Sun can blind. Never look at the Sun, \
@@ -60,6 +61,13 @@ pub fn scale_of(label: chrono::NaiveDateTime) -> &'static str {
 /// it, but by integer arithmetic where the scaled value fits (the exact decimal expansion
 /// behind `{:.N}` dominated the output of `predict` for tens of thousands of stations).
 pub fn fixed(x: f64, decimals: usize) -> String {
+    let mut s = String::with_capacity(16);
+    push_fixed(&mut s, x, decimals);
+    s
+}
+
+/// Append `x` as [`fixed`] writes it, without allocating.
+pub fn push_fixed(out: &mut String, x: f64, decimals: usize) {
     let d = decimals.min(9);
     let p = 10f64.powi(d as i32);
     let raw = x * p;
@@ -70,15 +78,28 @@ pub fn fixed(x: f64, decimals: usize) -> String {
         || scaled.abs() >= 9.0e15
         || ((raw - raw.trunc()).abs() - 0.5).abs() < 1e-6
     {
-        return format!("{x:.decimals$}");
+        use std::fmt::Write;
+        let _ = write!(out, "{x:.decimals$}");
+        return;
     }
     let v = scaled.abs() as u64;
     let ip = 10u64.pow(d as u32);
-    let sign = if x.is_sign_negative() { "-" } else { "" };
-    if d == 0 {
-        return format!("{sign}{v}");
+    if x.is_sign_negative() {
+        out.push('-');
     }
-    format!("{sign}{}.{:0d$}", v / ip, v % ip)
+    push_digits(out, v / ip, 1);
+    if d > 0 {
+        out.push('.');
+        push_digits(out, v % ip, d);
+    }
+}
+
+/// Append `text` right-aligned in `width` characters, as `format!("{text:>width$}")` does.
+pub fn push_right(out: &mut String, text: &str, width: usize) {
+    for _ in text.chars().count()..width {
+        out.push(' ');
+    }
+    out.push_str(text);
 }
 
 /// Decimals that show a value to about three significant digits of its uncertainty.

@@ -102,39 +102,75 @@ pub fn parse_date(text: &str) -> std::result::Result<NaiveDate, String> {
 
 /// Format a label as ISO 8601 with `decimals` digits of seconds (rounded) and a trailing `Z`.
 pub fn format_utc(label: NaiveDateTime, decimals: u32) -> String {
-    let step_ns = 10_i64.pow(9 - decimals.min(9));
-    let epoch = super::scales::label_epoch();
-    let delta = label - epoch;
-    // i128 nanoseconds: i64 nanoseconds overflow 292 years from the epoch.
-    let ns = i128::from(delta.num_seconds()) * 1_000_000_000 + i128::from(delta.subsec_nanos());
-    let step = i128::from(step_ns);
-    let rounded = (ns + step / 2).div_euclid(step) * step;
-    let whole_s = rounded.div_euclid(1_000_000_000) as i64;
-    let rest_ns = rounded.rem_euclid(1_000_000_000) as i64;
-    let t = epoch + TimeDelta::seconds(whole_s) + TimeDelta::nanoseconds(rest_ns);
-    // Written field by field (chrono's strftime parses its pattern on every call, which
-    // dominated `predict` for tens of thousands of stations). A leap second shows as :60.
-    use chrono::{Datelike, Timelike};
-    let (mut second, mut nanos) = (t.second(), t.nanosecond());
-    if nanos >= 1_000_000_000 {
-        second += 1;
-        nanos -= 1_000_000_000;
+    let mut out = String::with_capacity(32);
+    push_utc(&mut out, label, decimals);
+    out
+}
+
+/// Append `v` in decimal, padded with zeros to at least `width` digits.
+pub fn push_digits(out: &mut String, v: u64, width: usize) {
+    let mut buf = itoa::Buffer::new();
+    let digits = buf.format(v);
+    for _ in digits.len()..width {
+        out.push('0');
     }
-    let mut out = format!(
-        "{:04}-{:02}-{:02}T{:02}:{:02}:{second:02}",
-        t.year(),
-        t.month(),
-        t.day(),
-        t.hour(),
-        t.minute()
-    );
-    if decimals > 0 {
-        let digits = format!("{nanos:09}");
+    out.push_str(digits);
+}
+
+/// Append a label as [`format_utc`] writes it, rounded to `decimals` digits of seconds. A leap
+/// second (chrono's nanoseconds past 10^9) shows as :60. Written digit by digit with integer
+/// arithmetic: strftime parses its pattern on every call and `format!` allocates, which
+/// dominated `predict` for tens of thousands of stations.
+pub fn push_utc(out: &mut String, label: NaiveDateTime, decimals: u32) {
+    use chrono::{Datelike, Timelike};
+    let d = decimals.min(9);
+    let leap = label.nanosecond() >= 1_000_000_000;
+    let base = if leap {
+        label
+            .with_nanosecond(label.nanosecond() - 1_000_000_000)
+            .unwrap_or(label)
+    } else {
+        label
+    };
+    let base_s = i64::from(base.date().num_days_from_ce()) * 86_400
+        + i64::from(base.num_seconds_from_midnight());
+    let step = 10_i64.pow(9 - d);
+    // Rounded to the step; i64 nanoseconds would overflow, so whole seconds and a remainder.
+    let units = (i64::from(base.nanosecond()) + step / 2) / step;
+    let per_second = 1_000_000_000 / step;
+    let whole_s = base_s + units / per_second;
+    let fraction = units % per_second;
+    let date = i32::try_from(whole_s.div_euclid(86_400))
+        .ok()
+        .and_then(chrono::NaiveDate::from_num_days_from_ce_opt)
+        .unwrap_or_default();
+    let of_day = whole_s.rem_euclid(86_400);
+    // Inside a leap second the whole second stays 60 unless rounding carried past it.
+    let second = if leap && whole_s == base_s {
+        60
+    } else {
+        of_day % 60
+    };
+    let year = date.year();
+    if year < 0 {
+        out.push('-');
+    }
+    push_digits(out, u64::from(year.unsigned_abs()), 4);
+    for (sep, v) in [
+        ('-', i64::from(date.month())),
+        ('-', i64::from(date.day())),
+        ('T', of_day / 3600),
+        (':', of_day / 60 % 60),
+        (':', second),
+    ] {
+        out.push(sep);
+        push_digits(out, v as u64, 2);
+    }
+    if d > 0 {
         out.push('.');
-        out.push_str(&digits[..(decimals.min(9) as usize)]);
+        push_digits(out, fraction as u64, d as usize);
     }
     out.push('Z');
-    out
 }
 
 #[cfg(test)]
@@ -176,5 +212,23 @@ mod tests {
             format_utc(label("2012-06-05T23:59:59.996Z"), 2),
             "2012-06-06T00:00:00.00Z"
         );
+        assert_eq!(
+            format_utc(label("1639-12-04T15:07:03.05Z"), 1),
+            "1639-12-04T15:07:03.1Z"
+        );
+        assert_eq!(
+            format_utc(label("2016-12-31T23:59:60.25Z"), 3),
+            "2016-12-31T23:59:60.250Z"
+        );
+        assert_eq!(
+            format_utc(label("2117-12-11T02:48:00Z"), 0),
+            "2117-12-11T02:48:00Z"
+        );
+        let mut s = String::new();
+        push_digits(&mut s, 7, 3);
+        push_digits(&mut s, 1234, 2);
+        push_digits(&mut s, 0, 1);
+        push_digits(&mut s, u64::MAX, 0);
+        assert_eq!(s, format!("00712340{}", u64::MAX));
     }
 }

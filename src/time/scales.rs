@@ -135,10 +135,56 @@ fn label_seconds(label: NaiveDateTime) -> f64 {
     delta.num_seconds() as f64 + f64::from(delta.subsec_nanos()) * 1e-9
 }
 
+/// Days from 0001-01-01 (day 1, chrono's `num_days_from_ce`) to the label epoch's date,
+/// 2000-01-01.
+const EPOCH_DAYS_FROM_CE: i64 = 730_120;
+
+/// The label `seconds` after the label epoch (no leap seconds counted), by integer day and
+/// second arithmetic (chrono's general addition dominated `predict` for large grids).
 fn label_from_seconds(seconds: f64) -> NaiveDateTime {
     let whole = seconds.floor();
-    let nanos = ((seconds - whole) * 1e9).round() as i64;
-    label_epoch() + TimeDelta::seconds(whole as i64) + TimeDelta::nanoseconds(nanos)
+    let mut nanos = ((seconds - whole) * 1e9).round() as i64;
+    // Seconds from 2000-01-01T00:00:00; the epoch is at noon.
+    let mut whole = whole as i64 + 43_200;
+    if nanos >= 1_000_000_000 {
+        whole += 1;
+        nanos -= 1_000_000_000;
+    }
+    let days = whole.div_euclid(86_400) + EPOCH_DAYS_FROM_CE;
+    let second_of_day = whole.rem_euclid(86_400);
+    i32::try_from(days)
+        .ok()
+        .and_then(NaiveDate::from_num_days_from_ce_opt)
+        .and_then(|d| {
+            let t = chrono::NaiveTime::from_num_seconds_from_midnight_opt(
+                second_of_day as u32,
+                nanos as u32,
+            )?;
+            Some(d.and_time(t))
+        })
+        .unwrap_or_default()
+}
+
+/// The leap-second table as (label seconds after the epoch at which each step starts,
+/// TAI - UTC in seconds).
+fn leap_steps() -> &'static [(f64, f64)] {
+    static STEPS: std::sync::OnceLock<Vec<(f64, f64)>> = std::sync::OnceLock::new();
+    STEPS.get_or_init(|| {
+        LEAP_SECONDS
+            .iter()
+            .map(|&(y, m, d, s)| (label_seconds(ymd(y, m, d)), f64::from(s)))
+            .collect()
+    })
+}
+
+/// [`tai_minus_utc_s`] at a label given as seconds after the epoch (never inside a leap
+/// second: such labels are continuous).
+fn tai_minus_utc_at_seconds(label_s: f64) -> Option<f64> {
+    leap_steps()
+        .iter()
+        .rev()
+        .find(|(start, _)| label_s >= *start)
+        .map(|&(_, s)| s)
 }
 
 fn ymd(y: i32, m: u32, d: u32) -> NaiveDateTime {
@@ -326,12 +372,11 @@ impl TimeModel {
         // and UTC + 42.184 s overlap by some tens of milliseconds; UTC takes precedence there.
         let mut guess = tt_s - TT_MINUS_TAI_S - 37.0;
         for _ in 0..3 {
-            let leap = tai_minus_utc_s(label_from_seconds(guess)).unwrap_or(10.0);
+            let leap = tai_minus_utc_at_seconds(guess).unwrap_or(10.0);
             guess = tt_s - TT_MINUS_TAI_S - leap;
         }
-        let utc = label_from_seconds(guess);
-        if utc >= Self::leap_era_start() {
-            return utc;
+        if tai_minus_utc_at_seconds(guess).is_some() {
+            return label_from_seconds(guess);
         }
         let dt = self
             .delta_t_override_s
@@ -443,6 +488,25 @@ mod tests {
         // Source: IERS Bulletin C (leap-second history): TAI - UTC = 10 s on 1972-01-01,
         // 32 s through 2005, 33 s from 2006-01-01, 34 s from 2009-01-01, 35 s from 2012-07-01,
         // 37 s from 2017-01-01.
+        // The integer label arithmetic agrees with chrono's general addition, 1600 to 2300.
+        assert_eq!(
+            NaiveDate::from_ymd_opt(2000, 1, 1)
+                .map(|d| i64::from(chrono::Datelike::num_days_from_ce(&d))),
+            Some(EPOCH_DAYS_FROM_CE)
+        );
+        for k in -2_000i64..2_000 {
+            let seconds = k as f64 * 5_523_797.123_456_7 + 0.999_999_999_6 * (k % 3) as f64;
+            let whole = seconds.floor();
+            let nanos = ((seconds - whole) * 1e9).round() as i64;
+            let chrono_way =
+                label_epoch() + TimeDelta::seconds(whole as i64) + TimeDelta::nanoseconds(nanos);
+            assert_eq!(label_from_seconds(seconds), chrono_way, "{seconds}");
+            assert_eq!(
+                tai_minus_utc_at_seconds(seconds),
+                tai_minus_utc_s(chrono_way),
+                "{seconds}"
+            );
+        }
         assert_eq!(tai_minus_utc_s(label("1971-12-31T23:59:59Z")), None);
         assert_eq!(tai_minus_utc_s(label("1972-01-01T00:00:00Z")), Some(10.0));
         assert_eq!(tai_minus_utc_s(label("2005-12-31T23:59:59Z")), Some(32.0));
