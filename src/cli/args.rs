@@ -4,6 +4,7 @@
 use clap::{Parser, Subcommand, ValueEnum};
 use std::path::PathBuf;
 use transit_parallax::render::text::Format;
+use transit_parallax::sky::ephemeris::EphemerisChoice;
 use transit_parallax::time::iso;
 use transit_parallax::{Error, Planet, TimeModel};
 
@@ -39,6 +40,17 @@ pub struct TimeArgs {
         allow_hyphen_values = true
     )]
     pub dut1: f64,
+    /// The planetary theory: jpl (series fitted to the JPL ephemerides around each transit,
+    /// VSOP87A where an event has none) or vsop87.
+    #[arg(long, value_enum, default_value = "jpl")]
+    pub ephemeris: EphemerisArg,
+}
+
+/// Values of `--ephemeris`.
+#[derive(clap::ValueEnum, Clone, Copy, Debug)]
+pub enum EphemerisArg {
+    Jpl,
+    Vsop87,
 }
 
 impl TimeArgs {
@@ -46,6 +58,10 @@ impl TimeArgs {
         let m = TimeModel {
             delta_t_override_s: self.delta_t,
             dut1_s: self.dut1,
+            ephemeris: match self.ephemeris {
+                EphemerisArg::Jpl => EphemerisChoice::Jpl,
+                EphemerisArg::Vsop87 => EphemerisChoice::Vsop87,
+            },
         };
         m.validate()?;
         Ok(m)
@@ -187,6 +203,14 @@ pub struct ReduceArgs {
     /// Also write a report: FILE.html (self-contained page) or FILE.md (with SVG charts).
     #[arg(long, value_name = "FILE")]
     pub report: Option<PathBuf>,
+    /// The planet's place relative to the Sun: free (fitted, the default), fixed (held at the
+    /// ephemeris's value) or prior=ARCSEC (fitted with a prior of that standard uncertainty).
+    #[arg(
+        long = "planet-place",
+        value_name = "free|fixed|prior=ARCSEC",
+        default_value = "free"
+    )]
+    pub planet_place: String,
     #[command(flatten)]
     pub time: TimeArgs,
 }

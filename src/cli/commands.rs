@@ -9,6 +9,7 @@ use std::path::Path;
 use transit_parallax::geometry::station::read_stations;
 use transit_parallax::observations::timings::read_observations;
 use transit_parallax::planning::{simulation, sites};
+use transit_parallax::reduction::planet_place::PlanetPlace;
 use transit_parallax::reduction::{reduce, ReduceOptions};
 use transit_parallax::render::text::Format;
 use transit_parallax::render::{document, planning, planning_charts, prediction, reduction};
@@ -72,7 +73,14 @@ fn predict(a: PredictArgs) -> Result<String, Error> {
     Ok(match a.format.format() {
         Format::Table => prediction::predictions_table(&event, &predictions),
         Format::Csv => prediction::predictions_csv(&event, &predictions),
-        Format::Json => pretty(&prediction::predictions_json(&event, &predictions)),
+        Format::Json => {
+            let ephemeris = event.ephemeris_name();
+            pretty(&prediction::predictions_json(
+                &ephemeris,
+                &event,
+                &predictions,
+            ))
+        }
     })
 }
 
@@ -94,6 +102,7 @@ fn reduce_timings(a: ReduceArgs) -> Result<String, Error> {
         time_model: model,
         outlier_threshold: a.outlier_threshold,
         follow_convergence: a.report.is_some(),
+        planet_place: PlanetPlace::parse(&a.planet_place).map_err(Error::argument)?,
     };
     let set = read_observations(&a.observations, a.strict)?;
     let red = reduce(set, &options)?;
@@ -243,7 +252,7 @@ fn simulate(a: SimulateArgs) -> Result<String, Error> {
             stations.len(),
             a.seed,
         )),
-        Format::Csv => planning::simulation_csv(&summary, a.seed),
+        Format::Csv => planning::simulation_csv(&summary, a.seed, &event.ephemeris_name()),
         Format::Table => planning::simulation_table(&event, &summary, &settings, stations.len()),
     };
     if let Some(path) = &a.histogram {

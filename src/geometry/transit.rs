@@ -87,6 +87,16 @@ impl TransitEvent {
         &self.elements.time_model
     }
 
+    /// The ephemeris the event was computed with: `JPL DE421` (or DE405, DE422, DE423) where
+    /// a fitted window covers it and `--ephemeris jpl` is chosen, else `VSOP87A`.
+    pub fn ephemeris_name(&self) -> String {
+        crate::sky::ephemeris::ephemeris_name(
+            self.planet,
+            self.greatest,
+            self.time_model().ephemeris,
+        )
+    }
+
     /// The label (UTC from 1972, UT1 before) of an instant given as hours from the epoch.
     pub fn label(&self, hours: f64) -> NaiveDateTime {
         self.time_model()

@@ -21,6 +21,8 @@
 //! - `rejection.rs`: station-wide tests and the record of every row not used.
 //! - `contributions.rs`: information shares, influence, Halley chords, convergence.
 //! - `result.rs`: the settings and the result types.
+//! - `planet_place.rs`: the planet's place free, held or with a prior, and the bias that
+//!   holding it risks.
 //! - `pipeline.rs`: [`reduce`] and [`reduce_for_event`].
 pub mod contributions;
 pub mod diagnosis;
@@ -30,6 +32,7 @@ pub mod identifiability;
 pub mod normal_equations;
 pub mod parameters;
 pub mod pipeline;
+pub mod planet_place;
 pub mod rejection;
 pub mod result;
 pub mod screening;

@@ -17,6 +17,7 @@
 use super::contributions::{contributions, convergence, stations_not_used};
 use super::fit::FitOutcome;
 use super::parameters::{ParameterSet, PARALLAX};
+use super::planet_place::{parallax_shift_arcsec, place_accuracy_arcsec};
 use super::rejection::{record_rejections, station_wide};
 use super::result::{Parameter, ReduceOptions, Reduction, UsedTiming};
 use super::screening::{scatter_of, screen, timings_of_event, Screened};
@@ -98,7 +99,8 @@ pub fn reduce_for_event(
     let model = *event.time_model();
     let mut rejected = set.rejected.clone();
     let timings = timings_of_event(&set.valid, &event, &model, &mut rejected)?;
-    let params = ParameterSet::classic(options.prior_parallax_arcsec);
+    let mut params = ParameterSet::classic(options.prior_parallax_arcsec);
+    options.planet_place.apply(&mut params);
     let threshold = options.outlier_threshold;
     let mut screened = screen(&event, &timings, &params, threshold);
     let verdicts = station_wide(&event, &timings, &params, &screened, threshold);
@@ -161,8 +163,8 @@ fn fit_warnings(outcome: &FitOutcome, stats: &FitStatistics) -> Vec<String> {
     if let Some(rb) = stats.birge_ratio {
         if rb > 1.0 && stats.p_value.is_some_and(|p| p < 0.05) {
             warnings.push(format!(
-                "the residuals scatter {rb:.2} times more than the stated sigmas allow (chi-square {:.1} for {} degrees of freedom); the uncertainties are scaled up by that factor",
-                stats.chi2, stats.dof
+                "the residuals scatter {rb:.2} times more than the stated sigmas allow (chi-square {:.1} for {}); the uncertainties are scaled up by that factor",
+                stats.chi2, crate::words::count(stats.dof, "degree of freedom", "degrees of freedom")
             ));
         }
     }
@@ -264,6 +266,20 @@ fn used_rows(timings: &[Timing], used: &[usize], outcome: &FitOutcome) -> Vec<Us
         .collect()
 }
 
+/// The chi-square of the priors on free parameters and their number.
+fn prior_terms(params: &ParameterSet, outcome: &FitOutcome) -> (f64, usize) {
+    params
+        .specs()
+        .iter()
+        .enumerate()
+        .filter(|(j, _)| outcome.free[*j])
+        .filter_map(|(j, spec)| {
+            spec.prior
+                .map(|p| ((outcome.theta[j] - p.value) / p.sigma).powi(2))
+        })
+        .fold((0.0, 0), |(sum, n), x| (sum + x, n + 1))
+}
+
 /// Statistics, parameters, the headline figures and each station's contribution.
 fn summarise(
     event: TransitEvent,
@@ -285,7 +301,9 @@ fn summarise(
         .zip(&w)
         .map(|(r, w)| r * r * w)
         .sum();
-    let stats = statistics(chi2, n.saturating_sub(n_free));
+    // Priors on free parameters are observations too: in the chi-square and the count.
+    let (prior_chi2, n_priors) = prior_terms(c.params, outcome);
+    let stats = statistics(chi2 + prior_chi2, (n + n_priors).saturating_sub(n_free));
     let determined = outcome.free[PARALLAX] && n > 0 && outcome.converged;
     let er = event.earth_radii_per_arcsec();
     let mut stations = contributions(&event, c.timings, used, outcome, &w, er);
@@ -295,9 +313,19 @@ fn summarise(
     } else {
         Vec::new()
     };
+    let place_bias_arcsec = parallax_shift_arcsec(
+        options.planet_place,
+        &event,
+        (c.timings, used),
+        c.params,
+        outcome,
+        place_accuracy_arcsec(&event.ephemeris_name()),
+    );
     let mut red = Reduction {
         event,
         prior_parallax_arcsec: options.prior_parallax_arcsec,
+        planet_place: options.planet_place,
+        place_bias_arcsec,
         parallax_arcsec: None,
         parallax_sigma_arcsec: None,
         parallax_interval_95: None,

@@ -7,6 +7,7 @@ use super::parameters::CLASSIC_NAMES;
 use crate::geometry::contacts::Perturbation;
 use crate::geometry::transit::TransitEvent;
 use crate::observations::timings::Rejected;
+use crate::reduction::planet_place::PlanetPlace;
 use crate::reduction::statistics::FitStatistics;
 use crate::sky::constants::nominal_parallax_arcsec;
 use crate::sky::ephemeris::Planet;
@@ -27,6 +28,8 @@ pub struct ReduceOptions {
     /// Whether to follow the solution as timings are added (for the report's convergence
     /// chart; Monte Carlo forecasts leave it out for speed).
     pub follow_convergence: bool,
+    /// The planet's place relative to the Sun: free, held, or with a prior.
+    pub planet_place: PlanetPlace,
 }
 
 impl Default for ReduceOptions {
@@ -37,6 +40,7 @@ impl Default for ReduceOptions {
             time_model: TimeModel::default(),
             outlier_threshold: 5.0,
             follow_convergence: true,
+            planet_place: PlanetPlace::Free,
         }
     }
 }
@@ -110,6 +114,11 @@ pub struct Reduction {
     pub event: TransitEvent,
     /// The a-priori parallax, arcsec.
     pub prior_parallax_arcsec: f64,
+    /// How the planet's place entered the fit.
+    pub planet_place: PlanetPlace,
+    /// With the place held or constrained: how far the parallax moves (arcsec) if the
+    /// ephemeris's place is wrong by its stated accuracy east, and north.
+    pub place_bias_arcsec: Option<[f64; 2]>,
     /// The solar parallax (None when the timings cannot determine it).
     pub parallax_arcsec: Option<f64>,
     /// Its standard uncertainty.

@@ -30,9 +30,9 @@ impl FitStatistics {
     /// "chi2 for dof degrees of freedom, p = ..., Birge ratio ..." for reports.
     pub fn describe(&self) -> String {
         format!(
-            "{:.1} for {} degrees of freedom{}{}",
+            "{:.1} for {}{}{}",
             self.chi2,
-            self.dof,
+            crate::words::count(self.dof, "degree of freedom", "degrees of freedom"),
             self.p_value
                 .map(|p| format!(", p = {p:.3}"))
                 .unwrap_or_default(),

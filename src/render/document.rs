@@ -57,6 +57,11 @@ fn summary(red: &Reduction) -> Summary {
         ),
     ));
     headline.push(("Chi-square".into(), red.statistics.describe()));
+    headline.push(("Ephemeris".into(), red.event.ephemeris_name()));
+    headline.push((
+        "The planet's place".into(),
+        crate::render::reduction::place_sentence(red),
+    ));
     Summary { headline }
 }
 

@@ -13,16 +13,17 @@ use serde_json::{json, Value};
 
 /// The columns of `plan` CSV output, in order.
 pub const PLAN_COLUMNS: &str =
-    "station,contact,time_utc,sun_altitude_deg,sensitivity_s_per_arcsec,visible,gain_percent,chosen";
+    "station,contact,time_utc,sun_altitude_deg,sensitivity_s_per_arcsec,visible,gain_percent,chosen,ephemeris";
 
 /// CSV of a plan: one row per site and contact that occurs there.
 pub fn plan_csv(event: &TransitEvent, plan: &Plan) -> String {
     let mut s = String::from(PLAN_COLUMNS);
     s.push('\n');
+    let ephemeris = csv_field(&event.ephemeris_name());
     for (i, site) in plan.sites.iter().enumerate() {
         for c in &site.contacts {
             s.push_str(&format!(
-                "{},{},{},{:.3},{:.3},{},{},{}\n",
+                "{},{},{},{:.3},{:.3},{},{},{},{ephemeris}\n",
                 csv_field(&site.station.name),
                 c.contact.number(),
                 format_utc(event.label(c.hours), 2),
@@ -65,6 +66,7 @@ pub fn plan_json(event: &TransitEvent, plan: &Plan, min_altitude_deg: f64) -> Va
     json!({
         "planet": event.planet.name(),
         "transit_date": event.date().to_string(),
+        "ephemeris": event.ephemeris_name(),
         "sigma_s": plan.sigma_s,
         "min_altitude_deg": min_altitude_deg,
         "sites": sites,
@@ -117,11 +119,12 @@ fn plan_summary(plan: &Plan, s: &mut String) {
 /// A readable plan.
 pub fn plan_table(event: &TransitEvent, plan: &Plan, min_altitude_deg: f64) -> String {
     let mut s = format!(
-        "Planning for the transit of {} on {} (timings of {:.0} s assumed; contacts counted with the Sun at least {:.0} deg up)\n\n",
+        "Planning for the transit of {} on {} (timings of {:.0} s assumed; contacts counted with the Sun at least {:.0} deg up; ephemeris {})\n\n",
         event.planet.title(),
         event.date(),
         plan.sigma_s,
-        min_altitude_deg
+        min_altitude_deg,
+        event.ephemeris_name()
     );
     s.push_str(&format!(
         "{}  {:>3} {:>26} {:>8} {:>9} {:>8}\n",
@@ -175,12 +178,13 @@ pub fn plan_table(event: &TransitEvent, plan: &Plan, min_altitude_deg: f64) -> S
 /// CSV of a sensitivity grid.
 pub fn grid_csv(event: &TransitEvent, points: &[GridPoint], min_altitude_deg: f64) -> String {
     let mut s = String::from(
-        "latitude,longitude,time_utc,sun_altitude_deg,sensitivity_s_per_arcsec,visible\n",
+        "latitude,longitude,time_utc,sun_altitude_deg,sensitivity_s_per_arcsec,visible,ephemeris\n",
     );
+    let ephemeris = csv_field(&event.ephemeris_name());
     for p in points {
         match p.hours {
             Some(h) => s.push_str(&format!(
-                "{:.4},{:.4},{},{:.3},{:.3},{}\n",
+                "{:.4},{:.4},{},{:.3},{:.3},{},{ephemeris}\n",
                 p.latitude_deg,
                 p.longitude_deg,
                 format_utc(event.label(h), 1),
@@ -189,7 +193,7 @@ pub fn grid_csv(event: &TransitEvent, points: &[GridPoint], min_altitude_deg: f6
                 p.sun_altitude_deg >= min_altitude_deg
             )),
             None => s.push_str(&format!(
-                "{:.4},{:.4},,,,false\n",
+                "{:.4},{:.4},,,,false,{ephemeris}\n",
                 p.latitude_deg, p.longitude_deg
             )),
         }
@@ -208,6 +212,7 @@ pub fn simulation_json(
     json!({
         "planet": event.planet.name(),
         "transit_date": event.date().to_string(),
+        "ephemeris": event.ephemeris_name(),
         "stations": stations,
         "trials": m.trials,
         "trials_solved": m.solved,
@@ -243,11 +248,12 @@ pub fn simulation_table(
     stations: usize,
 ) -> String {
     let mut s = format!(
-        "Monte Carlo forecast: {} of {}, transit of {} on {}\n\n",
+        "Monte Carlo forecast: {} of {}, transit of {} on {} (ephemeris {})\n\n",
         count(m.trials, "simulated campaign", "simulated campaigns"),
         count(stations, "station", "stations"),
         event.planet.title(),
-        event.date()
+        event.date(),
+        event.ephemeris_name()
     );
     s.push_str(&format!(
         "  timings per campaign (mean)     {:.1}\n",
@@ -304,10 +310,11 @@ pub fn simulation_table(
 }
 
 /// CSV of a Monte Carlo series: one row per trial (trial k used seed `seed + k`).
-pub fn simulation_csv(m: &MonteCarloSummary, seed: u64) -> String {
+pub fn simulation_csv(m: &MonteCarloSummary, seed: u64, ephemeris: &str) -> String {
     let mut s = String::from(
-        "trial,seed,timings,solved,au_km,au_sigma_km,interval_holds_truth,blunders_injected,blunders_caught\n",
+        "trial,seed,timings,solved,au_km,au_sigma_km,interval_holds_truth,blunders_injected,blunders_caught,ephemeris\n",
     );
+    let ephemeris = csv_field(ephemeris);
     for (k, (out, injected, caught, timings)) in m.per_trial.iter().enumerate() {
         let (solved, au, sigma, holds) = match out {
             Some((au, sigma, holds)) => (
@@ -319,7 +326,7 @@ pub fn simulation_csv(m: &MonteCarloSummary, seed: u64) -> String {
             None => ("false", String::new(), String::new(), String::new()),
         };
         s.push_str(&format!(
-            "{},{},{timings},{solved},{au},{sigma},{holds},{injected},{caught}\n",
+            "{},{},{timings},{solved},{au},{sigma},{holds},{injected},{caught},{ephemeris}\n",
             k + 1,
             seed.wrapping_add(k as u64)
         ));

@@ -37,6 +37,7 @@ pub fn transits_json(events: &[TransitEvent]) -> Value {
                     "duration_h": duration_h.map(|d| round(d, 4)),
                     "delta_t_s": round(ev.elements.delta_t_s, 2),
                     "delta_t_sigma_s": round(ev.delta_t_sigma_s(), 2),
+                    "ephemeris": ev.ephemeris_name(),
                 })
             })
             .collect(),
@@ -57,7 +58,7 @@ fn trim_number(x: f64) -> String {
 /// CSV for a list of transits.
 pub fn transits_csv(events: &[TransitEvent]) -> String {
     let mut s = String::from(
-        "planet,date,contact_1_utc,contact_2_utc,greatest_utc,contact_3_utc,contact_4_utc,min_separation_arcsec,delta_t_s,delta_t_sigma_s\n",
+        "planet,date,contact_1_utc,contact_2_utc,greatest_utc,contact_3_utc,contact_4_utc,min_separation_arcsec,delta_t_s,delta_t_sigma_s,ephemeris\n",
     );
     for ev in events {
         let c = |i: usize| {
@@ -66,7 +67,7 @@ pub fn transits_csv(events: &[TransitEvent]) -> String {
                 .unwrap_or_default()
         };
         s.push_str(&format!(
-            "{},{},{},{},{},{},{},{:.2},{:.2},{:.2}\n",
+            "{},{},{},{},{},{},{},{:.2},{:.2},{:.2},{}\n",
             ev.planet.name(),
             ev.date(),
             c(0),
@@ -76,7 +77,8 @@ pub fn transits_csv(events: &[TransitEvent]) -> String {
             c(3),
             ev.min_separation_arcsec,
             ev.elements.delta_t_s,
-            ev.delta_t_sigma_s()
+            ev.delta_t_sigma_s(),
+            ev.ephemeris_name()
         ));
     }
     s
@@ -86,9 +88,9 @@ pub fn transits_csv(events: &[TransitEvent]) -> String {
 /// of one transit can fall on two dates.
 pub fn transits_table(events: &[TransitEvent]) -> String {
     let mut s = String::new();
-    let row = |cells: [&str; 10]| {
+    let row = |cells: [&str; 11]| {
         format!(
-            "{:<8} {:<10} {:<5} {:>14} {:>14} {:>14} {:>14} {:>14} {:>10} {:>16}\n",
+            "{:<8} {:<10} {:<5} {:>14} {:>14} {:>14} {:>14} {:>14} {:>10} {:>16}  {}\n",
             cells[0],
             cells[1],
             cells[2],
@@ -98,7 +100,8 @@ pub fn transits_table(events: &[TransitEvent]) -> String {
             cells[6],
             cells[7],
             cells[8],
-            cells[9]
+            cells[9],
+            cells[10]
         )
     };
     s.push_str(&row([
@@ -112,8 +115,11 @@ pub fn transits_table(events: &[TransitEvent]) -> String {
         "IV",
         "least sep",
         "Delta T",
+        "ephemeris",
     ]));
-    s.push_str(&row(["", "", "", "", "", "", "", "", "(arcsec)", "(s)"]));
+    s.push_str(&row([
+        "", "", "", "", "", "", "", "", "(arcsec)", "(s)", "",
+    ]));
     for ev in events {
         let when = |h: f64| format_utc(ev.label(h), 0)[5..19].replace('T', " ");
         let c = |i: usize| {
@@ -131,6 +137,7 @@ pub fn transits_table(events: &[TransitEvent]) -> String {
         );
         let scale = scale_of(ev.label(ev.hours_of_greatest()));
         let (c1, c2, c3, c4) = (c(0), c(1), c(2), c(3));
+        let ephemeris = ev.ephemeris_name();
         s.push_str(&row([
             ev.planet.title(),
             &date,
@@ -142,6 +149,7 @@ pub fn transits_table(events: &[TransitEvent]) -> String {
             &c4,
             &sep,
             &dt,
+            &ephemeris,
         ]));
     }
     if events.is_empty() {
@@ -155,7 +163,7 @@ pub fn transits_table(events: &[TransitEvent]) -> String {
 }
 
 /// The columns of `predict` CSV output, in order.
-pub const PREDICT_COLUMNS: [&str; 10] = [
+pub const PREDICT_COLUMNS: [&str; 11] = [
     "station",
     "contact",
     "time_utc",
@@ -166,6 +174,7 @@ pub const PREDICT_COLUMNS: [&str; 10] = [
     "sensitivity_s_per_arcsec",
     "latitude",
     "longitude",
+    "ephemeris",
 ];
 
 /// CSV for station predictions: one row per station and contact. Written field by field into
@@ -181,10 +190,11 @@ pub fn predictions_csv(event: &TransitEvent, predictions: &[StationPrediction]) 
             push_fixed(s, x, decimals);
         }
     };
+    let ephemeris = csv_field(&event.ephemeris_name());
     for p in predictions {
         let name = csv_field(&p.station.name);
         let place = format!(
-            ",{},{}\n",
+            ",{},{},{ephemeris}\n",
             trim_number(p.station.latitude_deg),
             trim_number(p.station.longitude_deg)
         );
@@ -213,6 +223,7 @@ pub fn predictions_csv(event: &TransitEvent, predictions: &[StationPrediction]) 
 #[derive(serde::Serialize)]
 pub struct PredictionRow<'a> {
     contact: u8,
+    ephemeris: &'a str,
     position_angle_deg: Option<f64>,
     sensitivity_s_per_arcsec: Option<f64>,
     station: &'a str,
@@ -226,6 +237,7 @@ pub struct PredictionRow<'a> {
 /// JSON for station predictions: one object per station and contact, serialised straight from
 /// these rows (a `serde_json::Value` tree per row dominated the command for large grids).
 pub fn predictions_json<'a>(
+    ephemeris: &'a str,
     event: &TransitEvent,
     predictions: &'a [StationPrediction],
 ) -> Vec<PredictionRow<'a>> {
@@ -235,6 +247,7 @@ pub fn predictions_json<'a>(
             let cc = p.contacts[c.index()];
             rows.push(PredictionRow {
                 station: &p.station.name,
+                ephemeris,
                 contact: c.number(),
                 time_utc: cc.map(|x| format_utc(event.label(x.hours), 2)),
                 sun_altitude_deg: cc.map(|x| round(x.sun_altitude_deg, 3)),
@@ -273,6 +286,7 @@ pub fn predictions_table(event: &TransitEvent, predictions: &[StationPrediction]
         event.elements.delta_t_s,
         event.delta_t_sigma_s()
     );
+    s.push_str(&format!("Ephemeris: {}.\n", event.ephemeris_name()));
     s.push_str(&delta_t_note(event));
     s.push('\n');
     s.push_str(&format!(

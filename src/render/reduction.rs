@@ -100,12 +100,46 @@ pub fn reduction_json(red: &Reduction) -> Value {
         "iterations": red.iterations,
         "warnings": red.warnings,
         "delta_t_s": r(red.event.elements.delta_t_s, 3),
+        "ephemeris": red.event.ephemeris_name(),
+        "planet_place": red.planet_place.label(),
+        "planet_place_parallax_shift_arcsec": red.place_bias_arcsec.map(|b| vec![r(b[0], 6), r(b[1], 6)]),
         "convergence": red.convergence.iter().map(|c| json!({
             "timings": c.timings,
             "parallax_arcsec": r(c.parallax_arcsec, 6),
             "sigma_arcsec": r(c.sigma_arcsec, 6),
         })).collect::<Vec<_>>(),
     })
+}
+
+/// The planet's place in a sentence: the choice, the ephemeris's own accuracy, and the bias
+/// that holding the place risks (measured, see `reduction::planet_place`).
+pub fn place_sentence(red: &Reduction) -> String {
+    use crate::reduction::planet_place::{place_accuracy_arcsec, PlanetPlace};
+    let name = red.event.ephemeris_name();
+    let accuracy = place_accuracy_arcsec(&name);
+    let planet = red.event.planet.title();
+    let ephemeris = format!(
+        "{name}, whose place of {planet} relative to the Sun is good to about {accuracy}\""
+    );
+    let risk = |bias: Option<[f64; 2]>| {
+        match (bias, red.parallax_sigma_arcsec) {
+        (Some([e, n]), Some(sigma)) => {
+            let worst = e.abs().max(n.abs());
+            let verdict = if worst > 0.5 * sigma {
+                "a bias comparable to the uncertainty: prefer --planet-place free or a looser prior"
+            } else {
+                "small beside the uncertainty"
+            };
+            format!(" An error of that size east or north would move the parallax by {:.5}\" or {:.5}\" ({:.3} or {:.3} of its uncertainty): {verdict}.", e.abs(), n.abs(), e.abs() / sigma, n.abs() / sigma)
+        }
+        _ => " What an ephemeris error would do to the parallax is not determined (the parallax is not).".to_string(),
+    }
+    };
+    match red.planet_place {
+        PlanetPlace::Free => format!("The planet's place relative to the Sun is fitted (two offsets, --planet-place free), so no error of the ephemeris ({ephemeris}) enters the parallax, at the cost of a larger uncertainty."),
+        PlanetPlace::Fixed => format!("The planet's place relative to the Sun is held at the ephemeris's value (--planet-place fixed): {ephemeris}.{}", risk(red.place_bias_arcsec)),
+        PlanetPlace::Prior(sigma) => format!("The planet's place relative to the Sun is fitted with a prior of {sigma}\" on each offset (--planet-place prior={sigma}): {ephemeris}.{}", risk(red.place_bias_arcsec)),
+    }
 }
 
 /// The result, the chi-square and the warnings.
@@ -142,6 +176,11 @@ fn headline_section(red: &Reduction, s: &mut String) {
         red.statistics.describe()
     ));
     s.push_str(&format!("  {}\n", chi2_sentence(red)));
+    s.push_str(&format!(
+        "  ephemeris           {}\n",
+        red.event.ephemeris_name()
+    ));
+    s.push_str(&format!("  {}\n", place_sentence(red)));
     for w in &red.warnings {
         s.push_str(&format!("  warning: {w}\n"));
     }

@@ -50,6 +50,20 @@ impl Chebyshev {
         }
     }
 
+    /// A series on [start, end] with these coefficients (at most [`MAX_TERMS`]; more are
+    /// ignored), e.g. read from a file of fitted series.
+    pub fn from_coefficients(start: f64, end: f64, coefficients: &[f64]) -> Chebyshev {
+        let n = coefficients.len().min(MAX_TERMS);
+        let mut coeffs = [0.0; MAX_TERMS];
+        coeffs[..n].copy_from_slice(&coefficients[..n]);
+        Chebyshev {
+            start,
+            end,
+            len: n,
+            coeffs,
+        }
+    }
+
     /// Drop trailing coefficients whose magnitudes sum to less than `tolerance` (in the units
     /// of the function): the truncation error is bounded by that sum, since |T_j| <= 1.
     pub fn truncated(mut self, tolerance: f64) -> Chebyshev {

@@ -1,11 +1,14 @@
 //! Geocentric apparent positions of the Sun and of Mercury or Venus, and the Earth's rotation.
 //!
 //! Model (docs/method.md gives the reasoning and the error budget):
-//! - Heliocentric positions of the planet and the Earth from the full VSOP87A series
+//! - Barycentric positions of the Earth, the Sun and the planet from series fitted to the JPL
+//!   development ephemerides around each transit (`jpl_windows.rs`, the default), or
+//! - heliocentric positions of the planet and the Earth from the full VSOP87A series
 //!   (Bretagnon and Francou 1988, A&A 202, 309) through the `vsop87` crate, referred to the
 //!   dynamical ecliptic and equinox J2000 and rotated to the FK5/ICRS equator with the matrix
 //!   given with VSOP87.
-//! - Light time iterated for the planet (geocentric distance) and for the Sun.
+//! - Light time iterated for the planet (geocentric distance) and for the Sun (with the JPL
+//!   series; heliocentric VSOP87 leaves the Sun's barycentric motion out).
 //! - Annual aberration, relativistic form of ERFA `eraAb` (Klioner 2003), with the Earth's
 //!   barycentric velocity from ERFA `eraEpv00` (through the `erfa` crate).
 //! - Precession and nutation IAU 2006/2000A (`eraPnm06a`), so the vectors are referred to the
@@ -144,12 +147,87 @@ pub struct GeocentricState {
     pub gast_rad: f64,
 }
 
+/// Which planetary theory computes the positions (`--ephemeris`).
+#[derive(Clone, Copy, Debug, Default, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "lowercase")]
+pub enum EphemerisChoice {
+    /// Series fitted to the JPL development ephemerides around each transit
+    /// ([`crate::sky::jpl_windows`]), VSOP87A where an instant has none.
+    #[default]
+    Jpl,
+    /// VSOP87A everywhere.
+    Vsop87,
+}
+
+impl EphemerisChoice {
+    /// Parse `jpl` or `vsop87` (any case).
+    pub fn parse(text: &str) -> Option<EphemerisChoice> {
+        match text.trim().to_ascii_lowercase().as_str() {
+            "jpl" => Some(EphemerisChoice::Jpl),
+            "vsop87" => Some(EphemerisChoice::Vsop87),
+            _ => None,
+        }
+    }
+}
+
+/// The JPL window that serves an instant under this choice, if any.
+pub fn jpl_window(
+    planet: Planet,
+    tt: Tt,
+    choice: EphemerisChoice,
+) -> Option<&'static crate::sky::jpl_windows::Window> {
+    match choice {
+        EphemerisChoice::Jpl => crate::sky::jpl_windows::window_for(planet, tt),
+        EphemerisChoice::Vsop87 => None,
+    }
+}
+
+/// The name of the ephemeris that serves an instant: `JPL DE421`, ..., or `VSOP87A`.
+pub fn ephemeris_name(planet: Planet, tt: Tt, choice: EphemerisChoice) -> String {
+    jpl_window(planet, tt, choice)
+        .map(|w| format!("JPL {}", w.source))
+        .unwrap_or_else(|| "VSOP87A".to_string())
+}
+
 /// Compute the geocentric apparent state at an instant.
 ///
-/// Arguments: `planet`; `tt`, the instant; `time_model`, which gives UT1 for the sidereal time.
+/// Arguments: `planet`; `tt`, the instant; `time_model`, which gives UT1 for the sidereal time
+/// and the ephemeris to use.
 /// Returns: [`GeocentricState`].
 /// References: see the module documentation.
 pub fn geocentric_state(planet: Planet, tt: Tt, time_model: &TimeModel) -> GeocentricState {
+    let (sun_geo, planet_geo, v_c) = match jpl_window(planet, tt, time_model.ephemeris) {
+        Some(w) => jpl_vectors(w, tt),
+        None => vsop87_vectors(planet, tt),
+    };
+    apparent_state(tt, time_model, (sun_geo, planet_geo), v_c)
+}
+
+/// Geocentric light-time vectors of the Sun and the planet (ICRS axes, au) and the Earth's
+/// barycentric velocity over c, from a JPL window: P(t - tau) - E(t) with tau iterated for
+/// each body (three passes converge far below a millimetre).
+fn jpl_vectors(w: &crate::sky::jpl_windows::Window, tt: Tt) -> (V3, V3, V3) {
+    use crate::sky::jpl_windows::Body;
+    let (earth, earth_velocity) = w.position_velocity_au(Body::Earth, tt);
+    let retarded = |body: Body| {
+        let mut p = sub(w.position_au(body, tt), earth);
+        for _ in 0..3 {
+            let tau_s = norm(p) * LIGHT_TIME_DAYS_PER_AU * 86_400.0;
+            p = sub(w.position_au(body, tt.add_seconds(-tau_s)), earth);
+        }
+        p
+    };
+    (
+        retarded(Body::Sun),
+        retarded(Body::Planet),
+        scale(LIGHT_TIME_DAYS_PER_AU, earth_velocity),
+    )
+}
+
+/// The same from VSOP87A: heliocentric positions rotated to the FK5 equator (about 20 mas
+/// from the ICRS, common to both bodies), the Earth's barycentric velocity from ERFA
+/// `eraEpv00`.
+fn vsop87_vectors(planet: Planet, tt: Tt) -> (V3, V3, V3) {
     let (jd1, jd2) = tt.jd_pair();
     // VSOP87 takes a one-part Julian date, which resolves only ~40 microseconds (about a metre
     // of orbital motion). The part lost in rounding is restored to first order with the bodies'
@@ -179,19 +257,28 @@ pub fn geocentric_state(planet: Planet, tt: Tt, time_model: &TimeModel) -> Geoce
     let w = tau1_days / tau0_days;
     let p_ret = add(scale(1.0 - w, p_now), scale(w, p_then));
     let planet_geo = sub(p_ret, earth);
-    // The Sun: its motion about the barycentre during the light time (about 6 km) is
-    // neglected; it moves the Sun and the planet alike by ~0.01 arcsec.
+    // The Sun: heliocentric coordinates leave out its motion about the barycentre during the
+    // light time (about 6 km, some 0.01 arcsec); the JPL windows include it.
     let sun_geo = scale(-1.0, earth);
+    (
+        mat_vec(VSOP87_TO_FK5, sun_geo),
+        mat_vec(VSOP87_TO_FK5, planet_geo),
+        // Aberration with the Earth's barycentric velocity (ERFA eraEpv00, au/day, BCRS).
+        scale(LIGHT_TIME_DAYS_PER_AU, pvb[1]),
+    )
+}
 
-    let sun_eq = mat_vec(VSOP87_TO_FK5, sun_geo);
-    let planet_eq = mat_vec(VSOP87_TO_FK5, planet_geo);
-
-    // Aberration with the Earth's barycentric velocity (ERFA eraEpv00, au/day, BCRS).
-    let v_c = scale(LIGHT_TIME_DAYS_PER_AU, pvb[1]);
+/// Aberration, then bias-precession-nutation to the true equator and equinox of date, and
+/// the sidereal time.
+fn apparent_state(
+    tt: Tt,
+    time_model: &TimeModel,
+    (sun_eq, planet_eq): (V3, V3),
+    v_c: V3,
+) -> GeocentricState {
+    let (jd1, jd2) = tt.jd_pair();
     let sun_app = scale(norm(sun_eq), aberration(unit(sun_eq), v_c));
     let planet_app = scale(norm(planet_eq), aberration(unit(planet_eq), v_c));
-
-    // Bias-precession-nutation to the true equator and equinox of date.
     let rnpb = erfa::prenut::pn_matrix_06a(jd1, jd2);
     let (ut1a, ut1b) = time_model.ut1_jd_pair(tt);
     let gast_rad = erfa::time::gst06(ut1a, ut1b, jd1, jd2, rnpb);

@@ -273,13 +273,17 @@ pub fn delta_t_espenak_meeus_s(year: f64) -> f64 {
     -20.0 + 32.0 * u * u - 0.5628 * (2150.0 - y)
 }
 
-/// How Delta T is obtained for an event, and DUT1 in the leap-second era.
+/// The settings an event is computed with: how Delta T is obtained, DUT1 in the leap-second
+/// era, and the ephemeris (carried here because every computation that needs the time
+/// settings needs the ephemeris too).
 #[derive(Clone, Copy, Debug, Default, PartialEq)]
 pub struct TimeModel {
     /// A fixed TT - UT1 in seconds that replaces the built-in model (`--delta-t`).
     pub delta_t_override_s: Option<f64>,
     /// UT1 - UTC in seconds for the leap-second era (|DUT1| < 0.9 s); 0 when unknown.
     pub dut1_s: f64,
+    /// The planetary theory (`--ephemeris`).
+    pub ephemeris: crate::sky::ephemeris::EphemerisChoice,
 }
 
 /// Where a Delta T value came from.
@@ -301,7 +305,7 @@ impl TimeModel {
     pub fn fixed(delta_t_s: f64) -> TimeModel {
         TimeModel {
             delta_t_override_s: Some(delta_t_s),
-            dut1_s: 0.0,
+            ..TimeModel::default()
         }
     }
 
@@ -617,7 +621,8 @@ mod tests {
     fn dut1_and_delta_t_are_validated() {
         assert!(TimeModel {
             delta_t_override_s: None,
-            dut1_s: 0.95
+            dut1_s: 0.95,
+            ..TimeModel::default()
         }
         .validate()
         .is_err());
@@ -627,11 +632,13 @@ mod tests {
         let both = TimeModel {
             delta_t_override_s: Some(67.0),
             dut1_s: 0.3,
+            ..TimeModel::default()
         };
         assert!(both.validate().is_err());
         let dut1 = TimeModel {
             delta_t_override_s: None,
             dut1_s: 0.3,
+            ..TimeModel::default()
         };
         assert!(dut1.validate().is_ok());
         assert!(dut1.validate_for_year(1882).is_err());

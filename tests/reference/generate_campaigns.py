@@ -22,6 +22,9 @@ timings. The column `injected` names each blunder (ignored by the tool, read by 
     latlon           latitude and longitude exchanged (all its rows)
     clock:+75s       station clock 75 s fast (all its rows)
 
+Also a pool of true contact times (no errors) at 120 stations for Venus 2012,
+tests/reference/campaigns/venus-2012-pool.csv, from which tests draw campaigns of their own.
+
 Run: python3 tests/reference/generate_campaigns.py  (a few minutes); writes
 tests/reference/campaigns/<name>.csv.
 """
@@ -43,7 +46,14 @@ CAMPAIGNS = [
     ("venus-2012-blunders", "venus", 2456084.56, 66.184, 44, True, 2012),
     ("mercury-2016-blunders", "mercury", 2457518.12, 68.184, 36, True, 2016),
     ("mercury-2019-clean", "mercury", 2458799.14, 69.184, 30, False, 2019),
+    # For --planet-place: a clean Venus 2012 campaign of 40 stations.
+    ("venus-2012-place", "venus", 2456084.56, 66.184, 40, False, 4012),
 ]
+
+# A pool of true (noise-free) contact times at 120 random stations for Venus 2012, from which
+# the tests draw many campaigns and add their own Gaussian timing errors (the statistics of
+# the uncertainty; the truth stays DE421's).
+POOL = ("venus-2012-pool", "venus", 2456084.56, 66.184, 120, 5120)
 
 BLACK_DROP_S = {2: 8.0, 3: -8.0}
 ROW_BLUNDERS = ["zone:+3h", "swap:II>III", "day:+1", "zone:+5.5h", "swap:I>II"]
@@ -56,14 +66,43 @@ def draw_station(rng):
     return float(round(lat, 4)), float(round(lon, 4)), float(round(rng.uniform(0.0, 1500.0)))
 
 
+def write_pool(eph, earth, out_dir):
+    """True contact times (Sun at least 5 degrees up) at the pool's random stations."""
+    name, planet, jd_guess, tt_minus_utc, n_stations, seed = POOL
+    rng = np.random.default_rng(seed)
+    solver = ContactSolver(eph, planet, jd_guess, tt_minus_utc)
+    rows, k = [], 0
+    while k < n_stations:
+        lat, lon, elev = draw_station(rng)
+        obs = earth + wgs84.latlon(lat, lon, elevation_m=elev)
+        res = solver.contacts(obs)
+        seen = {c: t for c, t in res.items() if solver.sun_altitude_deg(obs, t) > 5.0}
+        if len(seen) < 2:
+            continue
+        k += 1
+        for c in sorted(seen):
+            jd_label = jd_guess + (seen[c] * S_PER_DAY - tt_minus_utc) / S_PER_DAY
+            rows.append(["pool-%03d" % k, lat, lon, elev, c, iso(jd_label)])
+    with open(os.path.join(out_dir, name + ".csv"), "w", newline="") as f:
+        w = csv.writer(f, lineterminator="\n")
+        w.writerow(["station", "latitude", "longitude", "elevation_m", "contact", "time_utc"])
+        w.writerows(rows)
+    print(name, n_stations, "stations", len(rows), "true times", file=sys.stderr)
+
+
 def main():
     out_dir = os.path.join(HERE, "campaigns")
     os.makedirs(out_dir, exist_ok=True)
     tmp = os.path.join(tempfile.mkdtemp(), "de421.bsp")
     write_spk("de421", [(c[2] - 3.0, c[2] + 3.0) for c in CAMPAIGNS], tmp)
+    only = sys.argv[1:]
     eph = SpiceKernel(tmp)
     earth = eph[399]
+    if not only or POOL[0] in only:
+        write_pool(eph, earth, out_dir)
     for name, planet, jd_guess, tt_minus_utc, n_stations, blunders, seed in CAMPAIGNS:
+        if only and name not in only:
+            continue
         rng = np.random.default_rng(seed)
         solver = ContactSolver(eph, planet, jd_guess, tt_minus_utc)
         stations = []

@@ -1,8 +1,8 @@
 #!/usr/bin/env python3
 """Generate reference contact times for transits of Venus and Mercury.
 
-Independent reference for `cargo test`: the JPL DE421 (1900-2050) and DE423
-(1799-2200) planetary ephemerides, evaluated by the general-purpose astronomy
+Independent reference for `cargo test`: the JPL DE421 (1900-2050), DE423
+(1799-2200) and DE405 (1600-2200, used here for 1639, 1761 and 1769) planetary ephemerides, evaluated by the general-purpose astronomy
 library Skyfield.  The output CSV is committed next to this script so that the
 Rust tests never need Python.
 
@@ -28,11 +28,11 @@ Model the fixtures follow (keep the Rust side identical in meaning):
 * Contacts: apparent separation of centres = s_sun + s_planet (I, IV) or
   s_sun - s_planet (II, III); no refraction, no irradiation.
 
-The PyPI packages `de421` and `de423` ship the JPL Chebyshev coefficients as
+The PyPI packages `de405`, `de421` and `de423` ship the JPL Chebyshev coefficients as
 NumPy arrays; this script writes them, for short windows around each event,
 into a temporary SPK (DAF type 2) file that Skyfield opens offline.
 
-Pinned versions: skyfield==1.53 jplephem==2.24 de421==2008.1 de423==2010.1
+Pinned versions: skyfield==1.53 jplephem==2.24 de405==1997.1 de421==2008.1 de423==2010.1
 numpy 2.x.  Run:  python3 tests/reference/generate_contacts.py
 Writes tests/reference/contacts_skyfield.csv (with the Sun's true altitude and the position angle
 of the contact point at each contact) and prints the time per station.
@@ -69,6 +69,10 @@ EVENTS = [
     ("venus-1874-12-09", "venus", "de423", 2405866.67, -3.0, -3.0),
     ("venus-1882-12-06", "venus", "de423", 2408786.21, -5.5, -5.5),
     ("venus-2117-12-11", "venus", "de423", 2494622.62, 240.0, 69.184),
+    # Before DE423's start (1799): DE405 (Standish 1998), which runs from 1599.
+    ("venus-1639-12-04", "venus", "de405", 2320030.27, 65.0, 65.0),
+    ("venus-1761-06-06", "venus", "de405", 2364408.72, 15.0, 15.0),
+    ("venus-1769-06-03", "venus", "de405", 2367328.43, 16.0, 16.0),
 ]
 
 # Invented stations spread over both hemispheres (name, lat, lon east, elevation m).
