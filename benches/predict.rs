@@ -23,9 +23,20 @@ fn stations(n: usize) -> Vec<transit_parallax::geometry::station::GeocentricStat
 fn bench(c: &mut Criterion) {
     let model = TimeModel::default();
     let greatest = Tt::from_jd(2_456_084.562_2);
-    c.bench_function("full model state (VSOP87 + IAU 2006/2000A)", |b| {
+    c.bench_function("full model state (JPL series + IAU 2006/2000A)", |b| {
         b.iter(|| geocentric_state(Planet::Venus, black_box(greatest), &model))
     });
+    let vsop87 = TimeModel {
+        ephemeris: transit_parallax::sky::ephemeris::EphemerisChoice::Vsop87,
+        ..TimeModel::default()
+    };
+    c.bench_function("full model state (VSOP87A + IAU 2006/2000A)", |b| {
+        b.iter(|| geocentric_state(Planet::Venus, black_box(greatest), &vsop87))
+    });
+    c.bench_function(
+        "event setup with VSOP87A (greatest transit search + elements)",
+        |b| b.iter(|| TransitEvent::near(Planet::Venus, black_box(greatest), &vsop87)),
+    );
     c.bench_function("event setup (elements fit)", |b| {
         b.iter(|| Elements::compute(Planet::Venus, black_box(greatest), &model))
     });

@@ -6,6 +6,8 @@
 //! uncertainty of Delta T.
 //!
 //! - `scales.rs`: the leap-second table, Delta T, [`scales::TimeModel`], [`scales::Tt`].
+//! - `delta_t.rs`: the Espenak-Meeus polynomials of Delta T.
 //! - `iso.rs`: parsing and formatting ISO 8601 labels.
+pub mod delta_t;
 pub mod iso;
 pub mod scales;
