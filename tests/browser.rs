@@ -22,6 +22,17 @@ fn find_chromium() -> Option<PathBuf> {
     .find(|p| p.exists())
 }
 
+/// The browser, or `None` after saying the test is skipped.
+fn browser_or_skip() -> Option<PathBuf> {
+    let found = find_chromium();
+    if found.is_none() {
+        eprintln!(
+            "SKIPPED: no chromium installed (CI installs Debian's chromium and runs this test)"
+        );
+    }
+    found
+}
+
 /// A fresh folder for one test's files.
 fn temp_dir(name: &str) -> PathBuf {
     let d = std::env::temp_dir().join(format!("tp-browser-{}-{name}", std::process::id()));
@@ -167,10 +178,7 @@ fn page_of(svgs: &[String]) -> String {
 
 #[test]
 fn a_browser_renders_the_demo_report() {
-    let Some(browser) = find_chromium() else {
-        eprintln!(
-            "SKIPPED: no chromium installed (CI installs Debian's chromium and runs this test)"
-        );
+    let Some(browser) = browser_or_skip() else {
         return;
     };
     let dir = temp_dir("shot");
@@ -287,10 +295,7 @@ fn big_campaign() -> Vec<u8> {
 
 #[test]
 fn report_charts_are_laid_out_cleanly_in_a_browser() {
-    let Some(browser) = find_chromium() else {
-        eprintln!(
-            "SKIPPED: no chromium installed (CI installs Debian's chromium and runs this test)"
-        );
+    let Some(browser) = browser_or_skip() else {
         return;
     };
     let dir = temp_dir("layout");
@@ -309,10 +314,7 @@ fn report_charts_are_laid_out_cleanly_in_a_browser() {
 
 #[test]
 fn planning_charts_are_laid_out_cleanly_in_a_browser() {
-    let Some(browser) = find_chromium() else {
-        eprintln!(
-            "SKIPPED: no chromium installed (CI installs Debian's chromium and runs this test)"
-        );
+    let Some(browser) = browser_or_skip() else {
         return;
     };
     let dir = temp_dir("planning");

@@ -179,18 +179,54 @@ pub const PREDICT_COLUMNS: [&str; 11] = [
 
 /// CSV for station predictions: one row per station and contact. Written field by field into
 /// one buffer (for a 1-degree grid of 64,800 stations, `format!` per row took longer than the
-/// predictions themselves).
+/// predictions themselves), large lists in parallel chunks joined in order.
 pub fn predictions_csv(event: &TransitEvent, predictions: &[StationPrediction]) -> String {
-    let mut s = String::with_capacity(96 * 4 * predictions.len() + 128);
+    let mut s = String::with_capacity(100 * 4 * predictions.len() + 128);
     s.push_str(&PREDICT_COLUMNS.join(","));
     s.push('\n');
+    let ephemeris = csv_field(&event.ephemeris_name());
+    let threads = std::thread::available_parallelism().map_or(1, |n| n.get().min(8));
+    if threads < 2 || predictions.len() < 4_000 {
+        csv_rows(event, &ephemeris, predictions, &mut s);
+        return s;
+    }
+    let chunk = predictions.len().div_ceil(threads);
+    let parts: Vec<String> = std::thread::scope(|scope| {
+        let handles: Vec<_> = predictions
+            .chunks(chunk)
+            .map(|part| {
+                let ephemeris = &ephemeris;
+                scope.spawn(move || {
+                    let mut out = String::with_capacity(100 * 4 * part.len());
+                    csv_rows(event, ephemeris, part, &mut out);
+                    out
+                })
+            })
+            .collect();
+        handles
+            .into_iter()
+            .map(|h| h.join().unwrap_or_default())
+            .collect()
+    });
+    for part in parts {
+        s.push_str(&part);
+    }
+    s
+}
+
+/// The CSV rows of these predictions, appended to `s`.
+fn csv_rows(
+    event: &TransitEvent,
+    ephemeris: &str,
+    predictions: &[StationPrediction],
+    s: &mut String,
+) {
     let opt = |s: &mut String, v: Option<f64>, decimals: usize| {
         s.push(',');
         if let Some(x) = v.filter(|x| x.is_finite()) {
             push_fixed(s, x, decimals);
         }
     };
-    let ephemeris = csv_field(&event.ephemeris_name());
     for p in predictions {
         let name = csv_field(&p.station.name);
         let place = format!(
@@ -202,20 +238,19 @@ pub fn predictions_csv(event: &TransitEvent, predictions: &[StationPrediction]) 
             let cc = p.contacts[c.index()];
             s.push_str(&name);
             s.push(',');
-            push_digits(&mut s, u64::from(c.number()), 1);
+            push_digits(s, u64::from(c.number()), 1);
             s.push(',');
             if let Some(x) = cc {
-                push_utc(&mut s, event.label(x.hours), 2);
+                push_utc(s, event.label(x.hours), 2);
             }
-            opt(&mut s, cc.map(|x| x.sun_altitude_deg), 3);
-            opt(&mut s, cc.map(|x| x.sun_azimuth_deg), 3);
-            opt(&mut s, cc.map(|x| x.position_angle_deg), 2);
-            opt(&mut s, cc.map(|x| x.vertex_angle_deg), 2);
-            opt(&mut s, cc.map(|x| x.sensitivity_s_per_arcsec), 3);
+            opt(s, cc.map(|x| x.sun_altitude_deg), 3);
+            opt(s, cc.map(|x| x.sun_azimuth_deg), 3);
+            opt(s, cc.map(|x| x.position_angle_deg), 2);
+            opt(s, cc.map(|x| x.vertex_angle_deg), 2);
+            opt(s, cc.map(|x| x.sensitivity_s_per_arcsec), 3);
             s.push_str(&place);
         }
     }
-    s
 }
 
 /// One station and contact of `predict --format json` (keys of the stable interface).
