@@ -37,7 +37,7 @@ fn main() -> Result<(), Box<dyn std::error::Error>> {
     let t2 = Instant::now();
     let predictions: Vec<_> = stations.iter().map(|s| event.predict(s)).collect();
     let t3 = Instant::now();
-    let csv = predictions_csv(&event, &predictions);
+    let csv = predictions_csv(&event, &predictions, None);
     let t4 = Instant::now();
     let ms = |a: Instant, b: Instant| (b - a).as_secs_f64() * 1e3;
     println!(

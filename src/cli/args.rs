@@ -5,6 +5,7 @@ use clap::{Parser, Subcommand, ValueEnum};
 use std::path::PathBuf;
 use transit_parallax::render::text::Format;
 use transit_parallax::sky::ephemeris::EphemerisChoice;
+use transit_parallax::sky::solar_time::LocalTime;
 use transit_parallax::time::iso;
 use transit_parallax::{Error, Planet, TimeModel};
 
@@ -98,7 +99,7 @@ pub enum Command {
     Transits(TransitsArgs),
     /// Predict contacts I-IV for each station of a file.
     #[command(
-        after_help = "Examples:\n  transit-parallax predict --planet mercury --date 2032-11-13 --stations stations.csv\n  transit-parallax predict --planet venus --date 2117-12-11 --stations stations.csv --format csv"
+        after_help = "Examples:\n  transit-parallax predict --planet mercury --date 2032-11-13 --stations stations.csv\n  transit-parallax predict --planet venus --date 2117-12-11 --stations stations.csv --format csv\n  transit-parallax predict --planet venus --date 1769-06-03 --stations stations.csv --local-time apparent"
     )]
     Predict(PredictArgs),
     /// Reduce contact timings to the solar parallax and the astronomical unit.
@@ -168,9 +169,29 @@ pub struct PredictArgs {
     /// CSV file with columns station,latitude,longitude,elevation_m.
     #[arg(long)]
     pub stations: PathBuf,
+    /// Also give each contact as the station's clock would read it in local solar time:
+    /// apparent (sundial time) or mean (column time_local, civil day reckoning).
+    #[arg(long = "local-time", value_enum, value_name = "apparent|mean")]
+    pub local_time: Option<LocalTimeArg>,
     /// Output format.
     #[arg(long, value_enum, default_value = "table")]
     pub format: FormatArg,
+}
+
+/// Values of `--local-time`.
+#[derive(clap::ValueEnum, Clone, Copy, Debug)]
+pub enum LocalTimeArg {
+    Apparent,
+    Mean,
+}
+
+impl LocalTimeArg {
+    pub fn kind(self) -> LocalTime {
+        match self {
+            LocalTimeArg::Apparent => LocalTime::Apparent,
+            LocalTimeArg::Mean => LocalTime::Mean,
+        }
+    }
 }
 
 // Arguments of `reduce`.

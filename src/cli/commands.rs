@@ -70,15 +70,17 @@ fn predict(a: PredictArgs) -> Result<String, Error> {
     let stations = read_stations(&a.stations)?;
     let event = a.event.transit()?;
     let predictions: Vec<_> = stations.iter().map(|s| event.predict(s)).collect();
+    let local = a.local_time.map(|k| k.kind());
     Ok(match a.format.format() {
-        Format::Table => prediction::predictions_table(&event, &predictions),
-        Format::Csv => prediction::predictions_csv(&event, &predictions),
+        Format::Table => prediction::predictions_table(&event, &predictions, local),
+        Format::Csv => prediction::predictions_csv(&event, &predictions, local),
         Format::Json => {
             let ephemeris = event.ephemeris_name();
             pretty(&prediction::predictions_json(
                 &ephemeris,
                 &event,
                 &predictions,
+                local,
             ))
         }
     })

@@ -4,6 +4,8 @@
 //! cannot be used kept with its line, a reason and a sentence saying how to fix it.
 //!
 //! - `csv_table.rs`: CSV reading with the line and column of every value.
+//! - `local_time.rs`: readings in local apparent or mean solar time, converted to UT1.
 //! - `timings.rs`: reading and validating timings; rejected rows and their reasons.
 pub mod csv_table;
+pub mod local_time;
 pub mod timings;

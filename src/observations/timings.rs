@@ -10,6 +10,7 @@ use crate::geometry::station::{
     normalise_longitude_deg, Station, MAX_ELEVATION_M, MIN_ELEVATION_M,
 };
 use crate::observations::csv_table::CsvTable;
+use crate::observations::local_time::{parse_local, LocalColumns, LocalReading};
 use crate::time::iso::{parse_utc_zoned, Zone};
 use crate::time::scales::{MAX_YEAR, MIN_YEAR};
 use chrono::{Datelike, NaiveDateTime};
@@ -81,6 +82,9 @@ pub struct Observation {
     pub sigma_s: f64,
     /// Whether `sigma_s` came from the file (else the default for the contact).
     pub sigma_given: bool,
+    /// The clock reading in local solar time, where the row gave one (`time_label` is then
+    /// its UT1 at the station's longitude).
+    pub local: Option<LocalReading>,
 }
 
 /// All rows of an observations file, sorted into usable and rejected.
@@ -138,7 +142,8 @@ struct Columns {
     lon: usize,
     elev: Option<usize>,
     contact: usize,
-    time: usize,
+    time: Option<usize>,
+    local: LocalColumns,
     sigma: Option<usize>,
 }
 
@@ -150,9 +155,18 @@ pub fn observations_from_table(table: &CsvTable, strict: bool) -> Result<Observa
         lon: table.require("longitude")?,
         elev: table.optional("elevation_m"),
         contact: table.require("contact")?,
-        time: table.require("time_utc")?,
+        time: table.optional("time_utc"),
+        local: LocalColumns {
+            time_local: table.optional("time_local"),
+            local_time: table.optional("local_time"),
+            day_reckoning: table.optional("day_reckoning"),
+        },
         sigma: table.optional("sigma_s"),
     };
+    if cols.time.is_none() && cols.local.time_local.is_none() {
+        // The message names the column every modern file has.
+        table.require("time_utc")?;
+    }
     let mut set = ObservationSet {
         path: table.path.clone(),
         rows_total: table.records.len(),
@@ -356,12 +370,15 @@ fn parse_row(
             Some(cols.contact),
         )
     })?;
-    let time_text = table.text(rec, cols.time);
-    let (time, zone) = parse_utc_zoned(time_text).map_err(|m| (m, Some(cols.time)))?;
+    let (time, zone, local) = row_time(table, rec, cols, lon)?;
     if !(MIN_YEAR..=MAX_YEAR).contains(&time.year()) {
         return Err((
             format!("the year {} is outside {MIN_YEAR}-{MAX_YEAR}", time.year()),
-            Some(cols.time),
+            if local.is_some() {
+                cols.local.time_local
+            } else {
+                cols.time
+            },
         ));
     }
     let (sigma_s, sigma_given) = match cols.sigma {
@@ -381,9 +398,52 @@ fn parse_row(
             time_label: time,
             sigma_s,
             sigma_given,
+            local,
         },
         zone,
     ))
+}
+
+/// A row's time: its UTC (UT1 before 1972) label and zone, from `time_utc`, or from
+/// `time_local` converted at the station's longitude (a row gives one of the two).
+fn row_time(
+    table: &CsvTable,
+    rec: &csv::StringRecord,
+    cols: &Columns,
+    longitude_deg: f64,
+) -> std::result::Result<(NaiveDateTime, Zone, Option<LocalReading>), RowError> {
+    let text = |c: Option<usize>| c.map_or("", |c| table.text(rec, c));
+    let utc = text(cols.time);
+    let local = text(cols.local.time_local);
+    match (utc.is_empty(), local.is_empty()) {
+        (false, false) => Err((
+            "the row gives both time_utc and time_local; keep the one the observer recorded (time_local is the clock reading in local solar time)".into(),
+            cols.local.time_local,
+        )),
+        (true, false) => {
+            let reading = parse_local(
+                local,
+                text(cols.local.local_time),
+                text(cols.local.day_reckoning),
+                &cols.local,
+            )?;
+            let ut1 = reading.ut1_label(longitude_deg).ok_or_else(|| {
+                (
+                    format!("the local time '{local}' cannot be converted (its year is outside {MIN_YEAR}-{MAX_YEAR})"),
+                    cols.local.time_local,
+                )
+            })?;
+            Ok((ut1, Zone::Utc, Some(reading)))
+        }
+        (true, true) if cols.time.is_none() => Err((
+            "the row gives no time; fill in time_local (with local_time) or add a time_utc column".into(),
+            cols.local.time_local,
+        )),
+        _ => {
+            let (time, zone) = parse_utc_zoned(utc).map_err(|m| (m, cols.time))?;
+            Ok((time, zone, None))
+        }
+    }
 }
 
 #[cfg(test)]

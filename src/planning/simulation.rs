@@ -126,6 +126,7 @@ pub fn simulate_campaign<R: Rng + ?Sized>(
                 time_label: model.label_from_tt(tt),
                 sigma_s: sigma,
                 sigma_given: true,
+                local: None,
             });
         }
     }

@@ -297,6 +297,7 @@ mod tests {
                         time_label: chrono::NaiveDateTime::default(),
                         sigma_s: 5.0,
                         sigma_given: true,
+                        local: None,
                     },
                     geo,
                     observed_h: h + clock / 3600.0,

@@ -7,6 +7,7 @@ use crate::render::text::{
     clock_label, csv_field, fixed, name_cell, push_fixed, push_right, round, scale_of,
     SAFETY_CAUTION,
 };
+use crate::sky::solar_time::{local_from_ut1, LocalTime};
 use crate::time::iso::{format_utc, push_digits, push_utc};
 use serde_json::{json, Value};
 
@@ -177,17 +178,40 @@ pub const PREDICT_COLUMNS: [&str; 11] = [
     "ephemeris",
 ];
 
+/// The local solar-time reading of a contact at a station (civil day reckoning, no zone, as
+/// the input column `time_local` takes it), to 0.01 s.
+fn local_reading(
+    event: &TransitEvent,
+    hours: f64,
+    longitude_deg: f64,
+    kind: LocalTime,
+) -> Option<String> {
+    let local = local_from_ut1(event.label(hours), kind, longitude_deg, event.time_model())?;
+    let mut s = String::with_capacity(24);
+    push_utc(&mut s, local, 2);
+    s.pop();
+    Some(s)
+}
+
 /// CSV for station predictions: one row per station and contact. Written field by field into
 /// one buffer (for a 1-degree grid of 64,800 stations, `format!` per row took longer than the
 /// predictions themselves), large lists in parallel chunks joined in order.
-pub fn predictions_csv(event: &TransitEvent, predictions: &[StationPrediction]) -> String {
+pub fn predictions_csv(
+    event: &TransitEvent,
+    predictions: &[StationPrediction],
+    local: Option<LocalTime>,
+) -> String {
     let mut s = String::with_capacity(100 * 4 * predictions.len() + 128);
-    s.push_str(&PREDICT_COLUMNS.join(","));
+    let mut columns = PREDICT_COLUMNS.to_vec();
+    if local.is_some() {
+        columns.insert(3, "time_local");
+    }
+    s.push_str(&columns.join(","));
     s.push('\n');
     let ephemeris = csv_field(&event.ephemeris_name());
     let threads = std::thread::available_parallelism().map_or(1, |n| n.get().min(8));
     if threads < 2 || predictions.len() < 4_000 {
-        csv_rows(event, &ephemeris, predictions, &mut s);
+        csv_rows(event, (&ephemeris, local), predictions, &mut s);
         return s;
     }
     let chunk = predictions.len().div_ceil(threads);
@@ -198,7 +222,7 @@ pub fn predictions_csv(event: &TransitEvent, predictions: &[StationPrediction]) 
                 let ephemeris = &ephemeris;
                 scope.spawn(move || {
                     let mut out = String::with_capacity(100 * 4 * part.len());
-                    csv_rows(event, ephemeris, part, &mut out);
+                    csv_rows(event, (ephemeris, local), part, &mut out);
                     out
                 })
             })
@@ -217,7 +241,7 @@ pub fn predictions_csv(event: &TransitEvent, predictions: &[StationPrediction]) 
 /// The CSV rows of these predictions, appended to `s`.
 fn csv_rows(
     event: &TransitEvent,
-    ephemeris: &str,
+    (ephemeris, local): (&str, Option<LocalTime>),
     predictions: &[StationPrediction],
     s: &mut String,
 ) {
@@ -243,6 +267,13 @@ fn csv_rows(
             if let Some(x) = cc {
                 push_utc(s, event.label(x.hours), 2);
             }
+            if let Some(kind) = local {
+                s.push(',');
+                let lon = p.station.longitude_deg;
+                if let Some(text) = cc.and_then(|x| local_reading(event, x.hours, lon, kind)) {
+                    s.push_str(&text);
+                }
+            }
             opt(s, cc.map(|x| x.sun_altitude_deg), 3);
             opt(s, cc.map(|x| x.sun_azimuth_deg), 3);
             opt(s, cc.map(|x| x.position_angle_deg), 2);
@@ -264,6 +295,8 @@ pub struct PredictionRow<'a> {
     station: &'a str,
     sun_altitude_deg: Option<f64>,
     sun_azimuth_deg: Option<f64>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    time_local: Option<String>,
     time_utc: Option<String>,
     vertex_angle_deg: Option<f64>,
     visible: Option<bool>,
@@ -275,6 +308,7 @@ pub fn predictions_json<'a>(
     ephemeris: &'a str,
     event: &TransitEvent,
     predictions: &'a [StationPrediction],
+    local: Option<LocalTime>,
 ) -> Vec<PredictionRow<'a>> {
     let mut rows = Vec::with_capacity(4 * predictions.len());
     for p in predictions {
@@ -285,6 +319,9 @@ pub fn predictions_json<'a>(
                 ephemeris,
                 contact: c.number(),
                 time_utc: cc.map(|x| format_utc(event.label(x.hours), 2)),
+                time_local: local.and_then(|kind| {
+                    cc.and_then(|x| local_reading(event, x.hours, p.station.longitude_deg, kind))
+                }),
                 sun_altitude_deg: cc.map(|x| round(x.sun_altitude_deg, 3)),
                 sun_azimuth_deg: cc.map(|x| round(x.sun_azimuth_deg, 3)),
                 position_angle_deg: cc.map(|x| round(x.position_angle_deg, 2)),
@@ -311,7 +348,11 @@ pub fn delta_t_note(event: &TransitEvent) -> String {
 }
 
 /// A readable table of station predictions, with the caution.
-pub fn predictions_table(event: &TransitEvent, predictions: &[StationPrediction]) -> String {
+pub fn predictions_table(
+    event: &TransitEvent,
+    predictions: &[StationPrediction],
+    local: Option<LocalTime>,
+) -> String {
     let greatest = event.label(event.hours_of_greatest());
     let mut s = format!(
         "Transit of {} on {} (greatest transit {}, Delta T {:.1} s +- {:.1} s)\n",
@@ -324,8 +365,11 @@ pub fn predictions_table(event: &TransitEvent, predictions: &[StationPrediction]
     s.push_str(&format!("Ephemeris: {}.\n", event.ephemeris_name()));
     s.push_str(&delta_t_note(event));
     s.push('\n');
+    let local_header = local.map_or(String::new(), |k| {
+        format!(" {:>23}", format!("local {} time", k.name()))
+    });
     s.push_str(&format!(
-        "{} {:>3} {:>26} {:>8} {:>8} {:>7} {:>7} {:>9}\n",
+        "{} {:>3} {:>26}{local_header} {:>8} {:>8} {:>7} {:>7} {:>9}\n",
         name_cell("station"),
         "",
         format!("time ({})", scale_of(greatest)),
@@ -350,6 +394,11 @@ pub fn predictions_table(event: &TransitEvent, predictions: &[StationPrediction]
                 continue;
             };
             push_right(&mut s, &clock_label(event.label(x.hours), 2), 26);
+            if let Some(kind) = local {
+                s.push(' ');
+                let text = local_reading(event, x.hours, p.station.longitude_deg, kind);
+                push_right(&mut s, text.as_deref().unwrap_or("-"), 23);
+            }
             for (v, decimals, width) in [
                 (x.sun_altitude_deg, 2, 8),
                 (x.sun_azimuth_deg, 2, 8),
