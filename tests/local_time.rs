@@ -117,6 +117,48 @@ fn readings_in_local_time_reduce_to_the_predicted_contacts() {
 }
 
 #[test]
+fn a_confused_day_reckoning_is_diagnosed() {
+    // Regression: an astronomical reading marked civil is 12 h early; the diagnosis must say
+    // so rather than blame a time zone.
+    let text = local_campaign();
+    let mut lines: Vec<String> = text.lines().map(String::from).collect();
+    let k = lines
+        .iter()
+        .position(|l| l.contains(",astronomical,"))
+        .unwrap();
+    lines[k] = lines[k].replace(",astronomical,", ",civil,");
+    let path = temp(
+        "confused_reckoning.csv",
+        (lines.join("\n") + "\n").as_bytes(),
+    );
+    let o = run(&[
+        "reduce",
+        &path,
+        "--planet",
+        "venus",
+        "--date",
+        "1769-06-03",
+        "--delta-t",
+        "16",
+        "--format",
+        "json",
+    ]);
+    assert!(o.status.success(), "{}", err(&o));
+    let v: serde_json::Value = serde_json::from_str(&out(&o)).unwrap();
+    let line = k as u64 + 1;
+    let r = v["rejected"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|r| r["line"] == line)
+        .unwrap_or_else(|| panic!("line {line} not rejected"));
+    assert!(
+        r.to_string().contains("astronomical if the rows say civil"),
+        "{r}"
+    );
+}
+
+#[test]
 fn bad_local_time_fields_are_invalid_rows_with_a_way_to_fix_them() {
     let head = "station,latitude,longitude,elevation_m,contact,time_utc,time_local,local_time,day_reckoning\n";
     let rows = [

@@ -23,8 +23,26 @@ fn predicted_hours(
     event.contact_hours_perturbed(geo, c, p)
 }
 
+/// A timing 12 h off its prediction: civil and astronomical day reckoning confused (the
+/// astronomical day of a date begins at its noon, common practice of observatories until 1925,
+/// no source), or a.m. and p.m. confused on a modern clock.
+fn half_day(r_s: f64, tolerance_s: f64) -> Option<String> {
+    let sign = [-1.0f64, 1.0]
+        .into_iter()
+        .find(|s| (r_s - 43_200.0 * s).abs() < tolerance_s)?;
+    Some(format!(
+        "O - C is {:+.3} h, half a day: civil and astronomical day reckoning were probably confused (an astronomical day begins at noon: astronomical June 3, 21 h is civil June 4, 9 h; set day_reckoning to {}), or a.m. and p.m. on a modern clock",
+        r_s / 3600.0,
+        if sign > 0.0 {
+            "civil if the rows say astronomical"
+        } else {
+            "astronomical if the rows say civil"
+        }
+    ))
+}
+
 /// Explain one timing that does not fit by a blunder of that timing alone: the date off by a
-/// day, a time zone left in (whole or half hours), or the contact mislabelled.
+/// day, half a day (day reckonings confused), a time zone left in (whole or half hours), or the contact mislabelled.
 ///
 /// Arguments: `event`; `station`, `contact` as given; `observed_h`, the timing (hours from the
 /// elements' epoch, TT); `p`, the solution's parameters; `tolerance_s`, how close a corrected
@@ -50,6 +68,9 @@ pub fn explain_row(
                     if days > 0.0 { "a day late" } else { "a day early" }
                 ));
             }
+        }
+        if let Some(sentence) = half_day(r, tolerance_s) {
+            return Some(sentence);
         }
         let hours = (r / 3600.0).round();
         if (1.0..=14.0).contains(&hours.abs()) && (r - 3600.0 * hours).abs() < tolerance_s {
@@ -352,6 +373,18 @@ pub fn clock_offset_s(
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn half_a_day_names_the_day_reckoning() {
+        // An astronomical reading marked civil comes out 12 h early.
+        assert!(half_day(-43_195.0, 30.0)
+            .unwrap()
+            .contains("astronomical if the rows say civil"));
+        assert!(half_day(43_210.0, 30.0)
+            .unwrap()
+            .contains("civil if the rows say astronomical"));
+        assert!(half_day(11.0 * 3600.0, 30.0).is_none());
+    }
 
     #[test]
     fn clock_signature() {
