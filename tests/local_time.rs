@@ -233,3 +233,106 @@ fn local_apparent_time_matches_skyfield() {
     eprintln!("{n} instants, local apparent time within {worst:.4} s of Skyfield");
     assert!(n == 90 && worst < 1.0, "{worst}");
 }
+
+#[test]
+fn a_doubtful_longitude_is_solved_for_and_reported() {
+    // The local-time campaign with one expedition's longitude given 0.25 degree too far east
+    // (its clock readings are the true ones): solving for the correction with a prior of 1
+    // degree must find -0.25 within 3 sigma and put every timing back on its prediction.
+    let text = local_campaign();
+    let mut out_text = String::new();
+    for (k, line) in text.lines().enumerate() {
+        if k == 0 {
+            out_text.push_str(&format!("{line},longitude_sigma_deg\n"));
+        } else if line.starts_with("Hudson Post,") {
+            let moved = line.replacen(",-94.17,", ",-93.92,", 1);
+            out_text.push_str(&format!("{moved},1\n"));
+        } else {
+            out_text.push_str(&format!("{line},\n"));
+        }
+    }
+    assert!(out_text.contains("-93.92"));
+    let path = temp("doubtful_longitude.csv", out_text.as_bytes());
+    let o = run(&[
+        "reduce",
+        &path,
+        "--planet",
+        "venus",
+        "--date",
+        "1769-06-03",
+        "--delta-t",
+        "16",
+        "--format",
+        "json",
+        "--planet-place",
+        "fixed",
+    ]);
+    assert!(o.status.success(), "{}", err(&o));
+    let v: serde_json::Value = serde_json::from_str(&out(&o)).unwrap();
+    let st = v["stations"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|s| s["station"] == "Hudson Post")
+        .unwrap();
+    let c = st["longitude_correction_deg"].as_f64().unwrap();
+    let sigma = st["longitude_correction_sigma_deg"].as_f64().unwrap();
+    eprintln!("longitude correction {c:+.5} +- {sigma:.5} deg");
+    assert!(
+        sigma > 0.0 && (c + 0.25).abs() < 3.0 * sigma.max(0.002),
+        "{c} {sigma}"
+    );
+    // Stations taken as exact carry no correction.
+    let other = v["stations"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|s| s["station"] == "Coral Bay Fort")
+        .unwrap();
+    assert!(other["longitude_correction_deg"].is_null());
+    let o = run(&[
+        "reduce",
+        &path,
+        "--planet",
+        "venus",
+        "--date",
+        "1769-06-03",
+        "--delta-t",
+        "16",
+        "--planet-place",
+        "fixed",
+    ]);
+    assert!(
+        out(&o).contains("longitude of Hudson Post: given -93.9200"),
+        "{}",
+        out(&o)
+    );
+}
+
+#[test]
+fn an_undetermined_longitude_is_said_to_be_so() {
+    // Thin data: one timing at a station of unknown longitude. Nothing may claim a zero or
+    // negative uncertainty; the correction is "not determined".
+    let text =
+        "station,latitude,longitude,elevation_m,contact,time_utc,sigma_s,longitude_sigma_deg\n\
+                Lone Hill,64.84,-147.72,140,2,2012-06-05T22:23:54.3Z,8,unknown\n";
+    let path = temp("lone_unknown.csv", text.as_bytes());
+    let o = run(&["reduce", &path, "--format", "json"]);
+    assert!(o.status.success(), "{}", err(&o));
+    let v: serde_json::Value = serde_json::from_str(&out(&o)).unwrap();
+    assert!(v["stations"][0]["longitude_correction_sigma_deg"].is_null());
+    for p in v["parameters"].as_array().unwrap() {
+        if let Some(s) = p["sigma"].as_f64() {
+            assert!(s > 0.0, "{p}");
+        }
+    }
+    let o = run(&["reduce", &path]);
+    assert!(out(&o).contains("its correction is not determined by these timings"));
+    let bad = "station,latitude,longitude,elevation_m,contact,time_utc,longitude_sigma_deg\n\
+               a,10,20,0,2,2012-06-05T22:30:00Z,-1\n\
+               b,10,20,0,2,2012-06-05T22:30:00Z,200\n";
+    let path = temp("bad_longitude_sigma.csv", bad.as_bytes());
+    let o = run(&["reduce", &path, "--format", "json"]);
+    let text = out(&o) + &err(&o);
+    assert!(text.contains("is not a longitude uncertainty"), "{text}");
+}

@@ -5,7 +5,9 @@
 //!
 //! - `csv_table.rs`: CSV reading with the line and column of every value.
 //! - `local_time.rs`: readings in local apparent or mean solar time, converted to UT1.
+//! - `longitude.rs`: how well a station's longitude is known (`longitude_sigma_deg`).
 //! - `timings.rs`: reading and validating timings; rejected rows and their reasons.
 pub mod csv_table;
 pub mod local_time;
+pub mod longitude;
 pub mod timings;

@@ -11,6 +11,7 @@ use crate::geometry::station::{
 };
 use crate::observations::csv_table::CsvTable;
 use crate::observations::local_time::{parse_local, LocalColumns, LocalReading};
+use crate::observations::longitude::LongitudeKnowledge;
 use crate::time::iso::{parse_utc_zoned, Zone};
 use crate::time::scales::{MAX_YEAR, MIN_YEAR};
 use chrono::{Datelike, NaiveDateTime};
@@ -36,6 +37,9 @@ pub enum RejectReason {
     Outlier,
     /// Timed with the Sun below the horizon.
     NotVisible,
+    /// The station's own unknowns (an unknown longitude) cannot be determined from its
+    /// timings, so they are left out rather than used with a guess.
+    Undetermined,
 }
 
 impl RejectReason {
@@ -46,6 +50,7 @@ impl RejectReason {
             RejectReason::Duplicate => "duplicate",
             RejectReason::Outlier => "outlier",
             RejectReason::NotVisible => "not-visible",
+            RejectReason::Undetermined => "undetermined",
         }
     }
 }
@@ -85,6 +90,8 @@ pub struct Observation {
     /// The clock reading in local solar time, where the row gave one (`time_label` is then
     /// its UT1 at the station's longitude).
     pub local: Option<LocalReading>,
+    /// How well the station's longitude is known (`longitude_sigma_deg`).
+    pub longitude: LongitudeKnowledge,
 }
 
 /// All rows of an observations file, sorted into usable and rejected.
@@ -144,6 +151,7 @@ struct Columns {
     contact: usize,
     time: Option<usize>,
     local: LocalColumns,
+    longitude_sigma: Option<usize>,
     sigma: Option<usize>,
 }
 
@@ -161,6 +169,7 @@ pub fn observations_from_table(table: &CsvTable, strict: bool) -> Result<Observa
             local_time: table.optional("local_time"),
             day_reckoning: table.optional("day_reckoning"),
         },
+        longitude_sigma: table.optional("longitude_sigma_deg"),
         sigma: table.optional("sigma_s"),
     };
     if cols.time.is_none() && cols.local.time_local.is_none() {
@@ -381,6 +390,10 @@ fn parse_row(
             },
         ));
     }
+    let longitude = match cols.longitude_sigma {
+        Some(c) => LongitudeKnowledge::parse(table.text(rec, c)).map_err(|m| (m, Some(c)))?,
+        None => LongitudeKnowledge::Exact,
+    };
     let (sigma_s, sigma_given) = match cols.sigma {
         Some(c) if !table.text(rec, c).is_empty() => (parse_sigma(table.text(rec, c), c)?, true),
         _ => (DEFAULT_SIGMA_S[contact.index()], false),
@@ -399,6 +412,7 @@ fn parse_row(
             sigma_s,
             sigma_given,
             local,
+            longitude,
         },
         zone,
     ))

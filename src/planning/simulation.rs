@@ -127,6 +127,7 @@ pub fn simulate_campaign<R: Rng + ?Sized>(
                 sigma_s: sigma,
                 sigma_given: true,
                 local: None,
+                longitude: Default::default(),
             });
         }
     }

@@ -113,14 +113,27 @@ pub fn linearise(
     theta: &[f64],
     er: f64,
 ) -> Option<Linearised> {
-    let (mut computed_h, global) = condition_row_with(event, &t.geo, t.obs.contact, theta, er)?;
     let own = params.station_parameters(t.station);
+    let longitude = own
+        .iter()
+        .find(|&&j| params.specs()[j].kind == ParameterKind::LongitudeCorrection)
+        .map(|&j| theta[j]);
+    let moved = longitude.map(|d| moved_station(t, d));
+    let geo = moved.as_ref().unwrap_or(&t.geo);
+    let (mut computed_h, global) = condition_row_with(event, geo, t.obs.contact, theta, er)?;
+    // A clock read in local solar time at a longitude further east gives an earlier UT1.
+    let local_s_per_deg = if t.obs.local.is_some() { 240.0 } else { 0.0 };
     let mut local = Vec::with_capacity(own.len());
     for &j in own {
         match params.specs()[j].kind {
             ParameterKind::ClockOffset => {
                 computed_h += theta[j] / 3600.0;
                 local.push(1.0);
+            }
+            ParameterKind::LongitudeCorrection => {
+                computed_h += theta[j] * local_s_per_deg / 3600.0;
+                let rate = longitude_rate_s_per_deg(event, t, (theta, theta[j]), er)?;
+                local.push(rate + local_s_per_deg);
             }
             ParameterKind::Classic(_) => local.push(0.0),
         }
@@ -130,6 +143,31 @@ pub fn linearise(
         global,
         local,
     })
+}
+
+/// The timing's station with its longitude corrected by `correction_deg`.
+fn moved_station(t: &Timing, correction_deg: f64) -> GeocentricStation {
+    let mut st = t.obs.station.clone();
+    st.longitude_deg += correction_deg;
+    st.geocentric()
+}
+
+/// The change of the computed contact time per degree of longitude (seconds), by a central
+/// difference of 0.01 degree about the current correction (the contact time is smooth in the
+/// station's position; the step's truncation error is far below a millisecond per degree).
+fn longitude_rate_s_per_deg(
+    event: &TransitEvent,
+    t: &Timing,
+    (theta, correction_deg): (&[f64], f64),
+    er: f64,
+) -> Option<f64> {
+    const STEP_DEG: f64 = 0.01;
+    let p = perturbation(theta, er);
+    let at = |d: f64| event.contact_hours_perturbed(&moved_station(t, d), t.obs.contact, &p);
+    Some(
+        (at(correction_deg + STEP_DEG)? - at(correction_deg - STEP_DEG)?) * 3600.0
+            / (2.0 * STEP_DEG),
+    )
 }
 
 /// O - C of one timing in seconds at parameter values `theta`, or `None` when the station

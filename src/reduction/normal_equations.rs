@@ -160,7 +160,7 @@ type Eliminated = (Vec<usize>, DMatrix<f64>, DVector<f64>, Vec<StationBlock>);
 
 /// The free-global normal matrix and right-hand side with every station block eliminated,
 /// and the blocks for back substitution; `None` when a station's free parameters are not
-/// determined by its timings and priors.
+/// determined by its timings and priors (a station with no timing in the system is left out).
 fn eliminate(
     sys: &LinearSystem,
     params: &ParameterSet,
@@ -171,9 +171,9 @@ fn eliminate(
     let mut blocks = Vec::new();
     for (s, rows) in rows_by_station(sys, params, free).into_iter().enumerate() {
         if rows.is_empty() {
-            if params.station_parameters(s).iter().any(|&j| free[j]) {
-                return None;
-            }
+            // A station none of whose timings is in the system has nothing to say about the
+            // global parameters: its own stay where they are, not determined (their
+            // uncertainty is left empty, never zero).
             continue;
         }
         let b = station_block(sys, params, s, rows, (free, theta, &idx))?;
@@ -449,6 +449,11 @@ mod tests {
             weights: &w,
         };
         let free = [true, false, false, false, false, true];
-        assert!(solve(&sys, &params, &free, &params.start_values()).is_none());
+        // The station's parameter is left out of the solve: no correction, no uncertainty
+        // (never a zero one); the global parameter is solved all the same.
+        let s = solve(&sys, &params, &free, &params.start_values()).unwrap();
+        assert_eq!(s.sigma[5], None);
+        assert_eq!(s.correction[5], 0.0);
+        assert!(s.sigma[0].is_some_and(|x| x > 0.0));
     }
 }

@@ -52,6 +52,9 @@ pub enum ParameterKind {
     /// A station clock's constant error, seconds (observed = true + offset): the partial of
     /// every timing of that station is 1 s per s.
     ClockOffset,
+    /// A correction to the station's longitude, degrees east: it moves the station, and for
+    /// timings read in local solar time the conversion to UT1 (-240 s per degree east).
+    LongitudeCorrection,
 }
 
 /// Prior knowledge of a parameter: a value and its standard uncertainty, in the parameter's
@@ -125,6 +128,20 @@ impl ParameterSet {
             name: format!("clock_offset[{station_name}]"),
             unit: "s",
             kind: ParameterKind::ClockOffset,
+            scope: Scope::Global,
+            start: 0.0,
+            prior,
+            fixed: false,
+        }
+    }
+
+    /// A correction to a station's longitude (degrees east), free, starting from 0, with its
+    /// prior (`None`: the longitude is unknown).
+    pub fn longitude_correction(station_name: &str, prior: Option<Prior>) -> ParameterSpec {
+        ParameterSpec {
+            name: format!("longitude_correction[{station_name}]"),
+            unit: "deg",
+            kind: ParameterKind::LongitudeCorrection,
             scope: Scope::Global,
             start: 0.0,
             prior,

@@ -16,7 +16,7 @@
 
 use super::contributions::{contributions, convergence, stations_not_used};
 use super::fit::FitOutcome;
-use super::parameters::{ParameterSet, PARALLAX};
+use super::parameters::{ParameterKind, ParameterSet, Prior, Scope, PARALLAX};
 use super::planet_place::{parallax_shift_arcsec, place_accuracy_arcsec};
 use super::rejection::{record_rejections, station_wide};
 use super::result::{Parameter, ReduceOptions, Reduction, UsedTiming};
@@ -26,7 +26,8 @@ use super::{equations::Timing, fit::fit};
 use crate::error::{Error, Result};
 use crate::geometry::besselian::check_parallax;
 use crate::geometry::transit::{transit_on_date, TransitEvent};
-use crate::observations::timings::{Observation, ObservationSet, Rejected};
+use crate::observations::longitude::LongitudeKnowledge;
+use crate::observations::timings::{Observation, ObservationSet, RejectReason, Rejected};
 use crate::sky::constants::au_km_from_parallax_arcsec;
 use crate::sky::ephemeris::Planet;
 use crate::time::scales::TimeModel;
@@ -101,6 +102,7 @@ pub fn reduce_for_event(
     let timings = timings_of_event(&set.valid, &event, &model, &mut rejected)?;
     let mut params = ParameterSet::classic(options.prior_parallax_arcsec);
     options.planet_place.apply(&mut params);
+    add_longitude_corrections(&mut params, &timings);
     let threshold = options.outlier_threshold;
     let mut screened = screen(&event, &timings, &params, threshold);
     let verdicts = station_wide(&event, &timings, &params, &screened, threshold);
@@ -117,6 +119,7 @@ pub fn reduce_for_event(
         s.outcome = fit(&event, &timings, &s.used, &params, &s.outcome.theta);
         s.scatter = scatter_of(&timings, &s.used, &s.outcome);
     }
+    leave_out_undetermined(&event, (&timings, &params), &mut screened, &mut rejected);
     record_rejections(
         &event,
         &timings,
@@ -191,7 +194,11 @@ fn parameters_of(params: &ParameterSet, outcome: &FitOutcome, scale: f64) -> Vec
         .map(|(j, spec)| Parameter {
             name: spec.name.clone(),
             value: outcome.theta[j],
-            sigma: outcome.free[j].then(|| unscaled_sigma(outcome, j) * scale),
+            // A parameter the step could not solve has no uncertainty: "not determined",
+            // never a zero.
+            sigma: outcome.free[j]
+                .then(|| unscaled_sigma(outcome, j) * scale)
+                .filter(|s| s.is_finite() && *s > 0.0),
             unit: spec.unit.into(),
             fixed: !outcome.free[j],
         })
@@ -264,6 +271,73 @@ fn used_rows(timings: &[Timing], used: &[usize], outcome: &FitOutcome) -> Vec<Us
             sigma_s: timings[i].obs.sigma_s,
         })
         .collect()
+}
+
+/// A longitude the timings cannot place within this many degrees is not determined.
+const LONGITUDE_UNDETERMINED_DEG: f64 = 30.0;
+
+/// Leave out the timings of every station whose longitude correction the timings cannot
+/// determine (no prior and an uncertainty over [`LONGITUDE_UNDETERMINED_DEG`]), each with a
+/// sentence, and fit again without them: using them with the given longitude would rest the
+/// result on a value the file calls unknown.
+fn leave_out_undetermined(
+    event: &TransitEvent,
+    (timings, params): (&[Timing], &ParameterSet),
+    s: &mut Screened,
+    rejected: &mut Vec<Rejected>,
+) {
+    let lost: Vec<(usize, f64)> = params
+        .specs()
+        .iter()
+        .enumerate()
+        .filter(|(_, spec)| spec.kind == ParameterKind::LongitudeCorrection && spec.prior.is_none())
+        .filter_map(
+            |(j, spec)| match (spec.scope, s.outcome.sigma.get(j).copied().flatten()) {
+                (Scope::Station(k), Some(sigma)) if sigma > LONGITUDE_UNDETERMINED_DEG => {
+                    Some((k, sigma))
+                }
+                _ => None,
+            },
+        )
+        .collect();
+    if lost.is_empty() {
+        return;
+    }
+    for &i in &s.used {
+        let t = &timings[i];
+        if let Some(&(_, sigma)) = lost.iter().find(|(k, _)| *k == t.station) {
+            rejected.push(Rejected {
+                line: t.obs.line,
+                station: t.obs.station.name.clone(),
+                contact: Some(t.obs.contact.number()),
+                reason: RejectReason::Undetermined,
+                diagnosis: Some(format!("the station's longitude is unknown and its timings cannot determine it (uncertainty {sigma:.0} degrees), so they are left out rather than used with the longitude given; give longitude_sigma_deg a number, or time more contacts there")),
+                o_c_s: None,
+            });
+        }
+    }
+    s.used
+        .retain(|&i| !lost.iter().any(|(k, _)| *k == timings[i].station));
+    s.outcome = fit(event, timings, &s.used, params, &s.outcome.theta);
+    s.scatter = scatter_of(timings, &s.used, &s.outcome);
+}
+
+/// A longitude correction for every station whose longitude is not taken as exact, with its
+/// prior (none for an unknown longitude); the first row of a station says.
+fn add_longitude_corrections(params: &mut ParameterSet, timings: &[Timing]) {
+    let mut seen = std::collections::HashSet::new();
+    for t in timings {
+        if !seen.insert(t.station) {
+            continue;
+        }
+        let prior = match t.obs.longitude {
+            LongitudeKnowledge::Exact => continue,
+            LongitudeKnowledge::Sigma(sigma) => Some(Prior { value: 0.0, sigma }),
+            LongitudeKnowledge::Unknown => None,
+        };
+        let spec = ParameterSet::longitude_correction(&t.obs.station.name, prior);
+        params.add_station_parameter(t.station, spec);
+    }
 }
 
 /// The chi-square of the priors on free parameters and their number.

@@ -13,11 +13,23 @@ fn opt(x: Option<f64>, decimals: i32) -> Value {
     }
 }
 
+/// A station's fitted longitude correction and its uncertainty (degrees), if it has one.
+pub fn longitude_correction(red: &Reduction, station: &str) -> Option<(f64, Option<f64>)> {
+    let name = format!("longitude_correction[{station}]");
+    red.parameters
+        .iter()
+        .find(|p| p.name == name)
+        .map(|p| (p.value, p.sigma))
+}
+
 fn stations_json(red: &Reduction) -> Vec<Value> {
     red.stations
         .iter()
         .map(|s| {
+            let correction = longitude_correction(red, &s.station);
             json!({
+                "longitude_correction_deg": correction.map(|c| r(c.0, 6)),
+                "longitude_correction_sigma_deg": correction.and_then(|c| c.1).map(|x| r(x, 6)),
                 "station": s.station,
                 "latitude": s.latitude_deg,
                 "longitude": s.longitude_deg,
@@ -188,17 +200,41 @@ fn headline_section(red: &Reduction, s: &mut String) {
 
 /// The parameters and their correlations.
 fn parameters_section(red: &Reduction, s: &mut String) {
-    s.push_str("\nParameters (arcsec)\n");
+    s.push_str("\nParameters\n");
     for p in &red.parameters {
         match p.sigma {
             Some(sig) => s.push_str(&format!(
-                "  {:<30} {:>12.5} +- {:.5}\n",
-                p.name, p.value, sig
+                "  {:<30} {:>12.5} +- {:.5} {}\n",
+                p.name, p.value, sig, p.unit
             )),
             None => s.push_str(&format!(
-                "  {:<30} {:>12.5}    (held fixed)\n",
-                p.name, p.value
+                "  {:<30} {:>12.5}    ({})\n",
+                p.name,
+                p.value,
+                if p.fixed {
+                    "held fixed"
+                } else {
+                    "not determined by these timings"
+                }
             )),
+        }
+    }
+    for st in &red.stations {
+        if let Some((c, sigma)) = longitude_correction(red, &st.station) {
+            let Some(sigma) = sigma else {
+                s.push_str(&format!(
+                    "  longitude of {}: given {:.4}; its correction is not determined by these timings\n",
+                    st.station, st.longitude_deg
+                ));
+                continue;
+            };
+            let sigma = format!("+- {sigma:.4} deg");
+            s.push_str(&format!(
+                "  longitude of {}: given {:.4}, correction {c:+.4} {sigma}, so {:.4} deg\n",
+                st.station,
+                st.longitude_deg,
+                st.longitude_deg + c
+            ));
         }
     }
     s.push_str("\nCorrelations\n  ");
