@@ -73,9 +73,14 @@ fn parameters_rows(red: &Reduction) -> Vec<Vec<String>> {
             let mut row = vec![
                 format!("p{} {}", i + 1, p.name),
                 format!("{:.5}", p.value),
-                p.sigma
-                    .map(|s| format!("{s:.5}"))
-                    .unwrap_or_else(|| "held fixed".into()),
+                p.sigma.map(|s| format!("{s:.5}")).unwrap_or_else(|| {
+                    if p.fixed {
+                        "held fixed"
+                    } else {
+                        "not determined"
+                    }
+                    .into()
+                }),
                 p.unit.clone(),
             ];
             match red.correlation.get(i) {
