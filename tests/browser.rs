@@ -262,7 +262,7 @@ fn reports(dir: &Path) -> Vec<(String, String)> {
 fn big_campaign() -> Vec<u8> {
     use rand::SeedableRng;
     use transit_parallax::planning::simulation::{
-        global_stations, simulate_campaign, SimulationSettings,
+        campaign_csv, global_stations, simulate_campaign, SimulationSettings,
     };
     let event = transit_parallax::transit_on_date(
         transit_parallax::Planet::Venus,
@@ -277,20 +277,7 @@ fn big_campaign() -> Vec<u8> {
     };
     let mut rng = rand_chacha::ChaCha8Rng::seed_from_u64(11);
     let camp = simulate_campaign(&event, &stations, &settings, &mut rng);
-    let mut s = String::from("station,latitude,longitude,elevation_m,contact,time_utc,sigma_s\n");
-    for t in &camp.observations.valid {
-        s.push_str(&format!(
-            "{},{},{},{},{},{},{}\n",
-            t.station.name,
-            t.station.latitude_deg,
-            t.station.longitude_deg,
-            t.station.elevation_m,
-            t.contact.number(),
-            transit_parallax::time::iso::format_utc(t.time_label, 2),
-            t.sigma_s
-        ));
-    }
-    s.into_bytes()
+    campaign_csv(&camp.observations).into_bytes()
 }
 
 #[test]

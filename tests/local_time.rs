@@ -68,6 +68,27 @@ fn local_campaign() -> String {
     rows
 }
 
+/// `reduce` of a file for the transit of 1769 with Delta T 16 s, as JSON, with these extra
+/// arguments; the command must succeed.
+fn reduce_1769(path: &str, extra: &[&str]) -> serde_json::Value {
+    let mut args = vec![
+        "reduce",
+        path,
+        "--planet",
+        "venus",
+        "--date",
+        "1769-06-03",
+        "--delta-t",
+        "16",
+        "--format",
+        "json",
+    ];
+    args.extend(extra);
+    let o = run(&args);
+    assert!(o.status.success(), "{}", err(&o));
+    serde_json::from_str(&out(&o)).unwrap()
+}
+
 #[test]
 fn readings_in_local_time_reduce_to_the_predicted_contacts() {
     let text = local_campaign();
@@ -77,22 +98,7 @@ fn readings_in_local_time_reduce_to_the_predicted_contacts() {
     let path = temp("local_campaign.csv", text.as_bytes());
     // The place held, so that no fitted offset can absorb a conversion error common to all
     // rows (reading apparent time as mean time moves these contacts by 2 min 16 s).
-    let o = run(&[
-        "reduce",
-        &path,
-        "--planet",
-        "venus",
-        "--date",
-        "1769-06-03",
-        "--delta-t",
-        "16",
-        "--format",
-        "json",
-        "--planet-place",
-        "fixed",
-    ]);
-    assert!(o.status.success(), "{}", err(&o));
-    let v: serde_json::Value = serde_json::from_str(&out(&o)).unwrap();
+    let v = reduce_1769(&path, &["--planet-place", "fixed"]);
     let n = text.lines().count() - 1;
     assert!(n >= 12, "{n} rows");
     assert_eq!(
@@ -131,20 +137,7 @@ fn a_confused_day_reckoning_is_diagnosed() {
         "confused_reckoning.csv",
         (lines.join("\n") + "\n").as_bytes(),
     );
-    let o = run(&[
-        "reduce",
-        &path,
-        "--planet",
-        "venus",
-        "--date",
-        "1769-06-03",
-        "--delta-t",
-        "16",
-        "--format",
-        "json",
-    ]);
-    assert!(o.status.success(), "{}", err(&o));
-    let v: serde_json::Value = serde_json::from_str(&out(&o)).unwrap();
+    let v = reduce_1769(&path, &[]);
     let line = k as u64 + 1;
     let r = v["rejected"]
         .as_array()
@@ -253,22 +246,7 @@ fn a_doubtful_longitude_is_solved_for_and_reported() {
     }
     assert!(out_text.contains("-93.92"));
     let path = temp("doubtful_longitude.csv", out_text.as_bytes());
-    let o = run(&[
-        "reduce",
-        &path,
-        "--planet",
-        "venus",
-        "--date",
-        "1769-06-03",
-        "--delta-t",
-        "16",
-        "--format",
-        "json",
-        "--planet-place",
-        "fixed",
-    ]);
-    assert!(o.status.success(), "{}", err(&o));
-    let v: serde_json::Value = serde_json::from_str(&out(&o)).unwrap();
+    let v = reduce_1769(&path, &["--planet-place", "fixed"]);
     let st = v["stations"]
         .as_array()
         .unwrap()

@@ -8,9 +8,9 @@ mod common;
 use common::{err, out, run, temp};
 use rand::SeedableRng;
 use transit_parallax::planning::simulation::{
-    global_stations, simulate_campaign, SimulationSettings,
+    campaign_csv, global_stations, simulate_campaign, SimulationSettings,
 };
-use transit_parallax::time::iso::{format_utc, parse_date};
+use transit_parallax::time::iso::parse_date;
 use transit_parallax::time::scales::TimeModel;
 use transit_parallax::{transit_on_date, Planet};
 
@@ -25,20 +25,21 @@ fn every_longitude_unknown_still_determines_the_parallax() {
     let stations = global_stations(400, "lon");
     let mut rng = rand_chacha::ChaCha8Rng::seed_from_u64(11);
     let camp = simulate_campaign(&event, &stations, &SimulationSettings::default(), &mut rng);
-    let mut text = String::from(
-        "station,latitude,longitude,elevation_m,contact,time_utc,sigma_s,longitude_sigma_deg\n",
-    );
-    for o in &camp.observations.valid {
-        text.push_str(&format!(
-            "{},{},{},0,{},{},{},unknown\n",
-            o.station.name,
-            o.station.latitude_deg,
-            o.station.longitude_deg,
-            o.contact.number(),
-            format_utc(o.time_label, 2),
-            o.sigma_s
-        ));
-    }
+    // The simulator's own observations file, every longitude declared unknown.
+    let text: String = campaign_csv(&camp.observations)
+        .lines()
+        .enumerate()
+        .map(|(k, l)| {
+            format!(
+                "{l},{}\n",
+                if k == 0 {
+                    "longitude_sigma_deg"
+                } else {
+                    "unknown"
+                }
+            )
+        })
+        .collect();
     let path = temp("all_unknown.csv", text.as_bytes());
     let o = run(&["reduce", &path, "--format", "json"]);
     assert!(o.status.success(), "{}", err(&o));

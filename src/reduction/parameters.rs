@@ -204,6 +204,25 @@ impl ParameterSet {
         self.by_station.iter().any(|v| !v.is_empty())
     }
 
+    /// Whether any station carries a longitude correction (the one nonlinear kind of station
+    /// parameter, which the fit treats with care).
+    pub fn has_longitude_corrections(&self) -> bool {
+        self.specs
+            .iter()
+            .any(|s| s.kind == ParameterKind::LongitudeCorrection)
+    }
+
+    /// The chi-square of the priors of the parameters flagged in `which`, at `theta`, and how
+    /// many there are: each prior is one pseudo-observation.
+    pub fn prior_chi2(&self, theta: &[f64], which: &[bool]) -> (f64, usize) {
+        self.specs
+            .iter()
+            .enumerate()
+            .filter(|(j, _)| which.get(*j).copied().unwrap_or(false))
+            .filter_map(|(j, spec)| spec.prior.map(|p| ((theta[j] - p.value) / p.sigma).powi(2)))
+            .fold((0.0, 0), |(sum, n), x| (sum + x, n + 1))
+    }
+
     /// The starting values of every parameter.
     pub fn start_values(&self) -> Vec<f64> {
         self.specs.iter().map(|s| s.start).collect()

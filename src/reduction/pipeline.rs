@@ -340,20 +340,6 @@ fn add_longitude_corrections(params: &mut ParameterSet, timings: &[Timing]) {
     }
 }
 
-/// The chi-square of the priors on free parameters and their number.
-fn prior_terms(params: &ParameterSet, outcome: &FitOutcome) -> (f64, usize) {
-    params
-        .specs()
-        .iter()
-        .enumerate()
-        .filter(|(j, _)| outcome.free[*j])
-        .filter_map(|(j, spec)| {
-            spec.prior
-                .map(|p| ((outcome.theta[j] - p.value) / p.sigma).powi(2))
-        })
-        .fold((0.0, 0), |(sum, n), x| (sum + x, n + 1))
-}
-
 /// Statistics, parameters, the headline figures and each station's contribution.
 fn summarise(
     event: TransitEvent,
@@ -376,7 +362,7 @@ fn summarise(
         .map(|(r, w)| r * r * w)
         .sum();
     // Priors on free parameters are observations too: in the chi-square and the count.
-    let (prior_chi2, n_priors) = prior_terms(c.params, outcome);
+    let (prior_chi2, n_priors) = c.params.prior_chi2(&outcome.theta, &outcome.free);
     let stats = statistics(chi2 + prior_chi2, (n + n_priors).saturating_sub(n_free));
     let determined = outcome.free[PARALLAX] && n > 0 && outcome.converged;
     let er = event.earth_radii_per_arcsec();

@@ -3,8 +3,9 @@
 //! holding them costs when the ephemeris is wrong.
 //!
 //! Holding (or constraining) the offsets removes two unknowns that are nearly confounded with
-//! the radius corrections, which shrinks the parallax's uncertainty (by a factor of about 1.6
-//! on a typical Venus campaign); but an error of the ephemeris in the planet's place relative
+//! the radius corrections, which shrinks the parallax's uncertainty (measured on Venus 2012
+//! campaigns of 40 stations: a median factor of 1.30 over random networks, 1.53 on the demo's
+//! planned one; tests/planet_place.rs); but an error of the ephemeris in the planet's place relative
 //! to the Sun then goes straight into the parallax. The bias is measured here, not guessed:
 //! the final fit is repeated with the held place moved by the ephemeris's accuracy east and
 //! north, and the change of the parallax is reported (a linear propagation, as in Bevington

@@ -2,10 +2,11 @@
 //! only where they fit, and captions wrapped to the chart's width.
 //!
 //! Widths are estimated, not measured (an SVG is written before any font is chosen): 0.65 em
-//! per character is wider than the digits and average letters of the common sans-serif faces
-//! (DejaVu Sans digits are 0.636 em, Liberation Sans 0.556 em; from the fonts' metrics as
-//! shipped by Debian), and a line's box runs from 0.93 em above the baseline to 0.24 em below
-//! (DejaVu Sans ascent and descent). The browser test checks the result in Chromium's layout.
+//! per character is meant to be wider than the digits and average letters of the common
+//! sans-serif faces (DejaVu Sans digits about 0.64 em, Liberation Sans about 0.56 em: figures
+//! from memory, not read from the font files), and a line's box runs from 0.93 em above the
+//! baseline to 0.24 em below (DejaVu Sans's ascent and descent, also from memory). The browser
+//! test checks the result in Chromium's own layout, which is what holds the estimate.
 
 use crate::render::svg::esc;
 use std::fmt::Write;
@@ -68,11 +69,6 @@ impl LabelPlacer {
             area,
             taken: Vec::new(),
         }
-    }
-
-    /// Keep labels off this box too (a mark, a legend).
-    pub fn reserve(&mut self, b: TextBox) {
-        self.taken.push(b);
     }
 
     /// The baseline start of `text` beside the mark at (x, y) whose half-size is `gap_px`, or

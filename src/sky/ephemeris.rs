@@ -10,13 +10,15 @@
 //! - Light time iterated for the planet (geocentric distance) and for the Sun (with the JPL
 //!   series; heliocentric VSOP87 leaves the Sun's barycentric motion out).
 //! - Annual aberration, relativistic form of ERFA `eraAb` (Klioner 2003), with the Earth's
-//!   barycentric velocity from ERFA `eraEpv00` (through the `erfa` crate).
+//!   barycentric velocity from the JPL series' derivative, or with VSOP87 from ERFA
+//!   `eraEpv00` (through the `erfa` crate).
 //! - Precession and nutation IAU 2006/2000A (`eraPnm06a`), so the vectors are referred to the
 //!   true equator and equinox of date; Greenwich apparent sidereal time IAU 2006 (`eraGst06`).
 //! - TDB is taken equal to TT (they differ by under 2 ms).
 
 use crate::sky::constants::{
-    sun_radius_au, AU_KM, LIGHT_TIME_DAYS_PER_AU, MERCURY_RADIUS_KM, VENUS_RADIUS_KM,
+    sun_radius_au, AU_KM, LIGHT_TIME_DAYS_PER_AU, MERCURY_RADIUS_KM, SECONDS_PER_DAY,
+    VENUS_RADIUS_KM,
 };
 use crate::sky::vector::{add, dot, mat_vec, norm, scale, sub, unit, V3};
 use crate::time::scales::{TimeModel, Tt};
@@ -159,17 +161,6 @@ pub enum EphemerisChoice {
     Vsop87,
 }
 
-impl EphemerisChoice {
-    /// Parse `jpl` or `vsop87` (any case).
-    pub fn parse(text: &str) -> Option<EphemerisChoice> {
-        match text.trim().to_ascii_lowercase().as_str() {
-            "jpl" => Some(EphemerisChoice::Jpl),
-            "vsop87" => Some(EphemerisChoice::Vsop87),
-            _ => None,
-        }
-    }
-}
-
 /// The JPL window that serves an instant under this choice, if any.
 pub fn jpl_window(
     planet: Planet,
@@ -212,7 +203,7 @@ fn jpl_vectors(w: &crate::sky::jpl_windows::Window, tt: Tt) -> (V3, V3, V3) {
     let retarded = |body: Body| {
         let mut p = sub(w.position_au(body, tt), earth);
         for _ in 0..3 {
-            let tau_s = norm(p) * LIGHT_TIME_DAYS_PER_AU * 86_400.0;
+            let tau_s = norm(p) * LIGHT_TIME_DAYS_PER_AU * SECONDS_PER_DAY;
             p = sub(w.position_au(body, tt.add_seconds(-tau_s)), earth);
         }
         p

@@ -14,7 +14,7 @@
 //! *Numerical Recipes*, 3rd ed., section 5.8.
 
 use crate::sky::chebyshev::Chebyshev;
-use crate::sky::constants::AU_KM;
+use crate::sky::constants::{AU_KM, SECONDS_PER_DAY};
 use crate::sky::ephemeris::Planet;
 use crate::sky::vector::V3;
 use crate::time::scales::Tt;
@@ -54,16 +54,20 @@ pub struct Window {
 }
 
 impl Window {
+    /// Days from the window's start to an instant.
+    fn days_in(&self, tt: Tt) -> f64 {
+        tt.seconds_since(self.start) / SECONDS_PER_DAY
+    }
+
     /// Whether the instant falls inside the window.
     pub fn covers(&self, tt: Tt) -> bool {
-        let d = tt.seconds_since(self.start) / 86_400.0;
-        (0.0..=self.length_days).contains(&d)
+        (0.0..=self.length_days).contains(&self.days_in(tt))
     }
 
     /// Barycentric position (au) and velocity (au/day) of a body at an instant of the window
     /// (clamped to the window's ends outside it).
     pub fn position_velocity_au(&self, body: Body, tt: Tt) -> (V3, V3) {
-        let d = (tt.seconds_since(self.start) / 86_400.0).clamp(0.0, self.length_days);
+        let d = self.days_in(tt).clamp(0.0, self.length_days);
         let segments = &self.bodies[body as usize];
         let seg = segments
             .iter()
