@@ -119,7 +119,7 @@ pub enum Command {
     Simulate(SimulateArgs),
     /// Run the main job on an embedded, invented campaign and write its HTML report.
     #[command(
-        after_help = "Examples:\n  transit-parallax demo\n  transit-parallax demo --report /tmp/demo.html"
+        after_help = "Examples:\n  transit-parallax demo\n  transit-parallax demo --report /tmp/demo.html\n  transit-parallax demo --scenario 1769 --report /tmp/expeditions.html"
     )]
     Demo(DemoArgs),
     /// Print a shell completion script (bash, zsh, fish, elvish or powershell).
@@ -346,6 +346,10 @@ pub struct DemoArgs {
         default_value = "transit-parallax-demo.html"
     )]
     pub report: PathBuf,
+    /// Which embedded campaign: 2012 (schools, clubs and observatories timing in UTC) or 1769
+    /// (expeditions timing in local solar time, with doubtful and unknown longitudes).
+    #[arg(long, value_name = "NAME", default_value = "2012")]
+    pub scenario: String,
 }
 
 pub fn planet_of(text: &str) -> Result<Planet, Error> {

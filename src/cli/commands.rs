@@ -105,6 +105,7 @@ fn reduce_timings(a: ReduceArgs) -> Result<String, Error> {
         outlier_threshold: a.outlier_threshold,
         follow_convergence: a.report.is_some(),
         planet_place: PlanetPlace::parse(&a.planet_place).map_err(Error::argument)?,
+        compare_methods: true,
     };
     let set = read_observations(&a.observations, a.strict)?;
     let red = reduce(set, &options)?;
@@ -279,7 +280,14 @@ fn simulate(a: SimulateArgs) -> Result<String, Error> {
 }
 
 fn demo(a: DemoArgs) -> Result<String, Error> {
-    transit_parallax::demo::run_demo(&a.report)
+    use transit_parallax::demo::{run_scenario, Scenario};
+    let scenario = Scenario::parse(&a.scenario).ok_or_else(|| {
+        Error::argument(format!(
+            "--scenario '{}' is not an embedded campaign; give 2012 (schools timing in UTC) or 1769 (expeditions timing in local solar time)",
+            a.scenario
+        ))
+    })?;
+    run_scenario(scenario, &a.report)
 }
 
 fn check_range(name: &str, value: f64, min: f64, max: f64) -> Result<(), Error> {

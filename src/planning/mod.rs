@@ -6,5 +6,8 @@
 //!
 //! - `sites.rs`: site ranking, greedy network choice, forecasts, sensitivity grids.
 //! - `simulation.rs`: simulated campaigns and Monte Carlo forecasts.
+//! - `historical.rs`: simulated campaigns recorded in local solar time with doubtful
+//!   longitudes.
+pub mod historical;
 pub mod simulation;
 pub mod sites;

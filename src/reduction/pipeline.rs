@@ -14,7 +14,9 @@
 //! References: J. F. Encke (1822, 1824) and S. Newcomb (1891) for the condition equations;
 //! Bevington and Robinson (2003), chapter 8; R. T. Birge, Phys. Rev. 40, 207 (1932).
 
+use super::classic_methods::{condition_equations, methods};
 use super::contributions::{contributions, convergence, stations_not_used};
+use super::error_budget::{error_budget, Solved};
 use super::fit::FitOutcome;
 use super::parameters::{ParameterKind, ParameterSet, Prior, Scope, PARALLAX};
 use super::planet_place::{parallax_shift_arcsec, place_accuracy_arcsec};
@@ -382,6 +384,8 @@ fn summarise(
         place_accuracy_arcsec(&event.ephemeris_name()),
     );
     let mut red = Reduction {
+        methods: Vec::new(),
+        error_budget: None,
         event,
         prior_parallax_arcsec: options.prior_parallax_arcsec,
         planet_place: options.planet_place,
@@ -408,5 +412,42 @@ fn summarise(
     if determined {
         headline_into(&mut red, stats.coverage_factor_95);
     }
+    if options.compare_methods {
+        side_by_side(&mut red, c, s, stats.sigma_scale);
+    }
     red
+}
+
+/// Halley's and Delisle's methods beside the full solution, and the error budget of a
+/// determined parallax.
+fn side_by_side(red: &mut Reduction, c: &Campaign, s: &Screened, sigma_scale: f64) {
+    let (outcome, used) = (&s.outcome, &s.used);
+    let stations = red.stations.iter().filter(|st| st.timings > 0).count();
+    let figure = red.parallax_arcsec.zip(red.parallax_sigma_arcsec);
+    let why_not = red
+        .warnings
+        .iter()
+        .rev()
+        .find(|w| w.contains("parallax"))
+        .cloned();
+    let full = condition_equations(figure, (used.len(), stations), why_not);
+    red.methods = methods(
+        &red.event,
+        (c.timings, used),
+        c.params,
+        &outcome.theta,
+        full,
+    );
+    if let Some((_, sigma)) = figure {
+        red.error_budget = Some(error_budget(&Solved {
+            event: &red.event,
+            timings: c.timings,
+            used,
+            params: c.params,
+            theta: &outcome.theta,
+            parallax_sigma_arcsec: sigma,
+            sigma_scale,
+            place_shift_arcsec: red.place_bias_arcsec,
+        }));
+    }
 }

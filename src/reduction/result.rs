@@ -1,7 +1,9 @@
 //! What a reduction gives: its settings, the fitted parameters, each station's contribution,
 //! the statistics and every row not used, in one [`Reduction`].
 
+use super::classic_methods::MethodSolution;
 use super::equations::perturbation;
+use super::error_budget::ErrorBudget;
 #[cfg(doc)]
 use super::parameters::CLASSIC_NAMES;
 use crate::geometry::contacts::Perturbation;
@@ -30,6 +32,9 @@ pub struct ReduceOptions {
     pub follow_convergence: bool,
     /// The planet's place relative to the Sun: free, held, or with a prior.
     pub planet_place: PlanetPlace,
+    /// Whether to solve Halley's and Delisle's methods beside the full solution and draw up
+    /// the error budget (a few more fits; Monte Carlo forecasts leave them out for speed).
+    pub compare_methods: bool,
 }
 
 impl Default for ReduceOptions {
@@ -41,6 +46,7 @@ impl Default for ReduceOptions {
             outlier_threshold: 5.0,
             follow_convergence: true,
             planet_place: PlanetPlace::Free,
+            compare_methods: true,
         }
     }
 }
@@ -157,6 +163,12 @@ pub struct Reduction {
     pub used: Vec<UsedTiming>,
     /// How the parallax firmed up as timings were added in file order.
     pub convergence: Vec<ConvergencePoint>,
+    /// The full solution, Halley's and Delisle's methods side by side (empty when not
+    /// compared).
+    pub methods: Vec<MethodSolution>,
+    /// The terms of the parallax's uncertainty, where the parallax was determined and the
+    /// methods compared.
+    pub error_budget: Option<ErrorBudget>,
 }
 
 /// The AU from a determined parallax.

@@ -1,6 +1,7 @@
 //! Rendering a reduction: the JSON object of the stable interface and a readable terminal
 //! report (solution, parameters, correlations, stations ranked by contribution, rejected rows).
 
+use crate::reduction::error_budget::ErrorBudget;
 use crate::reduction::Reduction;
 use crate::render::text::{au_text, csv_field, name_cell, round as r, SAFETY_CAUTION};
 use crate::words::count;
@@ -120,6 +121,43 @@ pub fn reduction_json(red: &Reduction) -> Value {
             "parallax_arcsec": r(c.parallax_arcsec, 6),
             "sigma_arcsec": r(c.sigma_arcsec, 6),
         })).collect::<Vec<_>>(),
+        "methods": methods_json(red),
+        "error_budget": red.error_budget.as_ref().map(budget_json),
+    })
+}
+
+/// The methods side by side: null figures and a note where a method gives none.
+fn methods_json(red: &Reduction) -> Vec<Value> {
+    red.methods
+        .iter()
+        .map(|m| {
+            json!({
+                "method": m.method,
+                "parallax_arcsec": opt(m.parallax_arcsec, 6),
+                "parallax_sigma_arcsec": opt(m.parallax_sigma_arcsec, 6),
+                "au_km": opt(m.au_km, 0),
+                "au_sigma_km": opt(m.au_sigma_km, 0),
+                "timings_used": m.timings_used,
+                "stations_used": m.stations_used,
+                "note": m.note,
+            })
+        })
+        .collect()
+}
+
+fn budget_json(b: &ErrorBudget) -> Value {
+    json!({
+        "delta_t_s": r(b.delta_t_s, 3),
+        "delta_t_sigma_s": r(b.delta_t_sigma_s, 3),
+        "delta_t_fixed": b.delta_t_fixed,
+        "parallax_per_delta_t_arcsec_per_s": opt(b.parallax_per_delta_t_arcsec_per_s, 7),
+        "parallax_per_delta_t_offsets_held_arcsec_per_s": opt(b.parallax_per_delta_t_offsets_held_arcsec_per_s, 7),
+        "delta_t_arcsec": opt(b.delta_t_arcsec, 6),
+        "timings_arcsec": r(b.timings_arcsec, 6),
+        "longitudes_arcsec": opt(b.longitudes_arcsec, 6),
+        "planet_place_arcsec": opt(b.planet_place_arcsec, 6),
+        "stated_arcsec": r(b.stated_arcsec, 6),
+        "with_model_terms_arcsec": r(b.with_model_terms_arcsec, 6),
     })
 }
 

@@ -61,6 +61,22 @@ impl DayReckoning {
         }
     }
 
+    /// `civil` or `astronomical`.
+    pub fn name(self) -> &'static str {
+        match self {
+            DayReckoning::Civil => "civil",
+            DayReckoning::Astronomical => "astronomical",
+        }
+    }
+
+    /// The reading in this reckoning of a civil reading.
+    pub fn from_civil(self, civil: NaiveDateTime) -> NaiveDateTime {
+        match self {
+            DayReckoning::Civil => civil,
+            DayReckoning::Astronomical => civil - TimeDelta::hours(12),
+        }
+    }
+
     /// The civil reading of a reading in this reckoning.
     pub fn to_civil(self, reading: NaiveDateTime) -> NaiveDateTime {
         match self {
