@@ -170,6 +170,13 @@ fn venus_1769_matches_de405() {
     assert_jpl("venus-1769-06-03");
 }
 
+// A transit of Mercury of the 18th century (1786 May 4), 26 stations and the geocentre.
+// Source: JPL DE405 through Skyfield 1.53.
+#[test]
+fn mercury_1786_matches_de405() {
+    assert_jpl("mercury-1786-05-04");
+}
+
 // VSOP87A against the same references: within 1 s (0.3 s rms) from 1874 to 2117, within
 // 4 s in the 17th and 18th centuries (its error grows away from 2000; measured 0.2-0.5 s rms
 // in 1874-2117, 1.2-3.2 s before 1800, before the JPL series were added).

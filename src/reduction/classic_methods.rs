@@ -239,8 +239,8 @@ pub fn halley(
         );
     }
     let mut p = params.clone();
-    let held = hold_offset_along_path(event, &mut p);
     let mut start = theta.to_vec();
+    let held = hold_offset_along_path(event, &mut p, &mut start);
     for (s, i) in first.iter().enumerate() {
         if let (Some(i), true) = (i, enough(s)) {
             let clock = ParameterSet::clock_offset(&timings[*i].obs.station.name, None);
@@ -257,9 +257,14 @@ pub fn halley(
 }
 
 /// Hold the planet's offset component (east or north) nearer the direction of its path on
-/// the fundamental plane; returns which ("east" or "north"), or `None` when it was held
-/// already.
-fn hold_offset_along_path(event: &TransitEvent, params: &mut ParameterSet) -> Option<&'static str> {
+/// the fundamental plane at the ephemeris's value (its start, not the full solution's fitted
+/// value, which the absolute times determined); returns which ("east" or "north"), or `None`
+/// when it was held already.
+fn hold_offset_along_path(
+    event: &TransitEvent,
+    params: &mut ParameterSet,
+    theta: &mut [f64],
+) -> Option<&'static str> {
     let v = event.elements.at(event.hours_of_greatest());
     let (index, name) = if v.x.1.abs() >= v.y.1.abs() {
         (OFFSET_EAST, "east")
@@ -271,6 +276,7 @@ fn hold_offset_along_path(event: &TransitEvent, params: &mut ParameterSet) -> Op
         return None;
     }
     spec.fixed = true;
+    theta[index] = spec.start;
     Some(name)
 }
 
@@ -385,18 +391,41 @@ pub fn methods(
     ]
 }
 
-/// Why the three methods differ here, in plain words (one sentence per point).
+/// Why the three methods differ here, in plain words (one sentence per point): what each
+/// uses, and how far each classic method lies from the full solution against what chance
+/// allows. A method that uses part of the full solution's information differs from it by
+/// chance with a standard deviation of sqrt(sigma_method^2 - sigma_full^2), since the full
+/// solution is the efficient one (the difference of an efficient and an inefficient estimator
+/// is uncorrelated with the efficient one: J. A. Hausman, Econometrica 46, 1251 (1978)).
 pub fn why_they_differ(methods: &[MethodSolution]) -> Vec<String> {
-    let mut out = vec![
-        "The three use the same timings in different ways, so their figures differ by more than chance only where clocks, longitudes or the black drop are at fault.".to_string(),
-    ];
+    let mut out = Vec::new();
     for m in methods {
-        out.push(format!(
-            "{}: {}.",
-            m.method.title(),
-            m.method.what_it_uses()
-        ));
+        out.push(format!("{}: {}", m.method.title(), m.method.what_it_uses()));
     }
-    out.push("A clock error or a wrong longitude biases Delisle's method and is taken out of Halley's; Halley's pays for that with the information in absolute times, so its uncertainty is larger; the full solution has both kinds of information and the longitude corrections, so its uncertainty is the smallest.".to_string());
+    out.push("a clock error or a wrong longitude biases Delisle's method and is taken out of Halley's; Halley's gives up the information in absolute times for that, so its uncertainty is larger; the full solution has both kinds of information and the longitude corrections, so its uncertainty is the smallest".to_string());
+    let full = methods
+        .iter()
+        .find(|m| m.method == Method::ConditionEquations)
+        .and_then(|m| m.parallax_arcsec.zip(m.parallax_sigma_arcsec));
+    for m in methods
+        .iter()
+        .filter(|m| m.method != Method::ConditionEquations)
+    {
+        if let (Some((pf, sf)), Some((pm, sm))) =
+            (full, m.parallax_arcsec.zip(m.parallax_sigma_arcsec))
+        {
+            let chance = (sm * sm - sf * sf).max(0.0).sqrt();
+            let d = pm - pf;
+            let verdict = if chance > 0.0 && d.abs() > 3.0 * chance {
+                "more than chance allows: look for clock, longitude or contact errors that the two methods treat differently"
+            } else {
+                "within what chance allows"
+            };
+            out.push(format!(
+                "{} lies {d:+.4}\" from the full solution; by chance alone the two would differ by about {chance:.4}\" (one standard deviation), so this is {verdict}",
+                m.method.title()
+            ));
+        }
+    }
     out
 }

@@ -205,7 +205,7 @@ impl ErrorBudget {
         ) {
             (Some(r), Some(h)) if r.abs() < h.abs() => {
                 out.push(format!(
-                    "one second of Delta T moves the parallax by {r:+.6}\" with the planet's offsets free, and by {h:+.6}\" were they held: the offsets absorb {:.0} % of a Delta T error",
+                    "one second of Delta T moves the parallax by {r:+.6}\" with the planet's offsets free, and by {h:+.6}\" were they held: the offsets absorb {:.1} % of a Delta T error",
                     100.0 * (1.0 - (r / h).abs())
                 ));
             }

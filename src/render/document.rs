@@ -7,9 +7,13 @@ use crate::render::charts::{
     convergence_svg, disc_exaggeration, residuals_svg, sampling_note, solar_disc_svg,
     station_map_svg,
 };
+use crate::render::methods::{
+    budget_rows, methods_rows, methods_sentences, BUDGET_HEADERS, METHOD_HEADERS,
+};
 use crate::render::reduction::chi2_sentence;
 use crate::render::reduction::correlation_notes;
 use crate::render::svg::esc;
+use crate::render::text::capitalise;
 use crate::render::text::{au_text, SAFETY_CAUTION};
 use std::fmt::Write;
 use std::path::{Path, PathBuf};
@@ -288,11 +292,42 @@ fn title(red: &Reduction) -> String {
     )
 }
 
-fn capitalise(s: &str) -> String {
-    let mut c = s.chars();
-    match c.next() {
-        Some(f) => f.to_uppercase().collect::<String>() + c.as_str(),
-        None => String::new(),
+const METHODS_TITLE: &str = "The classic methods beside the full solution";
+const BUDGET_TITLE: &str = "Error budget of the parallax";
+
+/// The methods side by side and the error budget, in HTML.
+fn html_methods(red: &Reduction, s: &mut String) {
+    if !red.methods.is_empty() {
+        let _ = writeln!(s, "<h2>{METHODS_TITLE}</h2>");
+        s.push_str(&html_table(&METHOD_HEADERS, &methods_rows(red)));
+        for line in methods_sentences(red) {
+            let _ = writeln!(s, "<p>{}.</p>", esc(&capitalise(&line)));
+        }
+    }
+    if let Some(b) = &red.error_budget {
+        let _ = writeln!(s, "<h2>{BUDGET_TITLE}</h2>");
+        s.push_str(&html_table(&BUDGET_HEADERS, &budget_rows(b)));
+        for line in b.sentences() {
+            let _ = writeln!(s, "<p>{}.</p>", esc(&capitalise(&line)));
+        }
+    }
+}
+
+/// The methods side by side and the error budget, in Markdown.
+fn md_methods(red: &Reduction, s: &mut String) {
+    if !red.methods.is_empty() {
+        let _ = write!(s, "\n## {METHODS_TITLE}\n\n");
+        s.push_str(&md_table(&METHOD_HEADERS, &methods_rows(red)));
+        for line in methods_sentences(red) {
+            let _ = write!(s, "\n{}.\n", md_cell(&capitalise(&line)));
+        }
+    }
+    if let Some(b) = &red.error_budget {
+        let _ = write!(s, "\n## {BUDGET_TITLE}\n\n");
+        s.push_str(&md_table(&BUDGET_HEADERS, &budget_rows(b)));
+        for line in b.sentences() {
+            let _ = write!(s, "\n{}.\n", md_cell(&capitalise(&line)));
+        }
     }
 }
 
@@ -342,6 +377,7 @@ pub fn html_report(red: &Reduction) -> String {
     for note in correlation_notes(red) {
         let _ = writeln!(s, "<p>{}</p>", esc(&note));
     }
+    html_methods(red, &mut s);
     let (station_note, rows_note) = table_notes(red);
     s.push_str("<h2>Stations, ranked by their share of the information on the parallax</h2>\n");
     if let Some(n) = &station_note {
@@ -418,6 +454,7 @@ pub fn markdown_report(red: &Reduction, stem: &str) -> (String, Vec<(String, Str
     for note in correlation_notes(red) {
         let _ = write!(s, "\n{}\n", md_cell(&note));
     }
+    md_methods(red, &mut s);
     let (station_note, rows_note) = table_notes(red);
     s.push_str("\n## Stations, ranked by their share of the information on the parallax\n\n");
     if let Some(n) = &station_note {

@@ -14,10 +14,13 @@
 //!   chart's width.
 //! - `charts.rs`: the reduction's charts (solar disc, station map, residuals, convergence).
 //! - `planning_charts.rs`: the sensitivity map and the histogram of simulated AU estimates.
+//! - `methods.rs`: the classic methods side by side and the error budget, for the table and
+//!   the reports.
 //! - `document.rs`: the HTML and Markdown reports.
 pub mod charts;
 pub mod document;
 pub mod labels;
+pub mod methods;
 pub mod planning;
 pub mod planning_charts;
 pub mod prediction;

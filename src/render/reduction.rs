@@ -362,6 +362,7 @@ pub fn reduction_table(red: &Reduction) -> String {
     headline_section(red, &mut s);
     parameters_section(red, &mut s);
     stations_section(red, &mut s);
+    crate::render::methods::methods_section(red, &mut s);
     if !red.rejected.is_empty() {
         s.push_str("\nRows not used\n");
         for x in &red.rejected {

@@ -230,3 +230,12 @@ mod tests {
         assert_eq!(decimals_for(f64::NAN), 2);
     }
 }
+
+/// The text with its first letter in upper case (for sentences that start a paragraph).
+pub fn capitalise(s: &str) -> String {
+    let mut c = s.chars();
+    match c.next() {
+        Some(f) => f.to_uppercase().collect::<String>() + c.as_str(),
+        None => String::new(),
+    }
+}

@@ -2,7 +2,7 @@
 """Generate reference contact times for transits of Venus and Mercury.
 
 Independent reference for `cargo test`: the JPL DE421 (1900-2050), DE423
-(1799-2200) and DE405 (1600-2200, used here for 1639, 1761 and 1769) planetary ephemerides, evaluated by the general-purpose astronomy
+(1799-2200) and DE405 (1600-2200, used here for 1639, 1761, 1769 and Mercury 1786) planetary ephemerides, evaluated by the general-purpose astronomy
 library Skyfield.  The output CSV is committed next to this script so that the
 Rust tests never need Python.
 
@@ -73,6 +73,8 @@ EVENTS = [
     ("venus-1639-12-04", "venus", "de405", 2320030.27, 65.0, 65.0),
     ("venus-1761-06-06", "venus", "de405", 2364408.72, 15.0, 15.0),
     ("venus-1769-06-03", "venus", "de405", 2367328.43, 16.0, 16.0),
+    # A transit of Mercury of the 18th century (greatest transit 1786 May 4, 05:41 UT1).
+    ("mercury-1786-05-04", "mercury", "de405", 2373506.74, 17.0, 17.0),
 ]
 
 # Invented stations spread over both hemispheres (name, lat, lon east, elevation m).
