@@ -126,3 +126,39 @@ fn venus_2117_plan_and_simulation_reproduce() {
         committed(&dir.join("au-histogram.svg"))
     );
 }
+
+#[test]
+fn expeditions_1769_reproduce() {
+    let dir = examples().join("venus-1769-expeditions");
+    // The worked example's timings are the embedded historical-style demonstration.
+    assert_eq!(
+        committed(&dir.join("timings.csv")),
+        transit_parallax::demo::Scenario::Expeditions1769.campaign_csv()
+    );
+    let timings = dir.join("timings.csv");
+    let stations = dir.join("stations.csv");
+    let (t, s) = (timings.to_str().unwrap(), stations.to_str().unwrap());
+    assert_eq!(
+        output_in(&dir, &["reduce", t]),
+        committed(&dir.join("reduction.txt"))
+    );
+    assert_eq!(
+        output_in(&dir, &["reduce", t, "--format", "json"]),
+        committed(&dir.join("reduction.json"))
+    );
+    let predict = [
+        "predict",
+        "--planet",
+        "venus",
+        "--date",
+        "1769-06-03",
+        "--stations",
+        s,
+        "--local-time",
+        "apparent",
+    ];
+    assert_eq!(
+        output_in(&dir, &predict),
+        committed(&dir.join("predictions-apparent.txt"))
+    );
+}

@@ -33,8 +33,9 @@ const DELTA_T_STEP_S: f64 = 10.0;
 pub struct ErrorBudget {
     /// Delta T (TT - UT1) used at greatest transit, seconds.
     pub delta_t_s: f64,
-    /// Its standard uncertainty, seconds (0 when fixed with `--delta-t`: counted as exact).
-    pub delta_t_sigma_s: f64,
+    /// Its standard uncertainty, seconds (`None` when fixed with `--delta-t`: counted as
+    /// exact).
+    pub delta_t_sigma_s: Option<f64>,
     /// Whether Delta T was fixed by the user.
     pub delta_t_fixed: bool,
     /// The parallax's change per second of Delta T, as solved, arcsec per s.
@@ -42,7 +43,8 @@ pub struct ErrorBudget {
     /// The same with the planet's offsets held at their fitted values (`None` where they
     /// were held already), arcsec per s.
     pub parallax_per_delta_t_offsets_held_arcsec_per_s: Option<f64>,
-    /// The Delta T term: |rate| x its uncertainty.
+    /// The Delta T term: |rate| x its uncertainty (`None` when Delta T was fixed or the rate
+    /// could not be computed).
     pub delta_t_arcsec: Option<f64>,
     /// The timings' term (longitudes held at their fitted values), Birge-scaled.
     pub timings_arcsec: f64,
@@ -156,9 +158,10 @@ fn sigma_longitudes_held(s: &Solved) -> Option<f64> {
 pub fn error_budget(s: &Solved) -> ErrorBudget {
     let model = s.event.time_model();
     let (delta_t_s, source) = model.delta_t_s(s.event.greatest);
-    let delta_t_sigma_s = s.event.delta_t_sigma_s();
+    let fixed = source == DeltaTSource::Fixed;
+    let delta_t_sigma_s = (!fixed).then(|| s.event.delta_t_sigma_s());
     let (rate, rate_held) = delta_t_rates(s);
-    let delta_t_arcsec = rate.map(|r| r.abs() * delta_t_sigma_s);
+    let delta_t_arcsec = rate.zip(delta_t_sigma_s).map(|(r, sigma)| r.abs() * sigma);
     let stated = s.parallax_sigma_arcsec;
     let (timings_arcsec, longitudes_arcsec) = match sigma_longitudes_held(s) {
         Some(held) => {
@@ -173,7 +176,7 @@ pub fn error_budget(s: &Solved) -> ErrorBudget {
     ErrorBudget {
         delta_t_s,
         delta_t_sigma_s,
-        delta_t_fixed: source == DeltaTSource::Fixed,
+        delta_t_fixed: fixed,
         parallax_per_delta_t_arcsec_per_s: rate,
         parallax_per_delta_t_offsets_held_arcsec_per_s: rate_held,
         delta_t_arcsec,
@@ -190,13 +193,12 @@ impl ErrorBudget {
     /// error the planet's offsets absorb, and which terms the stated uncertainty leaves out.
     pub fn sentences(&self) -> Vec<String> {
         let mut out = Vec::new();
-        let dt = if self.delta_t_fixed {
-            format!("Delta T {:.1} s was fixed with --delta-t and counts as exact; multiply the rate below by your own doubt about it", self.delta_t_s)
-        } else {
-            format!(
-                "Delta T {:.1} s +- {:.1} s (the built-in model's rough uncertainty)",
-                self.delta_t_s, self.delta_t_sigma_s
-            )
+        let dt = match self.delta_t_sigma_s {
+            None => format!("Delta T {:.1} s was fixed with --delta-t and counts as exact; multiply the rate below by your own doubt about it", self.delta_t_s),
+            Some(sigma) => format!(
+                "Delta T {:.1} s +- {sigma:.1} s (the built-in model's rough uncertainty)",
+                self.delta_t_s
+            ),
         };
         out.push(dt);
         match (

@@ -10,7 +10,7 @@ use crate::render::text::{capitalise, decimals_for};
 pub const METHOD_HEADERS: [&str; 5] = [
     "method",
     "solar parallax (arcsec)",
-    "astronomical unit (million km)",
+    "astronomical unit (millions of km)",
     "timings (stations)",
     "note",
 ];
@@ -92,19 +92,21 @@ pub fn budget_rows(b: &ErrorBudget) -> Vec<Vec<String>> {
             "yes".into(),
         ]);
     }
-    let dt_term = match b.delta_t_arcsec {
-        Some(x) if b.delta_t_fixed => format!("{} (Delta T fixed: counted exact)", arcsec(x)),
-        Some(x) => arcsec(x),
-        None => "not determined".into(),
-    };
-    rows.push(vec![
-        format!(
-            "Delta T ({:.1} s +- {:.1} s)",
-            b.delta_t_s, b.delta_t_sigma_s
+    let (dt_name, dt_term) = match (b.delta_t_sigma_s, b.delta_t_arcsec) {
+        (None, _) => (
+            format!("Delta T ({:.1} s, fixed with --delta-t)", b.delta_t_s),
+            "not counted: fixed values count as exact".to_string(),
         ),
-        dt_term,
-        "no".into(),
-    ]);
+        (Some(s), Some(x)) => (
+            format!("Delta T ({:.1} s +- {s:.1} s)", b.delta_t_s),
+            arcsec(x),
+        ),
+        (Some(s), None) => (
+            format!("Delta T ({:.1} s +- {s:.1} s)", b.delta_t_s),
+            "not determined".to_string(),
+        ),
+    };
+    rows.push(vec![dt_name, dt_term, "no".into()]);
     if let Some(p) = b.planet_place_arcsec {
         rows.push(vec![
             "the planet's place (held or constrained: the ephemeris's accuracy)".into(),

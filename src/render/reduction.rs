@@ -148,7 +148,7 @@ fn methods_json(red: &Reduction) -> Vec<Value> {
 fn budget_json(b: &ErrorBudget) -> Value {
     json!({
         "delta_t_s": r(b.delta_t_s, 3),
-        "delta_t_sigma_s": r(b.delta_t_sigma_s, 3),
+        "delta_t_sigma_s": opt(b.delta_t_sigma_s, 3),
         "delta_t_fixed": b.delta_t_fixed,
         "parallax_per_delta_t_arcsec_per_s": opt(b.parallax_per_delta_t_arcsec_per_s, 7),
         "parallax_per_delta_t_offsets_held_arcsec_per_s": opt(b.parallax_per_delta_t_offsets_held_arcsec_per_s, 7),
