@@ -125,6 +125,9 @@ pub struct ContactPartials {
     pub per_dy_h: f64,
     /// d t / d(dl) of this contact's cone, hours per Earth radius.
     pub per_dl_h: f64,
+    /// d t / d(station's east longitude), hours per radian: a change of longitude turns the
+    /// station about the Earth's axis as a change of the axis's hour angle mu would.
+    pub per_longitude_h: f64,
 }
 
 /// The quantities of one station that the contact equation needs at one instant.
@@ -141,6 +144,9 @@ struct LocalGeometry {
     l: f64,
     mu: f64,
     scale: f64,
+    /// d(xi, eta, zeta)/d(east longitude), Earth radii per radian.
+    pos_per_longitude: [f64; 3],
+    tan_f: f64,
 }
 
 /// Station coordinates on the fundamental plane (xi, eta, zeta) and their rates per hour.
@@ -151,9 +157,9 @@ fn station_on_plane(
     st: Option<&GeocentricStation>,
     d: (f64, f64),
     mu: (f64, f64),
-) -> ([f64; 3], [f64; 3]) {
+) -> ([f64; 3], [f64; 3], [f64; 3]) {
     let Some(st) = st else {
-        return ([0.0; 3], [0.0; 3]);
+        return ([0.0; 3], [0.0; 3], [0.0; 3]);
     };
     let theta = mu.0 + st.longitude_rad;
     let (s_th, c_th) = theta.sin_cos();
@@ -164,7 +170,13 @@ fn station_on_plane(
     let xi_rate = mu.1 * st.rho_cos_phi * c_th;
     let eta_rate = mu.1 * xi * s_d - d.1 * zeta;
     let zeta_rate = d.1 * eta - mu.1 * xi * c_d;
-    ([xi, eta, zeta], [xi_rate, eta_rate, zeta_rate])
+    // The longitude enters only through theta = mu + longitude: the mu terms of the rates.
+    let per_longitude = [st.rho_cos_phi * c_th, xi * s_d, -xi * c_d];
+    (
+        [xi, eta, zeta],
+        [xi_rate, eta_rate, zeta_rate],
+        per_longitude,
+    )
 }
 
 #[inline]
@@ -176,7 +188,7 @@ fn local_geometry(
     p: &Perturbation,
 ) -> LocalGeometry {
     let e = el.at_cone(hours, contact.is_exterior());
-    let (pos, rate) = station_on_plane(st, e.d, e.mu);
+    let (pos, rate, pos_per_longitude) = station_on_plane(st, e.d, e.mu);
     let (l, tan_f) = (e.l, e.tan_f);
     let s = p.length_scale;
     let x = e.x.0 + p.dx_er;
@@ -199,6 +211,8 @@ fn local_geometry(
         l: l0,
         mu: e.mu.0,
         scale: s,
+        pos_per_longitude,
+        tan_f,
     }
 }
 
@@ -282,8 +296,10 @@ pub fn solve_with_circumstances(
 }
 
 /// Partial derivatives of a solved contact time with respect to the parameters of
-/// [`Perturbation`], by implicit differentiation of the contact condition
-/// F = (s (x + dx) - xi)^2 + (s (y + dy) - eta)^2 - (s (l + dl) - zeta tan f)^2 = 0.
+/// [`Perturbation`] and to the station's longitude, by implicit differentiation of the contact
+/// condition F = (s (x + dx) - xi)^2 + (s (y + dy) - eta)^2 - (s (l + dl) - zeta tan f)^2 = 0
+/// (Chauvenet 1863, vol. I; the station's coordinates as in the Explanatory Supplement 1992,
+/// eq. 8.331, whose longitude enters through the local hour angle mu + longitude).
 pub fn contact_partials(
     el: &Elements,
     st: Option<&GeocentricStation>,
@@ -298,6 +314,9 @@ pub fn contact_partials(
         per_dx_h: -(g.u * g.scale) / df_dt,
         per_dy_h: -(g.v * g.scale) / df_dt,
         per_dl_h: (g.radius * g.scale) / df_dt,
+        per_longitude_h: (g.u * g.pos_per_longitude[0] + g.v * g.pos_per_longitude[1]
+            - g.radius * g.tan_f * g.pos_per_longitude[2])
+            / df_dt,
     }
 }
 

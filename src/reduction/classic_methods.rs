@@ -214,13 +214,8 @@ pub fn halley(
     for &i in used {
         count[timings[i].station] += 1;
     }
-    // A station counts through a duration: two timings, three where its longitude is unknown
-    // (the clock and the longitude then take two of them).
-    let enough = |s: usize| {
-        let unknown =
-            first[s].is_some_and(|i| timings[i].obs.longitude == LongitudeKnowledge::Unknown);
-        count[s] >= if unknown { 3 } else { 2 }
-    };
+    // A station counts through a duration: two timings.
+    let enough = |s: usize| count[s] >= 2;
     let rows: Vec<usize> = used
         .iter()
         .copied()
@@ -233,7 +228,7 @@ pub fn halley(
             rows.len(),
             stations,
             format!(
-                "Halley's method needs durations at two stations or more (two contacts timed at each, three where the longitude is unknown); {} such",
+                "Halley's method needs durations at two stations or more (two contacts timed at each); {} such",
                 crate::words::count(stations, "station has", "stations have")
             ),
         );
@@ -241,6 +236,7 @@ pub fn halley(
     let mut p = params.clone();
     let mut start = theta.to_vec();
     let held = hold_offset_along_path(event, &mut p, &mut start);
+    let unknown_held = hold_unknown_longitudes(&mut p, &mut start);
     for (s, i) in first.iter().enumerate() {
         if let (Some(i), true) = (i, enough(s)) {
             let clock = ParameterSet::clock_offset(&timings[*i].obs.station.name, None);
@@ -249,11 +245,37 @@ pub fn halley(
         }
     }
     let outcome = fit(event, timings, &rows, &p, &start);
-    let note = held.map(|along| format!("the planet's offset along its path cannot be told from the station clocks, so the {along} offset is held at the ephemeris's value"));
+    let mut notes: Vec<String> = held.map(|along| format!("the planet's offset along its path cannot be told from the station clocks, so the {along} offset is held at the ephemeris's value")).into_iter().collect();
+    if unknown_held > 0 {
+        notes.push(format!(
+            "{} of unknown longitude {} used at the longitude written (a duration depends on the longitude only through the Earth's turning between the contacts; the full solution's longitude came from absolute times, which Halley's method does not use)",
+            crate::words::count(unknown_held, "station", "stations"),
+            if unknown_held == 1 { "is" } else { "are" }
+        ));
+    }
+    let note = (!notes.is_empty()).then(|| notes.join("; "));
     match parallax_of(timings, &rows, &p, &outcome) {
         Ok(fig) => MethodSolution::from_parallax(Method::Halley, fig, (rows.len(), stations), note),
         Err(why) => MethodSolution::not_determined(Method::Halley, rows.len(), stations, why),
     }
+}
+
+/// Hold the longitude corrections of stations whose longitude is unknown (no prior) at the
+/// written longitude: the durations alone hardly place a station, and a longitude left free
+/// with a free clock beside it makes the iteration wander. Returns how many were held.
+fn hold_unknown_longitudes(params: &mut ParameterSet, theta: &mut [f64]) -> usize {
+    let mut held = 0;
+    for (j, value) in theta.iter_mut().enumerate().take(params.len()) {
+        let Some(spec) = params.spec_mut(j) else {
+            continue;
+        };
+        if spec.kind == ParameterKind::LongitudeCorrection && spec.prior.is_none() && !spec.fixed {
+            spec.fixed = true;
+            *value = spec.start;
+            held += 1;
+        }
+    }
+    held
 }
 
 /// Hold the planet's offset component (east or north) nearer the direction of its path on

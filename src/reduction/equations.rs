@@ -84,6 +84,18 @@ pub fn condition_row_with(
     theta: &[f64],
     er: f64,
 ) -> Option<(f64, [f64; N_CLASSIC])> {
+    condition_row_and_longitude(event, geo, contact, theta, er).map(|(h, row, _)| (h, row))
+}
+
+/// As [`condition_row_with`], with the partial derivative of the contact time with respect
+/// to the station's east longitude too (seconds per degree).
+fn condition_row_and_longitude(
+    event: &TransitEvent,
+    geo: &GeocentricStation,
+    contact: Contact,
+    theta: &[f64],
+    er: f64,
+) -> Option<(f64, [f64; N_CLASSIC], f64)> {
     let p = perturbation(theta, er);
     let h = event.contact_hours_perturbed(geo, contact, &p)?;
     let d = contact_partials(&event.elements, Some(geo), contact, h, &p);
@@ -100,12 +112,40 @@ pub fn condition_row_with(
             if ext { d.per_dl_h * er * 3600.0 } else { 0.0 },
             if ext { 0.0 } else { d.per_dl_h * er * 3600.0 },
         ],
+        d.per_longitude_h * 3600.0 * std::f64::consts::PI / 180.0,
     ))
 }
 
+/// A timing's station as the parameters place it (moved by its longitude correction, where
+/// it has one), and the time that the correction adds to the computed contact (hours: a clock
+/// read in local solar time at a longitude further east gives an earlier UT1) plus the
+/// station clock's offset.
+fn placed(t: &Timing, params: &ParameterSet, theta: &[f64]) -> (Option<GeocentricStation>, f64) {
+    let mut moved = None;
+    let mut shift_h = 0.0;
+    for &j in params.station_parameters(t.station) {
+        match params.specs()[j].kind {
+            ParameterKind::ClockOffset => shift_h += theta[j] / 3600.0,
+            ParameterKind::LongitudeCorrection => {
+                moved = Some(moved_station(t, theta[j]));
+                if t.obs.local.is_some() {
+                    shift_h += theta[j] * LOCAL_S_PER_DEG / 3600.0;
+                }
+            }
+            ParameterKind::Classic(_) => {}
+        }
+    }
+    (moved, shift_h)
+}
+
+/// Seconds of local solar time per degree of longitude.
+const LOCAL_S_PER_DEG: f64 = 240.0;
+
 /// Linearise one timing's condition equation at parameter values `theta` (every parameter of
 /// `params`, the classic ones first). A station clock's offset c adds c to the computed time
-/// (partial 1 s per s).
+/// (partial 1 s per s); a longitude correction moves the station (its partial from the
+/// contact condition, [`contact_partials`]) and, for a reading in local solar time, the
+/// conversion to UT1 (240 s per degree).
 pub fn linearise(
     event: &TransitEvent,
     t: &Timing,
@@ -114,32 +154,24 @@ pub fn linearise(
     er: f64,
 ) -> Option<Linearised> {
     let own = params.station_parameters(t.station);
-    let longitude = own
-        .iter()
-        .find(|&&j| params.specs()[j].kind == ParameterKind::LongitudeCorrection)
-        .map(|&j| theta[j]);
-    let moved = longitude.map(|d| moved_station(t, d));
+    let (moved, shift_h) = placed(t, params, theta);
     let geo = moved.as_ref().unwrap_or(&t.geo);
-    let (mut computed_h, global) = condition_row_with(event, geo, t.obs.contact, theta, er)?;
-    // A clock read in local solar time at a longitude further east gives an earlier UT1.
-    let local_s_per_deg = if t.obs.local.is_some() { 240.0 } else { 0.0 };
-    let mut local = Vec::with_capacity(own.len());
-    for &j in own {
-        match params.specs()[j].kind {
-            ParameterKind::ClockOffset => {
-                computed_h += theta[j] / 3600.0;
-                local.push(1.0);
-            }
-            ParameterKind::LongitudeCorrection => {
-                computed_h += theta[j] * local_s_per_deg / 3600.0;
-                let rate = longitude_rate_s_per_deg(event, t, (theta, theta[j]), er)?;
-                local.push(rate + local_s_per_deg);
-            }
-            ParameterKind::Classic(_) => local.push(0.0),
-        }
-    }
+    let (h, global, per_deg) = condition_row_and_longitude(event, geo, t.obs.contact, theta, er)?;
+    let local_s_per_deg = if t.obs.local.is_some() {
+        LOCAL_S_PER_DEG
+    } else {
+        0.0
+    };
+    let local = own
+        .iter()
+        .map(|&j| match params.specs()[j].kind {
+            ParameterKind::ClockOffset => 1.0,
+            ParameterKind::LongitudeCorrection => per_deg + local_s_per_deg,
+            ParameterKind::Classic(_) => 0.0,
+        })
+        .collect();
     Some(Linearised {
-        computed_h,
+        computed_h: h + shift_h,
         global,
         local,
     })
@@ -152,22 +184,20 @@ fn moved_station(t: &Timing, correction_deg: f64) -> GeocentricStation {
     st.geocentric()
 }
 
-/// The change of the computed contact time per degree of longitude (seconds), by a central
-/// difference of 0.01 degree about the current correction (the contact time is smooth in the
-/// station's position; the step's truncation error is far below a millisecond per degree).
-fn longitude_rate_s_per_deg(
+/// The computed contact time of one timing, hours from the elements' epoch, at parameter
+/// values `theta` (no partial derivatives: for residuals), or `None` when the station sees
+/// no such contact.
+pub fn computed_hours(
     event: &TransitEvent,
     t: &Timing,
-    (theta, correction_deg): (&[f64], f64),
+    params: &ParameterSet,
+    theta: &[f64],
     er: f64,
 ) -> Option<f64> {
-    const STEP_DEG: f64 = 0.01;
-    let p = perturbation(theta, er);
-    let at = |d: f64| event.contact_hours_perturbed(&moved_station(t, d), t.obs.contact, &p);
-    Some(
-        (at(correction_deg + STEP_DEG)? - at(correction_deg - STEP_DEG)?) * 3600.0
-            / (2.0 * STEP_DEG),
-    )
+    let (moved, shift_h) = placed(t, params, theta);
+    let geo = moved.as_ref().unwrap_or(&t.geo);
+    let h = event.contact_hours_perturbed(geo, t.obs.contact, &perturbation(theta, er))?;
+    Some(h + shift_h)
 }
 
 /// O - C of one timing in seconds at parameter values `theta`, or `None` when the station
@@ -179,10 +209,58 @@ pub fn residual_s(
     theta: &[f64],
     er: f64,
 ) -> Option<f64> {
-    linearise(event, t, params, theta, er).map(|l| (t.observed_h - l.computed_h) * 3600.0)
+    computed_hours(event, t, params, theta, er).map(|h| (t.observed_h - h) * 3600.0)
 }
 
 /// The nominal parameter values (IAU parallax, no corrections).
 pub fn nominal_theta() -> [f64; N_CLASSIC] {
     [nominal_parallax_arcsec(), 0.0, 0.0, 0.0, 0.0]
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::geometry::station::Station;
+    use crate::planning::simulation::global_stations;
+    use crate::{transit_on_date, Planet, TimeModel};
+
+    /// The analytic longitude partial against a central difference of 0.01 degree of the
+    /// solved contact (common practice for checking an analytic derivative, no source).
+    #[test]
+    fn longitude_partial_matches_central_differences() {
+        let date = chrono::NaiveDate::from_ymd_opt(1769, 6, 3).unwrap();
+        let event = transit_on_date(Planet::Venus, date, &TimeModel::default()).unwrap();
+        let er = event.earth_radii_per_arcsec();
+        let theta = nominal_theta();
+        let p = perturbation(&theta, er);
+        let mut checked = 0;
+        for st in global_stations(60, "d") {
+            for c in Contact::ALL {
+                let geo = st.geocentric();
+                let Some((_, _, per_deg)) =
+                    condition_row_and_longitude(&event, &geo, c, &theta, er)
+                else {
+                    continue;
+                };
+                let at = |d: f64| {
+                    let moved = Station {
+                        longitude_deg: st.longitude_deg + d,
+                        ..st.clone()
+                    };
+                    event.contact_hours_perturbed(&moved.geocentric(), c, &p)
+                };
+                let (Some(a), Some(b)) = (at(0.01), at(-0.01)) else {
+                    continue;
+                };
+                let numeric = (a - b) * 3600.0 / 0.02;
+                assert!(
+                    (numeric - per_deg).abs() < 1e-3 * (1.0 + per_deg.abs()),
+                    "{} {c:?}: {per_deg} s/deg analytic, {numeric} numeric",
+                    st.name
+                );
+                checked += 1;
+            }
+        }
+        assert!(checked > 100, "{checked}");
+    }
 }

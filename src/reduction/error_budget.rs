@@ -2,27 +2,31 @@
 //! station longitudes) and the model terms it leaves out (Delta T, the planet's place where
 //! it is held), each as its effect on the parallax in arcseconds.
 //!
-//! The Delta T term is the parallax's change per second of Delta T, found by solving again
-//! with the event computed for Delta T + 10 s (the response is linear over far more than
-//! that), times the uncertainty of Delta T. A Delta T error turns the Earth under the
+//! The Delta T term is the parallax's change per second of Delta T, times the uncertainty of
+//! Delta T. The change is the linear response of the solution to the change of every O - C
+//! when the event and the timings are computed for Delta T + 10 s (the response is linear
+//! over far more than that): one more evaluation of the contacts and one solve of the
+//! normal equations already formed. A Delta T error turns the Earth under the
 //! planet's path (times labelled UTC) or moves every timing along the path (times labelled
 //! UT1, before 1972); both look much like a shift of the planet along its path, so where the
 //! planet's offsets are free they absorb most of it. The same rate with the offsets held at
 //! their fitted values measures how much.
 //!
 //! The timing and longitude terms split the stated variance: the timing term is the
-//! parallax's uncertainty with every longitude correction held at its fitted value, the
-//! longitude term what the corrections' freedom adds in quadrature.
+//! parallax's uncertainty with every longitude correction held at its fitted value (the same
+//! normal equations, those parameters held), the longitude term what the corrections'
+//! freedom adds in quadrature.
 //!
 //! References: the propagation of a model parameter's error by its partial derivative:
 //! JCGM 100:2008 (GUM), section 5.1; Delta T and its uncertainty: L. V. Morrison and
 //! F. R. Stephenson, J. Hist. Astron. 35, 327 (2004).
 
-use super::equations::Timing;
-use super::fit::fit;
+use super::equations::{residual_s, Timing};
+use super::fit::LinearisedCampaign;
 use super::parameters::{ParameterKind, ParameterSet, OFFSET_EAST, OFFSET_NORTH, PARALLAX};
 use crate::geometry::transit::TransitEvent;
 use crate::time::scales::{DeltaTSource, TimeModel};
+use nalgebra::DVector;
 use serde::Serialize;
 
 /// The step in Delta T for the rate, seconds.
@@ -72,23 +76,14 @@ pub struct Solved<'a> {
     pub params: &'a ParameterSet,
     /// The solution's values.
     pub theta: &'a [f64],
+    /// Which parameters the solution fitted.
+    pub free: &'a [bool],
     /// The stated (Birge-scaled) uncertainty of the parallax, arcsec.
     pub parallax_sigma_arcsec: f64,
     /// The factor the uncertainties were scaled by.
     pub sigma_scale: f64,
     /// The parallax's shift for the place's accuracy (east, north), where it was held.
     pub place_shift_arcsec: Option<[f64; 2]>,
-}
-
-/// The parallax found by fitting again from the solution's values, or `None`.
-fn refit_parallax(
-    event: &TransitEvent,
-    timings: &[Timing],
-    s: &Solved,
-    params: &ParameterSet,
-) -> Option<f64> {
-    let out = fit(event, timings, s.used, params, s.theta);
-    (out.converged && out.free[PARALLAX]).then(|| out.theta[PARALLAX])
 }
 
 /// The event and its timings recomputed for Delta T changed by `step_s`.
@@ -110,47 +105,65 @@ fn with_delta_t(s: &Solved, step_s: f64) -> Option<(TransitEvent, Vec<Timing>)> 
     Some((event, timings))
 }
 
+/// The timings' O - C (seconds, in the order of `used`) when the event and the timings are
+/// recomputed for Delta T + [`DELTA_T_STEP_S`], at the solution's values. One Gauss-Newton
+/// step from the solution with these residuals is the solution's linear response: at the
+/// solution the normal equations' right-hand side with the original residuals (and the
+/// priors) is zero, so what is left is that of the change alone.
+fn residuals_moved(s: &Solved) -> Option<DVector<f64>> {
+    let (event, timings) = with_delta_t(s, DELTA_T_STEP_S)?;
+    let er = event.earth_radii_per_arcsec();
+    let moved: Option<Vec<f64>> = s
+        .used
+        .iter()
+        .map(|&i| residual_s(&event, &timings[i], s.params, s.theta, er))
+        .collect();
+    Some(DVector::from_vec(moved?))
+}
+
+/// The parallax's change per second of Delta T, as the linear response of the solution with
+/// these parameters free (held ones stay at their solved values, where the rest's normal
+/// equations are balanced too).
+fn rate(s: &Solved, lin: &LinearisedCampaign, free: &[bool], change: &DVector<f64>) -> Option<f64> {
+    let sol = lin.solve(s.params, (free, s.theta), Some(change))?;
+    Some(sol.correction[PARALLAX] / DELTA_T_STEP_S)
+}
+
+/// The free flags with every parameter that `drop` picks held.
+fn holding(s: &Solved, drop: impl Fn(ParameterKind) -> bool) -> Vec<bool> {
+    s.free
+        .iter()
+        .zip(s.params.specs())
+        .map(|(&f, spec)| f && !drop(spec.kind))
+        .collect()
+}
+
 /// The parallax's rates per second of Delta T: as solved, and with the planet's offsets
 /// held where they were free.
-fn delta_t_rates(s: &Solved) -> (Option<f64>, Option<f64>) {
-    let Some((event, timings)) = with_delta_t(s, DELTA_T_STEP_S) else {
+fn delta_t_rates(s: &Solved, lin: &LinearisedCampaign) -> (Option<f64>, Option<f64>) {
+    let Some(change) = residuals_moved(s) else {
         return (None, None);
     };
-    let base = s.theta[PARALLAX];
-    let rate = |p: Option<f64>| p.map(|p| (p - base) / DELTA_T_STEP_S);
-    let as_solved = rate(refit_parallax(&event, &timings, s, s.params));
-    let offsets_free = [OFFSET_EAST, OFFSET_NORTH].iter().any(|&j| {
-        let spec = &s.params.specs()[j];
-        !spec.fixed
-    });
-    let held = offsets_free.then(|| {
-        let mut p = s.params.clone();
-        for j in [OFFSET_EAST, OFFSET_NORTH] {
-            if let Some(spec) = p.spec_mut(j) {
-                spec.fixed = true;
-            }
-        }
-        rate(refit_parallax(&event, &timings, s, &p))
-    });
-    (as_solved, held.flatten())
+    let offset = |k: ParameterKind| {
+        k == ParameterKind::Classic(OFFSET_EAST) || k == ParameterKind::Classic(OFFSET_NORTH)
+    };
+    let as_solved = rate(s, lin, s.free, &change);
+    let offsets_free = s.free[OFFSET_EAST] || s.free[OFFSET_NORTH];
+    let held = offsets_free
+        .then(|| rate(s, lin, &holding(s, offset), &change))
+        .flatten();
+    (as_solved, held)
 }
 
 /// The parallax's unscaled uncertainty with every longitude correction held at its fitted
-/// value, or `None` where there are none (or the fit fails).
-fn sigma_longitudes_held(s: &Solved) -> Option<f64> {
+/// value, or `None` where there are none (or the system cannot be solved).
+fn sigma_longitudes_held(s: &Solved, lin: &LinearisedCampaign) -> Option<f64> {
     if !s.params.has_longitude_corrections() {
         return None;
     }
-    let mut p = s.params.clone();
-    for j in 0..p.len() {
-        if let Some(spec) = p.spec_mut(j) {
-            if spec.kind == ParameterKind::LongitudeCorrection {
-                spec.fixed = true;
-            }
-        }
-    }
-    let out = fit(s.event, s.timings, s.used, &p, s.theta);
-    let v = out.covariance[(PARALLAX, PARALLAX)];
+    let free = holding(s, |k| k == ParameterKind::LongitudeCorrection);
+    let sol = lin.solve(s.params, (&free, s.theta), None)?;
+    let v = sol.covariance_global[(PARALLAX, PARALLAX)];
     (v.is_finite() && v > 0.0).then(|| v.sqrt())
 }
 
@@ -160,16 +173,20 @@ pub fn error_budget(s: &Solved) -> ErrorBudget {
     let (delta_t_s, source) = model.delta_t_s(s.event.greatest);
     let fixed = source == DeltaTSource::Fixed;
     let delta_t_sigma_s = (!fixed).then(|| s.event.delta_t_sigma_s());
-    let (rate, rate_held) = delta_t_rates(s);
+    let lin = LinearisedCampaign::at(s.event, (s.timings, s.used), s.params, s.theta);
+    let (rate, rate_held) = lin
+        .as_ref()
+        .map_or((None, None), |lin| delta_t_rates(s, lin));
     let delta_t_arcsec = rate.zip(delta_t_sigma_s).map(|(r, sigma)| r.abs() * sigma);
     let stated = s.parallax_sigma_arcsec;
-    let (timings_arcsec, longitudes_arcsec) = match sigma_longitudes_held(s) {
-        Some(held) => {
-            let t = (held * s.sigma_scale).min(stated);
-            (t, Some((stated * stated - t * t).max(0.0).sqrt()))
-        }
-        None => (stated, None),
-    };
+    let (timings_arcsec, longitudes_arcsec) =
+        match lin.as_ref().and_then(|l| sigma_longitudes_held(s, l)) {
+            Some(held) => {
+                let t = (held * s.sigma_scale).min(stated);
+                (t, Some((stated * stated - t * t).max(0.0).sqrt()))
+            }
+            None => (stated, None),
+        };
     let planet_place_arcsec = s.place_shift_arcsec.map(|[e, n]| e.hypot(n));
     let model_sq =
         delta_t_arcsec.unwrap_or(0.0).powi(2) + planet_place_arcsec.unwrap_or(0.0).powi(2);

@@ -23,6 +23,47 @@ use super::parameters::{ParameterKind, ParameterSet, PARALLAX, RADIUS_DIFFERENCE
 use crate::geometry::transit::TransitEvent;
 use nalgebra::{DMatrix, DVector};
 
+/// A campaign's condition equations linearised once at given values, to be solved for
+/// several choices of free parameters or right-hand sides (the error budget's linear
+/// responses: J. Nocedal and S. J. Wright, *Numerical Optimization*, 2nd ed., 2006, section
+/// 10.3, on the Gauss-Newton step as the least-squares solution of the linearised system).
+pub struct LinearisedCampaign {
+    lin: Linearisation,
+}
+
+impl LinearisedCampaign {
+    /// Linearise the timings `used` at `theta`; `None` when a timing's contact does not occur
+    /// there.
+    pub fn at(
+        event: &TransitEvent,
+        (timings, used): (&[Timing], &[usize]),
+        params: &ParameterSet,
+        theta: &[f64],
+    ) -> Option<Self> {
+        let lin = linearise_all(event, timings, used, params, theta);
+        lin.unsolvable
+            .is_empty()
+            .then_some(LinearisedCampaign { lin })
+    }
+
+    /// Solve the linearised system over the `free` parameters with these residuals (the
+    /// timings' own when `None`); `None` when the free parameters are not determined.
+    pub fn solve(
+        &self,
+        params: &ParameterSet,
+        (free, theta): (&[bool], &[f64]),
+        residuals_s: Option<&DVector<f64>>,
+    ) -> Option<BlockSolution> {
+        let sys = LinearSystem {
+            global: &self.lin.global,
+            local: &self.lin.local,
+            residuals: residuals_s.unwrap_or(&self.lin.residuals),
+            weights: &self.lin.weights,
+        };
+        solve(&sys, params, free, theta)
+    }
+}
+
 /// Largest number of Gauss-Newton steps.
 pub const MAX_ITERATIONS: usize = 40;
 

@@ -445,6 +445,7 @@ fn side_by_side(red: &mut Reduction, c: &Campaign, s: &Screened, sigma_scale: f6
             used,
             params: c.params,
             theta: &outcome.theta,
+            free: &outcome.free,
             parallax_sigma_arcsec: sigma,
             sigma_scale,
             place_shift_arcsec: red.place_bias_arcsec,

@@ -178,6 +178,15 @@ pub fn name_cell(name: &str) -> String {
     out
 }
 
+/// The text with its first letter in upper case (for sentences that start a paragraph).
+pub fn capitalise(s: &str) -> String {
+    let mut c = s.chars();
+    match c.next() {
+        Some(f) => f.to_uppercase().collect::<String>() + c.as_str(),
+        None => String::new(),
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -228,14 +237,5 @@ mod tests {
         assert_eq!(decimals_for(0.0123), 4);
         assert_eq!(decimals_for(250.0), 0);
         assert_eq!(decimals_for(f64::NAN), 2);
-    }
-}
-
-/// The text with its first letter in upper case (for sentences that start a paragraph).
-pub fn capitalise(s: &str) -> String {
-    let mut c = s.chars();
-    match c.next() {
-        Some(f) => f.to_uppercase().collect::<String>() + c.as_str(),
-        None => String::new(),
     }
 }
