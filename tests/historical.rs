@@ -176,3 +176,46 @@ fn the_expeditions_longitudes_and_delta_t_absorption() {
         }
     }
 }
+
+/// A longitude uncertainty that is negative, not a number or over 180 degrees is an invalid
+/// row with a sentence; with --strict the first is an error naming file, line and column.
+#[test]
+fn bad_longitude_uncertainties_are_invalid_rows() {
+    let text = "station,latitude,longitude,elevation_m,contact,time_utc,longitude_sigma_deg\n\
+                a,64.84,-147.72,140,1,2012-06-05T22:05:52.3Z,-1\n\
+                b,21.31,-157.86,10,1,2012-06-05T22:07:52.3Z,NaN\n\
+                c,22.28,114.16,40,2,2012-06-05T22:46:01.2Z,181\n\
+                d,22.28,114.16,40,2,2012-06-05T22:46:01.2Z,a quarter\n\
+                e,35.0,135.0,40,2,2012-06-05T22:46:01.2Z,0.25\n";
+    let path = temp("bad_sigma_lon.csv", text.as_bytes());
+    let o = run(&[
+        "reduce",
+        &path,
+        "--planet",
+        "venus",
+        "--date",
+        "2012-06-06",
+        "--format",
+        "json",
+    ]);
+    assert!(o.status.success(), "{}", err(&o));
+    let v: serde_json::Value = serde_json::from_str(&out(&o)).unwrap();
+    let rejected = v["rejected"].as_array().unwrap();
+    for line in 2..=5u64 {
+        let r = rejected
+            .iter()
+            .find(|r| r["line"] == line)
+            .unwrap_or_else(|| panic!("line {line} not listed"));
+        assert_eq!(r["reason"], "invalid", "{r}");
+        assert!(
+            r["diagnosis"]
+                .as_str()
+                .unwrap()
+                .contains("positive number of degrees up to 180"),
+            "{r}"
+        );
+    }
+    let o = run(&["reduce", &path, "--strict"]);
+    assert_eq!(o.status.code(), Some(2));
+    assert!(err(&o).contains("bad_sigma_lon.csv:2:7"), "{}", err(&o));
+}

@@ -40,6 +40,7 @@ from skyfield.api import load, wgs84
 from skyfield.jpllib import SpiceKernel
 
 from generate_contacts import HERE, S_PER_DAY, ContactSolver, iso, write_spk
+from generate_local_time import local_apparent_reading
 
 NAME = "venus-1769-historical"
 JD_GUESS = 2367328.43
@@ -61,19 +62,9 @@ def local_reading(eph, ts, t_days, lon_deg, kind):
     """The local solar-time reading (civil day) at TT JD_GUESS + t_days, as a Julian-date-like
     number on the same scale as `iso` expects."""
     ut1_label = JD_GUESS + t_days - DELTA_T_S / S_PER_DAY
-    mean_label = ut1_label + lon_deg / 360.0
     if kind == "mean":
-        return mean_label
-    t = ts.tt_jd(JD_GUESS, t_days)
-    ra, _, _ = eph[399].at(t).observe(eph["sun"]).apparent().radec(epoch="date")
-    lat_h = (12.0 + t.gast + lon_deg / 15.0 - ra.hours) % 24.0
-    day = np.floor(mean_label - 0.5) + 0.5
-    reading = day + lat_h / 24.0
-    if reading - mean_label > 0.5:
-        reading -= 1.0
-    elif mean_label - reading > 0.5:
-        reading += 1.0
-    return reading
+        return ut1_label + lon_deg / 360.0
+    return local_apparent_reading(eph, ts.tt_jd(JD_GUESS, t_days), ut1_label, lon_deg)
 
 
 def main():

@@ -32,6 +32,23 @@ LONGITUDES = [-149.57, -94.17, -0.01, 25.97, 113.26, 166.67]
 OFFSETS_H = [-6.0, -2.5, 0.0, 3.25, 7.0]
 
 
+def local_apparent_reading(eph, t, ut1_label, lon):
+    """The local apparent reading (civil day, a Julian-date-like number on the label scale
+    that `iso` formats) at TT `t`, whose UT1 label is `ut1_label`, at east longitude `lon`:
+    the UT1 date shifted by the longitude, its time of day replaced by 12 h + the local hour
+    angle of the Sun's apparent place (the nearest such instant)."""
+    ra, _, _ = eph[399].at(t).observe(eph["sun"]).apparent().radec(epoch="date")
+    lat_h = (12.0 + t.gast + lon / 15.0 - ra.hours) % 24.0
+    mean_label = ut1_label + lon / 360.0
+    day = np.floor(mean_label - 0.5) + 0.5
+    reading = day + lat_h / 24.0
+    if reading - mean_label > 0.5:
+        reading -= 1.0
+    elif mean_label - reading > 0.5:
+        reading += 1.0
+    return reading
+
+
 def main():
     rows = []
     for label, module, jd, delta_t in EVENTS:
@@ -41,19 +58,9 @@ def main():
         ts = load.timescale(delta_t=delta_t)
         for h in OFFSETS_H:
             t = ts.tt_jd(jd, h / 24.0)
-            ra, _, _ = eph[399].at(t).observe(eph["sun"]).apparent().radec(epoch="date")
             ut1_label = jd + h / 24.0 - delta_t / S_PER_DAY
             for lon in LONGITUDES:
-                lat_h = (12.0 + t.gast + lon / 15.0 - ra.hours) % 24.0
-                # The local apparent reading: the UT1 date shifted by the longitude, its time of
-                # day replaced by the apparent solar time (the nearest such instant).
-                mean_label = ut1_label + lon / 360.0
-                day = np.floor(mean_label - 0.5) + 0.5
-                reading = day + lat_h / 24.0
-                if reading - mean_label > 0.5:
-                    reading -= 1.0
-                elif mean_label - reading > 0.5:
-                    reading += 1.0
+                reading = local_apparent_reading(eph, t, ut1_label, lon)
                 rows.append([label, delta_t, lon, iso(ut1_label), iso(reading)[:-1]])
     with open(os.path.join(HERE, "local_apparent_skyfield.csv"), "w", newline="") as f:
         w = csv.writer(f, lineterminator="\n")
