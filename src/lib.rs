@@ -37,6 +37,7 @@ pub mod observations;
 pub mod planning;
 pub mod reduction;
 pub mod render;
+pub mod scale;
 pub mod sky;
 pub mod time;
 pub mod words;
