@@ -288,7 +288,10 @@ fn report_charts_are_laid_out_cleanly_in_a_browser() {
     let dir = temp_dir("layout");
     for (name, html) in reports(&dir) {
         let f = measure(&browser, &dir, &name, &html);
-        assert_eq!(f.svgs, 4, "{name}: the four charts");
+        assert_eq!(
+            f.svgs, 5,
+            "{name}: the five charts (the light curve the fifth)"
+        );
         assert!(
             f.texts > 20 && f.shapes > 20,
             "{name}: {} texts, {} shapes",

@@ -1,10 +1,7 @@
 //! How much the transit dims the Sun: the tool's limb-darkened overlap against an independent
 //! two-dimensional integration (numpy), the depth of the transit of Venus of 2004 against the
-//! dimming that space radiometers measured, and `--light-curve` files.
+//! dimming that space radiometers measured (the `--light-curve` files: tests/what_else.rs).
 
-mod common;
-
-use common::{err, out, run, temp};
 use transit_parallax::scale::light_curve::{blocked_fraction, depth_at_greatest};
 use transit_parallax::time::iso::parse_date;
 use transit_parallax::time::scales::TimeModel;

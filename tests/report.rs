@@ -60,8 +60,8 @@ fn demo_report_is_well_formed_and_complete() {
     let names = well_formed(&html);
     assert_eq!(
         names.iter().filter(|n| *n == "svg").count(),
-        4,
-        "four charts"
+        5,
+        "five charts (the fifth the light curve)"
     );
     assert!(!names
         .iter()
@@ -154,13 +154,14 @@ fn markdown_report_writes_its_charts_beside_it() {
     let red = demo();
     let dir = temp_dir("md");
     let written = write_report(&red, &dir.join("campaign.md")).unwrap();
-    assert_eq!(written.len(), 5);
+    assert_eq!(written.len(), 6);
     let md = std::fs::read_to_string(dir.join("campaign.md")).unwrap();
     for name in [
         "campaign-disc.svg",
         "campaign-map.svg",
         "campaign-residuals.svg",
         "campaign-convergence.svg",
+        "campaign-light-curve.svg",
     ] {
         assert!(md.contains(name));
         let svg = std::fs::read_to_string(dir.join(name)).unwrap();

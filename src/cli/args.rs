@@ -159,6 +159,10 @@ pub struct TransitsArgs {
     pub format: FormatArg,
     #[command(flatten)]
     pub time: TimeArgs,
+    /// Write the Sun's brightness seen from the Earth's centre through each transit: .csv
+    /// (time_utc,relative_flux; every transit of the years) or .svg (the chart; one transit).
+    #[arg(long = "light-curve", value_name = "FILE.csv|FILE.svg")]
+    pub light_curve: Option<PathBuf>,
 }
 
 // Arguments of `predict`.
@@ -173,6 +177,10 @@ pub struct PredictArgs {
     /// apparent (sundial time) or mean (column time_local, civil day reckoning).
     #[arg(long = "local-time", value_enum, value_name = "apparent|mean")]
     pub local_time: Option<LocalTimeArg>,
+    /// Write the Sun's brightness seen from the Earth's centre through the transit: .csv
+    /// (time_utc,relative_flux) or .svg (the chart, contacts marked).
+    #[arg(long = "light-curve", value_name = "FILE.csv|FILE.svg")]
+    pub light_curve: Option<PathBuf>,
     /// Output format.
     #[arg(long, value_enum, default_value = "table")]
     pub format: FormatArg,

@@ -59,6 +59,9 @@ fn transits(a: TransitsArgs) -> Result<String, Error> {
     let planet = planet_of(&a.planet)?;
     let model = a.time.model()?;
     let events = transit_parallax::transits_in_years(planet, a.from, a.to, &model)?;
+    if let Some(path) = &a.light_curve {
+        write_light_curve(path, &events.iter().collect::<Vec<_>>())?;
+    }
     Ok(match a.format.format() {
         Format::Table => prediction::transits_table(&events),
         Format::Csv => prediction::transits_csv(&events),
@@ -71,6 +74,9 @@ fn predict(a: PredictArgs) -> Result<String, Error> {
     let event = a.event.transit()?;
     let predictions: Vec<_> = stations.iter().map(|s| event.predict(s)).collect();
     let local = a.local_time.map(|k| k.kind());
+    if let Some(path) = &a.light_curve {
+        write_light_curve(path, &[&event])?;
+    }
     Ok(match a.format.format() {
         Format::Table => prediction::predictions_table(&event, &predictions, local),
         Format::Csv => prediction::predictions_csv(&event, &predictions, local),
@@ -302,6 +308,39 @@ fn check_range(name: &str, value: f64, min: f64, max: f64) -> Result<(), Error> 
         )));
     }
     Ok(())
+}
+
+/// The light curves of these events, every 30 s from 15 minutes before contact I to 15
+/// minutes after IV: all of them as CSV, or one as an SVG chart.
+fn write_light_curve(path: &Path, events: &[&transit_parallax::TransitEvent]) -> Result<(), Error> {
+    use transit_parallax::render::light_curve_chart::{light_curve_csv, light_curve_svg};
+    use transit_parallax::scale::light_curve::light_curve;
+    let ext = path
+        .extension()
+        .and_then(|e| e.to_str())
+        .map(str::to_ascii_lowercase);
+    let mut curves = Vec::new();
+    for e in events {
+        curves.push((*e, light_curve(e, 30.0, 900.0)?));
+    }
+    let text = match (ext.as_deref(), curves.as_slice()) {
+        (Some("csv"), _) => light_curve_csv(&curves),
+        (Some("svg"), [(event, points)]) => light_curve_svg(event, points),
+        (Some("svg"), _) => {
+            return Err(Error::argument(format!(
+                "--light-curve {}: a chart shows one transit and these years hold {}; give years with one transit, or a .csv file for all of them",
+                path.display(),
+                curves.len()
+            )))
+        }
+        _ => {
+            return Err(Error::argument(format!(
+                "--light-curve {}: give a file name ending in .csv (time_utc,relative_flux) or .svg (the chart)",
+                path.display()
+            )))
+        }
+    };
+    write_file(path, &text)
 }
 
 fn write_file(path: &Path, text: &str) -> Result<(), Error> {

@@ -24,6 +24,7 @@
 use super::equations::{residual_s, Timing};
 use super::fit::LinearisedCampaign;
 use super::parameters::{ParameterKind, ParameterSet, OFFSET_EAST, OFFSET_NORTH, PARALLAX};
+use crate::geometry::contacts::Contact;
 use crate::geometry::transit::TransitEvent;
 use crate::time::scales::{DeltaTSource, TimeModel};
 use nalgebra::DVector;
@@ -62,6 +63,10 @@ pub struct ErrorBudget {
     pub stated_arcsec: f64,
     /// The stated uncertainty with the model terms added in quadrature.
     pub with_model_terms_arcsec: f64,
+    /// The change of every global parameter (in its unit) per second of black drop (contact
+    /// II seen one second late and III one second early at every station), by the same linear
+    /// response; `None` when it could not be computed.
+    pub per_black_drop_s: Option<Vec<f64>>,
 }
 
 /// What the budget needs of the solution.
@@ -167,6 +172,37 @@ fn sigma_longitudes_held(s: &Solved, lin: &LinearisedCampaign) -> Option<f64> {
     (v.is_finite() && v > 0.0).then(|| v.sqrt())
 }
 
+/// The global parameters' change per second of black drop: contact II seen one second late
+/// and III one second early at every station (O - C of II up by one second, of III down).
+fn black_drop_response(s: &Solved, lin: &LinearisedCampaign) -> Option<Vec<f64>> {
+    let er = s.event.earth_radii_per_arcsec();
+    let moved: Option<Vec<f64>> = s
+        .used
+        .iter()
+        .map(|&i| {
+            let t = &s.timings[i];
+            let drop = match t.obs.contact {
+                Contact::II => 1.0,
+                Contact::III => -1.0,
+                _ => 0.0,
+            };
+            residual_s(s.event, t, s.params, s.theta, er).map(|r| r + drop)
+        })
+        .collect();
+    let sol = lin.solve(
+        s.params,
+        (s.free, s.theta),
+        Some(&DVector::from_vec(moved?)),
+    )?;
+    Some(
+        sol.correction
+            .iter()
+            .take(s.params.n_global())
+            .copied()
+            .collect(),
+    )
+}
+
 /// The error budget of a determined parallax.
 pub fn error_budget(s: &Solved) -> ErrorBudget {
     let model = s.event.time_model();
@@ -188,6 +224,7 @@ pub fn error_budget(s: &Solved) -> ErrorBudget {
             None => (stated, None),
         };
     let planet_place_arcsec = s.place_shift_arcsec.map(|[e, n]| e.hypot(n));
+    let per_black_drop_s = lin.as_ref().and_then(|l| black_drop_response(s, l));
     let model_sq =
         delta_t_arcsec.unwrap_or(0.0).powi(2) + planet_place_arcsec.unwrap_or(0.0).powi(2);
     ErrorBudget {
@@ -202,6 +239,7 @@ pub fn error_budget(s: &Solved) -> ErrorBudget {
         planet_place_arcsec,
         stated_arcsec: stated,
         with_model_terms_arcsec: (stated * stated + model_sq).sqrt(),
+        per_black_drop_s,
     }
 }
 

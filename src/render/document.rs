@@ -15,6 +15,10 @@ use crate::render::reduction::correlation_notes;
 use crate::render::svg::esc;
 use crate::render::text::capitalise;
 use crate::render::text::{au_text, SAFETY_CAUTION};
+use crate::render::what_else::{
+    distant_sentences, scale_intro, scale_rows, size_rows, size_sentences, SCALE_HEADERS,
+    SIZE_HEADERS,
+};
 use std::fmt::Write;
 use std::path::{Path, PathBuf};
 
@@ -292,6 +296,17 @@ fn title(red: &Reduction) -> String {
     )
 }
 
+/// The plus-minus sign the page uses, for text written for the terminal.
+fn plus_minus(text: &str) -> String {
+    text.replace(" +- ", " ± ")
+}
+
+fn plus_minus_rows(rows: Vec<Vec<String>>) -> Vec<Vec<String>> {
+    rows.into_iter()
+        .map(|r| r.iter().map(|c| plus_minus(c)).collect())
+        .collect()
+}
+
 const METHODS_TITLE: &str = "The classic methods beside the full solution";
 const BUDGET_TITLE: &str = "Error budget of the parallax";
 
@@ -299,17 +314,95 @@ const BUDGET_TITLE: &str = "Error budget of the parallax";
 fn html_methods(red: &Reduction, s: &mut String) {
     if !red.methods.is_empty() {
         let _ = writeln!(s, "<h2>{METHODS_TITLE}</h2>");
-        s.push_str(&html_table(&METHOD_HEADERS, &methods_rows(red)));
+        s.push_str(&html_table(
+            &METHOD_HEADERS,
+            &plus_minus_rows(methods_rows(red)),
+        ));
         for line in methods_sentences(red) {
-            let _ = writeln!(s, "<p>{}.</p>", esc(&capitalise(&line)));
+            let _ = writeln!(s, "<p>{}.</p>", esc(&plus_minus(&capitalise(&line))));
         }
     }
     if let Some(b) = &red.error_budget {
         let _ = writeln!(s, "<h2>{BUDGET_TITLE}</h2>");
-        s.push_str(&html_table(&BUDGET_HEADERS, &budget_rows(b)));
+        s.push_str(&html_table(
+            &BUDGET_HEADERS,
+            &plus_minus_rows(budget_rows(b)),
+        ));
         for line in b.sentences() {
-            let _ = writeln!(s, "<p>{}.</p>", esc(&capitalise(&line)));
+            let _ = writeln!(s, "<p>{}.</p>", esc(&plus_minus(&capitalise(&line))));
         }
+    }
+}
+
+const WHAT_ELSE_TITLE: &str = "What else the timings measure";
+
+/// The light curve seen from the Earth's centre, for the reports (every minute, from 15
+/// minutes before contact I to 15 after IV), or `None` when it cannot be computed.
+fn report_light_curve(red: &Reduction) -> Option<String> {
+    let points = crate::scale::light_curve::light_curve(&red.event, 60.0, 900.0).ok()?;
+    Some(crate::render::light_curve_chart::light_curve_svg(
+        &red.event, &points,
+    ))
+}
+
+/// The scale of the Solar System, the sizes and the depth, in HTML.
+fn html_what_else(red: &Reduction, s: &mut String) {
+    let w = crate::scale::summary::what_else(red);
+    let _ = writeln!(
+        s,
+        "<h2>{WHAT_ELSE_TITLE}</h2>\n<p>{}</p>",
+        esc(&plus_minus(&scale_intro(red, &w)))
+    );
+    if !w.scale.is_empty() {
+        s.push_str(&html_table(
+            &SCALE_HEADERS,
+            &plus_minus_rows(scale_rows(&w)),
+        ));
+    }
+    for line in size_sentences(red, &w) {
+        let _ = writeln!(s, "<p>{}</p>", esc(&plus_minus(&line)));
+    }
+    if !w.sizes.stations.is_empty() {
+        s.push_str(&html_table(
+            &SIZE_HEADERS,
+            &plus_minus_rows(size_rows(&w, 300)),
+        ));
+    }
+    if let Some(svg) = report_light_curve(red) {
+        let _ = writeln!(s, "<figure>\n{svg}<figcaption>The Sun's brightness seen from the Earth's centre through the transit, contacts I-IV dashed.</figcaption>\n</figure>");
+    }
+    for line in distant_sentences(red, &w) {
+        let _ = writeln!(s, "<p>{}</p>", esc(&plus_minus(&line)));
+    }
+}
+
+/// The scale of the Solar System, the sizes and the depth, in Markdown (the light curve as
+/// its own SVG file, `chart`).
+fn md_what_else(red: &Reduction, s: &mut String, chart: Option<&str>) {
+    let w = crate::scale::summary::what_else(red);
+    let _ = write!(
+        s,
+        "\n## {WHAT_ELSE_TITLE}\n\n{}\n\n",
+        md_cell(&scale_intro(red, &w))
+    );
+    if !w.scale.is_empty() {
+        s.push_str(&md_table(&SCALE_HEADERS, &scale_rows(&w)));
+    }
+    for line in size_sentences(red, &w) {
+        let _ = write!(s, "\n{}\n", md_cell(&line));
+    }
+    if !w.sizes.stations.is_empty() {
+        s.push('\n');
+        s.push_str(&md_table(&SIZE_HEADERS, &size_rows(&w, 300)));
+    }
+    if let Some(file) = chart {
+        let _ = write!(
+            s,
+            "\n![The Sun's brightness seen from the Earth's centre through the transit]({file})\n"
+        );
+    }
+    for line in distant_sentences(red, &w) {
+        let _ = write!(s, "\n{}\n", md_cell(&line));
     }
 }
 
@@ -378,6 +471,7 @@ pub fn html_report(red: &Reduction) -> String {
         let _ = writeln!(s, "<p>{}</p>", esc(&note));
     }
     html_methods(red, &mut s);
+    html_what_else(red, &mut s);
     let (station_note, rows_note) = table_notes(red);
     s.push_str("<h2>Stations, ranked by their share of the information on the parallax</h2>\n");
     if let Some(n) = &station_note {
@@ -408,12 +502,13 @@ pub fn html_report(red: &Reduction) -> String {
 /// chart files (`STEM-disc.svg`, ...), which the text links to.
 pub fn markdown_report(red: &Reduction, stem: &str) -> (String, Vec<(String, String)>) {
     let sum = summary(red);
-    let charts = vec![
+    let mut charts = vec![
         (format!("{stem}-disc.svg"), solar_disc_svg(red)),
         (format!("{stem}-map.svg"), station_map_svg(red)),
         (format!("{stem}-residuals.svg"), residuals_svg(red)),
         (format!("{stem}-convergence.svg"), convergence_svg(red)),
     ];
+    let light = report_light_curve(red).map(|svg| (format!("{stem}-light-curve.svg"), svg));
     let mut s = format!(
         "# {}\n\n> {}\n\n## Result\n\n",
         md_cell(&title(red)),
@@ -455,6 +550,7 @@ pub fn markdown_report(red: &Reduction, stem: &str) -> (String, Vec<(String, Str
         let _ = write!(s, "\n{}\n", md_cell(&note));
     }
     md_methods(red, &mut s);
+    md_what_else(red, &mut s, light.as_ref().map(|(f, _)| f.as_str()));
     let (station_note, rows_note) = table_notes(red);
     s.push_str("\n## Stations, ranked by their share of the information on the parallax\n\n");
     if let Some(n) = &station_note {
@@ -470,6 +566,7 @@ pub fn markdown_report(red: &Reduction, stem: &str) -> (String, Vec<(String, Str
         }
         s.push_str(&md_table(&REJECTED_HEADERS, &rejected_rows(red)));
     }
+    charts.extend(light);
     (s, charts)
 }
 

@@ -16,10 +16,13 @@
 //! - `planning_charts.rs`: the sensitivity map and the histogram of simulated AU estimates.
 //! - `methods.rs`: the classic methods side by side and the error budget, for the table and
 //!   the reports.
+//! - `light_curve_chart.rs`: the light curve of a transit as CSV and SVG.
+//! - `what_else.rs`: the scale of the Solar System, the sizes and the transit's depth.
 //! - `document.rs`: the HTML and Markdown reports.
 pub mod charts;
 pub mod document;
 pub mod labels;
+pub mod light_curve_chart;
 pub mod methods;
 pub mod planning;
 pub mod planning_charts;
@@ -27,3 +30,4 @@ pub mod prediction;
 pub mod reduction;
 pub mod svg;
 pub mod text;
+pub mod what_else;

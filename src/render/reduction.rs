@@ -7,7 +7,8 @@ use crate::render::text::{au_text, csv_field, name_cell, round as r, SAFETY_CAUT
 use crate::words::count;
 use serde_json::{json, Value};
 
-fn opt(x: Option<f64>, decimals: i32) -> Value {
+/// A number rounded for JSON, or null when absent or not finite.
+pub(crate) fn opt(x: Option<f64>, decimals: i32) -> Value {
     match x {
         Some(v) if v.is_finite() => json!(r(v, decimals)),
         _ => Value::Null,
@@ -87,7 +88,7 @@ fn parameters_json(red: &Reduction) -> Vec<Value> {
 /// The JSON object of `reduce --format json` (keys of shared/interface.md, and more).
 pub fn reduction_json(red: &Reduction) -> Value {
     let st = &red.statistics;
-    json!({
+    let mut v = json!({
         "planet": red.event.planet.name(),
         "transit_date": red.event.date().to_string(),
         "greatest_utc": red.event.greatest_utc(),
@@ -123,7 +124,14 @@ pub fn reduction_json(red: &Reduction) -> Value {
         })).collect::<Vec<_>>(),
         "methods": methods_json(red),
         "error_budget": red.error_budget.as_ref().map(budget_json),
-    })
+    });
+    if let Value::Object(map) = &mut v {
+        let w = crate::scale::summary::what_else(red);
+        for (k, x) in crate::render::what_else::what_else_json(&w) {
+            map.insert(k.to_string(), x);
+        }
+    }
+    v
 }
 
 /// The methods side by side: null figures and a note where a method gives none.
@@ -363,6 +371,7 @@ pub fn reduction_table(red: &Reduction) -> String {
     parameters_section(red, &mut s);
     stations_section(red, &mut s);
     crate::render::methods::methods_section(red, &mut s);
+    crate::render::what_else::what_else_section(red, &mut s);
     if !red.rejected.is_empty() {
         s.push_str("\nRows not used\n");
         for x in &red.rejected {

@@ -3,5 +3,7 @@
 //! planet's and the Sun's diameters (`diameters.rs`); and the geometry with the Sun's limb
 //! darkening gives how much of its light the planet blocks (`light_curve.rs`), the way
 //! transits of planets around other stars are read.
+pub mod diameters;
 pub mod kepler;
 pub mod light_curve;
+pub mod summary;

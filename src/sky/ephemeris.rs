@@ -307,6 +307,24 @@ pub fn heliocentric_longitude_difference_rad(planet: Planet, jd_tdb: f64) -> f64
     (d + std::f64::consts::PI).rem_euclid(std::f64::consts::TAU) - std::f64::consts::PI
 }
 
+/// The planet's heliocentric position (au) and velocity (au per day) at an instant, from the
+/// JPL series where a window covers it, else VSOP87A (J2000 ecliptic axes; the orbit's size
+/// and period do not depend on the axes). Velocities by a central difference of 0.01 day.
+pub fn heliocentric_state_au(planet: Planet, tt: Tt, choice: EphemerisChoice) -> (V3, V3) {
+    let at = |t: Tt| -> V3 {
+        match jpl_window(planet, t, choice) {
+            Some(w) => {
+                use crate::sky::jpl_windows::Body;
+                sub(w.position_au(Body::Planet, t), w.position_au(Body::Sun, t))
+            }
+            None => planet.heliocentric_ecliptic_au(t.jd()),
+        }
+    };
+    let h_s = 0.01 * SECONDS_PER_DAY;
+    let (before, after) = (at(tt.add_seconds(-h_s)), at(tt.add_seconds(h_s)));
+    (at(tt), scale(1.0 / 0.02, sub(after, before)))
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
