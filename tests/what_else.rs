@@ -217,3 +217,57 @@ fn light_curves_are_written_as_csv_and_svg() {
     assert_eq!(o.status.code(), Some(2));
     assert!(err(&o).contains(".csv"), "{}", err(&o));
 }
+
+/// Over 100 simulated campaigns of 1769 with a 10 s black drop, the diameter's departure from
+/// the IAU value less the stated black-drop bias, in units of the stated uncertainty, has mean
+/// 0 and standard deviation 1 (within what 100 trials allow; common practice for validating an
+/// uncertainty, no single source).
+#[test]
+fn diameters_and_their_black_drop_bias_are_honest_over_many_campaigns() {
+    use transit_parallax::planning::simulation::{
+        global_stations, simulate_campaign, stations_seeing, SimulationSettings,
+    };
+    use transit_parallax::reduction::{reduce_for_event, ReduceOptions};
+    let model = transit_parallax::TimeModel::default();
+    let date = transit_parallax::time::iso::parse_date("1769-06-03").unwrap();
+    let event =
+        transit_parallax::transit_on_date(transit_parallax::Planet::Venus, date, &model).unwrap();
+    let net: Vec<_> = stations_seeing(&event, global_stations(300, "d"), 3, 5.0)
+        .into_iter()
+        .step_by(2)
+        .take(30)
+        .collect();
+    let settings = SimulationSettings {
+        sigma_s: [12.0, 9.0, 9.0, 12.0],
+        black_drop_bias_s: 10.0,
+        ..SimulationSettings::default()
+    };
+    let run = |range: std::ops::Range<u64>| -> Vec<f64> {
+        range
+            .filter_map(|k| {
+                let mut rng = rand_chacha::ChaCha8Rng::seed_from_u64(k);
+                let camp = simulate_campaign(&event, &net, &settings, &mut rng);
+                let red =
+                    reduce_for_event(camp.observations, event.clone(), &ReduceOptions::default())
+                        .unwrap();
+                let s = transit_parallax::scale::diameters::sizes(&red);
+                let (p, b) = (s.planet?, s.planet_km_per_black_drop_s?);
+                Some((p.km - (VENUS_DIAMETER_KM + 10.0 * b)) / p.sigma_km)
+            })
+            .collect()
+    };
+    let z: Vec<f64> = std::thread::scope(|s| {
+        let a = s.spawn(|| run(0..50));
+        let b = s.spawn(|| run(50..100));
+        let mut v = a.join().unwrap();
+        v.extend(b.join().unwrap());
+        v
+    });
+    let n = z.len() as f64;
+    let mean = z.iter().sum::<f64>() / n;
+    let sd = (z.iter().map(|x| (x - mean).powi(2)).sum::<f64>() / (n - 1.0)).sqrt();
+    eprintln!("{n} campaigns: z mean {mean:.3}, sd {sd:.3}");
+    assert_eq!(z.len(), 100);
+    assert!(mean.abs() < 0.35, "{mean}");
+    assert!((0.8..1.2).contains(&sd), "{sd}");
+}
