@@ -38,6 +38,7 @@ pub mod planning;
 pub mod reduction;
 pub mod render;
 pub mod scale;
+pub mod service;
 pub mod sky;
 pub mod time;
 pub mod words;

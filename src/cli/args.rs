@@ -122,6 +122,12 @@ pub enum Command {
         after_help = "Examples:\n  transit-parallax demo\n  transit-parallax demo --report /tmp/demo.html\n  transit-parallax demo --scenario 1769 --report /tmp/expeditions.html"
     )]
     Demo(DemoArgs),
+    /// Run a local web service where participants submit timings and get instant feedback,
+    /// and the organiser watches the solution firm up.
+    #[command(
+        after_help = "Examples:\n  transit-parallax serve --planet venus --date 2117-12-11 --db campaign.sqlite\n  transit-parallax serve --planet mercury --date 2032-11-13 --db campaign.sqlite --listen 127.0.0.1:8080 --token s3cret"
+    )]
+    Serve(ServeArgs),
     /// Print a shell completion script (bash, zsh, fish, elvish or powershell).
     #[command(
         after_help = "Examples:\n  transit-parallax completions bash > /etc/bash_completion.d/transit-parallax\n  transit-parallax completions zsh > ~/.zfunc/_transit-parallax"
@@ -342,6 +348,28 @@ pub struct SimulateArgs {
     /// Output format.
     #[arg(long, value_enum, default_value = "table")]
     pub format: FormatArg,
+}
+
+// Arguments of `serve`.
+#[derive(clap::Args)]
+pub struct ServeArgs {
+    #[command(flatten)]
+    pub event: EventArgs,
+    /// The campaign's database (SQLite), created on first start.
+    #[arg(long, value_name = "FILE")]
+    pub db: PathBuf,
+    /// Address and port to listen on (port 0: any free port).
+    #[arg(long, value_name = "ADDR:PORT", default_value = "127.0.0.1:8040")]
+    pub listen: String,
+    /// The organiser's token (letters and digits); printed at start when generated.
+    #[arg(long, value_name = "TOKEN")]
+    pub token: Option<String>,
+    /// Allow an address other than this computer's own (127.0.0.1, [::1]).
+    #[arg(long)]
+    pub public: bool,
+    /// Stop by itself after this many seconds (for tests and timed demonstrations).
+    #[arg(long, value_name = "SECONDS")]
+    pub stop_after: Option<u64>,
 }
 
 // Arguments of `demo`.

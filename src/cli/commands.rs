@@ -3,7 +3,8 @@
 
 use crate::args::{date_of, planet_of};
 use crate::args::{
-    Cli, Command, DemoArgs, PlanArgs, PredictArgs, ReduceArgs, SimulateArgs, TransitsArgs,
+    Cli, Command, DemoArgs, PlanArgs, PredictArgs, ReduceArgs, ServeArgs, SimulateArgs,
+    TransitsArgs,
 };
 use std::path::Path;
 use transit_parallax::geometry::station::read_stations;
@@ -25,6 +26,7 @@ pub fn run(command: Command) -> Result<String, Error> {
         Command::Plan(a) => plan(a),
         Command::Simulate(a) => simulate(a),
         Command::Demo(a) => demo(a),
+        Command::Serve(a) => serve(a),
         Command::Completions(a) => completions(a.shell),
         Command::Manual => manual(),
     }
@@ -283,6 +285,26 @@ fn simulate(a: SimulateArgs) -> Result<String, Error> {
         }
     }
     Ok(text)
+}
+
+fn serve(a: ServeArgs) -> Result<String, Error> {
+    use transit_parallax::service::routes::{serve, ServeSettings};
+    let listen: std::net::SocketAddr = a.listen.parse().map_err(|_| {
+        Error::argument(format!(
+            "--listen '{}' is not an address and port; write it as 127.0.0.1:8040",
+            a.listen
+        ))
+    })?;
+    let event = a.event.transit()?;
+    let store = transit_parallax::service::store::Store::open(&a.db).map_err(Error::argument)?;
+    let settings = ServeSettings {
+        listen,
+        public: a.public,
+        token: a.token,
+        stop_after: a.stop_after.map(std::time::Duration::from_secs),
+    };
+    serve(event, store, settings)?;
+    Ok(String::new())
 }
 
 fn demo(a: DemoArgs) -> Result<String, Error> {

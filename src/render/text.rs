@@ -27,9 +27,10 @@ pub fn round(x: f64, decimals: i32) -> f64 {
     (x * p).round() / p
 }
 
-/// Quote a CSV field where it needs it.
+/// Quote a CSV field where it needs it (a field that starts with `#` too: the reader takes a
+/// line beginning with it for a comment).
 pub fn csv_field(text: &str) -> String {
-    if text.contains([',', '"', '\n', '\r']) {
+    if text.contains([',', '"', '\n', '\r']) || text.starts_with('#') {
         format!("\"{}\"", text.replace('"', "\"\""))
     } else {
         text.to_string()

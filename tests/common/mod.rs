@@ -38,3 +38,4 @@ pub fn temp(name: &str, bytes: &[u8]) -> String {
     std::fs::write(&p, bytes).unwrap();
     p.to_string_lossy().into_owned()
 }
+pub mod server;

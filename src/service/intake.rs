@@ -1,0 +1,146 @@
+//! Reading a submission into timings: the JSON body of `POST /api/submissions` (the keys of
+//! the stable interface) and the participant's form (its fields, or a pasted observations
+//! file). Values are kept as text, as sent; the reduction's reader judges them.
+
+use super::store::TimingFields;
+use serde_json::Value;
+
+/// A JSON value as the text a CSV field would hold: strings as they are, numbers as written,
+/// null or absent as empty; anything else is refused with the key named.
+fn text_of(v: Option<&Value>, key: &str) -> Result<String, String> {
+    match v {
+        None | Some(Value::Null) => Ok(String::new()),
+        Some(Value::String(s)) => Ok(s.clone()),
+        Some(Value::Number(n)) => Ok(n.to_string()),
+        Some(_) => Err(format!("'{key}' must be a number or a string")),
+    }
+}
+
+/// The timings of a JSON submission: `station`, `latitude`, `longitude`, optional
+/// `elevation_m` and `longitude_sigma_deg`, and `timings`, a non-empty array of objects with
+/// `contact` and `time_utc` (or `time_local` with `local_time` and `day_reckoning`) and an
+/// optional `sigma_s`.
+///
+/// Errors: a sentence saying what is missing or malformed (the body is unreadable).
+pub fn from_json(body: &[u8]) -> Result<Vec<TimingFields>, String> {
+    let text =
+        std::str::from_utf8(body).map_err(|e| format!("the body is not UTF-8 text ({e})"))?;
+    let v: Value = serde_json::from_str(text).map_err(|e| format!("the body is not JSON: {e}"))?;
+    let obj = v.as_object().ok_or("the body must be a JSON object")?;
+    let station = match obj.get("station") {
+        Some(Value::String(s)) if !s.trim().is_empty() => s.clone(),
+        _ => return Err("'station' (a non-empty name) is missing".into()),
+    };
+    let timings = match obj.get("timings") {
+        Some(Value::Array(a)) if !a.is_empty() => a,
+        _ => return Err("'timings' (a non-empty array of timings) is missing".into()),
+    };
+    let common = TimingFields {
+        station,
+        latitude: text_of(obj.get("latitude"), "latitude")?,
+        longitude: text_of(obj.get("longitude"), "longitude")?,
+        elevation_m: text_of(obj.get("elevation_m"), "elevation_m")?,
+        longitude_sigma_deg: text_of(obj.get("longitude_sigma_deg"), "longitude_sigma_deg")?,
+        ..TimingFields::default()
+    };
+    timings
+        .iter()
+        .map(|t| {
+            let t = t.as_object().ok_or("each timing must be a JSON object")?;
+            Ok(TimingFields {
+                contact: text_of(t.get("contact"), "contact")?,
+                time_utc: text_of(t.get("time_utc"), "time_utc")?,
+                sigma_s: text_of(t.get("sigma_s"), "sigma_s")?,
+                time_local: text_of(t.get("time_local"), "time_local")?,
+                local_time: text_of(t.get("local_time"), "local_time")?,
+                day_reckoning: text_of(t.get("day_reckoning"), "day_reckoning")?,
+                ..common.clone()
+            })
+        })
+        .collect()
+}
+
+/// The timings of a pasted observations file: columns by header name, any of the export's.
+fn from_csv(text: &str) -> Result<Vec<TimingFields>, String> {
+    let mut reader = csv::ReaderBuilder::new()
+        .comment(Some(b'#'))
+        .flexible(true)
+        .trim(csv::Trim::All)
+        .from_reader(text.as_bytes());
+    let headers = reader
+        .headers()
+        .map_err(|e| format!("the file: {e}"))?
+        .clone();
+    let col = |name: &str| headers.iter().position(|h| h.eq_ignore_ascii_case(name));
+    if col("station").is_none() {
+        return Err(
+            "the pasted file has no 'station' column; its first line must name the columns".into(),
+        );
+    }
+    let mut out = Vec::new();
+    for record in reader.records() {
+        let r = record.map_err(|e| format!("the file: {e}"))?;
+        let get = |name: &str| col(name).and_then(|k| r.get(k)).unwrap_or("").to_string();
+        out.push(TimingFields {
+            station: get("station"),
+            latitude: get("latitude"),
+            longitude: get("longitude"),
+            elevation_m: get("elevation_m"),
+            contact: get("contact"),
+            time_utc: get("time_utc"),
+            sigma_s: get("sigma_s"),
+            time_local: get("time_local"),
+            local_time: get("local_time"),
+            day_reckoning: get("day_reckoning"),
+            longitude_sigma_deg: get("longitude_sigma_deg"),
+        });
+    }
+    if out.is_empty() {
+        return Err("the pasted file has a header and no rows".into());
+    }
+    Ok(out)
+}
+
+/// The timings of the participant's form: a pasted file if there is one, else the station's
+/// fields and the rows of the timing table that have a time.
+///
+/// Errors: a sentence saying what is missing.
+pub fn from_form(form: &[(String, String)]) -> Result<Vec<TimingFields>, String> {
+    let get = |name: &str| {
+        form.iter()
+            .find(|(k, _)| k == name)
+            .map(|(_, v)| v.trim().to_string())
+            .unwrap_or_default()
+    };
+    let csv = get("csv");
+    if !csv.is_empty() {
+        return from_csv(&csv);
+    }
+    let station = get("station");
+    if station.is_empty() {
+        return Err("give the station's name".into());
+    }
+    let common = TimingFields {
+        station,
+        latitude: get("latitude"),
+        longitude: get("longitude"),
+        elevation_m: get("elevation_m"),
+        longitude_sigma_deg: get("longitude_sigma_deg"),
+        ..TimingFields::default()
+    };
+    let rows: Vec<TimingFields> = (0..4)
+        .map(|k| TimingFields {
+            contact: get(&format!("contact{k}")),
+            time_utc: get(&format!("time_utc{k}")),
+            time_local: get(&format!("time_local{k}")),
+            local_time: get(&format!("local_time{k}")),
+            sigma_s: get(&format!("sigma_s{k}")),
+            ..common.clone()
+        })
+        .filter(|t| !(t.time_utc.is_empty() && t.time_local.is_empty() && t.contact.is_empty()))
+        .collect();
+    if rows.is_empty() {
+        return Err("give at least one timing: a contact and its time".into());
+    }
+    Ok(rows)
+}

@@ -1,0 +1,17 @@
+//! Stage 9, pooled submissions: a small web service where a campaign's participants submit
+//! timings and get instant feedback, and the organiser watches the solution firm up.
+//!
+//! - `store.rs`: the SQLite database (raw submissions, timings as sent, the audit trail).
+//! - `intake.rs`: a submission's JSON body or form into timings.
+//! - `feedback.rs`: each timing against its prediction at once, and the station's share.
+//! - `pages.rs`: the participant's pages.
+//! - `organiser.rs`: the organiser's page.
+//! - `server.rs`: the state, the participant's routes, the background reduction.
+//! - `routes.rs`: the organiser's and the interface's routes, the router, the start.
+pub mod feedback;
+pub mod intake;
+pub mod organiser;
+pub mod pages;
+pub mod routes;
+pub mod server;
+pub mod store;

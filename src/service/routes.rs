@@ -1,0 +1,275 @@
+//! The organiser's routes, the solution and export of the stable interface, the router and
+//! the start of the server.
+
+use super::organiser::{organiser_page, OrganiserView};
+use super::pages::message_page;
+use super::server::{recompute_loop, App, BODY_LIMIT};
+use super::store::export_csv;
+use axum::body::Bytes;
+use axum::extract::{DefaultBodyLimit, Query, State};
+use axum::http::{header, HeaderMap, StatusCode};
+use axum::response::{Html, IntoResponse, Redirect, Response};
+use axum::routing::{get, post};
+use axum::{Json, Router};
+use serde_json::json;
+use std::collections::HashMap;
+use std::sync::Arc;
+
+type Shared = Arc<App>;
+type Q = Query<HashMap<String, String>>;
+
+fn unauthorised() -> Response {
+    (
+        StatusCode::UNAUTHORIZED,
+        Json(json!({ "error": "the organiser's token is missing or wrong" })),
+    )
+        .into_response()
+}
+
+async fn solution(State(app): State<Shared>, headers: HeaderMap, Query(q): Q) -> Response {
+    if !app.authorised(&headers, &q) {
+        return unauthorised();
+    }
+    let submissions = app.with_store(|s| s.counts()).map(|c| c.0).unwrap_or(0);
+    let pending = app.pending();
+    let latest = app.latest_read();
+    let mut v = match latest.as_ref().and_then(|l| l.reduction.as_ref()) {
+        Some(red) => crate::render::reduction::reduction_json(red),
+        None => {
+            json!({ "error": latest.as_ref().and_then(|l| l.error.clone()).unwrap_or_else(|| "no solution yet".into()) })
+        }
+    };
+    if let Some(map) = v.as_object_mut() {
+        map.insert("submissions".into(), json!(submissions));
+        map.insert("pending".into(), json!(pending));
+    }
+    Json(v).into_response()
+}
+
+async fn export(State(app): State<Shared>, headers: HeaderMap, Query(q): Q) -> Response {
+    if !app.authorised(&headers, &q) {
+        return unauthorised();
+    }
+    match app.with_store(|s| s.timings_in_force()) {
+        Ok(t) => (
+            [(header::CONTENT_TYPE, "text/csv; charset=utf-8")],
+            export_csv(&t).0,
+        )
+            .into_response(),
+        Err(e) => (StatusCode::INTERNAL_SERVER_ERROR, e).into_response(),
+    }
+}
+
+async fn report(State(app): State<Shared>, headers: HeaderMap, Query(q): Q) -> Response {
+    if !app.authorised(&headers, &q) {
+        return unauthorised();
+    }
+    match app
+        .latest_read()
+        .as_ref()
+        .and_then(|l| l.reduction.as_ref())
+    {
+        Some(red) => Html(crate::render::document::html_report(red)).into_response(),
+        None => (
+            StatusCode::NOT_FOUND,
+            Html(message_page(
+                "No report yet",
+                "no timing has been reduced yet",
+            )),
+        )
+            .into_response(),
+    }
+}
+
+async fn organiser(State(app): State<Shared>, headers: HeaderMap, Query(q): Q) -> Response {
+    if !app.authorised(&headers, &q) {
+        return (
+            StatusCode::UNAUTHORIZED,
+            Html(message_page(
+                "Organiser only",
+                "open this page with the organiser's token (?token=...)",
+            )),
+        )
+            .into_response();
+    }
+    let gathered = app.with_store(|s| {
+        Ok((
+            s.timings_in_force()?,
+            s.counts()?,
+            s.unreadable(200)?,
+            s.audit(200)?,
+        ))
+    });
+    let (timings, counts, unreadable, audit) = match gathered {
+        Ok(x) => x,
+        Err(e) => return (StatusCode::INTERNAL_SERVER_ERROR, e).into_response(),
+    };
+    let pending = app.pending();
+    let latest = app.latest_read();
+    let solution = latest
+        .as_ref()
+        .and_then(|l| l.reduction.as_ref().map(|r| (r, l.ids.as_slice())));
+    let view = OrganiserView {
+        solution,
+        error: latest.as_ref().and_then(|l| l.error.as_deref()),
+        pending,
+        timings: &timings,
+        counts,
+        unreadable: &unreadable,
+        audit: &audit,
+        tokens: (app.token(), app.csrf()),
+    };
+    Html(organiser_page(&view)).into_response()
+}
+
+/// Exclude (`exclude` true, with a reason) or restore a timing from the organiser's form.
+async fn set_state(app: Shared, body: Bytes, exclude: bool) -> Response {
+    let form: Vec<(String, String)> = serde_urlencoded::from_bytes(&body).unwrap_or_default();
+    let get = |k: &str| {
+        form.iter()
+            .find(|(n, _)| n == k)
+            .map(|(_, v)| v.trim().to_string())
+    };
+    if get("token").as_deref() != Some(app.token()) {
+        return unauthorised();
+    }
+    if get("csrf").as_deref() != Some(app.csrf()) {
+        return (
+            StatusCode::FORBIDDEN,
+            Html(message_page(
+                "Refused",
+                "the form's token is missing or wrong; reload the page",
+            )),
+        )
+            .into_response();
+    }
+    let Some(id) = get("timing").and_then(|t| t.parse::<i64>().ok()) else {
+        return (
+            StatusCode::BAD_REQUEST,
+            Html(message_page("Not done", "the form names no timing")),
+        )
+            .into_response();
+    };
+    let reason = get("reason").filter(|r| !r.is_empty());
+    if exclude && reason.is_none() {
+        return (
+            StatusCode::BAD_REQUEST,
+            Html(message_page(
+                "Not done",
+                "give a reason for excluding the timing; it is kept in the audit trail",
+            )),
+        )
+            .into_response();
+    }
+    match app.with_store(|s| s.set_excluded(id, if exclude { reason.as_deref() } else { None })) {
+        Ok(true) => {
+            app.mark_changed();
+            Redirect::to(&format!("/organiser?token={}", app.token())).into_response()
+        }
+        Ok(false) => (
+            StatusCode::NOT_FOUND,
+            Html(message_page("Not done", "no such timing")),
+        )
+            .into_response(),
+        Err(e) => (StatusCode::INTERNAL_SERVER_ERROR, e).into_response(),
+    }
+}
+
+async fn exclude(State(app): State<Shared>, body: Bytes) -> Response {
+    set_state(app, body, true).await
+}
+
+async fn restore(State(app): State<Shared>, body: Bytes) -> Response {
+    set_state(app, body, false).await
+}
+
+/// The router of every route, with the body limit.
+pub fn router(app: Shared) -> Router {
+    Router::new()
+        .route("/", get(super::server::participant_route))
+        .route("/submit", post(super::server::submit_route))
+        .route(
+            "/submission/{id}",
+            get(super::server::review_route).post(super::server::correct_route),
+        )
+        .route("/api/submissions", post(super::server::api_submit_route))
+        .route("/api/solution", get(solution))
+        .route("/api/export.csv", get(export))
+        .route("/organiser", get(organiser))
+        .route("/organiser/report.html", get(report))
+        .route("/organiser/exclude", post(exclude))
+        .route("/organiser/restore", post(restore))
+        .layer(DefaultBodyLimit::max(BODY_LIMIT))
+        .with_state(app)
+}
+
+/// How the server is started.
+pub struct ServeSettings {
+    /// Address and port to listen on (port 0: any free port).
+    pub listen: std::net::SocketAddr,
+    /// Whether a non-loopback address is allowed.
+    pub public: bool,
+    /// The organiser's token; generated when `None`.
+    pub token: Option<String>,
+    /// Stop after this long (tests), or run until interrupted.
+    pub stop_after: Option<std::time::Duration>,
+}
+
+/// Run the service until interrupted (or `stop_after`): listen, say where and the token on
+/// standard error, reduce in the background.
+///
+/// Errors: a non-loopback address without `public`, an address that cannot be bound, a token
+/// that is not letters and digits.
+pub fn serve(
+    event: crate::TransitEvent,
+    store: super::store::Store,
+    settings: ServeSettings,
+) -> crate::Result<()> {
+    if !settings.listen.ip().is_loopback() && !settings.public {
+        return Err(crate::Error::argument(format!(
+            "--listen {}: the service listens only on this computer (127.0.0.1 or [::1]) unless --public is given; with --public anyone who can reach the address can send timings, so put it behind a firewall or a proxy you control",
+            settings.listen
+        )));
+    }
+    let token = settings
+        .token
+        .clone()
+        .unwrap_or_else(|| super::server::random_token(24));
+    if token.is_empty() || !token.chars().all(|c| c.is_ascii_alphanumeric()) {
+        return Err(crate::Error::argument(
+            "--token: give letters and digits only",
+        ));
+    }
+    let generated = settings.token.is_none();
+    let runtime = tokio::runtime::Builder::new_multi_thread()
+        .enable_all()
+        .build()
+        .map_err(|e| crate::Error::argument(format!("the server could not start: {e}")))?;
+    runtime.block_on(async move {
+        let listener = tokio::net::TcpListener::bind(settings.listen)
+            .await
+            .map_err(|e| crate::Error::argument(format!("--listen {}: {e}", settings.listen)))?;
+        let local = listener.local_addr().map_err(|e| crate::Error::argument(e.to_string()))?;
+        let app = App::new(event, store, token.clone());
+        tokio::spawn(recompute_loop(app.clone()));
+        if settings.public && !local.ip().is_loopback() {
+            eprintln!("warning: listening on a public address: anyone who can reach it can send timings; keep the organiser's token secret");
+        }
+        eprintln!("listening on http://{local}");
+        if generated {
+            eprintln!("organiser token: {token}");
+        }
+        let stop = async move {
+            match settings.stop_after {
+                Some(d) => tokio::time::sleep(d).await,
+                None => {
+                    let _ = tokio::signal::ctrl_c().await;
+                }
+            }
+        };
+        axum::serve(listener, router(app))
+            .with_graceful_shutdown(stop)
+            .await
+            .map_err(|e| crate::Error::argument(format!("the server stopped: {e}")))
+    })
+}

@@ -1,0 +1,414 @@
+//! The HTTP server (axum on tokio): the routes of the stable interface, the participant's and
+//! the organiser's pages, and the background task that reduces the timings in force after
+//! each change (debounced), never in a request.
+
+use super::feedback::{feedback, parallax_information};
+use super::intake::{from_form, from_json};
+use super::pages::{feedback_page, message_page, page, timing_form};
+use super::store::{export_csv, Store, TimingFields};
+use crate::geometry::transit::TransitEvent;
+use crate::reduction::{reduce_for_event, ReduceOptions, Reduction};
+use axum::body::Bytes;
+use axum::extract::{Path, Query, State};
+use axum::http::{header, HeaderMap, StatusCode};
+use axum::response::{Html, IntoResponse, Response};
+use axum::Json;
+use serde_json::json;
+use std::collections::HashMap;
+use std::sync::atomic::{AtomicU64, Ordering};
+use std::sync::{Arc, Mutex, RwLock};
+use tokio::sync::Notify;
+
+/// Largest request body, bytes.
+pub const BODY_LIMIT: usize = 256 * 1024;
+
+/// How long the background task waits after a change before reducing, so that a burst of
+/// submissions is reduced once.
+const DEBOUNCE_MS: u64 = 400;
+
+/// The latest solution.
+#[derive(Default)]
+pub struct Latest {
+    generation: u64,
+    /// The reduction of the timings in force.
+    pub reduction: Option<Reduction>,
+    /// The timing id of each data line of the file reduced.
+    pub ids: Vec<i64>,
+    /// Why there is no reduction.
+    pub error: Option<String>,
+    information: f64,
+}
+
+/// The server's state.
+pub struct App {
+    event: TransitEvent,
+    store: Mutex<Store>,
+    token: String,
+    csrf: String,
+    generation: AtomicU64,
+    notify: Notify,
+    latest: RwLock<Latest>,
+}
+
+/// A random string of letters and digits.
+pub fn random_token(len: usize) -> String {
+    use rand::Rng;
+    rand::thread_rng()
+        .sample_iter(&rand::distributions::Alphanumeric)
+        .take(len)
+        .map(char::from)
+        .collect()
+}
+
+type Shared = Arc<App>;
+
+fn internal(e: impl std::fmt::Display) -> Response {
+    (
+        StatusCode::INTERNAL_SERVER_ERROR,
+        Json(json!({ "error": e.to_string() })),
+    )
+        .into_response()
+}
+
+impl App {
+    /// The state for an event and an opened store; `token` for the organiser.
+    pub fn new(event: TransitEvent, store: Store, token: String) -> Shared {
+        Arc::new(App {
+            event,
+            store: Mutex::new(store),
+            token,
+            csrf: random_token(32),
+            generation: AtomicU64::new(1),
+            notify: Notify::new(),
+            latest: RwLock::new(Latest::default()),
+        })
+    }
+
+    fn changed(&self) {
+        self.generation.fetch_add(1, Ordering::SeqCst);
+        self.notify.notify_one();
+    }
+
+    /// Note a change of the timings in force (the background task reduces them again).
+    pub fn mark_changed(&self) {
+        self.changed();
+    }
+
+    /// Whether timings changed since the latest solution.
+    pub fn pending(&self) -> bool {
+        let latest = self.latest.read().map(|l| l.generation).unwrap_or(0);
+        latest != self.generation.load(Ordering::SeqCst)
+    }
+
+    /// The latest solution, read-locked (`None` if the lock was poisoned).
+    pub fn latest_read(&self) -> Option<std::sync::RwLockReadGuard<'_, Latest>> {
+        self.latest.read().ok()
+    }
+
+    /// The organiser's token.
+    pub fn token(&self) -> &str {
+        &self.token
+    }
+
+    /// The forms' anti-forgery token.
+    pub fn csrf(&self) -> &str {
+        &self.csrf
+    }
+
+    /// Run `f` on the store under its lock.
+    pub fn with_store<T>(
+        &self,
+        f: impl FnOnce(&mut Store) -> Result<T, String>,
+    ) -> Result<T, String> {
+        let mut guard = self
+            .store
+            .lock()
+            .map_err(|_| "the database lock was poisoned".to_string())?;
+        f(&mut guard)
+    }
+
+    /// Whether the request carries the organiser's token (Bearer header or `?token=`).
+    pub fn authorised(&self, headers: &HeaderMap, query: &HashMap<String, String>) -> bool {
+        let bearer = headers
+            .get(header::AUTHORIZATION)
+            .and_then(|v| v.to_str().ok())
+            .and_then(|v| v.strip_prefix("Bearer "));
+        bearer == Some(self.token.as_str()) || query.get("token") == Some(&self.token)
+    }
+
+    /// The station's expected share of the information on the parallax.
+    fn share(&self, fields: &[TimingFields]) -> Option<f64> {
+        let own = parallax_information(&self.event, fields);
+        let rest = self.latest.read().ok()?.information;
+        (own > 0.0).then(|| own / (own + rest))
+    }
+}
+
+/// Reduce the timings in force whenever they change, after a short wait.
+pub async fn recompute_loop(app: Shared) {
+    loop {
+        let generation = app.generation.load(Ordering::SeqCst);
+        if app.latest.read().map(|l| l.generation).unwrap_or(0) == generation {
+            app.notify.notified().await;
+            tokio::time::sleep(std::time::Duration::from_millis(DEBOUNCE_MS)).await;
+            continue;
+        }
+        let worker = app.clone();
+        let done = tokio::task::spawn_blocking(move || solve_once(&worker, generation)).await;
+        if let Ok(latest) = done {
+            if let Ok(mut l) = app.latest.write() {
+                *l = latest;
+            }
+        }
+    }
+}
+
+/// One reduction of the timings in force, exactly as `reduce` of the export would do it.
+fn solve_once(app: &App, generation: u64) -> Latest {
+    let mut latest = Latest {
+        generation,
+        ..Latest::default()
+    };
+    let timings = match app.with_store(|s| s.timings_in_force()) {
+        Ok(t) => t,
+        Err(e) => {
+            latest.error = Some(e);
+            return latest;
+        }
+    };
+    let (text, ids) = export_csv(&timings);
+    let fields: Vec<TimingFields> = timings
+        .iter()
+        .filter(|t| t.excluded.is_none())
+        .map(|t| t.fields.clone())
+        .collect();
+    latest.information = parallax_information(&app.event, &fields);
+    let path = std::path::Path::new("<campaign>");
+    let result = crate::observations::csv_table::CsvTable::from_bytes(path, text.as_bytes())
+        .and_then(|table| crate::observations::timings::observations_from_table(&table, false))
+        .and_then(|set| {
+            let options = ReduceOptions {
+                event: Some((app.event.planet, app.event.date())),
+                ..ReduceOptions::default()
+            };
+            reduce_for_event(set, app.event.clone(), &options)
+        });
+    match result {
+        Ok(red) => latest.reduction = Some(red),
+        Err(e) => latest.error = Some(e.to_string()),
+    }
+    latest.ids = ids;
+    latest
+}
+
+/// Store, read and acknowledge one submission; (status, submission id, fields, feedback,
+/// edit key, duplicate of) or the reason it is unreadable (stored all the same).
+type Accepted = (i64, Vec<TimingFields>, String, Option<i64>);
+
+fn take_in(
+    app: &App,
+    body: &[u8],
+    read: impl FnOnce(&[u8]) -> Result<Vec<TimingFields>, String>,
+    supersedes: Option<i64>,
+) -> Result<Result<Accepted, String>, String> {
+    let (id, earlier) = app.with_store(|s| s.store_raw(body))?;
+    let fields = match read(body) {
+        Ok(f) => f,
+        Err(why) => {
+            app.with_store(|s| s.mark(id, "unreadable", Some(&why)))?;
+            return Ok(Err(why));
+        }
+    };
+    if let (Some(first), None) = (earlier, supersedes) {
+        app.with_store(|s| {
+            s.mark(
+                id,
+                "duplicate",
+                Some(&format!("the same as submission {first}")),
+            )
+        })?;
+        let key = app
+            .with_store(|s| s.submission(first))?
+            .map(|x| x.0)
+            .unwrap_or_default();
+        return Ok(Ok((first, fields, key, Some(first))));
+    }
+    let key = random_token(24);
+    app.with_store(|s| s.accept(id, &key, &fields, supersedes))?;
+    app.changed();
+    Ok(Ok((id, fields, key, None)))
+}
+
+/// `POST /api/submissions`.
+pub async fn api_submit_route(State(app): State<Shared>, body: Bytes) -> Response {
+    let worker = app.clone();
+    let done = tokio::task::spawn_blocking(move || take_in(&worker, &body, from_json, None)).await;
+    match done {
+        Ok(Ok(Ok((id, fields, key, duplicate)))) => {
+            let fb = feedback(&app.event, &fields);
+            let status = if duplicate.is_some() {
+                StatusCode::OK
+            } else {
+                StatusCode::CREATED
+            };
+            let reply = json!({
+                "submission_id": id,
+                "duplicate_of": duplicate,
+                "timings": fb,
+                "information_share": app.share(&fields),
+                "review": format!("/submission/{id}?key={key}"),
+            });
+            (status, Json(reply)).into_response()
+        }
+        Ok(Ok(Err(why))) => {
+            (StatusCode::BAD_REQUEST, Json(json!({ "error": why }))).into_response()
+        }
+        Ok(Err(e)) => internal(e),
+        Err(e) => internal(e),
+    }
+}
+
+fn form_pairs(body: &[u8]) -> Result<Vec<(String, String)>, String> {
+    serde_urlencoded::from_bytes::<Vec<(String, String)>>(body)
+        .map_err(|e| format!("the form could not be read: {e}"))
+}
+
+fn field<'a>(form: &'a [(String, String)], name: &str) -> Option<&'a str> {
+    form.iter()
+        .find(|(k, _)| k == name)
+        .map(|(_, v)| v.as_str())
+}
+
+async fn form_submit(app: Shared, body: Bytes, supersedes: Option<(i64, String)>) -> Response {
+    let form = match form_pairs(&body) {
+        Ok(f) => f,
+        Err(why) => {
+            return (
+                StatusCode::BAD_REQUEST,
+                Html(message_page("Not received", &why)),
+            )
+                .into_response()
+        }
+    };
+    if field(&form, "csrf") != Some(app.csrf.as_str()) {
+        return (
+            StatusCode::FORBIDDEN,
+            Html(message_page(
+                "Refused",
+                "the form's token is missing or wrong; reload the form and send it again",
+            )),
+        )
+            .into_response();
+    }
+    let old = match supersedes {
+        Some((id, key)) => match app.with_store(|s| s.submission(id)) {
+            Ok(Some((k, true, _))) if k == key => Some(id),
+            _ => {
+                return (
+                    StatusCode::FORBIDDEN,
+                    Html(message_page(
+                        "Refused",
+                        "this link does not open a submission in force",
+                    )),
+                )
+                    .into_response()
+            }
+        },
+        None => None,
+    };
+    let worker = app.clone();
+    let read = move |_: &[u8]| from_form(&form);
+    let done = tokio::task::spawn_blocking(move || take_in(&worker, &body, read, old)).await;
+    match done {
+        Ok(Ok(Ok((id, fields, key, duplicate)))) => {
+            let fb = feedback(&app.event, &fields);
+            let link = format!("/submission/{id}?key={key}");
+            let page = feedback_page(
+                id,
+                &link,
+                (&fields, &fb),
+                app.share(&fields),
+                duplicate.is_some(),
+            );
+            let status = if duplicate.is_some() {
+                StatusCode::OK
+            } else {
+                StatusCode::CREATED
+            };
+            (status, Html(page)).into_response()
+        }
+        Ok(Ok(Err(why))) => (
+            StatusCode::BAD_REQUEST,
+            Html(message_page(
+                "Not read",
+                &format!("{why}. The submission was stored as sent and the organiser can see it."),
+            )),
+        )
+            .into_response(),
+        Ok(Err(e)) => internal(e),
+        Err(e) => internal(e),
+    }
+}
+
+/// `GET /`.
+pub async fn participant_route(State(app): State<Shared>) -> Html<String> {
+    let intro = format!("<p>Send the contact times you observed of the transit of {} of {}. You will see at once how each compares with its prediction at your station.</p>\n", app.event.planet, app.event.date());
+    Html(page(
+        "Send your timings",
+        &(intro + &timing_form("/submit", &app.csrf, None, &[])),
+    ))
+}
+
+/// `POST /submit`.
+pub async fn submit_route(State(app): State<Shared>, body: Bytes) -> Response {
+    form_submit(app, body, None).await
+}
+
+/// `GET /submission/{id}?key=`.
+pub async fn review_route(
+    State(app): State<Shared>,
+    Path(id): Path<i64>,
+    Query(q): Query<HashMap<String, String>>,
+) -> Response {
+    let key = q.get("key").cloned().unwrap_or_default();
+    match app.with_store(|s| s.submission(id)) {
+        Ok(Some((k, in_force, fields))) if k == key => {
+            let fb = feedback(&app.event, &fields);
+            let mut body = super::pages::feedback_table(&fields, &fb);
+            if in_force {
+                body.push_str("<h2>Correct it</h2>\n<p>Sending this form stores a new version; the old one is kept.</p>\n");
+                body.push_str(&timing_form(
+                    &format!("/submission/{id}"),
+                    &app.csrf,
+                    Some(&key),
+                    &fields,
+                ));
+            } else {
+                body.push_str("<p>This version has been corrected by a later one.</p>\n");
+            }
+            Html(page(&format!("Your submission {id}"), &body)).into_response()
+        }
+        Ok(_) => (
+            StatusCode::NOT_FOUND,
+            Html(message_page(
+                "Not found",
+                "no submission answers to this link",
+            )),
+        )
+            .into_response(),
+        Err(e) => internal(e),
+    }
+}
+
+/// `POST /submission/{id}`.
+pub async fn correct_route(
+    State(app): State<Shared>,
+    Path(id): Path<i64>,
+    body: Bytes,
+) -> Response {
+    let key = form_pairs(&body)
+        .ok()
+        .and_then(|f| field(&f, "key").map(String::from))
+        .unwrap_or_default();
+    form_submit(app, body, Some((id, key))).await
+}

@@ -1,0 +1,394 @@
+//! The campaign's database: every submission stored raw, with its time of arrival and a
+//! content hash, before it is parsed; its timings as submitted (text, so that nothing a
+//! participant sent is lost or altered); exclusions and corrections kept in an audit trail.
+//! SQLite through rusqlite (the library bundled), in WAL mode with synchronous commits, so
+//! an acknowledged submission survives a crash of the process.
+//!
+//! References: SQLite's documentation of write-ahead logging and `PRAGMA synchronous = FULL`
+//! (sqlite.org, "Write-Ahead Logging" and "PRAGMA statements").
+
+use rusqlite::{params, Connection, OptionalExtension};
+use sha2::{Digest, Sha256};
+use std::path::Path;
+
+/// Errors of the store, as text for the server's messages.
+pub type StoreResult<T> = Result<T, String>;
+
+fn db_err(e: rusqlite::Error) -> String {
+    format!("database: {e}")
+}
+
+/// The fields of one timing as submitted (text, unparsed).
+#[derive(Clone, Debug, Default, PartialEq)]
+pub struct TimingFields {
+    /// Station name.
+    pub station: String,
+    /// Latitude, degrees, as sent.
+    pub latitude: String,
+    /// Longitude, degrees east, as sent.
+    pub longitude: String,
+    /// Elevation, metres, as sent.
+    pub elevation_m: String,
+    /// Contact, as sent (1-4 or I-IV).
+    pub contact: String,
+    /// Time UTC, as sent.
+    pub time_utc: String,
+    /// Standard uncertainty, seconds, as sent.
+    pub sigma_s: String,
+    /// Clock reading in local solar time, as sent.
+    pub time_local: String,
+    /// `apparent` or `mean`.
+    pub local_time: String,
+    /// `civil` or `astronomical`.
+    pub day_reckoning: String,
+    /// The longitude's uncertainty, degrees or `unknown`.
+    pub longitude_sigma_deg: String,
+}
+
+/// The columns of the observations file the store exports, in order.
+pub const EXPORT_COLUMNS: [&str; 11] = [
+    "station",
+    "latitude",
+    "longitude",
+    "elevation_m",
+    "contact",
+    "time_utc",
+    "sigma_s",
+    "time_local",
+    "local_time",
+    "day_reckoning",
+    "longitude_sigma_deg",
+];
+
+impl TimingFields {
+    fn values(&self) -> [&str; 11] {
+        [
+            &self.station,
+            &self.latitude,
+            &self.longitude,
+            &self.elevation_m,
+            &self.contact,
+            &self.time_utc,
+            &self.sigma_s,
+            &self.time_local,
+            &self.local_time,
+            &self.day_reckoning,
+            &self.longitude_sigma_deg,
+        ]
+    }
+}
+
+/// A stored timing with its identity and state.
+#[derive(Clone, Debug, PartialEq)]
+pub struct StoredTiming {
+    /// Row id.
+    pub id: i64,
+    /// The submission it came with.
+    pub submission_id: i64,
+    /// The fields as submitted.
+    pub fields: TimingFields,
+    /// Excluded by the organiser, with the reason.
+    pub excluded: Option<String>,
+}
+
+/// One entry of the audit trail: (time UTC, action, timing id, reason).
+pub type AuditEntry = (String, String, Option<i64>, Option<String>);
+
+/// A hex SHA-256 of the bytes.
+pub fn content_hash(bytes: &[u8]) -> String {
+    Sha256::digest(bytes)
+        .iter()
+        .map(|b| format!("{b:02x}"))
+        .collect()
+}
+
+/// The database of one campaign.
+pub struct Store {
+    conn: Connection,
+}
+
+const SCHEMA: &str = "
+CREATE TABLE IF NOT EXISTS submissions (
+    id INTEGER PRIMARY KEY,
+    received_utc TEXT NOT NULL,
+    content_hash TEXT NOT NULL,
+    body BLOB NOT NULL,
+    status TEXT NOT NULL,
+    error TEXT,
+    edit_key TEXT,
+    supersedes INTEGER,
+    superseded_by INTEGER
+);
+CREATE INDEX IF NOT EXISTS submissions_hash ON submissions(content_hash);
+CREATE TABLE IF NOT EXISTS timings (
+    id INTEGER PRIMARY KEY,
+    submission_id INTEGER NOT NULL,
+    station TEXT NOT NULL, latitude TEXT NOT NULL, longitude TEXT NOT NULL,
+    elevation_m TEXT NOT NULL, contact TEXT NOT NULL, time_utc TEXT NOT NULL,
+    sigma_s TEXT NOT NULL, time_local TEXT NOT NULL, local_time TEXT NOT NULL,
+    day_reckoning TEXT NOT NULL, longitude_sigma_deg TEXT NOT NULL,
+    excluded_reason TEXT
+);
+CREATE INDEX IF NOT EXISTS timings_submission ON timings(submission_id);
+CREATE TABLE IF NOT EXISTS audit (
+    id INTEGER PRIMARY KEY,
+    at_utc TEXT NOT NULL,
+    action TEXT NOT NULL,
+    timing_id INTEGER,
+    reason TEXT
+);
+";
+
+fn now_utc() -> String {
+    let since = std::time::SystemTime::now()
+        .duration_since(std::time::UNIX_EPOCH)
+        .unwrap_or_default();
+    let secs = i64::try_from(since.as_secs()).unwrap_or(0);
+    chrono::DateTime::from_timestamp(secs, since.subsec_nanos())
+        .map(|t| t.format("%Y-%m-%dT%H:%M:%S%.3fZ").to_string())
+        .unwrap_or_default()
+}
+
+impl Store {
+    /// Open (or create) the database at `path`, in WAL mode with synchronous commits.
+    pub fn open(path: &Path) -> StoreResult<Store> {
+        let conn = Connection::open(path).map_err(|e| format!("{}: {e}", path.display()))?;
+        conn.execute_batch("PRAGMA journal_mode = WAL; PRAGMA synchronous = FULL;")
+            .map_err(db_err)?;
+        conn.execute_batch(SCHEMA).map_err(db_err)?;
+        Ok(Store { conn })
+    }
+
+    /// Store a submission's raw body before anything is parsed; returns its id and, where an
+    /// identical body (same hash) is already in force, that submission's id.
+    pub fn store_raw(&mut self, body: &[u8]) -> StoreResult<(i64, Option<i64>)> {
+        let hash = content_hash(body);
+        let earlier: Option<i64> = self
+            .conn
+            .query_row(
+                "SELECT id FROM submissions WHERE content_hash = ?1 AND status = 'accepted' AND superseded_by IS NULL ORDER BY id LIMIT 1",
+                params![hash],
+                |r| r.get(0),
+            )
+            .optional()
+            .map_err(db_err)?;
+        self.conn
+            .execute(
+                "INSERT INTO submissions (received_utc, content_hash, body, status) VALUES (?1, ?2, ?3, 'received')",
+                params![now_utc(), hash, body],
+            )
+            .map_err(db_err)?;
+        Ok((self.conn.last_insert_rowid(), earlier))
+    }
+
+    /// Mark a stored submission unreadable (or a duplicate), with the reason.
+    pub fn mark(&mut self, id: i64, status: &str, error: Option<&str>) -> StoreResult<()> {
+        self.conn
+            .execute(
+                "UPDATE submissions SET status = ?2, error = ?3 WHERE id = ?1",
+                params![id, status, error],
+            )
+            .map_err(db_err)?;
+        Ok(())
+    }
+
+    /// Accept a stored submission with its timings in one transaction; returns the timings'
+    /// ids. `supersedes` names the submission this one corrects (kept, marked superseded).
+    pub fn accept(
+        &mut self,
+        id: i64,
+        edit_key: &str,
+        timings: &[TimingFields],
+        supersedes: Option<i64>,
+    ) -> StoreResult<Vec<i64>> {
+        let tx = self.conn.transaction().map_err(db_err)?;
+        tx.execute(
+            "UPDATE submissions SET status = 'accepted', edit_key = ?2, supersedes = ?3 WHERE id = ?1",
+            params![id, edit_key, supersedes],
+        )
+        .map_err(db_err)?;
+        if let Some(old) = supersedes {
+            tx.execute(
+                "UPDATE submissions SET superseded_by = ?2 WHERE id = ?1",
+                params![old, id],
+            )
+            .map_err(db_err)?;
+            tx.execute(
+                "INSERT INTO audit (at_utc, action, timing_id, reason) VALUES (?1, 'corrected', NULL, ?2)",
+                params![now_utc(), format!("submission {old} corrected by submission {id}")],
+            )
+            .map_err(db_err)?;
+        }
+        let mut ids = Vec::with_capacity(timings.len());
+        for t in timings {
+            let v = t.values();
+            tx.execute(
+                "INSERT INTO timings (submission_id, station, latitude, longitude, elevation_m, contact, time_utc, sigma_s, time_local, local_time, day_reckoning, longitude_sigma_deg) VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?11, ?12)",
+                params![id, v[0], v[1], v[2], v[3], v[4], v[5], v[6], v[7], v[8], v[9], v[10]],
+            )
+            .map_err(db_err)?;
+            ids.push(tx.last_insert_rowid());
+        }
+        tx.commit().map_err(db_err)?;
+        Ok(ids)
+    }
+
+    /// A submission's edit key, whether it is in force, and its timings' fields.
+    pub fn submission(&self, id: i64) -> StoreResult<Option<(String, bool, Vec<TimingFields>)>> {
+        let head: Option<(Option<String>, Option<i64>, String)> = self
+            .conn
+            .query_row(
+                "SELECT edit_key, superseded_by, status FROM submissions WHERE id = ?1",
+                params![id],
+                |r| Ok((r.get(0)?, r.get(1)?, r.get(2)?)),
+            )
+            .optional()
+            .map_err(db_err)?;
+        let Some((Some(key), superseded, status)) = head else {
+            return Ok(None);
+        };
+        let timings = self
+            .timings_where("t.submission_id = ?1", params![id])?
+            .into_iter()
+            .map(|t| t.fields)
+            .collect();
+        Ok(Some((
+            key,
+            superseded.is_none() && status == "accepted",
+            timings,
+        )))
+    }
+
+    fn timings_where(
+        &self,
+        clause: &str,
+        p: impl rusqlite::Params,
+    ) -> StoreResult<Vec<StoredTiming>> {
+        let sql = format!("SELECT t.id, t.submission_id, t.station, t.latitude, t.longitude, t.elevation_m, t.contact, t.time_utc, t.sigma_s, t.time_local, t.local_time, t.day_reckoning, t.longitude_sigma_deg, t.excluded_reason FROM timings t JOIN submissions s ON s.id = t.submission_id WHERE {clause} ORDER BY t.id");
+        let mut stmt = self.conn.prepare(&sql).map_err(db_err)?;
+        let rows = stmt
+            .query_map(p, |r| {
+                let f = |k: usize| r.get::<_, String>(k);
+                Ok(StoredTiming {
+                    id: r.get(0)?,
+                    submission_id: r.get(1)?,
+                    fields: TimingFields {
+                        station: f(2)?,
+                        latitude: f(3)?,
+                        longitude: f(4)?,
+                        elevation_m: f(5)?,
+                        contact: f(6)?,
+                        time_utc: f(7)?,
+                        sigma_s: f(8)?,
+                        time_local: f(9)?,
+                        local_time: f(10)?,
+                        day_reckoning: f(11)?,
+                        longitude_sigma_deg: f(12)?,
+                    },
+                    excluded: r.get(13)?,
+                })
+            })
+            .map_err(db_err)?;
+        rows.collect::<Result<Vec<_>, _>>().map_err(db_err)
+    }
+
+    /// Every timing of the submissions in force (not superseded), excluded ones included.
+    pub fn timings_in_force(&self) -> StoreResult<Vec<StoredTiming>> {
+        self.timings_where(
+            "s.status = 'accepted' AND s.superseded_by IS NULL",
+            params![],
+        )
+    }
+
+    /// Exclude (with a reason) or restore a timing; the audit trail keeps each action.
+    pub fn set_excluded(&mut self, timing_id: i64, reason: Option<&str>) -> StoreResult<bool> {
+        let tx = self.conn.transaction().map_err(db_err)?;
+        let n = tx
+            .execute(
+                "UPDATE timings SET excluded_reason = ?2 WHERE id = ?1",
+                params![timing_id, reason],
+            )
+            .map_err(db_err)?;
+        if n == 1 {
+            let action = if reason.is_some() {
+                "excluded"
+            } else {
+                "restored"
+            };
+            tx.execute(
+                "INSERT INTO audit (at_utc, action, timing_id, reason) VALUES (?1, ?2, ?3, ?4)",
+                params![now_utc(), action, timing_id, reason],
+            )
+            .map_err(db_err)?;
+        }
+        tx.commit().map_err(db_err)?;
+        Ok(n == 1)
+    }
+
+    /// Submissions by status: (accepted and in force, all stored, unreadable).
+    pub fn counts(&self) -> StoreResult<(i64, i64, i64)> {
+        let q = |sql: &str| -> StoreResult<i64> {
+            self.conn.query_row(sql, [], |r| r.get(0)).map_err(db_err)
+        };
+        Ok((
+            q("SELECT COUNT(*) FROM submissions WHERE status = 'accepted' AND superseded_by IS NULL")?,
+            q("SELECT COUNT(*) FROM submissions")?,
+            q("SELECT COUNT(*) FROM submissions WHERE status = 'unreadable'")?,
+        ))
+    }
+
+    /// Unreadable submissions: (id, time of arrival, reason), newest first, at most `limit`.
+    pub fn unreadable(&self, limit: i64) -> StoreResult<Vec<(i64, String, String)>> {
+        let mut stmt = self
+            .conn
+            .prepare("SELECT id, received_utc, COALESCE(error, '') FROM submissions WHERE status = 'unreadable' ORDER BY id DESC LIMIT ?1")
+            .map_err(db_err)?;
+        let rows = stmt
+            .query_map(params![limit], |r| Ok((r.get(0)?, r.get(1)?, r.get(2)?)))
+            .map_err(db_err)?;
+        rows.collect::<Result<Vec<_>, _>>().map_err(db_err)
+    }
+
+    /// The audit trail, newest first, at most `limit` entries.
+    pub fn audit(&self, limit: i64) -> StoreResult<Vec<AuditEntry>> {
+        let mut stmt = self
+            .conn
+            .prepare(
+                "SELECT at_utc, action, timing_id, reason FROM audit ORDER BY id DESC LIMIT ?1",
+            )
+            .map_err(db_err)?;
+        let rows = stmt
+            .query_map(params![limit], |r| {
+                Ok((r.get(0)?, r.get(1)?, r.get(2)?, r.get(3)?))
+            })
+            .map_err(db_err)?;
+        rows.collect::<Result<Vec<_>, _>>().map_err(db_err)
+    }
+
+    /// The database's own integrity check ("ok" when sound).
+    pub fn integrity_check(&self) -> StoreResult<String> {
+        self.conn
+            .query_row("PRAGMA integrity_check", [], |r| r.get(0))
+            .map_err(db_err)
+    }
+}
+
+/// The timings in force and not excluded as an observations file that `reduce` reads, each
+/// field CSV-quoted; returns the text and the timing id of each data line (line k + 2).
+pub fn export_csv(timings: &[StoredTiming]) -> (String, Vec<i64>) {
+    let mut s = EXPORT_COLUMNS.join(",");
+    s.push('\n');
+    let mut ids = Vec::new();
+    for t in timings.iter().filter(|t| t.excluded.is_none()) {
+        let fields: Vec<String> = t
+            .fields
+            .values()
+            .iter()
+            .map(|v| crate::render::text::csv_field(v))
+            .collect();
+        s.push_str(&fields.join(","));
+        s.push('\n');
+        ids.push(t.id);
+    }
+    (s, ids)
+}

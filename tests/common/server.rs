@@ -1,0 +1,152 @@
+//! Starting the service for a test (on 127.0.0.1, any free port, stopping by itself) and a
+//! minimal HTTP/1.1 client over a plain TCP stream, so that tests can also send what no
+//! well-behaved client would (oversized or non-UTF-8 bodies).
+
+use std::io::{BufRead, BufReader, Read, Write};
+use std::net::TcpStream;
+use std::process::{Child, Command, Stdio};
+use std::time::Duration;
+
+/// A running service: killed when dropped (it also stops by itself after a while).
+pub struct Server {
+    pub child: Child,
+    pub port: u16,
+    pub token: String,
+}
+
+impl Drop for Server {
+    fn drop(&mut self) {
+        let _ = self.child.kill();
+        let _ = self.child.wait();
+    }
+}
+
+/// Start `serve` for the transit of Venus of 2012 on `db`, with `extra` arguments; waits for
+/// its start-up lines.
+pub fn start(db: &std::path::Path, extra: &[&str]) -> Server {
+    let mut child = Command::new(env!("CARGO_BIN_EXE_transit-parallax"))
+        .args(["serve", "--planet", "venus", "--date", "2012-06-06", "--db"])
+        .arg(db)
+        .args(["--listen", "127.0.0.1:0", "--stop-after", "300"])
+        .args(extra)
+        .stderr(Stdio::piped())
+        .stdout(Stdio::null())
+        .spawn()
+        .expect("the server starts");
+    let stderr = child.stderr.take().expect("stderr");
+    let mut lines = BufReader::new(stderr).lines();
+    let mut port = 0;
+    let mut token = extra
+        .iter()
+        .position(|a| *a == "--token")
+        .and_then(|k| extra.get(k + 1))
+        .map_or(String::new(), |t| t.to_string());
+    for line in lines.by_ref().take(3) {
+        let line = line.expect("a line");
+        if let Some(rest) = line.strip_prefix("listening on http://127.0.0.1:") {
+            port = rest.trim().parse().expect("a port");
+        }
+        if let Some(t) = line.strip_prefix("organiser token: ") {
+            token = t.trim().to_string();
+        }
+        if port != 0 && !token.is_empty() {
+            break;
+        }
+    }
+    assert!(port != 0, "the server said where it listens");
+    // Keep draining stderr so that the server never blocks on a full pipe.
+    std::thread::spawn(move || for _ in lines {});
+    Server { child, port, token }
+}
+
+/// One HTTP response.
+pub struct Reply {
+    pub status: u16,
+    pub body: String,
+}
+
+impl Reply {
+    pub fn json(&self) -> serde_json::Value {
+        serde_json::from_str(&self.body).unwrap_or_else(|e| panic!("{e}: {}", self.body))
+    }
+}
+
+/// Send one request (`headers` as full lines) and read the whole reply.
+pub fn request(port: u16, method: &str, path: &str, headers: &[&str], body: &[u8]) -> Reply {
+    let mut s = TcpStream::connect(("127.0.0.1", port)).expect("connect");
+    s.set_read_timeout(Some(Duration::from_secs(60))).ok();
+    let mut head = format!("{method} {path} HTTP/1.1\r\nHost: 127.0.0.1\r\nConnection: close\r\nContent-Length: {}\r\n", body.len());
+    for h in headers {
+        head.push_str(h);
+        head.push_str("\r\n");
+    }
+    head.push_str("\r\n");
+    let _ = s.write_all(head.as_bytes());
+    let _ = s.write_all(body);
+    let mut raw = Vec::new();
+    let _ = s.read_to_end(&mut raw);
+    let text = String::from_utf8_lossy(&raw).into_owned();
+    let status = text
+        .split_whitespace()
+        .nth(1)
+        .and_then(|c| c.parse().ok())
+        .unwrap_or(0);
+    let body = match text.find("\r\n\r\n") {
+        Some(k) => text[k + 4..].to_string(),
+        None => String::new(),
+    };
+    // Chunked replies: join the chunks.
+    let body = if text[..text.find("\r\n\r\n").unwrap_or(0)]
+        .to_ascii_lowercase()
+        .contains("transfer-encoding: chunked")
+    {
+        dechunk(&body)
+    } else {
+        body
+    };
+    Reply { status, body }
+}
+
+fn dechunk(body: &str) -> String {
+    let mut out = String::new();
+    let mut rest = body;
+    while let Some(k) = rest.find("\r\n") {
+        let size = usize::from_str_radix(rest[..k].trim(), 16).unwrap_or(0);
+        if size == 0 {
+            break;
+        }
+        let start = k + 2;
+        let end = (start + size).min(rest.len());
+        out.push_str(&rest[start..end]);
+        rest = rest.get(end + 2..).unwrap_or("");
+    }
+    out
+}
+
+pub fn post_json(port: u16, path: &str, body: &str) -> Reply {
+    request(
+        port,
+        "POST",
+        path,
+        &["Content-Type: application/json"],
+        body.as_bytes(),
+    )
+}
+
+pub fn get(port: u16, path: &str, token: Option<&str>) -> Reply {
+    let auth = token.map(|t| format!("Authorization: Bearer {t}"));
+    let headers: Vec<&str> = auth.iter().map(String::as_str).collect();
+    request(port, "GET", path, &headers, b"")
+}
+
+/// The solution once the background reduction has caught up with every change.
+pub fn settled_solution(server: &Server) -> serde_json::Value {
+    for _ in 0..600 {
+        let v = get(server.port, "/api/solution", Some(&server.token)).json();
+        if v["pending"] == false {
+            return v;
+        }
+        std::thread::sleep(Duration::from_millis(100));
+    }
+    panic!("the solution did not settle within a minute");
+}

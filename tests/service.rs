@@ -1,0 +1,329 @@
+//! The pooled-submission service over HTTP on 127.0.0.1 (each server stops by itself): the
+//! routes of the stable interface, instant feedback on good and bad timings, the organiser's
+//! token, the export that `reduce` reads to the same solution, exclusions, corrections, and
+//! hostile input refused with the right status and nothing stored that should not be.
+
+mod common;
+
+use common::server::{get, post_json, request, settled_solution, start};
+use common::{err, out, run, temp};
+
+fn db(name: &str) -> std::path::PathBuf {
+    let dir = std::env::temp_dir().join(format!("tp-service-{}-{name}", std::process::id()));
+    let _ = std::fs::remove_dir_all(&dir);
+    std::fs::create_dir_all(&dir).unwrap();
+    dir.join("campaign.sqlite")
+}
+
+/// A station's timings as the simulator would give them: contacts II and III of a station
+/// in Hong Kong, from the tool's own prediction plus `error_s`.
+fn submission(name: &str, lat: f64, lon: f64, error_s: [f64; 2]) -> String {
+    let stations = temp(
+        &format!("st-{name}.csv"),
+        format!("station,latitude,longitude,elevation_m\n{name},{lat},{lon},0\n").as_bytes(),
+    );
+    let o = run(&[
+        "predict",
+        "--planet",
+        "venus",
+        "--date",
+        "2012-06-06",
+        "--stations",
+        &stations,
+        "--format",
+        "json",
+    ]);
+    let v: serde_json::Value = serde_json::from_str(&out(&o)).unwrap();
+    let mut timings = Vec::new();
+    for (k, c) in [2, 3].iter().enumerate() {
+        let row = v
+            .as_array()
+            .unwrap()
+            .iter()
+            .find(|r| r["contact"] == *c)
+            .unwrap();
+        let t = transit_parallax::time::iso::parse_utc(row["time_utc"].as_str().unwrap()).unwrap();
+        let t = t + chrono::TimeDelta::milliseconds((error_s[k] * 1000.0) as i64);
+        timings.push(serde_json::json!({ "contact": c, "time_utc": transit_parallax::time::iso::format_utc(t, 1), "sigma_s": 8 }));
+    }
+    serde_json::json!({ "station": name, "latitude": lat, "longitude": lon, "elevation_m": 0, "timings": timings }).to_string()
+}
+
+/// Network stations that see both interior contacts of 2012.
+const STATIONS: [(&str, f64, f64); 6] = [
+    ("Jade Harbour School", 22.28, 114.16),
+    ("Kestrel Point Observatory", 64.84, -147.72),
+    ("Driftwood Bay School", 21.31, -157.86),
+    ("Harbour Hill Club", -33.87, 151.21),
+    ("Coral Reach School", 13.44, 144.79),
+    ("Cedar Valley Station", 35.01, 135.77),
+];
+
+#[test]
+fn submissions_get_feedback_and_the_export_reduces_to_the_same_solution() {
+    let server = start(&db("main"), &[]);
+    let port = server.port;
+    assert!(server.token.chars().all(|c| c.is_ascii_alphanumeric()) && server.token.len() >= 16);
+    for (k, (name, lat, lon)) in STATIONS.iter().enumerate() {
+        let e = (k as f64 - 2.5) * 3.0;
+        let r = post_json(
+            port,
+            "/api/submissions",
+            &submission(name, *lat, *lon, [e, -e]),
+        );
+        assert_eq!(r.status, 201, "{}", r.body);
+        let v = r.json();
+        assert!(v["submission_id"].as_i64().unwrap() > 0);
+        for t in v["timings"].as_array().unwrap() {
+            assert_eq!(t["verdict"], "fits", "{t}");
+            assert!(t["predicted_utc"].as_str().unwrap().ends_with('Z'));
+            assert!(t["o_c_s"].as_f64().unwrap().abs() < 20.0);
+            assert!(t["sun_altitude_deg"].as_f64().unwrap() > 0.0);
+        }
+    }
+    // A blunder: the time zone (+8 h) left in.
+    let blunder = submission(
+        "Pearl Shore Club",
+        22.3,
+        114.2,
+        [8.0 * 3600.0, 8.0 * 3600.0],
+    );
+    let v = post_json(port, "/api/submissions", &blunder).json();
+    let t = &v["timings"][0];
+    assert_eq!(t["verdict"], "rejected", "{t}");
+    assert!(t["diagnosis"].as_str().unwrap().contains("zone"), "{t}");
+    // The same again is recognised, not counted twice.
+    let again = post_json(port, "/api/submissions", &blunder);
+    assert_eq!(again.status, 200);
+    assert!(again.json()["duplicate_of"].is_i64());
+    // The organiser's routes need the token.
+    assert_eq!(get(port, "/api/solution", None).status, 401);
+    assert_eq!(get(port, "/api/export.csv", Some("wrong")).status, 401);
+    assert_eq!(get(port, "/organiser", None).status, 401);
+    let solution = settled_solution(&server);
+    assert_eq!(solution["submissions"], 7);
+    assert_eq!(solution["timings_total"], 14);
+    // The export reduces to the same solution as the service's.
+    let export = get(port, "/api/export.csv", Some(&server.token));
+    assert_eq!(export.status, 200);
+    let path = temp("export.csv", export.body.as_bytes());
+    let o = run(&[
+        "reduce",
+        &path,
+        "--planet",
+        "venus",
+        "--date",
+        "2012-06-06",
+        "--format",
+        "json",
+    ]);
+    assert!(o.status.success(), "{}", err(&o));
+    let direct: serde_json::Value = serde_json::from_str(&out(&o)).unwrap();
+    for key in [
+        "parallax_arcsec",
+        "parallax_sigma_arcsec",
+        "au_km",
+        "timings_used",
+        "chi2",
+    ] {
+        assert_eq!(direct[key], solution[key], "{key}");
+    }
+    assert!(direct["rejected"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .any(|r| r["station"] == "Pearl Shore Club"));
+}
+
+#[test]
+fn hostile_input_is_refused_and_nothing_is_rendered_raw() {
+    let server = start(&db("hostile"), &["--token", "organiser1"]);
+    let port = server.port;
+    // Over the body limit: 413.
+    let big = vec![b' '; 300 * 1024];
+    assert_eq!(
+        request(
+            port,
+            "POST",
+            "/api/submissions",
+            &["Content-Type: application/json"],
+            &big
+        )
+        .status,
+        413
+    );
+    // Not UTF-8, not JSON, no station: 400 with an error, stored as unreadable.
+    for body in [
+        &b"\xff\xfe{\"station\""[..],
+        b"{not json",
+        b"{\"timings\":[]}",
+    ] {
+        let r = request(
+            port,
+            "POST",
+            "/api/submissions",
+            &["Content-Type: application/json"],
+            body,
+        );
+        assert_eq!(r.status, 400, "{}", r.body);
+        assert!(r.json()["error"].is_string());
+    }
+    // Markup and script in every field: stored, and only ever shown escaped.
+    let evil = "<script>alert(1)</script>";
+    let body = serde_json::json!({ "station": evil, "latitude": evil, "longitude": evil, "elevation_m": evil,
+        "timings": [{ "contact": evil, "time_utc": evil, "sigma_s": evil }] }).to_string();
+    let r = post_json(port, "/api/submissions", &body);
+    assert_eq!(r.status, 201, "{}", r.body);
+    assert_eq!(r.json()["timings"][0]["verdict"], "rejected");
+    // A forged form without its anti-forgery token: refused, nothing stored.
+    let before = settled_solution(&server)["submissions"].clone();
+    let forged = request(
+        port,
+        "POST",
+        "/submit",
+        &["Content-Type: application/x-www-form-urlencoded"],
+        b"station=Forged&contact0=2&time_utc0=2012-06-05T22%3A30%3A00Z",
+    );
+    assert_eq!(forged.status, 403);
+    let forged_exclude = request(
+        port,
+        "POST",
+        "/organiser/exclude",
+        &["Content-Type: application/x-www-form-urlencoded"],
+        b"token=organiser1&timing=1&reason=x",
+    );
+    assert_eq!(forged_exclude.status, 403);
+    assert_eq!(settled_solution(&server)["submissions"], before);
+    let page = get(port, "/organiser?token=organiser1", None);
+    assert_eq!(page.status, 200);
+    assert!(
+        !page.body.contains(evil),
+        "raw markup on the organiser's page"
+    );
+    assert!(page.body.contains("&lt;script&gt;"));
+    assert!(page.body.contains("could not be read"));
+    let form = get(port, "/", None).body;
+    assert!(
+        form.contains("certified solar filter")
+            && !form.contains("http://")
+            && !form.contains("https://")
+    );
+}
+
+#[test]
+fn the_organiser_excludes_and_restores_and_participants_correct() {
+    let server = start(&db("organiser"), &[]);
+    let port = server.port;
+    for (name, lat, lon) in STATIONS {
+        assert_eq!(
+            post_json(
+                port,
+                "/api/submissions",
+                &submission(name, lat, lon, [2.0, -3.0])
+            )
+            .status,
+            201
+        );
+    }
+    let first = settled_solution(&server);
+    let csrf = {
+        let page = get(port, "/", None).body;
+        let k = page.find("name=\"csrf\" value=\"").unwrap() + 19;
+        page[k..k + 32].to_string()
+    };
+    let token = server.token.clone();
+    let form = format!("token={token}&csrf={csrf}&timing=1&reason=clock+doubtful");
+    let r = request(
+        port,
+        "POST",
+        "/organiser/exclude",
+        &["Content-Type: application/x-www-form-urlencoded"],
+        form.as_bytes(),
+    );
+    assert_eq!(r.status, 303, "{}", r.body);
+    let after = settled_solution(&server);
+    assert_eq!(
+        after["timings_total"].as_i64().unwrap(),
+        first["timings_total"].as_i64().unwrap() - 1
+    );
+    let page = get(port, &format!("/organiser?token={token}"), None).body;
+    assert!(page.contains("clock doubtful") && page.contains("excluded"));
+    let form = format!("token={token}&csrf={csrf}&timing=1");
+    assert_eq!(
+        request(
+            port,
+            "POST",
+            "/organiser/restore",
+            &["Content-Type: application/x-www-form-urlencoded"],
+            form.as_bytes()
+        )
+        .status,
+        303
+    );
+    assert_eq!(
+        settled_solution(&server)["timings_total"],
+        first["timings_total"]
+    );
+    // A participant corrects a submission through the private link: a new version.
+    let v = post_json(
+        port,
+        "/api/submissions",
+        &submission("Late Club", 22.3, 114.2, [300.0, 0.0]),
+    )
+    .json();
+    let link = v["review"].as_str().unwrap().to_string();
+    let id = v["submission_id"].as_i64().unwrap();
+    let review = get(port, &link, None);
+    assert_eq!(review.status, 200);
+    assert!(review.body.contains("Late Club"));
+    assert_eq!(
+        get(port, &format!("/submission/{id}?key=wrong"), None).status,
+        404
+    );
+    let key = link.split("key=").nth(1).unwrap();
+    let corrected = format!("csrf={csrf}&key={key}&station=Late+Club&latitude=22.3&longitude=114.2&contact0=3&time_utc0=2012-06-06T04%3A36%3A00Z&sigma_s0=8");
+    let r = request(
+        port,
+        "POST",
+        &format!("/submission/{id}"),
+        &["Content-Type: application/x-www-form-urlencoded"],
+        corrected.as_bytes(),
+    );
+    assert_eq!(r.status, 201, "{}", r.body);
+    assert!(r.body.contains("Received and stored as submission"));
+    let old = get(port, &link, None).body;
+    assert!(old.contains("corrected by a later one"));
+}
+
+#[test]
+fn the_service_listens_only_here_unless_told() {
+    let o = run(&[
+        "serve",
+        "--planet",
+        "venus",
+        "--date",
+        "2012-06-06",
+        "--db",
+        db("public").to_str().unwrap(),
+        "--listen",
+        "0.0.0.0:0",
+        "--stop-after",
+        "1",
+    ]);
+    assert_eq!(o.status.code(), Some(2));
+    assert!(err(&o).contains("--public"), "{}", err(&o));
+    let o = run(&[
+        "serve",
+        "--planet",
+        "venus",
+        "--date",
+        "2012-06-06",
+        "--db",
+        db("tok").to_str().unwrap(),
+        "--token",
+        "not-ok!",
+        "--stop-after",
+        "1",
+    ]);
+    assert_eq!(o.status.code(), Some(2));
+}
