@@ -365,6 +365,16 @@ impl Store {
         rows.collect::<Result<Vec<_>, _>>().map_err(db_err)
     }
 
+    /// The content hashes of the accepted submissions, in order of arrival.
+    pub fn accepted_hashes(&self) -> StoreResult<Vec<String>> {
+        let mut stmt = self
+            .conn
+            .prepare("SELECT content_hash FROM submissions WHERE status = 'accepted' ORDER BY id")
+            .map_err(db_err)?;
+        let rows = stmt.query_map([], |r| r.get(0)).map_err(db_err)?;
+        rows.collect::<Result<Vec<_>, _>>().map_err(db_err)
+    }
+
     /// The database's own integrity check ("ok" when sound).
     pub fn integrity_check(&self) -> StoreResult<String> {
         self.conn
