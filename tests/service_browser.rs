@@ -1,0 +1,237 @@
+//! The service in a real browser: Debian's chromium driven through chromium-driver
+//! (WebDriver, the `fantoccini` crate) fills the participant's form, submits a good timing
+//! and a blunder and reads the feedback from the page, then opens the organiser's page with
+//! the token and sees the row counts and the solution change. A screenshot of each page is
+//! written under target/ for review. Every server and driver listens on 127.0.0.1 and stops
+//! by itself. Without chromium and chromedriver the test says SKIPPED (CI installs both).
+
+mod common;
+
+use common::server::{post_json, settled_solution, start, Server};
+use fantoccini::{Client, ClientBuilder, Locator};
+use std::path::{Path, PathBuf};
+use std::process::{Child, Command, Stdio};
+use std::time::Duration;
+
+fn which(name: &str) -> Option<PathBuf> {
+    ["/usr/bin", "/usr/local/bin", "/usr/lib/chromium"]
+        .iter()
+        .map(|d| Path::new(d).join(name))
+        .find(|p| p.exists())
+}
+
+/// chromedriver on a free loopback port, killed when dropped.
+struct Driver(Child, u16);
+
+impl Drop for Driver {
+    fn drop(&mut self) {
+        let _ = self.0.kill();
+        let _ = self.0.wait();
+    }
+}
+
+fn start_driver(path: &Path) -> Driver {
+    let port = std::net::TcpListener::bind("127.0.0.1:0")
+        .and_then(|l| l.local_addr())
+        .unwrap()
+        .port();
+    let child = Command::new(path)
+        .args([format!("--port={port}"), "--allowed-ips=127.0.0.1".into()])
+        .stdout(Stdio::null())
+        .stderr(Stdio::null())
+        .spawn()
+        .expect("chromedriver starts");
+    for _ in 0..100 {
+        if std::net::TcpStream::connect(("127.0.0.1", port)).is_ok() {
+            break;
+        }
+        std::thread::sleep(Duration::from_millis(100));
+    }
+    Driver(child, port)
+}
+
+async fn browser(driver: &Driver, chromium: &Path, profile: &Path) -> Client {
+    let mut caps = serde_json::Map::new();
+    caps.insert(
+        "goog:chromeOptions".into(),
+        serde_json::json!({
+            "binary": chromium,
+            "args": ["--headless", "--no-sandbox", "--disable-gpu", "--disable-dev-shm-usage",
+                "--disable-quic", "--no-first-run", "--disable-background-networking",
+                "--disable-component-update", "--disable-sync", "--window-size=1100,1400",
+                format!("--user-data-dir={}", profile.display())]
+        }),
+    );
+    let connector = hyper_util::client::legacy::connect::HttpConnector::new();
+    ClientBuilder::new(connector)
+        .capabilities(caps)
+        .connect(&format!("http://127.0.0.1:{}", driver.1))
+        .await
+        .expect("a WebDriver session")
+}
+
+async fn fill(c: &Client, id: &str, text: &str) {
+    let e = c.find(Locator::Id(id)).await.expect(id);
+    e.clear().await.ok();
+    e.send_keys(text).await.expect(id);
+}
+
+async fn screenshot(c: &Client, name: &str) {
+    let png = c.screenshot().await.expect("a screenshot");
+    let dir = Path::new(env!("CARGO_MANIFEST_DIR")).join("target");
+    std::fs::create_dir_all(&dir).ok();
+    std::fs::write(dir.join(name), png).expect("written");
+}
+
+/// Fill the participant's form for one timing of contact II and send it; the feedback
+/// table's text.
+async fn send_form(c: &Client, base: &str, station: (&str, &str, &str), time: &str) -> String {
+    c.goto(&format!("{base}/")).await.expect("the form");
+    fill(c, "station", station.0).await;
+    fill(c, "latitude", station.1).await;
+    fill(c, "longitude", station.2).await;
+    fill(c, "contact0", "II").await;
+    fill(c, "time_utc0", time).await;
+    fill(c, "sigma_s0", "8").await;
+    c.find(Locator::Id("send"))
+        .await
+        .expect("send")
+        .click()
+        .await
+        .expect("sent");
+    let found = c
+        .wait()
+        .at_most(Duration::from_secs(20))
+        .for_element(Locator::Id("feedback"))
+        .await;
+    match found {
+        Ok(e) => e.text().await.expect("text"),
+        Err(e) => {
+            screenshot(c, "service-participant-failed.png").await;
+            panic!("{e}: {}", c.source().await.unwrap_or_default());
+        }
+    }
+}
+
+async fn organiser_counts(c: &Client, base: &str, token: &str) -> (String, String) {
+    c.goto(&format!("{base}/organiser?token={token}"))
+        .await
+        .expect("the organiser's page");
+    let n = c
+        .find(Locator::Id("n-timings"))
+        .await
+        .expect("counts")
+        .text()
+        .await
+        .unwrap();
+    let p = c
+        .find(Locator::Id("parallax"))
+        .await
+        .expect("solution")
+        .text()
+        .await
+        .unwrap();
+    (n, p)
+}
+
+/// The predicted time of a contact (1-4) of 2012 at a station, shifted by `shift_s`.
+fn predicted(lat: f64, lon: f64, contact: usize, shift_s: f64) -> String {
+    let event = transit_parallax::transit_on_date(
+        transit_parallax::Planet::Venus,
+        transit_parallax::time::iso::parse_date("2012-06-06").unwrap(),
+        &transit_parallax::TimeModel::default(),
+    )
+    .unwrap();
+    let st = transit_parallax::Station {
+        name: "s".into(),
+        latitude_deg: lat,
+        longitude_deg: lon,
+        elevation_m: 0.0,
+    };
+    let c = event.predict(&st).contacts[contact - 1].unwrap();
+    let t = event.label(c.hours) + chrono::TimeDelta::milliseconds((shift_s * 1000.0) as i64);
+    transit_parallax::time::iso::format_utc(t, 1)
+}
+
+/// Five stations' contacts II and III through the API, so that a solution exists.
+fn seed(server: &Server) {
+    let stations = [
+        ("Kestrel Point", 64.84, -147.72),
+        ("Driftwood Bay", 21.31, -157.86),
+        ("Cedar Valley", 35.01, 135.77),
+        ("Harbour Hill", -33.87, 151.21),
+        ("Coral Reach", 13.44, 144.79),
+    ];
+    for (k, (name, lat, lon)) in stations.into_iter().enumerate() {
+        let e = 4.0 * (k as f64 - 2.0);
+        let (t2, t3) = (predicted(lat, lon, 2, e), predicted(lat, lon, 3, -e));
+        let body = serde_json::json!({ "station": name, "latitude": lat, "longitude": lon,
+            "timings": [{ "contact": 2, "time_utc": t2, "sigma_s": 8 }, { "contact": 3, "time_utc": t3, "sigma_s": 8 }] });
+        assert_eq!(
+            post_json(server.port, "/api/submissions", &body.to_string()).status,
+            201
+        );
+    }
+}
+
+#[test]
+fn a_participant_and_the_organiser_in_a_real_browser() {
+    let (Some(chromium), Some(driver_path)) = (which("chromium"), which("chromedriver")) else {
+        eprintln!("SKIPPED: chromium and chromedriver are not installed (CI installs Debian's chromium and chromium-driver and runs this test)");
+        return;
+    };
+    let dir = std::env::temp_dir().join(format!("tp-service-browser-{}", std::process::id()));
+    let _ = std::fs::remove_dir_all(&dir);
+    std::fs::create_dir_all(&dir).unwrap();
+    let server = start(&dir.join("campaign.sqlite"), &["--token", "organiser7"]);
+    seed(&server);
+    let driver = start_driver(&driver_path);
+    let base = format!("http://127.0.0.1:{}", server.port);
+    let runtime = tokio::runtime::Builder::new_current_thread()
+        .enable_all()
+        .build()
+        .unwrap();
+    runtime.block_on(async {
+        let c = browser(&driver, &chromium, &dir.join("profile")).await;
+        let good = send_form(
+            &c,
+            &base,
+            ("Jade Harbour School", "22.28", "114.16"),
+            &predicted(22.28, 114.16, 2, 5.0),
+        )
+        .await;
+        screenshot(&c, "service-participant-good.png").await;
+        assert!(good.contains("fits"), "{good}");
+        let blunder = send_form(
+            &c,
+            &base,
+            ("Pearl Shore Club", "22.30", "114.20"),
+            // Hong Kong's zone time (+8 h) left in.
+            &predicted(22.3, 114.2, 2, 8.0 * 3600.0),
+        )
+        .await;
+        screenshot(&c, "service-participant-blunder.png").await;
+        assert!(
+            blunder.contains("rejected") && blunder.contains("zone"),
+            "{blunder}"
+        );
+        settled_solution(&server);
+        let (n1, p1) = organiser_counts(&c, &base, "organiser7").await;
+        screenshot(&c, "service-organiser.png").await;
+        assert_eq!(n1, "12", "{n1}");
+        assert!(p1.contains('"'), "a parallax on the page: {p1}");
+        send_form(
+            &c,
+            &base,
+            ("Lantern Hill", "35.68", "139.69"),
+            &predicted(35.68, 139.69, 2, -6.0),
+        )
+        .await;
+        settled_solution(&server);
+        let (n2, p2) = organiser_counts(&c, &base, "organiser7").await;
+        screenshot(&c, "service-organiser-after.png").await;
+        assert_eq!(n2, "13");
+        assert_ne!(p1, p2, "the solution changed with the new timing");
+        c.close().await.ok();
+    });
+}
