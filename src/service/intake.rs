@@ -5,6 +5,12 @@
 use super::store::TimingFields;
 use serde_json::Value;
 
+/// A contact as sent, written as its number where it reads as one (`II` -> `2`), else as
+/// sent (the reduction then says why it cannot be read).
+fn contact_number(text: String) -> String {
+    crate::geometry::contacts::Contact::parse(&text).map_or(text, |c| c.number().to_string())
+}
+
 /// A JSON value as the text a CSV field would hold: strings as they are, numbers as written,
 /// null or absent as empty; anything else is refused with the key named.
 fn text_of(v: Option<&Value>, key: &str) -> Result<String, String> {
@@ -48,7 +54,7 @@ pub fn from_json(body: &[u8]) -> Result<Vec<TimingFields>, String> {
         .map(|t| {
             let t = t.as_object().ok_or("each timing must be a JSON object")?;
             Ok(TimingFields {
-                contact: text_of(t.get("contact"), "contact")?,
+                contact: contact_number(text_of(t.get("contact"), "contact")?),
                 time_utc: text_of(t.get("time_utc"), "time_utc")?,
                 sigma_s: text_of(t.get("sigma_s"), "sigma_s")?,
                 time_local: text_of(t.get("time_local"), "time_local")?,
@@ -86,7 +92,7 @@ fn from_csv(text: &str) -> Result<Vec<TimingFields>, String> {
             latitude: get("latitude"),
             longitude: get("longitude"),
             elevation_m: get("elevation_m"),
-            contact: get("contact"),
+            contact: contact_number(get("contact")),
             time_utc: get("time_utc"),
             sigma_s: get("sigma_s"),
             time_local: get("time_local"),
@@ -130,7 +136,7 @@ pub fn from_form(form: &[(String, String)]) -> Result<Vec<TimingFields>, String>
     };
     let rows: Vec<TimingFields> = (0..4)
         .map(|k| TimingFields {
-            contact: get(&format!("contact{k}")),
+            contact: contact_number(get(&format!("contact{k}"))),
             time_utc: get(&format!("time_utc{k}")),
             time_local: get(&format!("time_local{k}")),
             local_time: get(&format!("local_time{k}")),
@@ -143,4 +149,50 @@ pub fn from_form(form: &[(String, String)]) -> Result<Vec<TimingFields>, String>
         return Err("give at least one timing: a contact and its time".into());
     }
     Ok(rows)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn contacts_are_written_as_numbers_and_bad_bodies_are_explained() {
+        let body = br#"{"station":"A","latitude":10,"longitude":"20.5","timings":[{"contact":"IV","time_utc":"2012-06-06T04:40:00Z"},{"contact":"C9","time_utc":"x"}]}"#;
+        let t = from_json(body).unwrap();
+        assert_eq!(
+            (
+                t[0].contact.as_str(),
+                t[0].latitude.as_str(),
+                t[0].longitude.as_str()
+            ),
+            ("4", "10", "20.5")
+        );
+        assert_eq!(t[1].contact, "C9");
+        for (bad, why) in [
+            (&b"\xff"[..], "UTF-8"),
+            (b"[1]", "object"),
+            (b"{\"station\":\"\",\"timings\":[{}]}", "station"),
+            (b"{\"station\":\"A\",\"timings\":[]}", "timings"),
+            (
+                b"{\"station\":\"A\",\"latitude\":[1],\"timings\":[{}]}",
+                "latitude",
+            ),
+        ] {
+            assert!(from_json(bad).unwrap_err().contains(why), "{why}");
+        }
+        let form: Vec<(String, String)> = [
+            ("station", "B"),
+            ("contact0", "ii"),
+            ("time_utc0", "2012-06-05T22:30:00Z"),
+            ("contact1", ""),
+            ("time_utc1", ""),
+        ]
+        .iter()
+        .map(|(a, b)| (a.to_string(), b.to_string()))
+        .collect();
+        let t = from_form(&form).unwrap();
+        assert_eq!(t.len(), 1);
+        assert_eq!(t[0].contact, "2");
+        assert!(from_form(&[]).is_err());
+    }
 }
