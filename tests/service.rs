@@ -5,7 +5,7 @@
 
 mod common;
 
-use common::server::{get, post_json, request, settled_solution, start};
+use common::server::{assert_export_reduces_to, get, post_json, request, settled_solution, start};
 use common::{err, out, run, temp};
 
 fn db(name: &str) -> std::path::PathBuf {
@@ -104,30 +104,7 @@ fn submissions_get_feedback_and_the_export_reduces_to_the_same_solution() {
     assert_eq!(solution["submissions"], 7);
     assert_eq!(solution["timings_total"], 14);
     // The export reduces to the same solution as the service's.
-    let export = get(port, "/api/export.csv", Some(&server.token));
-    assert_eq!(export.status, 200);
-    let path = temp("export.csv", export.body.as_bytes());
-    let o = run(&[
-        "reduce",
-        &path,
-        "--planet",
-        "venus",
-        "--date",
-        "2012-06-06",
-        "--format",
-        "json",
-    ]);
-    assert!(o.status.success(), "{}", err(&o));
-    let direct: serde_json::Value = serde_json::from_str(&out(&o)).unwrap();
-    for key in [
-        "parallax_arcsec",
-        "parallax_sigma_arcsec",
-        "au_km",
-        "timings_used",
-        "chi2",
-    ] {
-        assert_eq!(direct[key], solution[key], "{key}");
-    }
+    let direct = assert_export_reduces_to(&server, &solution);
     assert!(direct["rejected"]
         .as_array()
         .unwrap()

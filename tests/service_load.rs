@@ -6,8 +6,7 @@
 
 mod common;
 
-use common::server::{get, post_json, settled_solution, start};
-use common::{err, out, run, temp};
+use common::server::{assert_export_reduces_to, post_json, settled_solution, start};
 use std::sync::Mutex;
 use std::time::{Duration, Instant};
 use transit_parallax::planning::simulation::global_stations;
@@ -132,28 +131,7 @@ fn twenty_thousand_timings_from_two_hundred_clients() {
     stored.sort();
     assert_eq!(sent, stored);
     // The export reduces to the service's own solution.
-    let export = get(server.port, "/api/export.csv", Some(&server.token)).body;
-    let file = temp("load-export.csv", export.as_bytes());
-    let o = run(&[
-        "reduce",
-        &file,
-        "--planet",
-        "venus",
-        "--date",
-        "2012-06-06",
-        "--format",
-        "json",
-    ]);
-    assert!(o.status.success(), "{}", err(&o));
-    let direct: serde_json::Value = serde_json::from_str(&out(&o)).unwrap();
-    for key in [
-        "parallax_arcsec",
-        "parallax_sigma_arcsec",
-        "timings_used",
-        "chi2",
-    ] {
-        assert_eq!(direct[key], solution[key], "{key}");
-    }
+    assert_export_reduces_to(&server, &solution);
 }
 
 #[test]

@@ -41,7 +41,7 @@ use super::statistics::{statistics, FitStatistics};
 use crate::geometry::contacts::Contact;
 use crate::geometry::transit::TransitEvent;
 use crate::observations::longitude::LongitudeKnowledge;
-use crate::sky::constants::au_km_from_parallax_arcsec;
+use crate::sky::constants::au_and_sigma_km;
 use serde::Serialize;
 
 /// Which method a solution follows.
@@ -119,20 +119,17 @@ impl MethodSolution {
         (timings, stations): (usize, usize),
         note: Option<String>,
     ) -> Self {
-        let bounded = pi - sigma > 0.0;
+        let au = au_and_sigma_km(pi, sigma);
         MethodSolution {
             method,
             parallax_arcsec: Some(pi),
             parallax_sigma_arcsec: Some(sigma),
-            au_km: bounded.then(|| au_km_from_parallax_arcsec(pi)),
-            au_sigma_km: bounded.then(|| {
-                0.5 * (au_km_from_parallax_arcsec(pi - sigma)
-                    - au_km_from_parallax_arcsec(pi + sigma))
-            }),
+            au_km: au.map(|a| a.0),
+            au_sigma_km: au.map(|a| a.1),
             timings_used: timings,
             stations_used: stations,
             note: note.or_else(|| {
-                (!bounded).then(|| {
+                au.is_none().then(|| {
                     "the parallax's one-sigma range reaches zero, so no AU is given".to_string()
                 })
             }),

@@ -30,7 +30,7 @@ use crate::geometry::besselian::check_parallax;
 use crate::geometry::transit::{transit_on_date, TransitEvent};
 use crate::observations::longitude::LongitudeKnowledge;
 use crate::observations::timings::{Observation, ObservationSet, RejectReason, Rejected};
-use crate::sky::constants::au_km_from_parallax_arcsec;
+use crate::sky::constants::{au_and_sigma_km, au_km_from_parallax_arcsec};
 use crate::sky::ephemeris::Planet;
 use crate::time::scales::TimeModel;
 
@@ -249,13 +249,12 @@ fn headline_into(red: &mut Reduction, coverage_factor_95: f64) {
     red.parallax_sigma_arcsec = Some(s);
     // A parallax is positive: the interval is clipped at zero.
     red.parallax_interval_95 = Some(((pi - k * s).max(0.0), pi + k * s));
-    if pi - s <= 0.0 {
+    let Some((au, au_sigma)) = au_and_sigma_km(pi, s) else {
         red.warnings.push(AU_UNBOUNDED.into());
         return;
-    }
-    red.au_km = Some(au_km_from_parallax_arcsec(pi));
-    red.au_sigma_km =
-        Some(0.5 * (au_km_from_parallax_arcsec(pi - s) - au_km_from_parallax_arcsec(pi + s)));
+    };
+    red.au_km = Some(au);
+    red.au_sigma_km = Some(au_sigma);
     red.au_interval_95_km = Some((
         au_km_from_parallax_arcsec(pi + k * s),
         (pi - k * s > 0.0).then(|| au_km_from_parallax_arcsec(pi - k * s)),

@@ -68,6 +68,20 @@ pub fn au_km_from_parallax_arcsec(parallax_arcsec: f64) -> f64 {
     EARTH_EQUATORIAL_RADIUS_M / 1000.0 / (parallax_arcsec * ARCSEC_RAD).sin()
 }
 
+/// The AU (km) and its standard uncertainty (km) from a parallax and its uncertainty
+/// (arcsec): a_e / sin(pi), and half the width of the exact image of pi -+ sigma (to first
+/// order AU cot(pi) sigma_pi, from which it differs by (sigma/pi)^2 relatively); `None` when
+/// pi - sigma reaches zero, where the parallax sets no upper bound on the AU.
+pub fn au_and_sigma_km(parallax_arcsec: f64, sigma_arcsec: f64) -> Option<(f64, f64)> {
+    (parallax_arcsec - sigma_arcsec > 0.0).then(|| {
+        let au = au_km_from_parallax_arcsec;
+        (
+            au(parallax_arcsec),
+            0.5 * (au(parallax_arcsec - sigma_arcsec) - au(parallax_arcsec + sigma_arcsec)),
+        )
+    })
+}
+
 /// The solar parallax of the IAU 2009/2012 system, arcseconds: asin(6378.1366 km / AU).
 pub fn nominal_parallax_arcsec() -> f64 {
     parallax_arcsec_from_au_km(AU_KM)

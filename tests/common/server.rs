@@ -156,3 +156,39 @@ pub fn settled_solution(server: &Server) -> serde_json::Value {
     }
     panic!("the solution did not settle within a minute");
 }
+
+/// The organiser's export, reduced by the binary: the same figures as the service's own
+/// `solution` (the export is what the service reduces); returns the direct reduction.
+pub fn assert_export_reduces_to(
+    server: &Server,
+    solution: &serde_json::Value,
+) -> serde_json::Value {
+    let export = get(server.port, "/api/export.csv", Some(&server.token));
+    assert_eq!(export.status, 200);
+    let path = super::temp(
+        &format!("export-{}.csv", server.port),
+        export.body.as_bytes(),
+    );
+    let o = super::run(&[
+        "reduce",
+        &path,
+        "--planet",
+        "venus",
+        "--date",
+        "2012-06-06",
+        "--format",
+        "json",
+    ]);
+    assert!(o.status.success(), "{}", super::err(&o));
+    let direct: serde_json::Value = serde_json::from_str(&super::out(&o)).expect("JSON");
+    for key in [
+        "parallax_arcsec",
+        "parallax_sigma_arcsec",
+        "au_km",
+        "timings_used",
+        "chi2",
+    ] {
+        assert_eq!(direct[key], solution[key], "{key}");
+    }
+    direct
+}
