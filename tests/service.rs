@@ -304,3 +304,44 @@ fn the_service_listens_only_here_unless_told() {
     ]);
     assert_eq!(o.status.code(), Some(2));
 }
+
+/// An observations file sent as a multipart form (no script needed): stored, read and
+/// answered with its feedback; without the form's anti-forgery token refused.
+#[test]
+fn an_observations_file_can_be_uploaded() {
+    let server = start(&db("upload"), &[]);
+    let port = server.port;
+    let page = get(port, "/", None).body;
+    assert!(page.contains("enctype=\"multipart/form-data\"") && !page.contains("<script"));
+    let k = page.find("name=\"csrf\" value=\"").unwrap() + 19;
+    let csrf = &page[k..k + 32];
+    let file = "station,latitude,longitude,elevation_m,contact,time_utc,sigma_s\nJade Harbour School,22.28,114.16,40,II,2012-06-05T22:29:40Z,8\n";
+    let multipart = |token: &str| {
+        format!(
+            "--XyZ\r\nContent-Disposition: form-data; name=\"csrf\"\r\n\r\n{token}\r\n--XyZ\r\nContent-Disposition: form-data; name=\"file\"; filename=\"t.csv\"\r\nContent-Type: text/csv\r\n\r\n{file}\r\n--XyZ--\r\n"
+        )
+    };
+    let headers = ["Content-Type: multipart/form-data; boundary=XyZ"];
+    let r = request(
+        port,
+        "POST",
+        "/upload",
+        &headers,
+        multipart(csrf).as_bytes(),
+    );
+    assert_eq!(r.status, 201, "{}", r.body);
+    assert!(
+        r.body.contains("Jade Harbour School") && r.body.contains("fits"),
+        "{}",
+        r.body
+    );
+    let r = request(
+        port,
+        "POST",
+        "/upload",
+        &headers,
+        multipart("forged").as_bytes(),
+    );
+    assert_eq!(r.status, 403);
+    assert_eq!(settled_solution(&server)["submissions"], 1);
+}

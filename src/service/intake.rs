@@ -66,6 +66,15 @@ pub fn from_json(body: &[u8]) -> Result<Vec<TimingFields>, String> {
         .collect()
 }
 
+/// The timings of an uploaded observations file (UTF-8 text).
+///
+/// Errors: a sentence saying what is wrong with the file.
+pub fn from_csv_bytes(bytes: &[u8]) -> Result<Vec<TimingFields>, String> {
+    let text =
+        std::str::from_utf8(bytes).map_err(|e| format!("the file is not UTF-8 text ({e})"))?;
+    from_csv(text)
+}
+
 /// The timings of a pasted observations file: columns by header name, any of the export's.
 fn from_csv(text: &str) -> Result<Vec<TimingFields>, String> {
     let mut reader = csv::ReaderBuilder::new()

@@ -1,7 +1,7 @@
 //! The service's pages for people: the participant's form and feedback, the review of one's
-//! own submission, and the organiser's page. Plain HTML that works without JavaScript (one
-//! small script only reads a chosen file into the text box), nothing fetched from elsewhere,
-//! every string from a participant escaped.
+//! own submission, and the organiser's page. Plain HTML forms that work without JavaScript
+//! (the file upload too), nothing fetched from elsewhere, every string from a participant
+//! escaped.
 
 use super::feedback::TimingFeedback;
 use super::store::TimingFields;
@@ -70,9 +70,16 @@ pub fn timing_form(action: &str, csrf: &str, key: Option<&str>, fields: &[Timing
             input(&format!("sigma_s{k}"), "", &f.sigma_s, 5)
         );
     }
-    s.push_str("</table></fieldset>\n<fieldset><legend>Or paste an observations file (CSV with the columns station,latitude,longitude,elevation_m,contact,time_utc,sigma_s)</legend>\n<input type=\"file\" id=\"file\" accept=\".csv,text/csv\"/>\n<br/><textarea name=\"csv\" id=\"csv\" rows=\"6\" cols=\"100\"></textarea></fieldset>\n<p><button type=\"submit\" id=\"send\">Send</button></p>\n</form>\n");
-    s.push_str("<script>document.getElementById('file').addEventListener('change',function(e){var f=e.target.files[0];if(!f)return;var r=new FileReader();r.onload=function(){document.getElementById('csv').value=r.result;};r.readAsText(f);});</script>\n");
+    s.push_str("</table></fieldset>\n<fieldset><legend>Or paste an observations file (CSV with the columns station,latitude,longitude,elevation_m,contact,time_utc,sigma_s)</legend>\n<textarea name=\"csv\" id=\"csv\" rows=\"6\" cols=\"100\"></textarea></fieldset>\n<p><button type=\"submit\" id=\"send\">Send</button></p>\n</form>\n");
     s
+}
+
+/// The form that uploads an observations file (multipart), with the anti-forgery token.
+pub fn upload_form(csrf: &str) -> String {
+    format!(
+        "<form method=\"post\" action=\"/upload\" enctype=\"multipart/form-data\">\n<input type=\"hidden\" name=\"csrf\" value=\"{}\"/>\n<fieldset><legend>Or send an observations file (CSV, as above)</legend>\n<input type=\"file\" name=\"file\" id=\"file\" accept=\".csv,text/csv\"/> <button type=\"submit\" id=\"upload\">Send the file</button></fieldset>\n</form>\n",
+        esc(csrf)
+    )
 }
 
 /// The feedback table for a submission's timings.

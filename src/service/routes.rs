@@ -188,6 +188,7 @@ pub fn router(app: Shared) -> Router {
     Router::new()
         .route("/", get(super::server::participant_route))
         .route("/submit", post(super::server::submit_route))
+        .route("/upload", post(super::server::upload_route))
         .route(
             "/submission/{id}",
             get(super::server::review_route).post(super::server::correct_route),

@@ -319,6 +319,28 @@ async fn form_submit(app: Shared, body: Bytes, supersedes: Option<(i64, String)>
     let worker = app.clone();
     let read = move |_: &[u8]| from_form(&form);
     let done = tokio::task::spawn_blocking(move || take_in(&worker, &body, read, old)).await;
+    feedback_reply(&app, done)
+}
+
+/// `GET /`.
+pub async fn participant_route(State(app): State<Shared>) -> Html<String> {
+    let intro = format!("<p>Send the contact times you observed of the transit of {} of {}. You will see at once how each compares with its prediction at your station.</p>\n", app.event.planet, app.event.date());
+    let forms =
+        timing_form("/submit", &app.csrf, None, &[]) + &super::pages::upload_form(&app.csrf);
+    Html(page("Send your timings", &(intro + &forms)))
+}
+
+/// `POST /submit`.
+pub async fn submit_route(State(app): State<Shared>, body: Bytes) -> Response {
+    form_submit(app, body, None).await
+}
+
+/// The reply page for a stored submission: its feedback (`201`; `200` for an identical one),
+/// or why it could not be read (`400`; stored all the same).
+fn feedback_reply(
+    app: &App,
+    done: Result<Result<Result<Accepted, String>, String>, tokio::task::JoinError>,
+) -> Response {
     match done {
         Ok(Ok(Ok((id, fields, key, duplicate)))) => {
             let fb = feedback(&app.event, &fields);
@@ -341,7 +363,9 @@ async fn form_submit(app: Shared, body: Bytes, supersedes: Option<(i64, String)>
             StatusCode::BAD_REQUEST,
             Html(message_page(
                 "Not read",
-                &format!("{why}. The submission was stored as sent and the organiser can see it."),
+                &format!(
+                    "{why}. What you sent was stored as it came, and the organiser can see it."
+                ),
             )),
         )
             .into_response(),
@@ -350,18 +374,43 @@ async fn form_submit(app: Shared, body: Bytes, supersedes: Option<(i64, String)>
     }
 }
 
-/// `GET /`.
-pub async fn participant_route(State(app): State<Shared>) -> Html<String> {
-    let intro = format!("<p>Send the contact times you observed of the transit of {} of {}. You will see at once how each compares with its prediction at your station.</p>\n", app.event.planet, app.event.date());
-    Html(page(
-        "Send your timings",
-        &(intro + &timing_form("/submit", &app.csrf, None, &[])),
-    ))
-}
-
-/// `POST /submit`.
-pub async fn submit_route(State(app): State<Shared>, body: Bytes) -> Response {
-    form_submit(app, body, None).await
+/// `POST /upload`: an observations file sent as a multipart form (the file's bytes are the
+/// submission stored raw).
+pub async fn upload_route(
+    State(app): State<Shared>,
+    mut form: axum::extract::Multipart,
+) -> Response {
+    let (mut csrf, mut file) = (String::new(), None);
+    while let Ok(Some(part)) = form.next_field().await {
+        match part.name() {
+            Some("csrf") => csrf = part.text().await.unwrap_or_default(),
+            Some("file") => file = part.bytes().await.ok(),
+            _ => {}
+        }
+    }
+    if csrf != app.csrf {
+        return (
+            StatusCode::FORBIDDEN,
+            Html(message_page(
+                "Refused",
+                "the form's token is missing or wrong; reload the form and send it again",
+            )),
+        )
+            .into_response();
+    }
+    let Some(bytes) = file.filter(|b| !b.is_empty()) else {
+        return (
+            StatusCode::BAD_REQUEST,
+            Html(message_page("Not received", "choose a file to send")),
+        )
+            .into_response();
+    };
+    let worker = app.clone();
+    let done = tokio::task::spawn_blocking(move || {
+        take_in(&worker, &bytes, super::intake::from_csv_bytes, None)
+    })
+    .await;
+    feedback_reply(&app, done)
 }
 
 /// `GET /submission/{id}?key=`.
