@@ -18,7 +18,7 @@ use crate::geometry::besselian::geocentric_separation_rad;
 use crate::geometry::contacts::{Contact, Perturbation};
 use crate::reduction::parameters::{PARALLAX, RADIUS_DIFFERENCE, RADIUS_SUM};
 use crate::reduction::Reduction;
-use crate::sky::constants::{ARCSEC_RAD, AU_KM, EARTH_EQUATORIAL_RADIUS_M};
+use crate::sky::constants::{au_km_from_parallax_arcsec, ARCSEC_RAD, AU_KM};
 use crate::sky::ephemeris::geocentric_state;
 use crate::sky::vector::norm;
 
@@ -110,7 +110,7 @@ fn geometry_at_greatest(red: &Reduction) -> (f64, f64, f64, f64) {
 fn diameter_of(red: &Reduction, (s0, dist_au, sign): (f64, f64, f64), pi: f64) -> Option<Diameter> {
     let theta = |j: usize| red.parameters[j].value;
     let ds = 0.5 * (theta(RADIUS_SUM) + sign * theta(RADIUS_DIFFERENCE)) * ARCSEC_RAD;
-    let au_km = EARTH_EQUATORIAL_RADIUS_M / 1000.0 / (pi * ARCSEC_RAD).sin();
+    let au_km = au_km_from_parallax_arcsec(pi);
     let dist_km = dist_au * au_km;
     let km = 2.0 * (s0 + ds) * dist_km;
     let per = dist_km * ARCSEC_RAD;
@@ -168,13 +168,13 @@ pub fn sizes(red: &Reduction) -> Sizes {
         .as_ref()
         .and_then(|b| b.per_black_drop_s.as_ref())
     {
-        let d_km = d_p * EARTH_EQUATORIAL_RADIUS_M / 1000.0 / (pi * ARCSEC_RAD).sin();
+        let d_km = d_p * au_km_from_parallax_arcsec(pi);
         let ds = 0.5 * (response[RADIUS_SUM] - response[RADIUS_DIFFERENCE]) * ARCSEC_RAD;
         let dpi = response[PARALLAX] * ARCSEC_RAD;
         let km = 2.0 * s_p * d_km;
         out.planet_km_per_black_drop_s = Some(2.0 * ds * d_km - km * dpi / (pi * ARCSEC_RAD).tan());
     }
-    let au_ratio = EARTH_EQUATORIAL_RADIUS_M / 1000.0 / (pi * ARCSEC_RAD).sin() / AU_KM;
+    let au_ratio = au_km_from_parallax_arcsec(pi) / AU_KM;
     out.stations = station_sizes(red, iau_planet_km * au_ratio);
     out
 }

@@ -47,17 +47,22 @@ pub struct WhatElse {
     pub distant: DistantView,
 }
 
+/// The planet's mass over the Sun's (Kepler's table, `kepler::PLANETS`).
+fn mass_ratio(planet: Planet) -> f64 {
+    let orbit = match planet {
+        Planet::Mercury => &PLANETS[0],
+        Planet::Venus => &PLANETS[1],
+    };
+    1.0 / orbit.sun_to_planet_mass
+}
+
 /// The planet's osculating orbital period at the event from the ephemeris's heliocentric
 /// state, days: vis-viva 1/a = 2/r - v^2/mu with mu = k^2 (1 + m/M), then Kepler's law
 /// (e.g. J. M. A. Danby, *Fundamentals of Celestial Mechanics*, 2nd ed., 1988, section 6.3).
 fn osculating_period_days(red: &Reduction) -> f64 {
     let ev = &red.event;
     let (r, v) = heliocentric_state_au(ev.planet, ev.greatest, ev.time_model().ephemeris);
-    let mass = match ev.planet {
-        Planet::Mercury => 1.0 / PLANETS[0].sun_to_planet_mass,
-        Planet::Venus => 1.0 / PLANETS[1].sun_to_planet_mass,
-    };
-    let mu = GAUSSIAN_K * GAUSSIAN_K * (1.0 + mass);
+    let mu = GAUSSIAN_K * GAUSSIAN_K * (1.0 + mass_ratio(ev.planet));
     let a = 1.0 / (2.0 / norm(r) - dot(v, v) / mu);
     std::f64::consts::TAU * (a * a * a / mu).sqrt()
 }
@@ -66,11 +71,7 @@ fn distant_view(red: &Reduction, au: Option<f64>) -> DistantView {
     let g = disc_geometry(&red.event, red.event.hours_of_greatest());
     let depth = depth_at_greatest(&red.event);
     let period_days = osculating_period_days(red);
-    let mass = match red.event.planet {
-        Planet::Mercury => 1.0 / PLANETS[0].sun_to_planet_mass,
-        Planet::Venus => 1.0 / PLANETS[1].sun_to_planet_mass,
-    };
-    let distance_au = semi_major_axis_au(period_days, mass);
+    let distance_au = semi_major_axis_au(period_days, mass_ratio(red.event.planet));
     DistantView {
         depth,
         radius_ratio_from_depth: radius_ratio_from_depth(depth, g.separation_ratio),

@@ -22,8 +22,8 @@ use tokio::sync::Notify;
 /// Largest request body, bytes.
 pub const BODY_LIMIT: usize = 256 * 1024;
 
-/// How long the background task waits after a change before reducing, so that a burst of
-/// submissions is reduced once.
+/// How long the background task waits after a change before reducing, so that the
+/// submissions of a burst are reduced together.
 const DEBOUNCE_MS: u64 = 400;
 
 /// The latest solution.
