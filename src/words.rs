@@ -13,3 +13,14 @@ pub fn all_of(n: usize, noun_plural: &str) -> String {
         format!("all {n} {noun_plural}")
     }
 }
+
+/// A contact number 1-4 as the trade writes it, `I` to `IV` (the number itself otherwise).
+pub fn roman(contact: u8) -> String {
+    match contact {
+        1 => "I".into(),
+        2 => "II".into(),
+        3 => "III".into(),
+        4 => "IV".into(),
+        n => n.to_string(),
+    }
+}

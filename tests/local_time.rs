@@ -206,7 +206,7 @@ fn local_apparent_time_matches_skyfield() {
     // Source: Skyfield 1.53 with JPL DE405 (1639, 1769) and DE421 (2012): 12 h + GAST +
     // longitude - RA of the Sun's apparent place (tests/reference/generate_local_time.py).
     // Requirement: within 1 s.
-    use transit_parallax::sky::solar_time::{local_from_ut1, LocalTime};
+    use transit_parallax::sky::solar_time::{local_from_label, LocalTime};
     use transit_parallax::time::iso::parse_utc;
     use transit_parallax::time::scales::TimeModel;
     let text = include_str!("reference/local_apparent_skyfield.csv");
@@ -218,7 +218,7 @@ fn local_apparent_time_matches_skyfield() {
         let lon: f64 = r[2].parse().unwrap();
         let ut1 = parse_utc(&r[3]).unwrap();
         let truth = parse_utc(&r[4]).unwrap();
-        let got = local_from_ut1(ut1, LocalTime::Apparent, lon, &model).unwrap();
+        let got = local_from_label(ut1, LocalTime::Apparent, lon, &model).unwrap();
         let d = (got - truth).num_microseconds().unwrap() as f64 * 1e-6;
         worst = worst.max(d.abs());
         n += 1;

@@ -3,11 +3,20 @@
 //! Takes CSV files as observers wrote them and gives validated timings, with every row that
 //! cannot be used kept with its line, a reason and a sentence saying how to fix it.
 //!
+//! - `angles.rs`: latitudes and longitudes as records write them (sexagesimal, hours of time,
+//!   other prime meridians).
 //! - `csv_table.rs`: CSV reading with the line and column of every value.
 //! - `local_time.rs`: readings in local apparent or mean solar time, converted to UT1.
+//! - `contact_forms.rs`: pairs of contacts for timed intervals and how a contact was judged.
+//! - `rows.rs`: one row of an observations file into one timing.
+//! - `readings.rs`: times and durations as written: Julian dates, ranges, times to the minute.
 //! - `longitude.rs`: how well a station's longitude is known (`longitude_sigma_deg`).
 //! - `timings.rs`: reading and validating timings; rejected rows and their reasons.
+pub mod angles;
+pub mod contact_forms;
 pub mod csv_table;
 pub mod local_time;
+pub mod readings;
+pub mod rows;
 pub mod longitude;
 pub mod timings;

@@ -4,17 +4,19 @@
 //! [`ObservationSet::rejected`] with its line number, a reason and a diagnosis sentence; nothing
 //! is dropped silently. With `strict`, the first invalid row is an error instead.
 
+use super::angles::Meridian;
+use super::contact_forms::ContactJudged;
+use super::rows::{parse_row, Columns};
 use crate::error::{Error, Result};
 use crate::geometry::contacts::Contact;
-use crate::geometry::station::{
-    normalise_longitude_deg, Station, MAX_ELEVATION_M, MIN_ELEVATION_M,
-};
+use crate::geometry::station::{normalise_longitude_deg, Station};
 use crate::observations::csv_table::CsvTable;
-use crate::observations::local_time::{parse_local, LocalColumns, LocalReading};
+use crate::observations::local_time::LocalReading;
 use crate::observations::longitude::LongitudeKnowledge;
-use crate::time::iso::{parse_utc_zoned, Zone};
-use crate::time::scales::{MAX_YEAR, MIN_YEAR};
-use chrono::{Datelike, NaiveDateTime};
+use crate::sky::solar_time::LocalTime;
+use crate::time::calendar::Calendar;
+use crate::time::iso::Zone;
+use chrono::{NaiveDate, NaiveDateTime};
 use serde::Serialize;
 use std::collections::HashMap;
 use std::path::Path;
@@ -62,14 +64,44 @@ pub struct Rejected {
     pub line: u64,
     /// Station name as given (may be empty).
     pub station: String,
-    /// Contact number 1-4, if it could be read.
+    /// Contact number 1-4, if it could be read (for a timed interval, its later contact).
     pub contact: Option<u8>,
+    /// The contact as written where it is not a single number: the pair of a timed interval
+    /// (`2-3`), or text that is not a contact.
+    pub contact_label: Option<String>,
     /// Why.
     pub reason: RejectReason,
     /// A sentence: what is wrong, the likely blunder, or how to fix it.
     pub diagnosis: Option<String>,
     /// O - C in seconds against the final solution, where it could be computed.
     pub o_c_s: Option<f64>,
+}
+
+/// A timed interval between two contacts at one station (a `duration` row).
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Interval {
+    /// The earlier contact (the row's `contact` is the later).
+    pub first: Contact,
+    /// The interval, seconds (a range's midpoint).
+    pub seconds: f64,
+    /// The date the row gives, if any (a duration has no instant).
+    pub date: Option<NaiveDate>,
+    /// The solar time the clock kept, where the row says (`local_time`): an interval of
+    /// apparent time differs from one of UT by the equation of time's change.
+    pub kept_to: Option<LocalTime>,
+}
+
+/// How a row was written, where it matters for notes and diagnosis.
+#[derive(Clone, Copy, Debug, Default, PartialEq)]
+pub struct AsWritten {
+    /// The calendar of its date.
+    pub calendar: Calendar,
+    /// The prime meridian of its longitude.
+    pub meridian: Meridian,
+    /// The width of a range reading (or of the minute, for a time to the minute), seconds.
+    pub range_s: Option<f64>,
+    /// Whether the time was written to the minute only.
+    pub minute_only: bool,
 }
 
 /// One usable timing.
@@ -79,19 +111,66 @@ pub struct Observation {
     pub line: u64,
     /// The station.
     pub station: Station,
-    /// Which contact.
+    /// Who (or which telescope) timed it; empty where the file does not say.
+    pub observer: String,
+    /// Which contact; for a timed interval, the later of its two.
     pub contact: Contact,
-    /// The time as given (UTC from 1972, UT1 before).
+    /// The time as given (UTC from 1972, UT1 before; a range's midpoint); for a timed
+    /// interval, noon of the date it gives, or the default label where it gives none.
     pub time_label: NaiveDateTime,
-    /// Standard uncertainty, seconds.
+    /// Standard uncertainty, seconds (with a range's variance added).
     pub sigma_s: f64,
     /// Whether `sigma_s` came from the file (else the default for the contact).
     pub sigma_given: bool,
     /// The clock reading in local solar time, where the row gave one (`time_label` is then
-    /// its UT1 at the station's longitude).
+    /// its label at the station's longitude or the clock's meridian).
     pub local: Option<LocalReading>,
     /// How well the station's longitude is known (`longitude_sigma_deg`).
     pub longitude: LongitudeKnowledge,
+    /// How the observer judged the contact.
+    pub judged: ContactJudged,
+    /// For a timed interval (`duration`): its earlier contact and its length.
+    pub duration: Option<Interval>,
+    /// How the row was written.
+    pub written: AsWritten,
+}
+
+impl Observation {
+    /// A timing of one instant (every field else at its default): for simulations and tests.
+    pub fn instant(line: u64, station: Station, contact: Contact, time_label: NaiveDateTime, sigma_s: f64) -> Observation {
+        Observation {
+            line,
+            station,
+            observer: String::new(),
+            contact,
+            time_label,
+            sigma_s,
+            sigma_given: true,
+            local: None,
+            longitude: LongitudeKnowledge::Exact,
+            judged: ContactJudged::Geometric,
+            duration: None,
+            written: AsWritten::default(),
+        }
+    }
+
+    /// The contacts the row times: (earlier, later) for an interval, (None, contact) else.
+    pub fn contacts(&self) -> (Option<Contact>, Contact) {
+        (self.duration.map(|d| d.first), self.contact)
+    }
+
+    /// The contact as written in outputs: `2`, or `2-3` for an interval.
+    pub fn contact_label(&self) -> String {
+        match self.duration {
+            Some(d) => format!("{}-{}", d.first.number(), self.contact.number()),
+            None => self.contact.number().to_string(),
+        }
+    }
+
+    /// Whether the row's time says when (an instant, or an interval with a date).
+    pub fn is_dated(&self) -> bool {
+        self.duration.is_none_or(|d| d.date.is_some())
+    }
 }
 
 /// All rows of an observations file, sorted into usable and rejected.
@@ -107,29 +186,42 @@ pub struct ObservationSet {
     pub rejected: Vec<Rejected>,
     /// Lines whose time had no zone and was read as UTC.
     pub lines_without_zone: Vec<u64>,
+    /// Lines whose time was a range, or written to the minute only.
+    pub lines_with_ranges: Vec<u64>,
     /// Other sentences about how rows were read (elevations that differ a little).
     pub notes: Vec<String>,
 }
 
 impl ObservationSet {
-    /// Sentences about how rows were read that the user should know (times without a zone).
+    /// Sentences about how rows were read that the user should know (times without a zone,
+    /// ranges and times to the minute).
     pub fn reading_notes(&self) -> Vec<String> {
+        let lines = |l: &[u64]| {
+            let shown: Vec<String> = l.iter().take(8).map(|n| n.to_string()).collect();
+            let more = if l.len() > 8 { ", ..." } else { "" };
+            format!("line{} {}{more}", if l.len() == 1 { "" } else { "s" }, shown.join(", "))
+        };
+        let mut out = Vec::new();
         let l = &self.lines_without_zone;
-        if l.is_empty() {
-            return self.notes.clone();
+        if !l.is_empty() {
+            out.push(format!(
+                "{} without a trailing Z ({}) {} read as UTC; write times as 2012-06-05T22:25:41.3Z, or with their offset (+08:00)",
+                crate::words::count(l.len(), "time", "times"),
+                lines(l),
+                if l.len() == 1 { "was" } else { "were" }
+            ));
         }
-        let shown: Vec<String> = l.iter().take(8).map(|n| n.to_string()).collect();
-        let more = if l.len() > 8 { ", ..." } else { "" };
-        vec![format!(
-            "{} without a trailing Z (line{} {}{more}) {} read as UTC; write times as 2012-06-05T22:25:41.3Z, or with their offset (+08:00)",
-            crate::words::count(l.len(), "time", "times"),
-            if l.len() == 1 { "" } else { "s" },
-            shown.join(", "),
-            if l.len() == 1 { "was" } else { "were" }
-        )]
-        .into_iter()
-        .chain(self.notes.iter().cloned())
-        .collect()
+        let l = &self.lines_with_ranges;
+        if !l.is_empty() {
+            out.push(format!(
+                "{} given as a range or to the minute only ({}) {} used at the range's middle, with its width / sqrt(12) added to the uncertainty in quadrature",
+                crate::words::count(l.len(), "reading", "readings"),
+                lines(l),
+                if l.len() == 1 { "is" } else { "are" }
+            ));
+        }
+        out.extend(self.notes.iter().cloned());
+        out
     }
 }
 
@@ -143,50 +235,22 @@ pub fn read_observations(path: &Path, strict: bool) -> Result<ObservationSet> {
     observations_from_table(&table, strict)
 }
 
-struct Columns {
-    station: usize,
-    lat: usize,
-    lon: usize,
-    elev: Option<usize>,
-    contact: usize,
-    time: Option<usize>,
-    local: LocalColumns,
-    longitude_sigma: Option<usize>,
-    sigma: Option<usize>,
-}
-
 /// Sort the rows of an already-read table (see [`read_observations`]).
 pub fn observations_from_table(table: &CsvTable, strict: bool) -> Result<ObservationSet> {
-    let cols = Columns {
-        station: table.require("station")?,
-        lat: table.require("latitude")?,
-        lon: table.require("longitude")?,
-        elev: table.optional("elevation_m"),
-        contact: table.require("contact")?,
-        time: table.optional("time_utc"),
-        local: LocalColumns {
-            time_local: table.optional("time_local"),
-            local_time: table.optional("local_time"),
-            day_reckoning: table.optional("day_reckoning"),
-        },
-        longitude_sigma: table.optional("longitude_sigma_deg"),
-        sigma: table.optional("sigma_s"),
-    };
-    if cols.time.is_none() && cols.local.time_local.is_none() {
-        // The message names the column every modern file has.
-        table.require("time_utc")?;
-    }
+    let cols = Columns::find(table)?;
     let mut set = ObservationSet {
         path: table.path.clone(),
         rows_total: table.records.len(),
         valid: Vec::new(),
         rejected: Vec::new(),
         lines_without_zone: Vec::new(),
+        lines_with_ranges: Vec::new(),
         notes: Vec::new(),
     };
-    // First line of each station, with its coordinates; first line of each station+contact.
+    // First line of each station, with its coordinates; first line of each timing's identity
+    // (station, observer, contact or pair, judgement).
     let mut first_coords: FirstCoordinates = HashMap::new();
-    let mut first_contact: HashMap<(String, u8), (u64, NaiveDateTime)> = HashMap::new();
+    let mut first_contact: HashMap<TimingKey, (u64, NaiveDateTime)> = HashMap::new();
     for (line, rec) in &table.records {
         let name = table.text(rec, cols.station).to_string();
         match parse_row(table, *line, rec, &cols) {
@@ -194,10 +258,18 @@ pub fn observations_from_table(table: &CsvTable, strict: bool) -> Result<Observa
                 if zone == Zone::Missing {
                     set.lines_without_zone.push(*line);
                 }
-                let key = (obs.station.name.clone(), obs.contact.number());
+                if obs.written.range_s.is_some() {
+                    set.lines_with_ranges.push(*line);
+                }
+                let key = (
+                    obs.station.name.clone(),
+                    obs.observer.clone(),
+                    obs.contact_label(),
+                    obs.judged,
+                );
                 let notes = &mut set.notes;
                 if let Some(message) = moved_station(&mut first_coords, &mut obs, *line, notes) {
-                    let c = Some(obs.contact.number());
+                    let c = Some(obs.contact_label());
                     let col = Some(cols.station);
                     reject_or_fail(table, &mut set, *line, &name, c, message, col, strict)?;
                     continue;
@@ -210,7 +282,10 @@ pub fn observations_from_table(table: &CsvTable, strict: bool) -> Result<Observa
                 set.valid.push(obs);
             }
             Err((message, column)) => {
-                let contact = Contact::parse(table.text(rec, cols.contact)).map(Contact::number);
+                let text = table.text(rec, cols.contact);
+                let contact = Some(
+                    Contact::parse(text).map_or(text.to_string(), |c| c.number().to_string()),
+                );
                 reject_or_fail(
                     table, &mut set, *line, &name, contact, message, column, strict,
                 )?;
@@ -219,6 +294,9 @@ pub fn observations_from_table(table: &CsvTable, strict: bool) -> Result<Observa
     }
     Ok(set)
 }
+
+/// What makes two rows the same timing: station, observer, contact (or pair) and judgement.
+type TimingKey = (String, String, String, ContactJudged);
 
 /// First line of each station, with its latitude, longitude and elevation.
 type FirstCoordinates = HashMap<String, (u64, f64, f64, f64)>;
@@ -269,11 +347,16 @@ fn duplicate(
     (l0, t0): (u64, NaiveDateTime),
 ) -> Rejected {
     let diff = (obs.time_label - t0).num_milliseconds() as f64 / 1000.0;
+    let by = if obs.observer.is_empty() {
+        String::new()
+    } else {
+        format!(" by {}", obs.observer)
+    };
     let diagnosis = if diff == 0.0 {
         format!("the same timing was given on line {l0}")
     } else {
         format!(
-            "contact {} at this station was already timed on line {l0} ({diff:+.1} s from it); the first is kept",
+            "contact {} at this station was already timed{by} on line {l0} ({diff:+.1} s from it); the first is kept (rows of different observers, or of different judgements of the contact, are separate timings: give the observer column)",
             obs.contact.roman()
         )
     };
@@ -281,6 +364,7 @@ fn duplicate(
         line,
         station: name,
         contact: Some(obs.contact.number()),
+        contact_label: obs.duration.map(|_| obs.contact_label()),
         reason: RejectReason::Duplicate,
         diagnosis: Some(diagnosis),
         o_c_s: None,
@@ -293,7 +377,7 @@ fn reject_or_fail(
     set: &mut ObservationSet,
     line: u64,
     station: &str,
-    contact: Option<u8>,
+    contact: Option<String>,
     message: String,
     column: Option<usize>,
     strict: bool,
@@ -310,154 +394,13 @@ fn reject_or_fail(
     set.rejected.push(Rejected {
         line,
         station: station.to_string(),
-        contact,
+        contact: contact.as_deref().and_then(|c| c.parse::<u8>().ok()),
+        contact_label: contact.filter(|c| c.parse::<u8>().is_err() && !c.is_empty()),
         reason: RejectReason::Invalid,
         diagnosis: Some(message),
         o_c_s: None,
     });
     Ok(())
-}
-
-type RowError = (String, Option<usize>);
-
-/// A timing's standard uncertainty, seconds: positive, at most an hour.
-fn parse_sigma(text: &str, column: usize) -> std::result::Result<f64, RowError> {
-    let v: f64 = text.parse().map_err(|_| {
-        (
-            format!("sigma_s '{text}' is not a number of seconds"),
-            Some(column),
-        )
-    })?;
-    if !v.is_finite() || v <= 0.0 || v > 3600.0 {
-        return Err((
-            format!("sigma_s {text} must be a positive number of seconds, at most 3600"),
-            Some(column),
-        ));
-    }
-    Ok(v)
-}
-
-fn parse_row(
-    table: &CsvTable,
-    line: u64,
-    rec: &csv::StringRecord,
-    cols: &Columns,
-) -> std::result::Result<(Observation, Zone), RowError> {
-    if rec.iter().all(|f| f.trim().is_empty()) {
-        return Err((
-            "every field of the row is empty; delete the row or fill it in".into(),
-            None,
-        ));
-    }
-    let name = table.text(rec, cols.station);
-    if name.is_empty() {
-        return Err((
-            "the station name is empty; give every row a station name".into(),
-            Some(cols.station),
-        ));
-    }
-    let num = |col: usize, min: f64, max: f64, unit: &str| -> std::result::Result<f64, RowError> {
-        table
-            .number_in(line, rec, col, min, max, unit)
-            .map_err(|e| match e {
-                Error::Input { message, .. } => (message, Some(col)),
-                other => (other.to_string(), Some(col)),
-            })
-    };
-    let lat = num(cols.lat, -90.0, 90.0, "degrees")?;
-    let lon = num(cols.lon, -180.0, 360.0, "degrees (east positive)")?;
-    let elev = match cols.elev {
-        Some(c) if !table.text(rec, c).is_empty() => {
-            num(c, MIN_ELEVATION_M, MAX_ELEVATION_M, "metres")?
-        }
-        _ => 0.0,
-    };
-    let contact_text = table.text(rec, cols.contact);
-    let contact = Contact::parse(contact_text).ok_or_else(|| {
-        (
-            format!("'{contact_text}' is not a contact; write 1-4, I-IV or C1-C4"),
-            Some(cols.contact),
-        )
-    })?;
-    let (time, zone, local) = row_time(table, rec, cols, lon)?;
-    if !(MIN_YEAR..=MAX_YEAR).contains(&time.year()) {
-        return Err((
-            format!("the year {} is outside {MIN_YEAR}-{MAX_YEAR}", time.year()),
-            if local.is_some() {
-                cols.local.time_local
-            } else {
-                cols.time
-            },
-        ));
-    }
-    let longitude = match cols.longitude_sigma {
-        Some(c) => LongitudeKnowledge::parse(table.text(rec, c)).map_err(|m| (m, Some(c)))?,
-        None => LongitudeKnowledge::Exact,
-    };
-    let (sigma_s, sigma_given) = match cols.sigma {
-        Some(c) if !table.text(rec, c).is_empty() => (parse_sigma(table.text(rec, c), c)?, true),
-        _ => (DEFAULT_SIGMA_S[contact.index()], false),
-    };
-    Ok((
-        Observation {
-            line,
-            station: Station {
-                name: name.to_string(),
-                latitude_deg: lat,
-                longitude_deg: normalise_longitude_deg(lon),
-                elevation_m: elev,
-            },
-            contact,
-            time_label: time,
-            sigma_s,
-            sigma_given,
-            local,
-            longitude,
-        },
-        zone,
-    ))
-}
-
-/// A row's time: its UTC (UT1 before 1972) label and zone, from `time_utc`, or from
-/// `time_local` converted at the station's longitude (a row gives one of the two).
-fn row_time(
-    table: &CsvTable,
-    rec: &csv::StringRecord,
-    cols: &Columns,
-    longitude_deg: f64,
-) -> std::result::Result<(NaiveDateTime, Zone, Option<LocalReading>), RowError> {
-    let text = |c: Option<usize>| c.map_or("", |c| table.text(rec, c));
-    let utc = text(cols.time);
-    let local = text(cols.local.time_local);
-    match (utc.is_empty(), local.is_empty()) {
-        (false, false) => Err((
-            "the row gives both time_utc and time_local; keep the one the observer recorded (time_local is the clock reading in local solar time)".into(),
-            cols.local.time_local,
-        )),
-        (true, false) => {
-            let reading = parse_local(
-                local,
-                text(cols.local.local_time),
-                text(cols.local.day_reckoning),
-                &cols.local,
-            )?;
-            let ut1 = reading.ut1_label(longitude_deg).ok_or_else(|| {
-                (
-                    format!("the local time '{local}' cannot be converted (its year is outside {MIN_YEAR}-{MAX_YEAR})"),
-                    cols.local.time_local,
-                )
-            })?;
-            Ok((ut1, Zone::Utc, Some(reading)))
-        }
-        (true, true) if cols.time.is_none() => Err((
-            "the row gives no time; fill in time_local (with local_time) or add a time_utc column".into(),
-            cols.local.time_local,
-        )),
-        _ => {
-            let (time, zone) = parse_utc_zoned(utc).map_err(|m| (m, cols.time))?;
-            Ok((time, zone, None))
-        }
-    }
 }
 
 #[cfg(test)]

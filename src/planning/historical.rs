@@ -16,7 +16,7 @@ use super::simulation::SimulatedCampaign;
 use crate::observations::local_time::LocalReading;
 use crate::observations::longitude::LongitudeKnowledge;
 use crate::observations::timings::ObservationSet;
-use crate::sky::solar_time::{local_from_ut1, DayReckoning, LocalTime};
+use crate::sky::solar_time::{local_from_label, DayReckoning, LocalTime};
 use crate::time::scales::TimeModel;
 use rand::Rng;
 use rand_distr::{Distribution, Normal};
@@ -129,16 +129,12 @@ pub fn record_historically<R: Rng + ?Sized>(
         let recorded = true_longitude + rec.error_deg;
         o.station.longitude_deg = recorded;
         o.longitude = rec.knowledge;
-        let Some(civil) = local_from_ut1(o.time_label, rec.kind, true_longitude, model) else {
+        let Some(civil) = local_from_label(o.time_label, rec.kind, true_longitude, model) else {
             continue;
         };
-        let reading = LocalReading {
-            reading: rec.reckoning.from_civil(civil),
-            kind: rec.kind,
-            reckoning: rec.reckoning,
-        };
+        let reading = LocalReading::new(rec.reckoning.from_civil(civil), rec.kind, rec.reckoning);
         // The label a reader forms from the reading at the recorded longitude.
-        if let Some(label) = reading.ut1_label(recorded) {
+        if let Some(label) = reading.label(recorded) {
             o.time_label = label;
             o.local = Some(reading);
         }

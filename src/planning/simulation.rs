@@ -119,16 +119,13 @@ pub fn simulate_campaign<R: Rng + ?Sized>(
             if let Some(b) = injected {
                 blunders.push((index, b));
             }
-            valid.push(Observation {
-                line: index as u64 + 2,
-                station: st.clone(),
-                contact: label,
-                time_label: model.label_from_tt(tt),
-                sigma_s: sigma,
-                sigma_given: true,
-                local: None,
-                longitude: Default::default(),
-            });
+            valid.push(Observation::instant(
+                index as u64 + 2,
+                st.clone(),
+                label,
+                model.label_from_tt(tt),
+                sigma,
+            ));
         }
     }
     one_row_per_contact(valid, blunders)
@@ -190,6 +187,7 @@ fn one_row_per_contact(
             valid: keep,
             rejected: Vec::new(),
             lines_without_zone: Vec::new(),
+            lines_with_ranges: Vec::new(),
             notes: Vec::new(),
         },
         blunders: kept_blunders,

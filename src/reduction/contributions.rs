@@ -172,7 +172,13 @@ fn chord(event: &TransitEvent, station: &[&Timing], p: &Perturbation, er: f64) -
     let observed = |c: Contact| {
         station
             .iter()
-            .find(|t| t.obs.contact == c)
+            .find(|t| t.obs.contact == c && !t.is_interval())
+            .map(|t| t.observed_h)
+    };
+    let interval = |a: Contact, b: Contact| {
+        station
+            .iter()
+            .find(|t| t.obs.duration.is_some_and(|d| d.first == a) && t.obs.contact == b)
             .map(|t| t.observed_h)
     };
     let path = |h1: f64, h2: f64, st: Option<&GeocentricStation>| {
@@ -189,9 +195,13 @@ fn chord(event: &TransitEvent, station: &[&Timing], p: &Perturbation, er: f64) -
     ]
     .iter()
     .find_map(|&(a, b, pair)| {
-        let (oa, ob) = (observed(a)?, observed(b)?);
         let ca = event.contact_hours_perturbed(geo, a, p)?;
         let cb = event.contact_hours_perturbed(geo, b, p)?;
+        // The observed instants, or a timed interval laid from the predicted first contact.
+        let (oa, ob) = match (observed(a), observed(b)) {
+            (Some(oa), Some(ob)) => (oa, ob),
+            _ => (ca, ca + interval(a, b)?),
+        };
         let ga = event.contact_hours_perturbed_geocentric(a, p)?;
         let gb = event.contact_hours_perturbed_geocentric(b, p)?;
         let (obs_len, _) = path(oa, ob, Some(geo));
@@ -205,6 +215,17 @@ fn chord(event: &TransitEvent, station: &[&Timing], p: &Perturbation, er: f64) -
             parallax_displacement_arcsec: topo_closest - geo_closest,
         })
     })
+}
+
+/// The observers named in a station's timings, each once, in order of appearance.
+fn observers_of(own: &[&Timing]) -> Vec<String> {
+    let mut out: Vec<String> = Vec::new();
+    for t in own {
+        if !t.obs.observer.is_empty() && !out.contains(&t.obs.observer) {
+            out.push(t.obs.observer.clone());
+        }
+    }
+    out
 }
 
 /// The positions in `used` of each station's timings, stations in order of first appearance.
@@ -273,6 +294,8 @@ pub fn contributions(
                     .flatten(),
                 residuals_s: rows.iter().map(|&k| outcome.residuals_s[k]).collect(),
                 contacts: own.iter().map(|t| t.obs.contact.number()).collect(),
+                contact_labels: own.iter().map(|t| t.obs.contact_label()).collect(),
+                observers: observers_of(&own),
                 mean_normalised_residual: rows
                     .iter()
                     .map(|&k| outcome.residuals_s[k] / timings[used[k]].obs.sigma_s)
@@ -322,6 +345,8 @@ pub fn stations_not_used(
             influence_arcsec: None,
             residuals_s: Vec::new(),
             contacts: Vec::new(),
+            contact_labels: Vec::new(),
+            observers: Vec::new(),
             mean_normalised_residual: 0.0,
             chord: None,
             not_used: Some(why),

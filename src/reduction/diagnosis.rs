@@ -138,6 +138,46 @@ fn minute_typo(r: f64, tolerance_s: f64) -> Option<String> {
     ))
 }
 
+/// Explain a timed interval that does not fit: it fits another pair of contacts at this
+/// station (the contacts mislabelled), or it is off by whole minutes (a digit of the minutes
+/// mistyped).
+///
+/// Arguments: `event`; `station`; `pair`, the contacts as given; `observed_h`, the interval
+/// (hours); `p`, the solution's parameters; `tolerance_s`.
+pub fn explain_interval(
+    event: &TransitEvent,
+    station: &Station,
+    pair: (Contact, Contact),
+    observed_h: f64,
+    p: &Perturbation,
+    tolerance_s: f64,
+) -> Option<String> {
+    let geo = station.geocentric();
+    let interval = |a: Contact, b: Contact| {
+        Some(predicted_hours(event, &geo, b, p)? - predicted_hours(event, &geo, a, p)?)
+    };
+    for (a, b) in [(0, 3), (1, 2), (0, 1), (2, 3), (0, 2), (1, 3)] {
+        let (a, b) = (Contact::ALL[a], Contact::ALL[b]);
+        if (a, b) == pair {
+            continue;
+        }
+        if let Some(h) = interval(a, b) {
+            let r = (observed_h - h) * 3600.0;
+            if r.abs() < tolerance_s {
+                return Some(format!(
+                    "given as the interval {}-{} but fits {}-{} at this station (O - C {r:+.1} s): the contacts were probably mislabelled",
+                    pair.0.roman(),
+                    pair.1.roman(),
+                    a.roman(),
+                    b.roman()
+                ));
+            }
+        }
+    }
+    let h = interval(pair.0, pair.1)?;
+    minute_typo((observed_h - h) * 3600.0, tolerance_s.min(15.0))
+}
+
 /// One timing of a station, for station-level diagnosis.
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub struct StationTiming {

@@ -16,6 +16,7 @@ use super::parameters::{
     ParameterKind, ParameterSet, N_CLASSIC, OFFSET_EAST, OFFSET_NORTH, PARALLAX, RADIUS_DIFFERENCE,
     RADIUS_SUM,
 };
+use super::black_drop::lag_partial;
 use crate::geometry::contacts::{contact_partials, Contact, Perturbation};
 use crate::geometry::station::GeocentricStation;
 use crate::geometry::transit::TransitEvent;
@@ -29,20 +30,29 @@ pub struct Timing {
     pub obs: Observation,
     /// Its station's geocentric coordinates.
     pub geo: GeocentricStation,
-    /// The observed instant, hours (TT) from the elements' epoch.
+    /// The observed instant, hours (TT) from the elements' epoch; for a timed interval, the
+    /// interval in hours (of UT: an interval of apparent time is corrected for the change of
+    /// the equation of time).
     pub observed_h: f64,
     /// Its station's index in the campaign (order of first appearance).
     pub station: usize,
 }
 
+impl Timing {
+    /// Whether the timing is an interval between two contacts (else an instant).
+    pub fn is_interval(&self) -> bool {
+        self.obs.duration.is_some()
+    }
+}
+
 /// One linearised condition equation.
 #[derive(Clone, Debug, PartialEq)]
 pub struct Linearised {
-    /// The computed contact time, hours from the elements' epoch.
+    /// The computed contact time (or interval), hours from the elements' epoch.
     pub computed_h: f64,
-    /// Partials of the contact time (s) with respect to the classic global parameters (per
-    /// arcsec).
-    pub global: [f64; N_CLASSIC],
+    /// Partials of the contact time (s) with respect to every global parameter, the classic
+    /// five first (per arcsec), then the others (black-drop lags: s per s).
+    pub global: Vec<f64>,
     /// Partials with respect to the timing's own station's parameters, in the order of
     /// [`ParameterSet::station_parameters`].
     pub local: Vec<f64>,
@@ -128,14 +138,40 @@ fn placed(t: &Timing, params: &ParameterSet, theta: &[f64]) -> (Option<Geocentri
             ParameterKind::ClockOffset => shift_h += theta[j] / 3600.0,
             ParameterKind::LongitudeCorrection => {
                 moved = Some(moved_station(t, theta[j]));
-                if t.obs.local.is_some() {
-                    shift_h += theta[j] * LOCAL_S_PER_DEG / 3600.0;
-                }
+                shift_h += theta[j] * local_s_per_deg(t) / 3600.0;
             }
-            ParameterKind::Classic(_) => {}
+            ParameterKind::Classic(_) | ParameterKind::BlackDrop(..) => {}
         }
     }
     (moved, shift_h)
+}
+
+/// Seconds a one-degree longitude correction adds to a timing through its conversion from
+/// local solar time: 240 for a reading on the station's own meridian, 0 otherwise (a time
+/// kept to another meridian, a UTC time, or an interval, in which it cancels).
+fn local_s_per_deg(t: &Timing) -> f64 {
+    match &t.obs.local {
+        Some(l) if l.follows_station() && !t.is_interval() => LOCAL_S_PER_DEG,
+        _ => 0.0,
+    }
+}
+
+/// The time (s) the global parameters beyond the classic five add to a timing's computed
+/// value (the black-drop lags), and their partials.
+fn extra_globals(t: &Timing, params: &ParameterSet, theta: &[f64]) -> (f64, Vec<f64>) {
+    let partials: Vec<f64> = params.specs()[N_CLASSIC..params.n_global()]
+        .iter()
+        .map(|spec| match spec.kind {
+            ParameterKind::BlackDrop(judged, contact) => lag_partial(&t.obs, judged, contact),
+            _ => 0.0,
+        })
+        .collect();
+    let shift = partials
+        .iter()
+        .zip(&theta[N_CLASSIC..])
+        .map(|(p, v)| p * v)
+        .sum();
+    (shift, partials)
 }
 
 /// Seconds of local solar time per degree of longitude.
@@ -144,8 +180,10 @@ const LOCAL_S_PER_DEG: f64 = 240.0;
 /// Linearise one timing's condition equation at parameter values `theta` (every parameter of
 /// `params`, the classic ones first). A station clock's offset c adds c to the computed time
 /// (partial 1 s per s); a longitude correction moves the station (its partial from the
-/// contact condition, [`contact_partials`]) and, for a reading in local solar time, the
-/// conversion to UT1 (240 s per degree).
+/// contact condition, [`contact_partials`]) and, for a reading in local solar time on the
+/// station's meridian, the conversion to UT1 (240 s per degree); a black-drop lag adds itself
+/// to the timings of its judgement and contact. A timed interval is the difference of its two
+/// contacts: clock offsets and the local-time conversion cancel in it.
 pub fn linearise(
     event: &TransitEvent,
     t: &Timing,
@@ -156,23 +194,30 @@ pub fn linearise(
     let own = params.station_parameters(t.station);
     let (moved, shift_h) = placed(t, params, theta);
     let geo = moved.as_ref().unwrap_or(&t.geo);
-    let (h, global, per_deg) = condition_row_and_longitude(event, geo, t.obs.contact, theta, er)?;
-    let local_s_per_deg = if t.obs.local.is_some() {
-        LOCAL_S_PER_DEG
-    } else {
-        0.0
+    let (h, classic, per_deg) = condition_row_and_longitude(event, geo, t.obs.contact, theta, er)?;
+    let (computed_h, classic, per_deg, clock) = match t.obs.duration {
+        None => (h + shift_h, classic, per_deg + local_s_per_deg(t), 1.0),
+        Some(d) => {
+            let (h0, c0, d0) = condition_row_and_longitude(event, geo, d.first, theta, er)?;
+            let mut diff = classic;
+            for (x, y) in diff.iter_mut().zip(c0) {
+                *x -= y;
+            }
+            (h - h0, diff, per_deg - d0, 0.0)
+        }
     };
+    let (lag_s, extra) = extra_globals(t, params, theta);
     let local = own
         .iter()
         .map(|&j| match params.specs()[j].kind {
-            ParameterKind::ClockOffset => 1.0,
-            ParameterKind::LongitudeCorrection => per_deg + local_s_per_deg,
-            ParameterKind::Classic(_) => 0.0,
+            ParameterKind::ClockOffset => clock,
+            ParameterKind::LongitudeCorrection => per_deg,
+            ParameterKind::Classic(_) | ParameterKind::BlackDrop(..) => 0.0,
         })
         .collect();
     Some(Linearised {
-        computed_h: h + shift_h,
-        global,
+        computed_h: computed_h + lag_s / 3600.0,
+        global: classic.iter().copied().chain(extra).collect(),
         local,
     })
 }
@@ -184,9 +229,9 @@ fn moved_station(t: &Timing, correction_deg: f64) -> GeocentricStation {
     st.geocentric()
 }
 
-/// The computed contact time of one timing, hours from the elements' epoch, at parameter
-/// values `theta` (no partial derivatives: for residuals), or `None` when the station sees
-/// no such contact.
+/// The computed contact time of one timing (or its interval), hours from the elements' epoch,
+/// at parameter values `theta` (no partial derivatives: for residuals), or `None` when the
+/// station sees no such contact.
 pub fn computed_hours(
     event: &TransitEvent,
     t: &Timing,
@@ -196,8 +241,14 @@ pub fn computed_hours(
 ) -> Option<f64> {
     let (moved, shift_h) = placed(t, params, theta);
     let geo = moved.as_ref().unwrap_or(&t.geo);
-    let h = event.contact_hours_perturbed(geo, t.obs.contact, &perturbation(theta, er))?;
-    Some(h + shift_h)
+    let p = perturbation(theta, er);
+    let h = event.contact_hours_perturbed(geo, t.obs.contact, &p)?;
+    let (lag_s, _) = extra_globals(t, params, theta);
+    let value = match t.obs.duration {
+        None => h + shift_h,
+        Some(d) => h - event.contact_hours_perturbed(geo, d.first, &p)?,
+    };
+    Some(value + lag_s / 3600.0)
 }
 
 /// O - C of one timing in seconds at parameter values `theta`, or `None` when the station

@@ -102,7 +102,8 @@ fn with_delta_t(s: &Solved, step_s: f64) -> Option<(TransitEvent, Vec<Timing>)> 
     };
     let event = TransitEvent::near(s.event.planet, s.event.greatest, &moved)?;
     let mut timings = s.timings.to_vec();
-    for t in &mut timings {
+    // An interval's length does not depend on Delta T.
+    for t in timings.iter_mut().filter(|t| !t.is_interval()) {
         t.observed_h = event
             .elements
             .hours(moved.tt_from_label(t.obs.time_label).ok()?);
@@ -181,11 +182,13 @@ fn black_drop_response(s: &Solved, lin: &LinearisedCampaign) -> Option<Vec<f64>>
         .iter()
         .map(|&i| {
             let t = &s.timings[i];
-            let drop = match t.obs.contact {
+            let seen = |c: Contact| match c {
                 Contact::II => 1.0,
                 Contact::III => -1.0,
                 _ => 0.0,
             };
+            let (first, last) = t.obs.contacts();
+            let drop = seen(last) - first.map_or(0.0, seen);
             residual_s(s.event, t, s.params, s.theta, er).map(|r| r + drop)
         })
         .collect();

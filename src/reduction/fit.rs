@@ -14,6 +14,7 @@
 //! (2003), chapter 8 (non-linear least squares by linearisation); W. H. Press et al.,
 //! *Numerical Recipes*, 3rd ed. (2007), section 15.5.
 
+use super::black_drop::{lag_plan, LagPlan};
 use super::equations::{linearise, residual_s, Timing};
 use super::identifiability::{
     describe_confusion, hold_fixed_what_cannot_be_separated, parallax_inseparable,
@@ -203,13 +204,30 @@ fn initial_free(
 ) -> (Vec<bool>, Vec<String>) {
     let mut free: Vec<bool> = params.specs().iter().map(|s| !s.fixed).collect();
     let mut messages = Vec::new();
-    free[RADIUS_SUM] &= used.iter().any(|&i| timings[i].obs.contact.is_exterior());
-    free[RADIUS_DIFFERENCE] &= used.iter().any(|&i| !timings[i].obs.contact.is_exterior());
+    // An interval between an exterior and an interior contact involves both corrections.
+    let involves = |exterior: bool| {
+        used.iter().any(|&i| {
+            let (first, last) = timings[i].obs.contacts();
+            last.is_exterior() == exterior || first.is_some_and(|c| c.is_exterior() == exterior)
+        })
+    };
+    free[RADIUS_SUM] &= involves(true);
+    free[RADIUS_DIFFERENCE] &= involves(false);
     if !free[RADIUS_SUM] {
         messages.push("no exterior contact (I or IV) is in the solution, so the correction to the sum of the radii is held at 0".to_string());
     }
     if !free[RADIUS_DIFFERENCE] {
         messages.push("no interior contact (II or III) is in the solution, so the correction to the difference of the radii is held at 0".to_string());
+    }
+    for (j, plan) in lag_plan(params, timings, used) {
+        match plan {
+            LagPlan::Fitted(_) => {}
+            LagPlan::NotInvolved => free[j] = false,
+            LagPlan::Held(why) => {
+                free[j] = false;
+                messages.push(why);
+            }
+        }
     }
     (free, messages)
 }
@@ -427,16 +445,13 @@ mod tests {
             for c in Contact::ALL {
                 let h = event.contact_hours_perturbed(&geo, c, &p).unwrap();
                 timings.push(Timing {
-                    obs: Observation {
-                        line: timings.len() as u64 + 2,
-                        station: st.clone(),
-                        contact: c,
-                        time_label: chrono::NaiveDateTime::default(),
-                        sigma_s: 5.0,
-                        sigma_given: true,
-                        local: None,
-                        longitude: Default::default(),
-                    },
+                    obs: Observation::instant(
+                        timings.len() as u64 + 2,
+                        st.clone(),
+                        c,
+                        chrono::NaiveDateTime::default(),
+                        5.0,
+                    ),
                     geo,
                     observed_h: h + clock / 3600.0,
                     station: k,

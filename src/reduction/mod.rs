@@ -8,6 +8,8 @@
 //!
 //! - `parameters.rs`: the campaign's parameter set (global and per-station, units, priors,
 //!   held fixed).
+//! - `black_drop.rs`: the lag of a judged interior contact behind the geometric one, as
+//!   parameters.
 //! - `equations.rs`: the condition equations (computed times and partial derivatives).
 //! - `normal_equations.rs`: the normal equations with per-station parameters eliminated block
 //!   by block.
@@ -27,6 +29,7 @@
 //! - `planet_place.rs`: the planet's place free, held or with a prior, and the bias that
 //!   holding it risks.
 //! - `pipeline.rs`: [`reduce`] and [`reduce_for_event`].
+pub mod black_drop;
 pub mod classic_methods;
 pub mod contributions;
 pub mod diagnosis;

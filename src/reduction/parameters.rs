@@ -12,6 +12,9 @@
 //! chapter 8; priors as pseudo-observations: e.g. W. H. Press et al., *Numerical Recipes*,
 //! 3rd ed. (2007), section 15.4 (a measurement of a parameter added as one more equation).
 
+use crate::geometry::contacts::Contact;
+use crate::observations::contact_forms::ContactJudged;
+
 /// Number of the classic global parameters (parallax, two offsets, two radius corrections).
 pub const N_CLASSIC: usize = 5;
 
@@ -55,6 +58,10 @@ pub enum ParameterKind {
     /// A correction to the station's longitude, degrees east: it moves the station, and for
     /// timings read in local solar time the conversion to UT1 (-240 s per degree east).
     LongitudeCorrection,
+    /// The lag (seconds, positive: seen later) of an interior contact judged in this way
+    /// behind the geometric contact: the partial of a timing of that contact and judgement
+    /// is 1 s per s (see `black_drop.rs`).
+    BlackDrop(ContactJudged, Contact),
 }
 
 /// Prior knowledge of a parameter: a value and its standard uncertainty, in the parameter's
@@ -147,6 +154,21 @@ impl ParameterSet {
             prior,
             fixed: false,
         }
+    }
+
+    /// Add a global parameter after the classic five; returns its index. Global parameters
+    /// must all be added before the first station parameter (a programming error otherwise:
+    /// the parameter is then not added and `None` returned).
+    pub fn add_global_parameter(&mut self, spec: ParameterSpec) -> Option<usize> {
+        if self.has_station_parameters() || self.specs.len() != self.n_global {
+            return None;
+        }
+        self.specs.push(ParameterSpec {
+            scope: Scope::Global,
+            ..spec
+        });
+        self.n_global += 1;
+        Some(self.n_global - 1)
     }
 
     /// Add a parameter of one station; returns its index. Stations' parameters must be added

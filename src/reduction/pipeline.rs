@@ -14,6 +14,7 @@
 //! References: J. F. Encke (1822, 1824) and S. Newcomb (1891) for the condition equations;
 //! Bevington and Robinson (2003), chapter 8; R. T. Birge, Phys. Rev. 40, 207 (1932).
 
+use super::black_drop::{add_lag_parameters, lag_plan, lags};
 use super::classic_methods::{condition_equations, methods};
 use super::contributions::{contributions, convergence, stations_not_used};
 use super::error_budget::{error_budget, Solved};
@@ -62,7 +63,16 @@ fn no_usable_timing(path: &std::path::Path, rows_total: usize, rejected: &[Rejec
 }
 
 fn infer_event(valid: &[Observation], model: &TimeModel) -> Result<TransitEvent> {
-    let mut times: Vec<chrono::NaiveDateTime> = valid.iter().map(|o| o.time_label).collect();
+    let mut times: Vec<chrono::NaiveDateTime> = valid
+        .iter()
+        .filter(|o| o.is_dated())
+        .map(|o| o.time_label)
+        .collect();
+    if times.is_empty() {
+        return Err(Error::argument(
+            "every row is a timed interval with no date, so the transit cannot be found from the file; give --planet and --date",
+        ));
+    }
     times.sort();
     let mid = times[times.len() / 2].date();
     for planet in [Planet::Venus, Planet::Mercury] {
@@ -104,6 +114,7 @@ pub fn reduce_for_event(
     let timings = timings_of_event(&set.valid, &event, &model, &mut rejected)?;
     let mut params = ParameterSet::classic(options.prior_parallax_arcsec);
     options.planet_place.apply(&mut params);
+    add_lag_parameters(&mut params, &timings);
     add_longitude_corrections(&mut params, &timings);
     let threshold = options.outlier_threshold;
     let mut screened = screen(&event, &timings, &params, threshold);
@@ -268,6 +279,8 @@ fn used_rows(timings: &[Timing], used: &[usize], outcome: &FitOutcome) -> Vec<Us
             line: timings[i].obs.line,
             station: timings[i].obs.station.name.clone(),
             contact: timings[i].obs.contact.number(),
+            contact_label: timings[i].obs.contact_label(),
+            observer: timings[i].obs.observer.clone(),
             o_c_s: *r,
             sigma_s: timings[i].obs.sigma_s,
         })
@@ -311,6 +324,7 @@ fn leave_out_undetermined(
                 line: t.obs.line,
                 station: t.obs.station.name.clone(),
                 contact: Some(t.obs.contact.number()),
+                contact_label: t.obs.duration.map(|_| t.obs.contact_label()),
                 reason: RejectReason::Undetermined,
                 diagnosis: Some(format!("the station's longitude is unknown and its timings cannot determine it (uncertainty {sigma:.0} degrees), so they are left out rather than used with the longitude given; give longitude_sigma_deg a number, or time more contacts there")),
                 o_c_s: None,
@@ -382,7 +396,16 @@ fn summarise(
         outcome,
         place_accuracy_arcsec(&event.ephemeris_name()),
     );
+    let parameters = parameters_of(c.params, outcome, stats.sigma_scale);
+    let sigmas: Vec<Option<f64>> = parameters.iter().map(|p| p.sigma).collect();
+    let black_drop = lags(
+        c.params,
+        &lag_plan(c.params, c.timings, used),
+        &outcome.theta,
+        &sigmas,
+    );
     let mut red = Reduction {
+        black_drop,
         methods: Vec::new(),
         error_budget: None,
         event,
@@ -399,7 +422,7 @@ fn summarise(
         timings_used: n,
         rejected,
         stations,
-        parameters: parameters_of(c.params, outcome, stats.sigma_scale),
+        parameters,
         correlation: correlation_of(outcome),
         statistics: stats,
         robust_scatter: s.scatter,

@@ -10,7 +10,8 @@
 //! practice (no single source); see docs/reduction.md.
 
 use super::diagnosis::{
-    clock_offset_s, explain_row, explain_station, station_offset_sentence, StationTiming,
+    clock_offset_s, explain_interval, explain_row, explain_station, station_offset_sentence,
+    StationTiming,
 };
 use super::equations::{perturbation, residual_s, Timing};
 use super::fit::FitOutcome;
@@ -68,9 +69,10 @@ pub fn station_wide(
     for &i in s.outliers.iter().chain(not_visible).chain(&s.no_contact) {
         unused[i] = true;
     }
-    // Each station's rows, stations in the order of their names (linear in the rows).
+    // Each station's instants, stations in the order of their names (linear in the rows);
+    // intervals are immune to what these tests look for (a clock, the place's sign).
     let mut by_station: Vec<Vec<usize>> = Vec::new();
-    for (i, t) in timings.iter().enumerate() {
+    for (i, t) in timings.iter().enumerate().filter(|(_, t)| !t.is_interval()) {
         if by_station.len() <= t.station {
             by_station.resize(t.station + 1, Vec::new());
         }
@@ -121,6 +123,9 @@ fn diagnose(
 ) -> Option<String> {
     let tolerance_s = (4.0 * scatter * t.obs.sigma_s).max(20.0);
     let station = &t.obs.station;
+    if let Some(d) = t.obs.duration {
+        return explain_interval(event, station, (d.first, t.obs.contact), t.observed_h, p, tolerance_s);
+    }
     explain_row(event, station, t.obs.contact, t.observed_h, p, tolerance_s).or_else(|| {
         if !alone {
             return None;
@@ -173,6 +178,7 @@ pub fn record_rejections(
         line: timings[i].obs.line,
         station: timings[i].obs.station.name.clone(),
         contact: Some(timings[i].obs.contact.number()),
+        contact_label: timings[i].obs.duration.map(|_| timings[i].obs.contact_label()),
         reason,
         diagnosis,
         o_c_s: residual_at(i),

@@ -1,6 +1,7 @@
 //! What a reduction gives: its settings, the fitted parameters, each station's contribution,
 //! the statistics and every row not used, in one [`Reduction`].
 
+use super::black_drop::BlackDropLag;
 use super::classic_methods::MethodSolution;
 use super::equations::perturbation;
 use super::error_budget::ErrorBudget;
@@ -103,8 +104,12 @@ pub struct StationContribution {
     pub influence_arcsec: Option<f64>,
     /// O - C of the used timings, seconds, in the order of `contacts`.
     pub residuals_s: Vec<f64>,
-    /// The contacts of those timings.
+    /// The contacts of those timings (for a timed interval, its later contact).
     pub contacts: Vec<u8>,
+    /// The same as written: `2`, or `2-3` for a timed interval.
+    pub contact_labels: Vec<String>,
+    /// The observers named in the station's timings.
+    pub observers: Vec<String>,
     /// Mean of the normalised residuals (O - C)/sigma.
     pub mean_normalised_residual: f64,
     /// The Halley chord, where a pair of contacts was timed.
@@ -169,6 +174,9 @@ pub struct Reduction {
     /// The terms of the parallax's uncertainty, where the parallax was determined and the
     /// methods compared.
     pub error_budget: Option<ErrorBudget>,
+    /// The fitted lag of each judged interior contact behind the geometric one (empty where
+    /// every timing is geometric).
+    pub black_drop: Vec<BlackDropLag>,
 }
 
 /// The AU from a determined parallax.
@@ -240,8 +248,12 @@ pub struct UsedTiming {
     pub line: u64,
     /// Station name.
     pub station: String,
-    /// Contact 1-4.
+    /// Contact 1-4 (for a timed interval, its later contact).
     pub contact: u8,
+    /// The contact as written: `2`, or `2-3` for a timed interval.
+    pub contact_label: String,
+    /// Who timed it (empty where the file does not say).
+    pub observer: String,
     /// O - C, seconds.
     pub o_c_s: f64,
     /// Standard uncertainty used, seconds.

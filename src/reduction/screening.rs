@@ -10,13 +10,15 @@
 //! References: F. R. Hampel, JASA 69, 383 (1974) (the median absolute deviation as a robust
 //! scale); sigma clipping against a robust scale is common practice (no single source).
 
-use super::equations::{residual_s, Timing};
+use super::equations::{nominal_theta, perturbation, residual_s, Timing};
 use super::fit::{fit, FitOutcome};
 use super::parameters::ParameterSet;
 use super::statistics::{median, robust_sigma};
 use crate::geometry::contacts::{sun_alt_az_parallactic, Contact};
 use crate::geometry::transit::TransitEvent;
-use crate::observations::timings::{Observation, RejectReason, Rejected};
+use crate::observations::timings::{Interval, Observation, RejectReason, Rejected};
+use crate::sky::solar_time::{equation_of_time_s, LocalTime};
+use crate::time::calendar::{julian_lag_days, Calendar};
 use crate::time::scales::TimeModel;
 use crate::Result;
 
@@ -45,7 +47,10 @@ pub struct Screened {
 }
 
 /// Turn valid rows into timings of the event: a time more than [`EVENT_WINDOW_H`] from
-/// greatest transit is rejected as invalid. Stations are numbered by first appearance.
+/// greatest transit (or an interval dated more than a day from it) is rejected as invalid,
+/// with the calendar named where the offset is that of Old and New Style. Stations are
+/// numbered by first appearance. An interval of apparent time is turned into one of UT by the
+/// equation of time's change between its predicted contacts.
 pub fn timings_of_event(
     valid: &[Observation],
     event: &TransitEvent,
@@ -56,18 +61,28 @@ pub fn timings_of_event(
     let mut names: Vec<&str> = Vec::new();
     let mut timings = Vec::new();
     for obs in valid {
-        let observed_h = event.elements.hours(model.tt_from_label(obs.time_label)?);
-        if (observed_h - greatest_h).abs() > EVENT_WINDOW_H {
+        let observed_h = match obs.duration {
+            Some(d) => interval_hours(obs, &d, event),
+            None => event.elements.hours(model.tt_from_label(obs.time_label)?),
+        };
+        let offset_days = match obs.duration {
+            Some(d) => d.date.map(|date| (date - event.date()).num_days() as f64),
+            None => Some((observed_h - greatest_h) / 24.0),
+        };
+        let far = match (obs.duration, offset_days) {
+            (Some(_), Some(days)) => days.abs() > 1.0,
+            (None, Some(days)) => days.abs() * 24.0 > EVENT_WINDOW_H,
+            _ => false,
+        };
+        if far {
+            let days = offset_days.unwrap_or(0.0);
             rejected.push(Rejected {
                 line: obs.line,
                 station: obs.station.name.clone(),
                 contact: Some(obs.contact.number()),
+                contact_label: obs.duration.map(|_| obs.contact_label()),
                 reason: RejectReason::Invalid,
-                diagnosis: Some(format!(
-                    "the time is {:.1} days from greatest transit ({}); it cannot belong to this event",
-                    (observed_h - greatest_h) / 24.0,
-                    event.greatest_utc()
-                )),
+                diagnosis: Some(far_sentence(obs, days, event)),
                 o_c_s: None,
             });
             continue;
@@ -89,6 +104,44 @@ pub fn timings_of_event(
     Ok(timings)
 }
 
+/// An interval's length in hours of UT: as written, less the change of the equation of time
+/// between its predicted contacts where it was measured in apparent time (the interval between
+/// two apparent times is the UT interval plus that change).
+fn interval_hours(obs: &Observation, d: &Interval, event: &TransitEvent) -> f64 {
+    let mut seconds = d.seconds;
+    if d.kept_to == Some(LocalTime::Apparent) {
+        let geo = obs.station.geocentric();
+        let p = perturbation(&nominal_theta(), event.earth_radii_per_arcsec());
+        let model = event.time_model();
+        let eot = |c| {
+            let h = event.contact_hours_perturbed(&geo, c, &p)?;
+            equation_of_time_s(event.label(h), model)
+        };
+        if let (Some(a), Some(b)) = (eot(d.first), eot(obs.contact)) {
+            seconds -= b - a;
+        }
+    }
+    seconds / 3600.0
+}
+
+/// Why a row cannot belong to the event: how far it lies, and where that is the Julian
+/// calendar's lag (10 days in the 17th century, 11 in the 18th, 12 in the 19th), which
+/// calendar to set.
+fn far_sentence(obs: &Observation, days: f64, event: &TransitEvent) -> String {
+    let lag = julian_lag_days(event.date()).unwrap_or(11) as f64;
+    let calendar_hint = if obs.written.calendar == Calendar::Gregorian && (days + lag).abs() < 1.0 {
+        format!(" It lies {lag:.0} days before the transit, the lag of the Julian calendar then: the date was probably written Old Style; set calendar to julian")
+    } else if obs.written.calendar == Calendar::Julian && (days - lag).abs() < 1.0 {
+        format!(" It lies {lag:.0} days after the transit, as a New Style date read as Old Style would: set calendar to gregorian (or leave it empty)")
+    } else {
+        String::new()
+    };
+    format!(
+        "the time is {days:.1} days from greatest transit ({}); it cannot belong to this event.{calendar_hint}",
+        event.greatest_utc()
+    )
+}
+
 /// Candidates, timings with the Sun set (and its altitude), timings of no such contact, and
 /// every timing's O - C at the a-priori values (s).
 type Sorted = (Vec<usize>, Vec<(usize, f64)>, Vec<usize>, Vec<f64>);
@@ -104,11 +157,23 @@ fn sort_by_visibility(
     let er = event.earth_radii_per_arcsec();
     let (mut candidates, mut not_visible, mut no_contact) = (Vec::new(), Vec::new(), Vec::new());
     let mut prior_residual_s = vec![0.0; timings.len()];
-    for (i, t) in timings.iter().enumerate() {
-        let alt = if event.elements.covers(t.observed_h) {
-            sun_alt_az_parallactic(&event.elements, &t.geo, t.observed_h).0
+    let p = perturbation(theta_prior, event.earth_radii_per_arcsec());
+    let altitude = |geo, h: f64| {
+        if event.elements.covers(h) {
+            sun_alt_az_parallactic(&event.elements, geo, h).0
         } else {
             f64::NAN
+        }
+    };
+    for (i, t) in timings.iter().enumerate() {
+        let alt = match t.obs.duration {
+            // An interval: the Sun must be up at both of its (predicted) contacts.
+            Some(d) => [d.first, t.obs.contact]
+                .iter()
+                .filter_map(|&c| event.contact_hours_perturbed(&t.geo, c, &p))
+                .map(|h| altitude(&t.geo, h))
+                .fold(f64::INFINITY, f64::min),
+            None => altitude(&t.geo, t.observed_h),
         };
         match residual_s(event, t, params, theta_prior, er) {
             None => no_contact.push(i),
@@ -135,20 +200,26 @@ fn prescreen(
     if candidates.len() < 5 {
         return (candidates, Vec::new());
     }
-    let mut med = [0.0; 4];
-    for c in Contact::ALL {
-        let v: Vec<f64> = candidates
-            .iter()
-            .filter(|&&i| timings[i].obs.contact == c)
-            .map(|&i| prior_residual_s[i])
-            .collect();
-        med[c.index()] = median(&v);
+    // The median O - C of each kind of timing (each contact, and each pair of an interval).
+    let mut groups: Vec<((Option<Contact>, Contact), f64)> = Vec::new();
+    for &i in &candidates {
+        let key = timings[i].obs.contacts();
+        if !groups.iter().any(|g| g.0 == key) {
+            let v: Vec<f64> = candidates
+                .iter()
+                .filter(|&&k| timings[k].obs.contacts() == key)
+                .map(|&k| prior_residual_s[k])
+                .collect();
+            groups.push((key, median(&v)));
+        }
     }
+    let med = |i: usize| {
+        let key = timings[i].obs.contacts();
+        groups.iter().find(|g| g.0 == key).map_or(0.0, |g| g.1)
+    };
     let z: Vec<f64> = candidates
         .iter()
-        .map(|&i| {
-            (prior_residual_s[i] - med[timings[i].obs.contact.index()]) / timings[i].obs.sigma_s
-        })
+        .map(|&i| (prior_residual_s[i] - med(i)) / timings[i].obs.sigma_s)
         .collect();
     let s0 = robust_sigma(&z).max(0.5);
     let mut outliers = Vec::new();

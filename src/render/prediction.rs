@@ -7,7 +7,7 @@ use crate::render::text::{
     clock_label, csv_field, fixed, name_cell, push_fixed, push_right, round, scale_of,
     SAFETY_CAUTION,
 };
-use crate::sky::solar_time::{local_from_ut1, LocalTime};
+use crate::sky::solar_time::{local_from_label, LocalTime};
 use crate::time::iso::{format_utc, push_digits, push_utc};
 use serde_json::{json, Value};
 
@@ -186,7 +186,7 @@ fn local_reading(
     longitude_deg: f64,
     kind: LocalTime,
 ) -> Option<String> {
-    let local = local_from_ut1(event.label(hours), kind, longitude_deg, event.time_model())?;
+    let local = local_from_label(event.label(hours), kind, longitude_deg, event.time_model())?;
     let mut s = String::with_capacity(24);
     push_utc(&mut s, local, 2);
     s.pop();
@@ -337,12 +337,15 @@ pub fn predictions_json<'a>(
 /// What the uncertainty of Delta T does to the times printed, in a sentence for the header.
 pub fn delta_t_note(event: &TransitEvent) -> String {
     use crate::time::scales::DeltaTSource;
+    use chrono::Datelike;
     let source = event.time_model().delta_t_s(event.greatest).1;
+    let from = format!("Delta T from {}.", source.describe());
     let text = match source {
         DeltaTSource::Fixed => "Delta T fixed by --delta-t.".to_string(),
-        DeltaTSource::LeapSeconds => "Delta T from the leap-second table (UTC); its uncertainty hardly moves the contacts.".to_string(),
-        DeltaTSource::Polynomial => "Times are UT1, which is TT - Delta T: an error in Delta T moves every time printed by about as much.".to_string(),
-        DeltaTSource::PolynomialJoined => "After the leap-second table, times are UTC with TAI - UTC held at its last value, so they stay tied to TT: an error in Delta T moves them only through the Earth's rotation under the event (seconds for minutes of Delta T), while the UT1 of each contact, and any leap second still to come, would move by the whole error.".to_string(),
+        DeltaTSource::LeapSeconds | DeltaTSource::Observed | DeltaTSource::Predicted => format!("{from} Times are UTC; the uncertainty of Delta T hardly moves the contacts."),
+        DeltaTSource::Reconstruction if event.date().year() < 1972 => format!("{from} Times are UT1, which is TT - Delta T: an error in Delta T moves every time printed by about as much."),
+        DeltaTSource::Reconstruction => format!("{from} Times are UTC."),
+        DeltaTSource::Extrapolated => format!("{from} Times are UTC with TAI - UTC held at its last value, so they stay tied to TT: an error in Delta T moves them only through the Earth's rotation under the event (seconds for minutes of Delta T), while the UT1 of each contact, and any leap second still to come, would move by the whole error."),
     };
     format!("{text}\n")
 }

@@ -40,6 +40,8 @@ fn stations_json(red: &Reduction) -> Vec<Value> {
                 "influence_arcsec": opt(s.influence_arcsec, 6),
                 "residuals_s": s.residuals_s.iter().map(|x| r(*x, 2)).collect::<Vec<f64>>(),
                 "contacts": s.contacts,
+                "contact_labels": s.contact_labels,
+                "observers": s.observers,
                 "mean_normalised_residual": r(s.mean_normalised_residual, 3),
                 "not_used": s.not_used,
                 "chord": s.chord.as_ref().map(|c| json!({
@@ -62,6 +64,7 @@ fn rejected_json(red: &Reduction) -> Vec<Value> {
                 "line": x.line,
                 "station": x.station,
                 "contact": x.contact,
+                "contact_label": x.contact_label,
                 "reason": x.reason.as_str(),
                 "diagnosis": x.diagnosis,
                 "o_c_s": opt(x.o_c_s, 2),
@@ -114,6 +117,16 @@ pub fn reduction_json(red: &Reduction) -> Value {
         "iterations": red.iterations,
         "warnings": red.warnings,
         "delta_t_s": r(red.event.elements.delta_t_s, 3),
+        "delta_t_sigma_s": delta_t_sigma(red),
+        "delta_t_source": red.event.time_model().delta_t_s(red.event.greatest).1.describe(),
+        "black_drop": red.black_drop.iter().map(|b| json!({
+            "contact_judged": b.contact_judged,
+            "contact": b.contact,
+            "delay_s": opt(b.delay_s, 2),
+            "sigma_s": opt(b.sigma_s, 2),
+            "relative_to": b.relative_to,
+            "note": b.note,
+        })).collect::<Vec<_>>(),
         "ephemeris": red.event.ephemeris_name(),
         "planet_place": red.planet_place.label(),
         "planet_place_parallax_shift_arcsec": red.place_bias_arcsec.map(|b| vec![r(b[0], 6), r(b[1], 6)]),
@@ -132,6 +145,13 @@ pub fn reduction_json(red: &Reduction) -> Value {
         }
     }
     v
+}
+
+/// The uncertainty of the Delta T used (null where it was fixed with --delta-t and counts as
+/// exact: never a zero).
+fn delta_t_sigma(red: &Reduction) -> Value {
+    let sigma = red.event.delta_t_sigma_s();
+    opt((sigma > 0.0).then_some(sigma), 3)
 }
 
 /// The methods side by side: null figures and a note where a method gives none.
@@ -283,6 +303,7 @@ fn parameters_section(red: &Reduction, s: &mut String) {
             ));
         }
     }
+    black_drop_lines(red, s);
     s.push_str("\nCorrelations\n  ");
     for i in 0..red.correlation.len() {
         s.push_str(&format!("{:>8}", format!("p{}", i + 1)));
@@ -302,6 +323,37 @@ fn parameters_section(red: &Reduction, s: &mut String) {
     for note in correlation_notes(red) {
         s.push_str(&format!("  {note}\n"));
     }
+}
+
+/// The black drop's lags, one line each: the fitted lag, or why it is not determined.
+pub fn black_drop_lines(red: &Reduction, s: &mut String) {
+    for line in black_drop_sentences(red) {
+        s.push_str(&format!("  {line}\n"));
+    }
+}
+
+/// One sentence per black-drop lag (shared by the table and the reports).
+pub fn black_drop_sentences(red: &Reduction) -> Vec<String> {
+    red.black_drop
+        .iter()
+        .map(|b| {
+            let what = format!(
+                "black drop: contact {} judged '{}'",
+                crate::words::roman(b.contact),
+                b.contact_judged
+            );
+            match (b.delay_s, b.sigma_s) {
+                (Some(d), Some(sigma)) => {
+                    let behind = match b.relative_to {
+                        Some(r) => format!("the timings judged '{r}'"),
+                        None => "the geometric contact".to_string(),
+                    };
+                    format!("{what}: seen {d:+.1} s +- {sigma:.1} s after {behind} (positive: later)")
+                }
+                _ => format!("{what}: {}", b.note.as_deref().unwrap_or("not determined")),
+            }
+        })
+        .collect()
 }
 
 /// A sentence for each pair of fitted parameters whose correlation prints as +-1.000: the
@@ -379,8 +431,9 @@ pub fn reduction_table(red: &Reduction) -> String {
                 "  line {:>5}  {} contact {:<2} {:<11} {}\n",
                 x.line,
                 name_cell(&x.station),
-                x.contact
-                    .map(|c| c.to_string())
+                x.contact_label
+                    .clone()
+                    .or_else(|| x.contact.map(|c| c.to_string()))
                     .unwrap_or_else(|| "-".into()),
                 x.reason.as_str(),
                 x.diagnosis.clone().unwrap_or_default()
@@ -418,7 +471,7 @@ pub fn reduction_csv(red: &Reduction) -> String {
                 "{},{},{},used,,{:.2},{:.2},",
                 u.line,
                 csv_field(&u.station),
-                u.contact,
+                u.contact_label,
                 u.o_c_s,
                 u.sigma_s
             ),
@@ -431,7 +484,10 @@ pub fn reduction_csv(red: &Reduction) -> String {
                 "{},{},{},rejected,{},{},,{}",
                 x.line,
                 csv_field(&x.station),
-                x.contact.map(|c| c.to_string()).unwrap_or_default(),
+                x.contact_label
+                    .clone()
+                    .or_else(|| x.contact.map(|c| c.to_string()))
+                    .unwrap_or_default(),
                 x.reason.as_str(),
                 x.o_c_s.map(|v| format!("{v:.2}")).unwrap_or_default(),
                 csv_field(x.diagnosis.as_deref().unwrap_or(""))

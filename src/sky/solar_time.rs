@@ -104,39 +104,41 @@ fn seconds(s: f64) -> TimeDelta {
     TimeDelta::nanoseconds((s * 1e9).round() as i64)
 }
 
-/// The UT1 label of a local solar-time reading (civil reckoning) at a longitude (degrees,
-/// east positive). Local apparent time is solved by iteration (the equation of time changes
-/// by under 30 s a day, so three passes converge far below a millisecond).
-pub fn ut1_from_local(
+/// The time label (UT1 before 1972, UTC from then on) of a local solar-time reading (civil
+/// reckoning) at a longitude (degrees, east positive). Local mean time is UT1 + longitude /
+/// 15 h in every era (after the leap-second table UT1 falls minutes behind the UTC label);
+/// local apparent time adds the equation of time, solved by iteration (it changes by under
+/// 30 s a day, so three passes converge far below a millisecond).
+pub fn label_from_local(
     reading: NaiveDateTime,
     kind: LocalTime,
     longitude_deg: f64,
     model: &TimeModel,
 ) -> Option<NaiveDateTime> {
-    let mean = reading - seconds(longitude_deg * 240.0);
-    match kind {
-        LocalTime::Mean => Some(mean),
-        LocalTime::Apparent => {
-            let mut ut1 = mean;
-            for _ in 0..3 {
-                ut1 = mean - seconds(equation_of_time_s(ut1, model)?);
-            }
-            Some(ut1)
+    let mean_ut1 = reading - seconds(longitude_deg * 240.0);
+    let mut ut1 = mean_ut1;
+    if kind == LocalTime::Apparent {
+        for _ in 0..3 {
+            let label = model.label_of_ut1(ut1).ok()?;
+            ut1 = mean_ut1 - seconds(equation_of_time_s(label, model)?);
         }
     }
+    model.label_of_ut1(ut1).ok()
 }
 
-/// The local solar-time reading (civil reckoning) of a UT1 label at a longitude.
-pub fn local_from_ut1(
-    ut1: NaiveDateTime,
+/// The local solar-time reading (civil reckoning) at a longitude of the instant with this time
+/// label (UT1 before 1972, UTC from then on), reckoned from UT1 in every era.
+pub fn local_from_label(
+    label: NaiveDateTime,
     kind: LocalTime,
     longitude_deg: f64,
     model: &TimeModel,
 ) -> Option<NaiveDateTime> {
+    let ut1 = model.ut1_of_label(label).ok()?;
     let mean = ut1 + seconds(longitude_deg * 240.0);
     match kind {
         LocalTime::Mean => Some(mean),
-        LocalTime::Apparent => Some(mean + seconds(equation_of_time_s(ut1, model)?)),
+        LocalTime::Apparent => Some(mean + seconds(equation_of_time_s(label, model)?)),
     }
 }
 
@@ -165,15 +167,27 @@ mod tests {
         let m = TimeModel::fixed(16.0);
         let ut1 = t("1769-06-03T19:15:23Z");
         for kind in [LocalTime::Apparent, LocalTime::Mean] {
-            let local = local_from_ut1(ut1, kind, -149.5, &m).unwrap();
-            let back = ut1_from_local(local, kind, -149.5, &m).unwrap();
+            let local = local_from_label(ut1, kind, -149.5, &m).unwrap();
+            let back = label_from_local(local, kind, -149.5, &m).unwrap();
             assert!(
                 (back - ut1).num_microseconds().unwrap().abs() < 1_000,
                 "{kind:?}"
             );
         }
+        // After the leap-second table the same round trip holds with UTC labels, and
+        // Greenwich local mean time is UT1, not the label (Delta T fixed at 240 s: UT1 - UTC
+        // = 69.184 - 240 s, by the definitions of TT and UTC).
+        let m = TimeModel::fixed(240.0);
+        let utc = t("2117-12-11T03:00:00Z");
+        for kind in [LocalTime::Apparent, LocalTime::Mean] {
+            let local = local_from_label(utc, kind, 151.2, &m).unwrap();
+            let back = label_from_local(local, kind, 151.2, &m).unwrap();
+            assert!((back - utc).num_microseconds().unwrap().abs() < 1_000);
+        }
+        let greenwich = local_from_label(utc, LocalTime::Mean, 0.0, &m).unwrap();
+        assert_eq!((greenwich - utc).num_milliseconds(), -170_816);
         // Tahiti is 9 h 58 min west: local mean time is that much before UT1.
-        let mean = local_from_ut1(ut1, LocalTime::Mean, -149.5, &m).unwrap();
+        let mean = local_from_label(ut1, LocalTime::Mean, -149.5, &m).unwrap();
         assert_eq!((ut1 - mean).num_seconds(), 35_880);
         assert_eq!(
             DayReckoning::Astronomical.to_civil(t("1769-06-03T21:00:00Z")),

@@ -4,10 +4,9 @@
 //! - From 1972 on, time labels are UTC: TT = UTC + (TAI - UTC) + 32.184 s, with TAI - UTC from
 //!   the built-in IERS table; after the table's last entry it stays at its last value.
 //! - Before 1972, time labels are UT1 (mean solar time at Greenwich): TT = UT1 + Delta T.
-//! - The Earth's rotation always uses UT1 = TT - Delta T. In the leap-second era Delta T is
-//!   32.184 s + (TAI - UTC) - DUT1 (DUT1 = UT1 - UTC, 0 unless given); before 1972 and after the
-//!   table it comes from the Espenak and Meeus polynomials; a fixed value may replace it.
-
+//! - The Earth's rotation always uses UT1 = TT - Delta T, with Delta T from `delta_t.rs` (the
+//!   reconstruction of Morrison et al. 2021, IERS observations and predictions, and an
+//!   extrapolation), DUT1 = UT1 - UTC where the user gives it, or a fixed Delta T.
 use crate::error::{Error, Result};
 use crate::sky::constants::{J2000_JD, SECONDS_PER_DAY, TT_MINUS_TAI_S};
 use chrono::{NaiveDate, NaiveDateTime, TimeDelta};
@@ -50,10 +49,11 @@ pub const LEAP_SECONDS: [(i32, u32, u32, i32); 28] = [
     (2017, 1, 1, 37),
 ];
 
-/// The last day for which the leap-second table is known to hold (no leap second was
-/// announced through the end of 2026; from memory of IERS Bulletin C, to be updated with each
-/// bulletin). After it, TAI - UTC stays at its last value and Delta T comes from the model.
-pub const LEAP_TABLE_VALID_UNTIL: (i32, u32, u32) = (2026, 12, 31);
+/// The last day for which the leap-second table is known to hold: the IERS leap-second file
+/// "updated through IERS Bulletin C 72 issued in July 2026" expires on 28 June 2027 (as
+/// carried by the PyPI package astropy-iers-data 0.2026.11.16; update with each bulletin).
+/// After it, TAI - UTC stays at its last value.
+pub const LEAP_TABLE_VALID_UNTIL: (i32, u32, u32) = (2027, 6, 28);
 
 /// An instant of Terrestrial Time, held as whole days and seconds from J2000.0 (2000 January 1,
 /// 12h TT), so that microseconds survive over the whole supported range.
@@ -204,7 +204,8 @@ pub fn tai_minus_utc_s(utc: NaiveDateTime) -> Option<f64> {
         .map(|&(_, _, _, s)| f64::from(s))
 }
 
-pub use super::delta_t::delta_t_espenak_meeus_s;
+pub use super::delta_t_polynomials::delta_t_espenak_meeus_s;
+use super::delta_t::{delta_t_estimate, DeltaTBasis};
 
 /// The settings an event is computed with: how Delta T is obtained, DUT1 in the leap-second
 /// era, and the ephemeris (carried here because every computation that needs the time
@@ -225,12 +226,45 @@ pub struct TimeModel {
 pub enum DeltaTSource {
     /// Fixed by the user.
     Fixed,
-    /// Leap-second table with DUT1 (UT1 close to UTC).
+    /// The leap-second table with the DUT1 the user gave.
     LeapSeconds,
-    /// Espenak and Meeus polynomials.
-    Polynomial,
-    /// Espenak and Meeus polynomials joined to the last observed value.
-    PolynomialJoined,
+    /// The reconstruction of Morrison, Stephenson, Hohenkerk and Zawilski (2021).
+    Reconstruction,
+    /// IERS observations.
+    Observed,
+    /// IERS Bulletin A predictions.
+    Predicted,
+    /// Published long-term predictions joined to the last IERS prediction.
+    Extrapolated,
+}
+
+impl DeltaTSource {
+    /// The source in words, for headers and notes.
+    pub fn describe(self) -> &'static str {
+        match self {
+            DeltaTSource::Fixed => "fixed with --delta-t",
+            DeltaTSource::LeapSeconds => "the leap-second table and the DUT1 given",
+            DeltaTSource::Reconstruction => {
+                "the reconstruction of Morrison, Stephenson, Hohenkerk and Zawilski (2021)"
+            }
+            DeltaTSource::Observed => "IERS observations",
+            DeltaTSource::Predicted => "IERS Bulletin A predictions",
+            DeltaTSource::Extrapolated => {
+                "an extrapolation: the middle of three published predictions, half their spread as the uncertainty"
+            }
+        }
+    }
+}
+
+impl From<DeltaTBasis> for DeltaTSource {
+    fn from(b: DeltaTBasis) -> Self {
+        match b {
+            DeltaTBasis::Reconstruction => DeltaTSource::Reconstruction,
+            DeltaTBasis::Observed => DeltaTSource::Observed,
+            DeltaTBasis::Predicted => DeltaTSource::Predicted,
+            DeltaTBasis::Extrapolated => DeltaTSource::Extrapolated,
+        }
+    }
 }
 
 impl TimeModel {
@@ -293,9 +327,11 @@ impl TimeModel {
         check_label_year(label)?;
         let s = label_seconds(label);
         let offset = if label < Self::leap_era_start() {
+            // Delta T at the label's own year; the label is within a minute of TT, which moves
+            // Delta T by far less than a microsecond.
             let approx = Tt::from_j2000_seconds(s);
             self.delta_t_override_s
-                .unwrap_or_else(|| delta_t_espenak_meeus_s(approx.decimal_year()))
+                .unwrap_or_else(|| delta_t_estimate(approx.decimal_year()).delta_t_s)
         } else {
             tai_minus_utc_s(label).unwrap_or(10.0) + TT_MINUS_TAI_S
         };
@@ -317,73 +353,78 @@ impl TimeModel {
         }
         let dt = self
             .delta_t_override_s
-            .unwrap_or_else(|| delta_t_espenak_meeus_s(tt.decimal_year()));
+            .unwrap_or_else(|| delta_t_estimate(tt.decimal_year()).delta_t_s);
         let mut label_s = tt_s - dt;
         if self.delta_t_override_s.is_none() {
-            // Delta T is evaluated at the label's own year: one more pass converges
-            // (the polynomial changes by far less than a microsecond per second).
+            // Delta T is evaluated at the label's own year, as in `tt_from_label`: one more
+            // pass converges (Delta T changes by far less than a microsecond per second).
             let y = Tt::from_j2000_seconds(label_s).decimal_year();
-            label_s = tt_s - delta_t_espenak_meeus_s(y);
+            label_s = tt_s - delta_t_estimate(y).delta_t_s;
         }
         label_from_seconds(label_s)
     }
 
-    /// Delta T = TT - UT1 in seconds at an instant, and where it came from.
+    /// Delta T = TT - UT1 in seconds at an instant, and where it came from: the value fixed
+    /// with `--delta-t`; before 1972 (labels UT1) the reconstruction; in the leap-second era
+    /// with `--dut1` given, 32.184 s + (TAI - UTC) - DUT1; otherwise the built-in model
+    /// (IERS observations, predictions, extrapolation; see `delta_t.rs`).
     pub fn delta_t_s(&self, tt: Tt) -> (f64, DeltaTSource) {
         if let Some(dt) = self.delta_t_override_s {
             return (dt, DeltaTSource::Fixed);
         }
-        let label = self.label_from_tt(tt);
-        if label < Self::leap_era_start() {
-            return (
-                delta_t_espenak_meeus_s(tt.decimal_year()),
-                DeltaTSource::Polynomial,
-            );
+        if self.dut1_s != 0.0 {
+            let label = self.label_from_tt(tt);
+            if label >= Self::leap_era_start() && label < Self::table_end() {
+                let leap = tai_minus_utc_s(label).unwrap_or(10.0);
+                return (
+                    TT_MINUS_TAI_S + leap - self.dut1_s,
+                    DeltaTSource::LeapSeconds,
+                );
+            }
         }
-        if label < Self::table_end() {
-            let leap = tai_minus_utc_s(label).unwrap_or(10.0);
-            return (
-                TT_MINUS_TAI_S + leap - self.dut1_s,
-                DeltaTSource::LeapSeconds,
-            );
-        }
-        // After the table: the polynomial, shifted to join the last observed value.
-        let end_year = 2000.0 + label_seconds(Self::table_end()) / SECONDS_PER_DAY / 365.25;
-        let last_observed = TT_MINUS_TAI_S + f64::from(LEAP_SECONDS[LEAP_SECONDS.len() - 1].3);
-        let shift = last_observed - delta_t_espenak_meeus_s(end_year);
-        (
-            delta_t_espenak_meeus_s(tt.decimal_year()) + shift,
-            DeltaTSource::PolynomialJoined,
-        )
+        let e = delta_t_estimate(tt.decimal_year());
+        (e.delta_t_s, e.basis.into())
     }
 
-    /// A rough standard uncertainty of Delta T at an instant, in seconds.
-    ///
-    /// Notes: a guide for users, not a rigorous figure. Fixed values count as exact; in the
-    /// leap-second era 0.5 s unless DUT1 was given; before 1972 0.8 s x ((y - 1820)/100)^2, at
-    /// least 0.1 s (the Morrison and Stephenson 2004 parabola, from memory); after the table,
-    /// 0.5 s + 1 s x ((y - y_end)/10)^2 (an extrapolation error that grows quadratically; a
-    /// rough guide of ours).
+    /// The standard uncertainty of Delta T at an instant, in seconds: 0 for a fixed value
+    /// (it counts as exact), 0.01 s with DUT1 given, else the built-in model's published
+    /// uncertainty (see `delta_t.rs`).
     pub fn delta_t_sigma_s(&self, tt: Tt) -> f64 {
         match self.delta_t_s(tt).1 {
             DeltaTSource::Fixed => 0.0,
-            DeltaTSource::LeapSeconds => {
-                if self.dut1_s != 0.0 {
-                    0.01
-                } else {
-                    0.5
-                }
-            }
-            DeltaTSource::Polynomial => {
-                let u = (tt.decimal_year() - 1820.0) / 100.0;
-                (0.8 * u * u).max(0.1)
-            }
-            DeltaTSource::PolynomialJoined => {
-                let end_year = f64::from(LEAP_TABLE_VALID_UNTIL.0) + 1.0;
-                let u = (tt.decimal_year() - end_year) / 10.0;
-                0.5 + u * u
-            }
+            DeltaTSource::LeapSeconds => 0.01,
+            _ => delta_t_estimate(tt.decimal_year()).sigma_s,
         }
+    }
+
+    /// UT1 - label (seconds) at an instant: 0 before 1972, where labels are UT1; from 1972,
+    /// UT1 - UTC = 32.184 s + (TAI - UTC) - Delta T (within 0.9 s in the leap-second era,
+    /// minutes after it: the labels stay tied to TT while UT1 follows the Earth).
+    pub fn ut1_minus_label_s(&self, tt: Tt) -> f64 {
+        let label = self.label_from_tt(tt);
+        if label < Self::leap_era_start() {
+            return 0.0;
+        }
+        let leap = tai_minus_utc_s(label).unwrap_or(10.0);
+        TT_MINUS_TAI_S + leap - self.delta_t_s(tt).0
+    }
+
+    /// The UT1 label of a time label (UTC from 1972, UT1 before): local solar time is always
+    /// reckoned from UT1.
+    pub fn ut1_of_label(&self, label: NaiveDateTime) -> Result<NaiveDateTime> {
+        let tt = self.tt_from_label(label)?;
+        Ok(label + seconds_delta(self.ut1_minus_label_s(tt)))
+    }
+
+    /// The time label of a UT1 instant (the inverse of [`TimeModel::ut1_of_label`], by two
+    /// passes: UT1 - UTC changes by milliseconds a day).
+    pub fn label_of_ut1(&self, ut1: NaiveDateTime) -> Result<NaiveDateTime> {
+        let mut label = ut1;
+        for _ in 0..2 {
+            let tt = self.tt_from_label(label)?;
+            label = ut1 - seconds_delta(self.ut1_minus_label_s(tt));
+        }
+        Ok(label)
     }
 
     /// UT1 as a two-part Julian date for an instant of TT.
@@ -391,6 +432,11 @@ impl TimeModel {
         let (dt, _) = self.delta_t_s(tt);
         tt.add_seconds(-dt).jd_pair()
     }
+}
+
+/// A number of seconds as a chrono duration, to the nanosecond.
+fn seconds_delta(s: f64) -> TimeDelta {
+    TimeDelta::nanoseconds((s * 1e9).round() as i64)
 }
 
 fn check_label_year(label: NaiveDateTime) -> Result<()> {
@@ -455,35 +501,6 @@ mod tests {
     }
 
     #[test]
-    fn delta_t_matches_published_polynomial_values() {
-        // Source: Espenak and Meeus, NASA TP-2006-214141, polynomials; values computed from
-        // them in shared/references.md, y = year + (month - 0.5)/12.
-        let cases = [
-            (1761.0 + 5.5 / 12.0, 15.1),
-            (1769.0 + 5.5 / 12.0, 16.2),
-            (1874.0 + 11.5 / 12.0, -3.1),
-            (1882.0 + 11.5 / 12.0, -5.5),
-            (2004.0 + 5.5 / 12.0, 64.6),
-            (2012.0 + 5.5 / 12.0, 67.8),
-        ];
-        for (y, expected) in cases {
-            let got = delta_t_espenak_meeus_s(y);
-            assert!((got - expected).abs() < 0.06, "{y}: {got} vs {expected}");
-        }
-    }
-
-    #[test]
-    fn delta_t_polynomials_join_at_their_boundaries() {
-        // Common practice, no source: the pieces are continuous to well under a second.
-        for y in [
-            1700.0, 1800.0, 1860.0, 1900.0, 1920.0, 1941.0, 1961.0, 1986.0, 2005.0, 2050.0,
-        ] {
-            let jump = delta_t_espenak_meeus_s(y) - delta_t_espenak_meeus_s(y - 1e-9);
-            assert!(jump.abs() < 1.0, "{y}: {jump}");
-        }
-    }
-
-    #[test]
     fn utc_tt_round_trip_is_exact_to_a_microsecond() {
         let model = TimeModel::default();
         for text in [
@@ -512,9 +529,13 @@ mod tests {
         let tt = model.tt_from_label(utc).unwrap();
         let back = Tt::from_j2000_seconds(label_seconds(utc));
         assert!((tt.seconds_since(back) - 66.184).abs() < 1e-6);
+        // Delta T is the observed one (IERS): TT - UT1 = 66.184 s - DUT1, and DUT1 was
+        // about -0.58 s then (Skyfield 1.53's IERS table gives Delta T 66.762 s on June 6,
+        // tests/reference/delta_t_skyfield.csv).
         let (dt, source) = model.delta_t_s(tt);
-        assert_eq!(source, DeltaTSource::LeapSeconds);
-        assert!((dt - 66.184).abs() < 1e-9);
+        assert_eq!(source, DeltaTSource::Observed);
+        assert!((dt - 66.762).abs() < 0.02, "{dt}");
+        assert!((model.ut1_minus_label_s(tt) + 0.578).abs() < 0.02);
     }
 
     #[test]
@@ -535,19 +556,43 @@ mod tests {
     }
 
     #[test]
-    fn delta_t_uncertainty_follows_its_documented_guide() {
-        // The guide of TimeModel::delta_t_sigma_s (a rough one of ours; the pre-1972 parabola
-        // recalled from memory of Morrison and Stephenson 2004): fixed values are exact, the
-        // leap-second era 0.5 s, 1874 about 0.24 s, 2117 tens of seconds.
+    fn delta_t_uncertainty_is_the_published_one() {
+        // Fixed values are exact; with DUT1 given, 0.01 s; otherwise the model's published
+        // uncertainty (delta_t.rs): 0.05 s in 1874 (the authors' epsilon), under 0.01 s in
+        // 2012 (IERS observations), tens of seconds in 2117 (published predictions diverge).
         let model = TimeModel::default();
         let at = |t: &str| model.delta_t_sigma_s(model.tt_from_label(label(t)).unwrap());
         assert_eq!(
             TimeModel::fixed(-3.0).delta_t_sigma_s(Tt::from_jd(2_405_866.67)),
             0.0
         );
-        assert_eq!(at("2012-06-06T01:00:00Z"), 0.5);
-        assert!((at("1874-12-09T04:00:00Z") - 0.24).abs() < 0.01);
-        assert!((40.0..150.0).contains(&at("2117-12-11T03:00:00Z")));
+        assert_eq!(at("1874-12-09T04:00:00Z"), 0.05);
+        assert!(at("2012-06-06T01:00:00Z") < 0.01);
+        assert!((30.0..150.0).contains(&at("2117-12-11T03:00:00Z")));
+        let with_dut1 = TimeModel {
+            dut1_s: 0.3,
+            ..TimeModel::default()
+        };
+        let tt = with_dut1
+            .tt_from_label(label("2012-06-06T01:00:00Z"))
+            .unwrap();
+        assert_eq!(with_dut1.delta_t_s(tt), (66.184 - 0.3, DeltaTSource::LeapSeconds));
+        assert_eq!(with_dut1.delta_t_sigma_s(tt), 0.01);
+    }
+
+    #[test]
+    fn local_time_is_reckoned_from_ut1_in_every_era() {
+        // After the leap-second table the labels stay UTC, tied to TT (TT - UTC = 69.184 s),
+        // while UT1 = TT - Delta T: with Delta T fixed at 240 s, UT1 - UTC = -170.816 s
+        // (the definitions of IAU 1991 A4 and IERS Bulletin C; the oracle is arithmetic).
+        let model = TimeModel::fixed(240.0);
+        let utc = label("2117-12-11T03:00:00Z");
+        let ut1 = model.ut1_of_label(utc).unwrap();
+        assert!(((ut1 - utc).num_milliseconds() as f64 / 1000.0 + 170.816).abs() < 1e-6);
+        assert_eq!(model.label_of_ut1(ut1).unwrap(), utc);
+        // Before 1972 the label is UT1 already.
+        let ut1 = label("1769-06-03T19:30:00Z");
+        assert_eq!(TimeModel::default().ut1_of_label(ut1).unwrap(), ut1);
     }
 
     #[test]

@@ -1,0 +1,308 @@
+//! Times and durations as observers wrote them: ISO 8601 instants in the Gregorian or the
+//! Julian calendar, readings given as a range (`START/END`, "between these two readings"),
+//! times written to the minute only, and timed intervals between two contacts.
+//!
+//! A range or a time to the minute is used at its midpoint, with the range's variance
+//! (range^2 / 12, that of a reading equally likely anywhere in it) added to the timing's.
+//!
+//! References: ISO 8601-1:2019, sections 4.4.3 (reduced precision: `22:27` is the whole minute)
+//! and 5.5 (time intervals `START/END`, with the higher-order components of END left out when
+//! they equal START's, and durations `PnYnMnDTnHnMnS`); the variance of a uniform distribution,
+//! e.g. JCGM 100:2008 (GUM), section 4.3.7.
+
+use crate::time::calendar::{split_date, Calendar};
+use crate::time::iso::{parse_utc_zoned, Zone};
+use chrono::NaiveDateTime;
+
+/// The widest range a reading may span, seconds: a wider one is not a reading but a guess,
+/// which belongs in `sigma_s`.
+pub const MAX_RANGE_S: f64 = 3600.0;
+
+/// A time as written in `time_utc` or `time_local`.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct TimeReading {
+    /// The instant used: the time written, or the midpoint of a range or of the minute.
+    pub label: NaiveDateTime,
+    /// The zone written (converted to UTC in `label`).
+    pub zone: Zone,
+    /// Width of the range the reading spans, seconds: a `START/END` range, or 60 for a time
+    /// written to the minute; `None` for an instant.
+    pub range_s: Option<f64>,
+    /// Whether the time was written to the minute only (`22:27`).
+    pub minute_only: bool,
+}
+
+impl TimeReading {
+    /// The standard uncertainty the range adds (s): range / sqrt(12), 0 for an instant.
+    pub fn range_sigma_s(&self) -> f64 {
+        self.range_s.map_or(0.0, |r| r / 12f64.sqrt())
+    }
+}
+
+/// Seconds between two labels.
+fn seconds_between(a: NaiveDateTime, b: NaiveDateTime) -> f64 {
+    let d = b - a;
+    d.num_seconds() as f64 + f64::from(d.subsec_nanos()) * 1e-9
+}
+
+/// The time-of-day part of a text after its date (`T09:34:10Z` or ` 09:34`), without the
+/// separator: the fields before the zone, how many there are, and the zone's text.
+fn time_fields(rest: &str) -> (Vec<&str>, &str) {
+    let body = rest.trim_start_matches(['T', 't', ' ']);
+    let zone_at = body
+        .char_indices()
+        .find(|&(_, c)| c == 'Z' || c == 'z' || c == '+' || c == '-')
+        .map_or(body.len(), |(i, _)| i);
+    (body[..zone_at].split(':').collect(), &body[zone_at..])
+}
+
+/// One instant, its date read in `calendar`; returns the label, its zone and whether it was
+/// written to the minute only.
+fn parse_instant(text: &str, calendar: Calendar) -> Result<(NaiveDateTime, Zone, bool), String> {
+    let t = text.trim();
+    let bad = || {
+        format!("'{t}' is not a date and time; write it like 2012-06-05T22:25:41.3Z (ISO 8601), or as a range 2012-06-05T22:25:40/22:25:43")
+    };
+    let (date, rest) = match split_date(t, calendar) {
+        Some(x) => x,
+        None if calendar == Calendar::Julian && split_date(t, Calendar::Gregorian).is_none() => {
+            return Err(format!("'{t}' does not begin with a date of the Julian calendar (YYYY-MM-DD); check the day and month"));
+        }
+        None => return Err(bad()),
+    };
+    let (fields, _) = time_fields(rest);
+    let minute_only = fields.len() == 2;
+    let normal = format!("{}{}", date.format("%Y-%m-%d"), rest);
+    let (label, zone) = parse_utc_zoned(&normal).map_err(|m| m.replace(normal.trim(), t))?;
+    Ok((label, zone, minute_only))
+}
+
+/// The end of a range: a full instant, or the lower-order fields of START's time that differ
+/// (`09:34:14`, `34:14`, `14` after `09:34:10`).
+fn range_end(
+    start_text: &str,
+    end_text: &str,
+    calendar: Calendar,
+) -> Result<NaiveDateTime, String> {
+    let end = end_text.trim();
+    if end.contains('T') || end.contains(' ') || end.matches('-').count() >= 2 {
+        return parse_instant(end, calendar).map(|x| x.0);
+    }
+    let (date, rest) = split_date(start_text.trim(), calendar)
+        .ok_or_else(|| format!("'{start_text}' is not a date and time"))?;
+    let (start_fields, zone) = time_fields(rest);
+    let end_body = end.trim_end_matches(['Z', 'z']);
+    let end_fields: Vec<&str> = end_body.split(':').collect();
+    if end_fields.len() > start_fields.len() || end_fields.iter().any(|f| f.is_empty()) {
+        return Err(format!(
+            "the range's end '{end}' does not fit its start '{}'; write the end as a time (09:34:14) or in full",
+            start_text.trim()
+        ));
+    }
+    let keep = start_fields.len() - end_fields.len();
+    let fields: Vec<&str> = start_fields[..keep]
+        .iter()
+        .chain(end_fields.iter())
+        .copied()
+        .collect();
+    let full = format!("{}T{}{zone}", date.format("%Y-%m-%d"), fields.join(":"));
+    parse_utc_zoned(&full).map(|x| x.0).map_err(|_| {
+        format!(
+            "the range's end '{end}' is not a time; write it like 09:34:14 after {}",
+            start_text.trim()
+        )
+    })
+}
+
+/// Parse a time as written: an instant (to the second, or to the minute only: then the whole
+/// minute is its range) or a range `START/END`.
+///
+/// Errors: a sentence saying what is wrong and how to write it (a range that ends before it
+/// begins, or spans more than [`MAX_RANGE_S`]).
+pub fn parse_time_reading(text: &str, calendar: Calendar) -> Result<TimeReading, String> {
+    let t = text.trim();
+    let Some((start_text, end_text)) = t.split_once('/') else {
+        let (label, zone, minute_only) = parse_instant(t, calendar)?;
+        return Ok(if minute_only {
+            TimeReading {
+                label: label + chrono::TimeDelta::seconds(30),
+                zone,
+                range_s: Some(60.0),
+                minute_only: true,
+            }
+        } else {
+            TimeReading {
+                label,
+                zone,
+                range_s: None,
+                minute_only: false,
+            }
+        });
+    };
+    let (start, zone, _) = parse_instant(start_text, calendar)?;
+    let end = range_end(start_text, end_text, calendar)?;
+    let width = seconds_between(start, end);
+    if width < 0.0 {
+        return Err(format!(
+            "the range '{t}' ends before it begins; write the earlier reading first"
+        ));
+    }
+    if width > MAX_RANGE_S {
+        return Err(format!(
+            "the range '{t}' spans {width:.0} s, more than an hour; give the time and its uncertainty in sigma_s instead"
+        ));
+    }
+    Ok(TimeReading {
+        label: start + chrono::TimeDelta::nanoseconds((width * 0.5e9).round() as i64),
+        zone,
+        range_s: Some(width),
+        minute_only: false,
+    })
+}
+
+/// One duration: `H:MM:SS` (seconds may carry decimals), `H:MM` (to the minute), ISO 8601
+/// `PT5H49M52.5S`, or a plain number of seconds; returns seconds and whether it was written
+/// to the minute only.
+fn parse_one_duration(text: &str) -> Option<(f64, bool)> {
+    let t = text.trim();
+    if let Some(iso) = t.strip_prefix("PT").or_else(|| t.strip_prefix("pt")) {
+        let mut total = 0.0;
+        let mut number = String::new();
+        let mut seen = false;
+        for c in iso.chars() {
+            if c.is_ascii_digit() || c == '.' {
+                number.push(c);
+                continue;
+            }
+            let unit = match c.to_ascii_uppercase() {
+                'H' => 3600.0,
+                'M' => 60.0,
+                'S' => 1.0,
+                _ => return None,
+            };
+            total += number.parse::<f64>().ok()? * unit;
+            number.clear();
+            seen = true;
+        }
+        return (seen && number.is_empty()).then_some((total, false));
+    }
+    let parts: Vec<&str> = t.split(':').collect();
+    match parts.as_slice() {
+        [s] => s.parse::<f64>().ok().map(|v| (v, false)),
+        [h, m] => {
+            let (h, m): (u32, u32) = (h.parse().ok()?, m.parse().ok()?);
+            (m < 60).then(|| (f64::from(h * 3600 + m * 60), true))
+        }
+        [h, m, s] => {
+            let (h, m): (u32, u32) = (h.parse().ok()?, m.parse().ok()?);
+            let s: f64 = s.parse().ok()?;
+            (m < 60 && (0.0..60.0).contains(&s)).then(|| (f64::from(h * 3600 + m * 60) + s, false))
+        }
+        _ => None,
+    }
+}
+
+/// A timed interval as written in `duration`: its value in seconds (a range's midpoint, or the
+/// middle of the minute for `H:MM`) and the width of its range (s), if any.
+///
+/// Errors: a sentence saying how to write it.
+pub fn parse_duration(text: &str) -> Result<(f64, Option<f64>), String> {
+    let t = text.trim();
+    let bad = || {
+        format!("'{t}' is not a duration; write it as 5:49:52, 5:49:52.5, PT5H49M52S or a number of seconds (a range as 5:49:50/5:49:53)")
+    };
+    let (value, range) = match t.split_once('/') {
+        Some((a, b)) => {
+            let (a, _) = parse_one_duration(a).ok_or_else(bad)?;
+            let (b, _) = parse_one_duration(b).ok_or_else(bad)?;
+            if b < a {
+                return Err(format!("the range '{t}' ends before it begins; write the shorter duration first"));
+            }
+            (0.5 * (a + b), Some(b - a))
+        }
+        None => match parse_one_duration(t).ok_or_else(bad)? {
+            (v, true) => (v + 30.0, Some(60.0)),
+            (v, false) => (v, None),
+        },
+    };
+    if !(value.is_finite() && value > 0.0 && value <= 12.0 * 3600.0) {
+        return Err(format!(
+            "the duration '{t}' must be positive and at most 12 hours"
+        ));
+    }
+    if range.is_some_and(|r| r > MAX_RANGE_S) {
+        return Err(format!("the range '{t}' spans more than an hour; give the duration and its uncertainty in sigma_s instead"));
+    }
+    Ok((value, range))
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::time::iso::parse_utc;
+
+    fn at(text: &str) -> NaiveDateTime {
+        parse_utc(text).unwrap()
+    }
+
+    #[test]
+    fn instants_ranges_and_minutes() {
+        let r = parse_time_reading("1769-06-03T09:34:10/09:34:14", Calendar::Gregorian).unwrap();
+        assert_eq!(r.label, at("1769-06-03T09:34:12Z"));
+        assert_eq!(r.range_s, Some(4.0));
+        assert!((r.range_sigma_s() - 4.0 / 12f64.sqrt()).abs() < 1e-12);
+        for short in ["34:14", "14", "1769-06-03T09:34:14"] {
+            let r = parse_time_reading(&format!("1769-06-03T09:34:10/{short}"), Calendar::Gregorian)
+                .unwrap();
+            assert_eq!(r.label, at("1769-06-03T09:34:12Z"), "{short}");
+        }
+        // Norriton, 1769: Smith's first impression "2h 12' 50'' to 53''" (Phil. Trans. 59).
+        let r = parse_time_reading("1769-06-03T14:12:50/53", Calendar::Gregorian).unwrap();
+        assert_eq!((r.label, r.range_s), (at("1769-06-03T14:12:51.5Z"), Some(3.0)));
+        // An offset applies to both ends.
+        let r = parse_time_reading("2012-06-06T08:27:40+10:00/08:27:50", Calendar::Gregorian)
+            .unwrap();
+        assert_eq!(r.label, at("2012-06-05T22:27:45Z"));
+        // To the minute: the whole minute (ISO 8601 reduced precision).
+        let r = parse_time_reading("2012-06-05 22:27", Calendar::Gregorian).unwrap();
+        assert!(r.minute_only);
+        assert_eq!((r.label, r.range_s), (at("2012-06-05T22:27:30Z"), Some(60.0)));
+        // A Julian date: the transit of 1639, Old Style November 24.
+        let r = parse_time_reading("1639-11-24T15:15", Calendar::Julian).unwrap();
+        assert_eq!(r.label, at("1639-12-04T15:15:30Z"));
+        let r = parse_time_reading("1700-02-29T10:00:00", Calendar::Julian).unwrap();
+        assert_eq!(r.label, at("1700-03-11T10:00:00Z"));
+    }
+
+    #[test]
+    fn bad_readings_say_how_to_write_them() {
+        for (text, calendar, needle) in [
+            ("1769-06-03T09:34:14/09:34:10", Calendar::Gregorian, "ends before"),
+            ("1769-06-03T09:00:00/11:00:00", Calendar::Gregorian, "more than an hour"),
+            ("1769-06-03T09:34:10/xx", Calendar::Gregorian, "not a time"),
+            ("June 3", Calendar::Gregorian, "ISO 8601"),
+            ("1701-02-29T10:00", Calendar::Julian, "Julian calendar"),
+        ] {
+            let e = parse_time_reading(text, calendar).unwrap_err();
+            assert!(e.contains(needle), "{text}: {e}");
+        }
+    }
+
+    #[test]
+    fn durations_in_every_form() {
+        // Hornsby (Phil. Trans. 61, 1771), Wardhus: observed duration 5 53 14.
+        let five_53_14 = 5.0 * 3600.0 + 53.0 * 60.0 + 14.0;
+        for t in ["5:53:14", "PT5H53M14S", "21194", "pt5h53m14s"] {
+            assert_eq!(parse_duration(t).unwrap(), (five_53_14, None), "{t}");
+        }
+        assert_eq!(parse_duration("5:53:14.5").unwrap().0, five_53_14 + 0.5);
+        assert_eq!(
+            parse_duration("5:53:10/5:53:14").unwrap(),
+            (five_53_14 - 2.0, Some(4.0))
+        );
+        assert_eq!(parse_duration("5:53").unwrap(), (five_53_14 + 16.0, Some(60.0)));
+        for bad in ["5:73:14", "-5:00:00", "13:00:00", "five hours", "PT5X", "5:53:14/5:53:10"] {
+            assert!(parse_duration(bad).is_err(), "{bad}");
+        }
+    }
+}

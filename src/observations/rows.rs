@@ -1,0 +1,314 @@
+//! One row of an observations file into one [`Observation`]: the station and its coordinates
+//! (in any written form, from any prime meridian), the observer, the contact or the pair of
+//! contacts of a timed interval, the time (UTC, or a clock reading in local solar time, in
+//! either calendar, as an instant, a range or to the minute), how the contact was judged and
+//! the uncertainty.
+//!
+//! Every field that cannot be read gives a sentence saying how to write it and the column at
+//! fault; the caller lists the row as invalid (or, with `--strict`, stops there).
+
+use super::angles::{parse_angle, Axis, Meridian};
+use super::contact_forms::{parse_contact_pair, ContactJudged};
+use super::csv_table::CsvTable;
+use super::local_time::{parse_local, LocalColumns, LocalReading};
+use super::longitude::LongitudeKnowledge;
+use super::readings::{parse_duration, parse_time_reading, TimeReading};
+use super::timings::{AsWritten, Interval, Observation, DEFAULT_SIGMA_S};
+use crate::geometry::contacts::Contact;
+use crate::geometry::station::{
+    normalise_longitude_deg, Station, MAX_ELEVATION_M, MIN_ELEVATION_M,
+};
+use crate::time::calendar::{split_date, Calendar};
+use crate::time::iso::Zone;
+use crate::time::scales::{MAX_YEAR, MIN_YEAR};
+use chrono::{Datelike, NaiveDateTime};
+
+/// A sentence saying what is wrong with a row, and the column at fault.
+pub type RowError = (String, Option<usize>);
+
+/// The columns of an observations file (found by header name).
+pub struct Columns {
+    /// `station`.
+    pub station: usize,
+    /// `latitude`.
+    pub lat: usize,
+    /// `longitude`.
+    pub lon: usize,
+    /// `elevation_m`.
+    pub elev: Option<usize>,
+    /// `contact`.
+    pub contact: usize,
+    /// `time_utc`.
+    pub time: Option<usize>,
+    /// `time_local`, `local_time`, `day_reckoning`.
+    pub local: LocalColumns,
+    /// `longitude_sigma_deg`.
+    pub longitude_sigma: Option<usize>,
+    /// `sigma_s`.
+    pub sigma: Option<usize>,
+    /// `observer`.
+    pub observer: Option<usize>,
+    /// `calendar`.
+    pub calendar: Option<usize>,
+    /// `meridian`.
+    pub meridian: Option<usize>,
+    /// `time_meridian`.
+    pub time_meridian: Option<usize>,
+    /// `duration`.
+    pub duration: Option<usize>,
+    /// `contact_judged`.
+    pub judged: Option<usize>,
+}
+
+impl Columns {
+    /// Find the columns by name.
+    ///
+    /// Errors: a required column is absent (the message lists the header).
+    pub fn find(table: &CsvTable) -> crate::Result<Columns> {
+        let cols = Columns {
+            station: table.require("station")?,
+            lat: table.require("latitude")?,
+            lon: table.require("longitude")?,
+            elev: table.optional("elevation_m"),
+            contact: table.require("contact")?,
+            time: table.optional("time_utc"),
+            local: LocalColumns {
+                time_local: table.optional("time_local"),
+                local_time: table.optional("local_time"),
+                day_reckoning: table.optional("day_reckoning"),
+            },
+            longitude_sigma: table.optional("longitude_sigma_deg"),
+            sigma: table.optional("sigma_s"),
+            observer: table.optional("observer"),
+            calendar: table.optional("calendar"),
+            meridian: table.optional("meridian"),
+            time_meridian: table.optional("time_meridian"),
+            duration: table.optional("duration"),
+            judged: table.optional("contact_judged"),
+        };
+        if cols.time.is_none() && cols.local.time_local.is_none() && cols.duration.is_none() {
+            // The message names the column every modern file has.
+            table.require("time_utc")?;
+        }
+        Ok(cols)
+    }
+}
+
+/// The text of an optional column ("" where absent).
+fn field<'a>(table: &CsvTable, rec: &'a csv::StringRecord, col: Option<usize>) -> &'a str {
+    col.map_or("", |c| table.text(rec, c))
+}
+
+/// A timing's standard uncertainty, seconds: positive, at most an hour.
+fn parse_sigma(text: &str, column: usize) -> Result<f64, RowError> {
+    let v: f64 = text.parse().map_err(|_| {
+        (
+            format!("sigma_s '{text}' is not a number of seconds"),
+            Some(column),
+        )
+    })?;
+    if !v.is_finite() || v <= 0.0 || v > 3600.0 {
+        return Err((
+            format!("sigma_s {text} must be a positive number of seconds, at most 3600"),
+            Some(column),
+        ));
+    }
+    Ok(v)
+}
+
+/// The station's place: latitude, longitude east of Greenwich (from the row's meridian) and
+/// elevation, and the meridian the longitude was counted from.
+fn place(
+    table: &CsvTable,
+    line: u64,
+    rec: &csv::StringRecord,
+    cols: &Columns,
+) -> Result<(f64, f64, f64, Meridian), RowError> {
+    let meridian = Meridian::parse(field(table, rec, cols.meridian)).map_err(|m| (m, cols.meridian))?;
+    let angle = |col: usize, axis: Axis| parse_angle(table.text(rec, col), axis).map_err(|m| (m, Some(col)));
+    let lat = angle(cols.lat, Axis::Latitude)?;
+    let lon = angle(cols.lon, Axis::Longitude)? + meridian.east_of_greenwich_deg();
+    let elev = match cols.elev {
+        Some(c) if !table.text(rec, c).is_empty() => table
+            .number_in(line, rec, c, MIN_ELEVATION_M, MAX_ELEVATION_M, "metres")
+            .map_err(|e| match e {
+                crate::Error::Input { message, .. } => (message, Some(c)),
+                other => (other.to_string(), Some(c)),
+            })?,
+        _ => 0.0,
+    };
+    Ok((lat, lon, elev, meridian))
+}
+
+/// The meridian a local-time reading was kept to, where it is not the station's own: a name
+/// (`greenwich`, `paris`, `ferro`) or a longitude in any written form, counted from the row's
+/// meridian. Returns degrees east of Greenwich.
+fn time_meridian(text: &str, meridian: Meridian) -> Result<Option<f64>, String> {
+    let t = text.trim();
+    if t.is_empty() {
+        return Ok(None);
+    }
+    match t.to_ascii_lowercase().as_str() {
+        "greenwich" | "paris" | "ferro" => Meridian::parse(t).map(|m| Some(m.east_of_greenwich_deg())),
+        _ => parse_angle(t, Axis::Longitude)
+            .map(|d| Some(d + meridian.east_of_greenwich_deg()))
+            .map_err(|_| format!("'{t}' is not a meridian for the clock; write greenwich, paris, or the meridian's longitude (counted like the longitude column)")),
+    }
+}
+
+/// Parse one row (see the module's notes); returns the observation and the zone its time was
+/// written with.
+pub fn parse_row(
+    table: &CsvTable,
+    line: u64,
+    rec: &csv::StringRecord,
+    cols: &Columns,
+) -> Result<(Observation, Zone), RowError> {
+    if rec.iter().all(|f| f.trim().is_empty()) {
+        return Err(("every field of the row is empty; delete the row or fill it in".into(), None));
+    }
+    let name = table.text(rec, cols.station);
+    if name.is_empty() {
+        return Err(("the station name is empty; give every row a station name".into(), Some(cols.station)));
+    }
+    let (lat, lon, elev, meridian) = place(table, line, rec, cols)?;
+    let calendar = Calendar::parse(field(table, rec, cols.calendar)).ok_or_else(|| {
+        (format!("'{}' is not a calendar; write gregorian (New Style, the default) or julian (Old Style)", field(table, rec, cols.calendar)), cols.calendar)
+    })?;
+    let judged = ContactJudged::parse(field(table, rec, cols.judged)).map_err(|m| (m, cols.judged))?;
+    let duration_text = field(table, rec, cols.duration);
+    let mut written = AsWritten { calendar, meridian, ..AsWritten::default() };
+    let (contact, interval, time, zone, local, range_sigma_s) = if duration_text.is_empty() {
+        let contact_text = table.text(rec, cols.contact);
+        let contact = Contact::parse(contact_text).ok_or_else(|| {
+            (format!("'{contact_text}' is not a contact; write 1-4, I-IV or C1-C4 (or a pair such as 2-3 with a duration)"), Some(cols.contact))
+        })?;
+        let tm = time_meridian(field(table, rec, cols.time_meridian), meridian).map_err(|m| (m, cols.time_meridian))?;
+        let (reading, local) = row_time(table, rec, cols, (lon, tm, calendar))?;
+        written.range_s = reading.range_s;
+        written.minute_only = reading.minute_only;
+        (contact, None, reading.label, reading.zone, local, reading.range_sigma_s())
+    } else {
+        let (interval, time, sigma) = row_interval(table, rec, cols, calendar, duration_text)?;
+        written.range_s = sigma.1;
+        (interval.1, Some(interval.0), time, Zone::Utc, None, sigma.0)
+    };
+    let time_col = if local.is_some() { cols.local.time_local } else { cols.time };
+    if interval.as_ref().map_or(true, |i| i.date.is_some()) && !(MIN_YEAR..=MAX_YEAR).contains(&time.year()) {
+        return Err((format!("the year {} is outside {MIN_YEAR}-{MAX_YEAR}", time.year()), time_col));
+    }
+    let longitude = match cols.longitude_sigma {
+        Some(c) => LongitudeKnowledge::parse(table.text(rec, c)).map_err(|m| (m, Some(c)))?,
+        None => LongitudeKnowledge::Exact,
+    };
+    let default_sigma = match &interval {
+        Some(i) => DEFAULT_SIGMA_S[i.first.index()].hypot(DEFAULT_SIGMA_S[contact.index()]),
+        None => DEFAULT_SIGMA_S[contact.index()],
+    };
+    let (sigma_s, sigma_given) = match cols.sigma {
+        Some(c) if !table.text(rec, c).is_empty() => (parse_sigma(table.text(rec, c), c)?, true),
+        _ => (default_sigma, false),
+    };
+    let observation = Observation {
+        line,
+        station: Station {
+            name: name.to_string(),
+            latitude_deg: lat,
+            longitude_deg: normalise_longitude_deg(lon),
+            elevation_m: elev,
+        },
+        observer: field(table, rec, cols.observer).to_string(),
+        contact,
+        time_label: time,
+        sigma_s: sigma_s.hypot(range_sigma_s),
+        sigma_given,
+        local,
+        longitude,
+        judged,
+        duration: interval,
+        written,
+    };
+    Ok((observation, zone))
+}
+
+/// A duration row: the pair of contacts, the interval, the date if the time column gives one
+/// (a duration has no instant), and the range's sigma and width.
+#[allow(clippy::type_complexity)]
+fn row_interval(
+    table: &CsvTable,
+    rec: &csv::StringRecord,
+    cols: &Columns,
+    calendar: Calendar,
+    duration_text: &str,
+) -> Result<((Interval, Contact), NaiveDateTime, (f64, Option<f64>)), RowError> {
+    let (first, second) = parse_contact_pair(table.text(rec, cols.contact)).map_err(|m| (m, Some(cols.contact)))?;
+    let (seconds, range) = parse_duration(duration_text).map_err(|m| (m, cols.duration))?;
+    let utc = field(table, rec, cols.time);
+    let local = field(table, rec, cols.local.time_local);
+    let (text, col) = if utc.is_empty() { (local, cols.local.time_local) } else { (utc, cols.time) };
+    let date = if text.is_empty() {
+        None
+    } else {
+        match split_date(text, calendar) {
+            Some((d, rest)) if rest.trim().is_empty() => Some(d),
+            _ => {
+                return Err((format!("'{text}': a duration row gives the date alone (YYYY-MM-DD) or no time at all; put timed instants in rows of their own"), col));
+            }
+        }
+    };
+    let kept_to = match field(table, rec, cols.local.local_time) {
+        "" => None,
+        k => Some(crate::sky::solar_time::LocalTime::parse(k).ok_or_else(|| {
+            (format!("'{k}' is not a kind of local time; write apparent (the interval between apparent times, which the equation of time's change corrects) or mean"), cols.local.local_time)
+        })?),
+    };
+    let time = date
+        .and_then(|d| d.and_hms_opt(12, 0, 0))
+        .unwrap_or_default();
+    let interval = Interval { first, seconds, date, kept_to };
+    let range_sigma = range.map_or(0.0, |r| r / 12f64.sqrt());
+    Ok(((interval, second), time, (range_sigma, range)))
+}
+
+/// A row's time: from `time_utc`, or from `time_local` converted at the station's longitude
+/// (or the meridian the clock was kept to); a row gives one of the two.
+fn row_time(
+    table: &CsvTable,
+    rec: &csv::StringRecord,
+    cols: &Columns,
+    (longitude_deg, kept_meridian_deg, calendar): (f64, Option<f64>, Calendar),
+) -> Result<(TimeReading, Option<LocalReading>), RowError> {
+    let utc = field(table, rec, cols.time);
+    let local = field(table, rec, cols.local.time_local);
+    match (utc.is_empty(), local.is_empty()) {
+        (false, false) => Err((
+            "the row gives both time_utc and time_local; keep the one the observer recorded (time_local is the clock reading in local solar time)".into(),
+            cols.local.time_local,
+        )),
+        (true, false) => {
+            let mut reading = parse_local(
+                local,
+                field(table, rec, cols.local.local_time),
+                field(table, rec, cols.local.day_reckoning),
+                (&cols.local, calendar),
+            )?;
+            reading.meridian_deg = kept_meridian_deg;
+            let label = reading.label(longitude_deg).ok_or_else(|| {
+                (format!("the local time '{local}' cannot be converted (its year is outside {MIN_YEAR}-{MAX_YEAR})"), cols.local.time_local)
+            })?;
+            let time = TimeReading { label, zone: Zone::Utc, ..reading.written };
+            Ok((time, Some(reading)))
+        }
+        (true, true) if cols.time.is_none() => Err((
+            "the row gives no time; fill in time_local (with local_time) or add a time_utc column".into(),
+            cols.local.time_local,
+        )),
+        _ => {
+            if kept_meridian_deg.is_some() {
+                return Err(("time_meridian applies to clock readings in local solar time (time_local); a time_utc row has none".into(), cols.time_meridian));
+            }
+            let reading = parse_time_reading(utc, calendar).map_err(|m| (m, cols.time))?;
+            Ok((reading, None))
+        }
+    }
+}
