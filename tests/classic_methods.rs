@@ -76,16 +76,22 @@ fn halley_is_immune_to_a_station_clock() {
     assert!((before.parallax_arcsec.unwrap() - after.parallax_arcsec.unwrap()).abs() > 1e-4);
 }
 
-/// Neither classic method claims a smaller uncertainty than the full solution, which uses
-/// all of their information and more.
+/// Neither classic method claims a smaller uncertainty than the full solution unless its
+/// note names the assumption that buys it (Delisle's: the same shift of a contact at every
+/// station; E. Halley 1716 and J.-N. Delisle 1753, as docs/reduction.md sets them out).
 #[test]
-fn neither_method_beats_the_full_solution() {
+fn neither_method_beats_the_full_solution_without_saying_why() {
     let event = event_2012();
     let red = reduce(&event, campaign(&event).observations);
     let full = red.parallax_sigma_arcsec.unwrap();
     for m in [Method::Halley, Method::Delisle] {
-        let s = method(&red, m).parallax_sigma_arcsec.unwrap();
-        assert!(s >= full * (1.0 - 1e-9), "{m:?}: {s} < {full}");
+        let sol = method(&red, m);
+        let s = sol.parallax_sigma_arcsec.unwrap();
+        if s < full {
+            let note = sol.note.as_deref().unwrap_or("");
+            assert!(note.contains("only because it assumes"), "{m:?}: {s} < {full}: {note}");
+        }
+        assert!(sol.difference_sd_arcsec.is_some_and(|d| d > 0.0), "{sol:?}");
     }
     assert_eq!(
         method(&red, Method::ConditionEquations).parallax_sigma_arcsec,

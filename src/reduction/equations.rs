@@ -126,6 +126,59 @@ fn condition_row_and_longitude(
     ))
 }
 
+/// A contact's computed time and condition-equation row in Delisle's form: the parallax as at
+/// the station, the planet's offsets and the radius corrections as the shift they give the
+/// geocentric contact, the same at every station (the time at the station with no such
+/// correction, plus the geocentric contact's change). The geocentric contact does not depend
+/// on the parallax, which only rescales the fundamental plane.
+///
+/// References: J.-N. Delisle's comparison of one contact's absolute times between stations
+/// (1753 memoir; as condition equations in W. Chauvenet, *A Manual of Spherical and Practical
+/// Astronomy*, 1863, vol. I, cited from memory of its treatment).
+fn geocentric_nuisance_row(
+    event: &TransitEvent,
+    geo: &GeocentricStation,
+    contact: Contact,
+    theta: &[f64],
+    er: f64,
+) -> Option<(f64, [f64; N_CLASSIC])> {
+    let parallax_only = [theta[PARALLAX], 0.0, 0.0, 0.0, 0.0];
+    let (h_station, row, _) = condition_row_and_longitude(event, geo, contact, &parallax_only, er)?;
+    let p = perturbation(theta, er);
+    let p0 = perturbation(&parallax_only, er);
+    let h_geo = event.contact_hours_perturbed_geocentric(contact, &p)?;
+    let h_geo0 = event.contact_hours_perturbed_geocentric(contact, &p0)?;
+    let d = contact_partials(&event.elements, None, contact, h_geo, &p);
+    let ext = contact.is_exterior();
+    let dl = d.per_dl_h * er * 3600.0;
+    Some((
+        h_station + h_geo - h_geo0,
+        [
+            row[PARALLAX],
+            d.per_dx_h * er * 3600.0,
+            d.per_dy_h * er * 3600.0,
+            if ext { dl } else { 0.0 },
+            if ext { 0.0 } else { dl },
+        ],
+    ))
+}
+
+/// A timing's contact time and row in the parameter set's form: with each station's own
+/// partials, or Delisle's (nuisance at the geocentre, no longitude partial).
+fn row_in_form(
+    event: &TransitEvent,
+    geo: &GeocentricStation,
+    contact: Contact,
+    (params, theta): (&ParameterSet, &[f64]),
+    er: f64,
+) -> Option<(f64, [f64; N_CLASSIC], f64)> {
+    if params.nuisance_at_geocentre() {
+        geocentric_nuisance_row(event, geo, contact, theta, er).map(|(h, row)| (h, row, 0.0))
+    } else {
+        condition_row_and_longitude(event, geo, contact, theta, er)
+    }
+}
+
 /// A timing's station as the parameters place it (moved by its longitude correction, where
 /// it has one), and the time that the correction adds to the computed contact (hours: a clock
 /// read in local solar time at a longitude further east gives an earlier UT1) plus the
@@ -194,11 +247,11 @@ pub fn linearise(
     let own = params.station_parameters(t.station);
     let (moved, shift_h) = placed(t, params, theta);
     let geo = moved.as_ref().unwrap_or(&t.geo);
-    let (h, classic, per_deg) = condition_row_and_longitude(event, geo, t.obs.contact, theta, er)?;
+    let (h, classic, per_deg) = row_in_form(event, geo, t.obs.contact, (params, theta), er)?;
     let (computed_h, classic, per_deg, clock) = match t.obs.duration {
         None => (h + shift_h, classic, per_deg + local_s_per_deg(t), 1.0),
         Some(d) => {
-            let (h0, c0, d0) = condition_row_and_longitude(event, geo, d.first, theta, er)?;
+            let (h0, c0, d0) = row_in_form(event, geo, d.first, (params, theta), er)?;
             let mut diff = classic;
             for (x, y) in diff.iter_mut().zip(c0) {
                 *x -= y;
@@ -241,9 +294,13 @@ pub fn computed_hours(
 ) -> Option<f64> {
     let (moved, shift_h) = placed(t, params, theta);
     let geo = moved.as_ref().unwrap_or(&t.geo);
+    let (lag_s, _) = extra_globals(t, params, theta);
+    if params.nuisance_at_geocentre() {
+        let h = geocentric_nuisance_row(event, geo, t.obs.contact, theta, er)?.0;
+        return Some(h + shift_h + lag_s / 3600.0);
+    }
     let p = perturbation(theta, er);
     let h = event.contact_hours_perturbed(geo, t.obs.contact, &p)?;
-    let (lag_s, _) = extra_globals(t, params, theta);
     let value = match t.obs.duration {
         None => h + shift_h,
         Some(d) => h - event.contact_hours_perturbed(geo, d.first, &p)?,

@@ -17,7 +17,8 @@
 use super::black_drop::{lag_plan, LagPlan};
 use super::equations::{linearise, residual_s, Timing};
 use super::identifiability::{
-    describe_confusion, hold_fixed_what_cannot_be_separated, parallax_inseparable,
+    describe_confusion, growth_when_freed, hold_fixed_what_cannot_be_separated,
+    parallax_inseparable, MAX_GROWTH_WHEN_FREED,
 };
 use super::normal_equations::{reduced_normal, solve, BlockSolution, LinearSystem, LocalPartials};
 use super::parameters::{ParameterKind, ParameterSet, PARALLAX, RADIUS_DIFFERENCE, RADIUS_SUM};
@@ -196,8 +197,9 @@ fn linearise_all(
 }
 
 /// Which parameters start free: those not held fixed by the set, less the radius corrections
-/// of contact kinds with no timing.
-fn initial_free(
+/// of contact kinds with no timing and the black-drop lags the timings cannot measure; and
+/// the sentences that say so.
+pub(crate) fn initial_free(
     params: &ParameterSet,
     timings: &[Timing],
     used: &[usize],
@@ -248,13 +250,32 @@ fn check_rank(
     let Some(normal) = reduced_normal(sys, params, free, theta) else {
         return;
     };
+    let before = free[..g].to_vec();
     let separation = hold_fixed_what_cannot_be_separated(&normal, &mut free[..g], &names, PARALLAX);
     let list: Vec<&Timing> = used.iter().map(|&i| &timings[i]).collect();
     if !separation.confused.is_empty() {
-        messages.push(describe_confusion(&list, &separation.confused));
+        let held: Vec<&str> = (0..g)
+            .filter(|&j| before[j] && !free[j])
+            .map(|j| names[j])
+            .collect();
+        messages.push(describe_confusion(&list, &separation.confused, &held));
     }
     if free[PARALLAX] {
-        let why = if separation.parallax_entangled {
+        let loose: Vec<f64> = params.specs()[..g].iter().map(|s| loose_sigma(s.unit)).collect();
+        let growth = growth_when_freed(&normal, (&before, &free[..g]), PARALLAX, &loose)
+            .filter(|&x| x > MAX_GROWTH_WHEN_FREED);
+        let why = if let Some(growth) = growth {
+            let held: Vec<&str> = (0..g)
+                .filter(|&j| before[j] && !free[j])
+                .map(|j| names[j])
+                .collect();
+            Some(format!(
+                "the solar parallax rests on holding {} at the a-priori value{}, which these timings cannot determine: freed within a loose prior ({}), its uncertainty grows {growth:.0}-fold, so the parallax is not determined by the timings",
+                held.join(", "),
+                if held.len() == 1 { "" } else { "s" },
+                "10\" for the offsets and radii, 60 s for a black-drop lag"
+            ))
+        } else if separation.parallax_entangled {
             Some(format!(
                 "the solar parallax is entangled with {}, which the timings cannot determine; holding those at their a-priori values would make the parallax rest on that assumption",
                 separation.entangled_with.join(", ")
@@ -269,6 +290,17 @@ fn check_rank(
     }
     if !free[PARALLAX] {
         messages.push("the solar parallax cannot be determined from these timings; it is held at the a-priori value and no result is given".to_string());
+    }
+}
+
+/// A loose prior for a parameter held by the rank test, in its unit, for testing whether the
+/// parallax rests on it: 10" for the offsets and radius corrections (far beyond any
+/// ephemeris's error since the 18th century), 60 s for a black-drop lag, 1 degree otherwise.
+fn loose_sigma(unit: &str) -> f64 {
+    match unit {
+        "arcsec" => 10.0,
+        "s" => 60.0,
+        _ => 1.0,
     }
 }
 

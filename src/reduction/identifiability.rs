@@ -179,6 +179,55 @@ pub fn parallax_inseparable(
     ))
 }
 
+/// How many times the parallax's uncertainty may grow when the parameters held for want of
+/// data are freed within loose priors before the parallax counts as resting on them (our
+/// own round figure; calibrated on campaigns: world-wide networks give 1.0 to 1.01, one
+/// station's four contacts hundreds).
+pub const MAX_GROWTH_WHEN_FREED: f64 = 3.0;
+
+/// Whether the parallax rests on parameters that were held because the timings cannot
+/// determine them: the growth factor of its uncertainty when those parameters are freed
+/// within loose priors (`loose_sigma[j]` in each one's unit), against its uncertainty with
+/// them held. `None` when nothing was held (or the systems cannot be solved).
+///
+/// Arguments: `normal`, the reduced normal matrix over every global parameter (priors
+/// included); `free_before`, the flags before the rank test held anything; `free_after`,
+/// after; `parallax`, its index; `loose_sigma`, per global parameter.
+/// References: estimability of a linear function in a rank-deficient model (it must lie in
+/// the row space of the design): e.g. K.-R. Koch, *Parameter Estimation and Hypothesis Testing
+/// in Linear Models*, 2nd ed. (1999), section 3.3 (cited from memory); the loose priors make
+/// the test numerical, as in any regularised least squares.
+pub fn growth_when_freed(
+    normal: &DMatrix<f64>,
+    (free_before, free_after): (&[bool], &[bool]),
+    parallax: usize,
+    loose_sigma: &[f64],
+) -> Option<f64> {
+    let held: Vec<usize> = (0..normal.nrows())
+        .filter(|&j| free_before[j] && !free_after[j] && j != parallax)
+        .collect();
+    if held.is_empty() || !free_after[parallax] {
+        return None;
+    }
+    let variance = |free: &[bool], add_priors: bool| -> Option<f64> {
+        let idx: Vec<usize> = (0..normal.nrows()).filter(|&j| free[j]).collect();
+        let k = idx.iter().position(|&j| j == parallax)?;
+        let mut m = DMatrix::from_fn(idx.len(), idx.len(), |a, b| normal[(idx[a], idx[b])]);
+        if add_priors {
+            for (a, &j) in idx.iter().enumerate() {
+                if held.contains(&j) {
+                    m[(a, a)] += 1.0 / (loose_sigma[j] * loose_sigma[j]);
+                }
+            }
+        }
+        let v = m.cholesky()?.inverse()[(k, k)];
+        (v.is_finite() && v > 0.0).then_some(v)
+    };
+    let held_variance = variance(free_after, false)?;
+    let freed_variance = variance(free_before, true)?;
+    Some((freed_variance / held_variance).sqrt())
+}
+
 /// Largest distance between two stations, km.
 fn spread_km(stations: &[&GeocentricStation]) -> f64 {
     let mut spread: f64 = 0.0;
@@ -199,9 +248,10 @@ fn spread_km(stations: &[&GeocentricStation]) -> f64 {
     spread
 }
 
-/// The sentence that says which parameters the timings cannot tell apart, why, and what
+/// The sentence that says which parameters the timings cannot tell apart, why, which of them
+/// were held at their a-priori values (`held`; the rest are fitted in combination), and what
 /// timings would separate them.
-pub fn describe_confusion(timings: &[&Timing], names: &[&str]) -> String {
+pub fn describe_confusion(timings: &[&Timing], names: &[&str], held: &[&str]) -> String {
     let mut stations: Vec<&GeocentricStation> = Vec::new();
     let mut names_seen: std::collections::HashSet<&str> = Default::default();
     for t in timings {
@@ -222,8 +272,20 @@ pub fn describe_confusion(timings: &[&Timing], names: &[&str]) -> String {
     } else {
         "the stations' geometry does not separate them".to_string()
     };
+    let fitted: Vec<&str> = names.iter().copied().filter(|n| !held.contains(n)).collect();
+    let what = match (held.is_empty(), fitted.is_empty()) {
+        (true, _) => "all of them are fitted, in combination".to_string(),
+        (false, true) => format!("{} held at the a-priori value{}", held.join(", "), if held.len() == 1 { " is" } else { "s are" }),
+        (false, false) => format!(
+            "{} {} held at the a-priori value{}, and {} fitted with what is left",
+            held.join(", "),
+            if held.len() == 1 { "is" } else { "are" },
+            if held.len() == 1 { "" } else { "s" },
+            fitted.join(", ")
+        ),
+    };
     format!(
-        "the timings cannot tell apart {}: {why}. Those that could not be determined are held at their a-priori values. Stations far apart in latitude that time both ingress and egress (durations, Halley's method), or far apart in longitude that time the same contact (Delisle's method), would separate them",
+        "the timings cannot tell apart {}: {why}. Of these, {what}. Stations far apart in latitude that time both ingress and egress (durations, Halley's method), or far apart in longitude that time the same contact (Delisle's method), would separate them",
         names.join(", ")
     )
 }
@@ -285,6 +347,35 @@ mod tests {
         assert!(variance_inflation(&n, &[true, true], 0).unwrap() > MAX_PARALLAX_INFLATION);
         let why = parallax_inseparable(&n, &[true, true], &["p", "a"], 0).unwrap();
         assert!(why.contains("only in combination with a"), "{why}");
+    }
+
+    #[test]
+    fn a_parallax_resting_on_a_held_parameter_is_found() {
+        // Column 1 is nearly column 0 (the parallax): holding it makes the parallax look
+        // determined; freeing it within a loose prior shows it is not. Column 2 is
+        // independent: holding it changes nothing.
+        let j = DMatrix::from_fn(6, 3, |i, k| match k {
+            0 => 1.0 + i as f64,
+            1 => 1.0 + i as f64 + 1e-6 * (i as f64).powi(2),
+            _ => (i as f64 - 2.5).powi(3),
+        });
+        let n = normal_of(&j);
+        let growth =
+            growth_when_freed(&n, (&[true, true, true], &[true, false, true]), 0, &[1.0; 3])
+                .unwrap();
+        assert!(growth > MAX_GROWTH_WHEN_FREED, "{growth}");
+        // Three orthogonal columns over six rows: a constant, a centred square, a line.
+        let j = DMatrix::from_fn(6, 3, |i, k| match k {
+            0 => 1.0,
+            1 => (i as f64 - 2.5).powi(2) - 17.5 / 6.0,
+            _ => i as f64 - 2.5,
+        });
+        let n = normal_of(&j);
+        let growth =
+            growth_when_freed(&n, (&[true, true, true], &[true, true, false]), 0, &[1e3; 3])
+                .unwrap();
+        assert!(growth < 1.01, "{growth}");
+        assert!(growth_when_freed(&n, (&[true; 3], &[true; 3]), 0, &[1.0; 3]).is_none());
     }
 
     #[test]

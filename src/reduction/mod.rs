@@ -23,7 +23,9 @@
 //! - `rejection.rs`: station-wide tests and the record of every row not used.
 //! - `contributions.rs`: information shares, influence, Halley chords, convergence.
 //! - `result.rs`: the settings and the result types.
-//! - `classic_methods.rs`: Halley's and Delisle's methods beside the full solution.
+//! - `classic_methods.rs`: Halley's and Delisle's methods beside the full solution (shared
+//!   types, the comparison by the covariance of the estimates); `halley.rs`, `delisle.rs`:
+//!   each method.
 //! - `error_budget.rs`: the terms of the parallax's uncertainty (timings, longitudes, Delta T,
 //!   the planet's place).
 //! - `planet_place.rs`: the planet's place free, held or with a prior, and the bias that
@@ -32,10 +34,12 @@
 pub mod black_drop;
 pub mod classic_methods;
 pub mod contributions;
+pub mod delisle;
 pub mod diagnosis;
 pub mod equations;
 pub mod error_budget;
 pub mod fit;
+pub mod halley;
 pub mod identifiability;
 pub mod normal_equations;
 pub mod parameters;

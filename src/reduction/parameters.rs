@@ -99,6 +99,10 @@ pub struct ParameterSet {
     specs: Vec<ParameterSpec>,
     n_global: usize,
     by_station: Vec<Vec<usize>>,
+    /// Whether the planet's offsets and the radius corrections enter as the same shift of each
+    /// contact at every station (their partials at the Earth's centre: Delisle's form, see
+    /// `classic/delisle.rs`) rather than with each station's own partials.
+    nuisance_at_geocentre: bool,
 }
 
 impl ParameterSet {
@@ -126,6 +130,7 @@ impl ParameterSet {
             specs,
             n_global: N_CLASSIC,
             by_station: Vec::new(),
+            nuisance_at_geocentre: false,
         }
     }
 
@@ -184,6 +189,17 @@ impl ParameterSet {
             ..spec
         });
         index
+    }
+
+    /// Make the planet's offsets and the radius corrections enter through their partials at
+    /// the Earth's centre, the same shift of a contact at every station (Delisle's form).
+    pub fn set_nuisance_at_geocentre(&mut self) {
+        self.nuisance_at_geocentre = true;
+    }
+
+    /// Whether the nuisance parameters enter at the Earth's centre (Delisle's form).
+    pub fn nuisance_at_geocentre(&self) -> bool {
+        self.nuisance_at_geocentre
     }
 
     /// Every parameter, globals first.

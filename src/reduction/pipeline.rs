@@ -176,8 +176,16 @@ fn fit_warnings(outcome: &FitOutcome, stats: &FitStatistics) -> Vec<String> {
                 .into(),
         );
     }
+    if stats.too_small() {
+        warnings.push(format!(
+            "the residuals scatter less than the stated sigmas allow (chi-square {:.1} for {}; so small a value has probability {} if they were right): the stated uncertainties are probably too large, and so is the parallax's, which is not scaled down",
+            stats.chi2,
+            crate::words::count(stats.dof, "degree of freedom", "degrees of freedom"),
+            super::statistics::probability(stats.p_lower.unwrap_or(0.0))
+        ));
+    }
     if let Some(rb) = stats.birge_ratio {
-        if rb > 1.0 && stats.p_value.is_some_and(|p| p < 0.05) {
+        if rb > 1.0 && stats.too_large() {
             warnings.push(format!(
                 "the residuals scatter {rb:.2} times more than the stated sigmas allow (chi-square {:.1} for {}); the uncertainties are scaled up by that factor",
                 stats.chi2, crate::words::count(stats.dof, "degree of freedom", "degrees of freedom")
@@ -452,7 +460,12 @@ fn side_by_side(red: &mut Reduction, c: &Campaign, s: &Screened, sigma_scale: f6
         .rev()
         .find(|w| w.contains("parallax"))
         .cloned();
-    let full = condition_equations(figure, (used.len(), stations), why_not);
+    let full = condition_equations(
+        figure,
+        (c.timings, used, stations),
+        (outcome, sigma_scale),
+        why_not,
+    );
     red.methods = methods(
         &red.event,
         (c.timings, used),

@@ -179,6 +179,9 @@ pub struct Reduction {
     pub black_drop: Vec<BlackDropLag>,
 }
 
+/// The correlation from which two parameters count as one combination (prints as 1.000).
+pub const INSEPARABLE_CORRELATION: f64 = 0.9995;
+
 /// The AU from a determined parallax.
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub struct AuFigure {
@@ -221,6 +224,22 @@ impl Reduction {
             parallax_interval_95: self.parallax_interval_95?,
             au,
         })
+    }
+
+    /// Where a fitted global parameter correlates at +-1 (|r| of at least 0.9995, printed as
+    /// 1.000) with another fitted one, that one's name and the correlation: the timings fix
+    /// their combination, not this parameter alone, so its value is not a result.
+    pub fn inseparable(&self, j: usize) -> Option<(&str, f64)> {
+        let row = self.correlation.get(j)?;
+        let fitted = |k: usize| self.parameters.get(k).is_some_and(|p| !p.fixed && p.sigma.is_some());
+        if !fitted(j) {
+            return None;
+        }
+        row.iter()
+            .enumerate()
+            .filter(|&(k, r)| k != j && fitted(k) && r.abs() >= INSEPARABLE_CORRELATION)
+            .max_by(|a, b| a.1.abs().total_cmp(&b.1.abs()))
+            .map(|(k, &r)| (self.parameters[k].name.as_str(), r))
     }
 
     /// The fitted parameters as changes to the elements.

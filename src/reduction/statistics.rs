@@ -17,6 +17,9 @@ pub struct FitStatistics {
     pub dof: usize,
     /// Probability of a chi-square at least this large if the stated sigmas are right.
     pub p_value: Option<f64>,
+    /// Probability of a chi-square at most this small if the stated sigmas are right (the
+    /// lower tail: small values say the sigmas are too large).
+    pub p_lower: Option<f64>,
     /// Birge ratio sqrt(chi2 / dof).
     pub birge_ratio: Option<f64>,
     /// Factor applied to the uncertainties: max(1, Birge ratio).
@@ -27,19 +30,45 @@ pub struct FitStatistics {
 }
 
 impl FitStatistics {
-    /// "chi2 for dof degrees of freedom, p = ..., Birge ratio ..." for reports.
+    /// "chi2 for dof degrees of freedom, p = ..., Birge ratio ..." for reports; where the
+    /// chi-square is improbably small, the probability of so small a value instead.
     pub fn describe(&self) -> String {
+        let tail = match (self.p_value, self.p_lower) {
+            (_, Some(lo)) if lo < 0.05 => format!(", probability of so small a value {}", probability(lo)),
+            (Some(p), _) => format!(", p = {}", probability(p)),
+            _ => String::new(),
+        };
         format!(
-            "{:.1} for {}{}{}",
+            "{:.1} for {}{tail}{}",
             self.chi2,
             crate::words::count(self.dof, "degree of freedom", "degrees of freedom"),
-            self.p_value
-                .map(|p| format!(", p = {p:.3}"))
-                .unwrap_or_default(),
             self.birge_ratio
                 .map(|b| format!(", Birge ratio {b:.2}"))
                 .unwrap_or_default()
         )
+    }
+
+    /// Whether the chi-square is improbably large (upper tail under 5 %).
+    pub fn too_large(&self) -> bool {
+        self.p_value.is_some_and(|p| p < 0.05)
+    }
+
+    /// Whether the chi-square is improbably small (lower tail under 5 %): the stated
+    /// uncertainties are too large.
+    pub fn too_small(&self) -> bool {
+        self.p_lower.is_some_and(|p| p < 0.05)
+    }
+}
+
+/// A probability to three decimals, or to two significant figures below 0.001 (never a bare
+/// 0.000 or 1.000 for a value that is not).
+pub fn probability(p: f64) -> String {
+    if p < 0.001 {
+        format!("{p:.1e}")
+    } else if p > 0.999 && p < 1.0 {
+        format!("1 - {:.1e}", 1.0 - p)
+    } else {
+        format!("{p:.3}")
     }
 }
 
@@ -52,13 +81,15 @@ pub fn statistics(chi2: f64, dof: usize) -> FitStatistics {
             chi2,
             dof,
             p_value: None,
+            p_lower: None,
             birge_ratio: None,
             sigma_scale: 1.0,
             coverage_factor_95: 1.959_963_984_540_054,
         };
     }
     let d = dof as f64;
-    let p_value = ChiSquared::new(d).ok().map(|c| 1.0 - c.cdf(chi2));
+    let lower = ChiSquared::new(d).ok().map(|c| c.cdf(chi2));
+    let p_value = ChiSquared::new(d).ok().map(|c| c.sf(chi2));
     let birge = (chi2 / d).sqrt();
     let scaled = birge > 1.0;
     let coverage = if scaled {
@@ -72,6 +103,7 @@ pub fn statistics(chi2: f64, dof: usize) -> FitStatistics {
         chi2,
         dof,
         p_value,
+        p_lower: lower,
         birge_ratio: Some(birge),
         sigma_scale: birge.max(1.0),
         coverage_factor_95: coverage,
@@ -115,6 +147,20 @@ mod tests {
         let s = statistics(5.0, 10);
         assert_eq!(s.sigma_scale, 1.0);
         assert!((s.coverage_factor_95 - 1.96).abs() < 1e-3);
+    }
+
+    #[test]
+    fn both_tails_are_judged() {
+        // Source: chi-square with 65 dof has P(< 25.7) of about 1.4e-6 (standard tables give
+        // the 0.1 % point near 35.0); the campaign, 25.7 for 65 dof, is too small.
+        let s = statistics(25.7, 65);
+        assert!(s.too_small() && !s.too_large());
+        assert!(s.describe().contains("so small a value"), "{}", s.describe());
+        assert!(!s.describe().contains("p = 1.000"), "{}", s.describe());
+        let s = statistics(65.0, 65);
+        assert!(!s.too_small() && !s.too_large());
+        assert_eq!(probability(0.0000123), "1.2e-5");
+        assert_eq!(probability(0.9999), "1 - 1.0e-4");
     }
 
     #[test]

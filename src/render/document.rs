@@ -78,10 +78,19 @@ fn parameters_rows(red: &Reduction) -> Vec<Vec<String>> {
         .iter()
         .enumerate()
         .map(|(i, p)| {
+            let inseparable = red.inseparable(i);
+            let value = match inseparable {
+                Some(_) => "-".to_string(),
+                None => format!("{:.5}", p.value),
+            };
+            let sigma = match inseparable {
+                Some((other, r)) => Some(format!("correlated {r:+.4} with {other}: only the combination is determined")),
+                None => p.sigma.map(|s| format!("{s:.5}")),
+            };
             let mut row = vec![
                 format!("p{} {}", i + 1, p.name),
-                format!("{:.5}", p.value),
-                p.sigma.map(|s| format!("{s:.5}")).unwrap_or_else(|| {
+                value,
+                sigma.unwrap_or_else(|| {
                     if p.fixed {
                         "held fixed"
                     } else {

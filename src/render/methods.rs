@@ -48,7 +48,13 @@ pub fn methods_rows(red: &Reduction) -> Vec<Vec<String>> {
     red.methods
         .iter()
         .map(|m| {
-            let note = m.note.clone().unwrap_or_default();
+            let mut note = m.note.clone().unwrap_or_default();
+            if !m.held.is_empty() {
+                if !note.is_empty() {
+                    note.push_str(". ");
+                }
+                note.push_str(&format!("Held: {}", m.held.join("; ")));
+            }
             vec![
                 m.method.title().to_string(),
                 parallax_cell(m),

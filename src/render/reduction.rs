@@ -111,6 +111,7 @@ pub fn reduction_json(red: &Reduction) -> Value {
         "chi2": r(st.chi2, 3),
         "dof": st.dof,
         "p_value": opt(st.p_value, 4),
+        "p_lower": opt(st.p_lower, 6),
         "birge_ratio": opt(st.birge_ratio, 4),
         "sigma_scale": r(st.sigma_scale, 4),
         "robust_scatter": r(red.robust_scatter, 4),
@@ -168,6 +169,8 @@ fn methods_json(red: &Reduction) -> Vec<Value> {
                 "timings_used": m.timings_used,
                 "stations_used": m.stations_used,
                 "note": m.note,
+                "held": m.held,
+                "difference_sd_arcsec": opt(m.difference_sd_arcsec, 7),
             })
         })
         .collect()
@@ -267,7 +270,14 @@ fn headline_section(red: &Reduction, s: &mut String) {
 /// The parameters and their correlations.
 fn parameters_section(red: &Reduction, s: &mut String) {
     s.push_str("\nParameters\n");
-    for p in &red.parameters {
+    for (j, p) in red.parameters.iter().enumerate() {
+        if let Some((other, r)) = red.inseparable(j) {
+            s.push_str(&format!(
+                "  {:<30} {:>12}    (correlated {r:+.4} with {other}: only their combination is determined)\n",
+                p.name, "-"
+            ));
+            continue;
+        }
         match p.sigma {
             Some(sig) => s.push_str(&format!(
                 "  {:<30} {:>12.5} +- {:.5} {}\n",
@@ -450,11 +460,18 @@ pub fn reduction_table(red: &Reduction) -> String {
 pub fn chi2_sentence(red: &Reduction) -> String {
     let st = &red.statistics;
     match (st.birge_ratio, st.p_value) {
-        (Some(b), Some(p)) if p < 0.05 && b > 1.0 => format!(
+        (Some(b), Some(_)) if st.too_large() && b > 1.0 => format!(
             "The timings scatter more than their stated uncertainties allow (by a factor {b:.2}); the uncertainties above are scaled up to match."
         ),
-        (Some(b), Some(_)) if b < 0.5 => "The timings agree better than their stated uncertainties suggest; those uncertainties may be too cautious.".to_string(),
-        (Some(_), Some(_)) => "The scatter of the timings about the solution agrees with their stated uncertainties.".to_string(),
+        (Some(b), Some(_)) if st.too_small() => format!(
+            "The timings scatter less than their stated uncertainties allow (by a factor {b:.2}; a chi-square this small has probability {} if they were right): the stated uncertainties are probably too large, and so is the parallax's, which is not scaled down.",
+            crate::reduction::statistics::probability(st.p_lower.unwrap_or(0.0))
+        ),
+        (Some(_), Some(_)) => format!(
+            "The scatter of the timings about the solution agrees with their stated uncertainties (chi-square {:.1} for {}).",
+            st.chi2,
+            count(st.dof, "degree of freedom", "degrees of freedom")
+        ),
         _ => "With no degrees of freedom the fit cannot check the stated uncertainties.".to_string(),
     }
 }

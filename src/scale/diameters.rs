@@ -22,6 +22,12 @@ use crate::sky::constants::{au_km_from_parallax_arcsec, ARCSEC_RAD, AU_KM};
 use crate::sky::ephemeris::geocentric_state;
 use crate::sky::vector::norm;
 
+/// The largest uncertainty, as a share of the diameter, with which a diameter is given: a
+/// wider one says the timings fix the radius corrections only in combination with the
+/// planet's offsets, and the value printed would be the ephemeris's radii returned with noise
+/// (a two-station Mercury campaign gave a Sun 7 % small). A round figure of ours.
+pub const MAX_RELATIVE_SIGMA: f64 = 0.1;
+
 /// A diameter in km with its standard uncertainty.
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub struct Diameter {
@@ -106,7 +112,7 @@ fn geometry_at_greatest(red: &Reduction) -> (f64, f64, f64, f64) {
 
 /// One body's diameter from its nominal semidiameter (rad), distance (AU), the fitted
 /// correction's weights on (sum, difference), and the AU; `None` unless its uncertainty is
-/// smaller than the diameter itself.
+/// under [`MAX_RELATIVE_SIGMA`] of the diameter.
 fn diameter_of(red: &Reduction, (s0, dist_au, sign): (f64, f64, f64), pi: f64) -> Option<Diameter> {
     let theta = |j: usize| red.parameters[j].value;
     let ds = 0.5 * (theta(RADIUS_SUM) + sign * theta(RADIUS_DIFFERENCE)) * ARCSEC_RAD;
@@ -116,7 +122,8 @@ fn diameter_of(red: &Reduction, (s0, dist_au, sign): (f64, f64, f64), pi: f64) -
     let per = dist_km * ARCSEC_RAD;
     let g = [-km / (pi * ARCSEC_RAD).tan() * ARCSEC_RAD, per, sign * per];
     let sigma_km = variance(red, g).max(0.0).sqrt();
-    (km > 0.0 && sigma_km > 0.0 && sigma_km < km).then_some(Diameter { km, sigma_km })
+    (km > 0.0 && sigma_km > 0.0 && sigma_km < MAX_RELATIVE_SIGMA * km)
+        .then_some(Diameter { km, sigma_km })
 }
 
 /// The planet's radius over the Sun's as the timings fitted them at greatest transit (the
@@ -157,11 +164,12 @@ pub fn sizes(red: &Reduction) -> Sizes {
         out.why_not = Some("the sizes need both kinds of contact, exterior (I or IV) and interior (II or III), in the solution, and one kind is missing".into());
         return out;
     }
+
     let (d_sun, d_p, s_sun, s_p) = geometry_at_greatest(red);
     out.planet = diameter_of(red, (s_p, d_p, -1.0), pi);
     out.sun = diameter_of(red, (s_sun, d_sun, 1.0), pi);
     if out.planet.is_none() || out.sun.is_none() {
-        out.why_not = Some("the timings cannot tell the radius corrections apart well enough: the uncertainty of a diameter would exceed the diameter itself (typical when the planet's place is fitted freely; --planet-place fixed or a prior separates them)".into());
+        out.why_not = Some("the timings cannot tell the radius corrections apart well enough: the uncertainty of a diameter would exceed a tenth of the diameter itself (typical of few stations, or when the planet's place is fitted freely; --planet-place fixed or a prior separates them)".into());
     }
     if let Some(response) = red
         .error_budget
@@ -211,7 +219,8 @@ fn station_sizes(red: &Reduction, nominal_km: f64) -> Vec<StationSize> {
             ("ingress", Contact::I, Contact::II),
             ("egress", Contact::III, Contact::IV),
         ] {
-            let find = |c: Contact| rows.iter().find(|u| u.contact == c.number());
+            let label = |c: Contact| c.number().to_string();
+            let find = |c: Contact| rows.iter().find(|u| u.contact_label == label(c));
             let (Some(ra), Some(rb)) = (find(a), find(b)) else {
                 continue;
             };
