@@ -8,6 +8,7 @@
 //! off by a constant (all the station's timings share one offset; see
 //! [`crate::reduction`]).
 
+use super::historical_diagnosis::{meridian_alternatives, reckoning_sentence};
 use crate::geometry::contacts::{Contact, Perturbation};
 use crate::geometry::station::{GeocentricStation, Station};
 use crate::geometry::transit::TransitEvent;
@@ -187,6 +188,15 @@ pub struct StationTiming {
     pub observed_h: f64,
     /// Standard uncertainty, seconds.
     pub sigma_s: f64,
+    /// Seconds a degree of longitude adds through the conversion from local solar time (240
+    /// for a reading on the station's own meridian, else 0): a longitude tried elsewhere moves
+    /// such a timing too.
+    pub local_s_per_deg: f64,
+    /// The observed time had the clock kept the other kind of solar time (apparent or mean),
+    /// hours, for a local reading.
+    pub other_kind_h: Option<f64>,
+    /// The prime meridian the row's longitude was written from.
+    pub meridian: crate::observations::angles::Meridian,
 }
 
 /// A hypothesis about a station: its score (chi-square, plus twice its fitted constants), the
@@ -196,6 +206,47 @@ type Hypothesis = (f64, String, String);
 /// The chi-square of a station's timings at corrected coordinates, if every corrected
 /// residual lies within max(4 scatter sigma, 20 s) and the chi-square per timing is under 9.
 fn fits_at(
+    event: &TransitEvent,
+    st: &Station,
+    rows: &[StationTiming],
+    p: &Perturbation,
+    scatter: f64,
+) -> Option<f64> {
+    let geo = st.geocentric();
+    let mut chi2 = 0.0;
+    for r in rows {
+        let h = predicted_hours(event, &geo, r.contact, p)?;
+        let d = (r.observed_h - h) * 3600.0;
+        if d.abs() > (4.0 * scatter * r.sigma_s).max(20.0) {
+            return None;
+        }
+        chi2 += (d / (r.sigma_s * scatter)).powi(2);
+    }
+    (chi2 / (rows.len() as f64) < 9.0).then_some(chi2)
+}
+
+/// As [`fits_at`], with the station's longitude moved to `st`'s from `from_deg` (east): local
+/// readings on the station's meridian are converted again at the moved longitude (240 s per
+/// degree earlier for a longitude further east).
+fn fits_moved(
+    event: &TransitEvent,
+    st: &Station,
+    rows: &[StationTiming],
+    (p, scatter, from_deg): (&Perturbation, f64, f64),
+) -> Option<f64> {
+    let shift_deg = crate::geometry::station::normalise_longitude_deg(st.longitude_deg - from_deg);
+    let moved: Vec<StationTiming> = rows
+        .iter()
+        .map(|r| StationTiming {
+            observed_h: r.observed_h - shift_deg * r.local_s_per_deg / 3600.0,
+            ..*r
+        })
+        .collect();
+    fits_at_unmoved(event, st, &moved, p, scatter)
+}
+
+/// [`fits_at`] itself, for timings already converted.
+fn fits_at_unmoved(
     event: &TransitEvent,
     st: &Station,
     rows: &[StationTiming],
@@ -230,7 +281,7 @@ fn coordinate_hypotheses(
             longitude_deg: -lon,
             ..station.clone()
         };
-        if let Some(score) = fits_at(event, &flipped, rows, p, scatter) {
+        if let Some(score) = fits_moved(event, &flipped, rows, (p, scatter, lon)) {
             found.push((
                 score,
                 format!(
@@ -263,7 +314,7 @@ fn coordinate_hypotheses(
             longitude_deg: lat,
             ..station.clone()
         };
-        if let Some(score) = fits_at(event, &swapped, rows, p, scatter) {
+        if let Some(score) = fits_moved(event, &swapped, rows, (p, scatter, lon)) {
             found.push((
                 score,
                 format!(
@@ -273,7 +324,66 @@ fn coordinate_hypotheses(
             ));
         }
     }
+    found.extend(meridian_hypotheses(event, station, rows, (p, scatter)));
     found
+}
+
+/// The longitude counted from another prime meridian than the one written (Paris or Ferro
+/// taken as Greenwich, or the reverse).
+fn meridian_hypotheses(
+    event: &TransitEvent,
+    station: &Station,
+    rows: &[StationTiming],
+    (p, scatter): (&Perturbation, f64),
+) -> Vec<Hypothesis> {
+    let lon = station.longitude_deg;
+    let written = rows.first().map(|r| r.meridian).unwrap_or_default();
+    meridian_alternatives(written)
+        .into_iter()
+        .filter_map(|(shift, name, value)| {
+            let moved = Station {
+                longitude_deg: crate::geometry::station::normalise_longitude_deg(lon + shift),
+                ..station.clone()
+            };
+            let score = fits_moved(event, &moved, rows, (p, scatter, lon))?;
+            Some((
+                score,
+                format!(
+                    "the station's timings fit its longitude counted from {name} ({:.4} east of Greenwich instead of {lon:.4}, {shift:+.4} degrees): set meridian to {value}",
+                    moved.longitude_deg
+                ),
+                format!("a longitude counted from {name}"),
+            ))
+        })
+        .collect()
+}
+
+/// The clock kept the other kind of solar time than the file says: the station's readings
+/// fit when read as that kind (they differ by the equation of time).
+fn kind_hypothesis(
+    event: &TransitEvent,
+    station: &Station,
+    rows: &[StationTiming],
+    (p, scatter): (&Perturbation, f64),
+) -> Option<Hypothesis> {
+    let swapped: Vec<StationTiming> = rows
+        .iter()
+        .map(|r| {
+            r.other_kind_h.map(|h| StationTiming {
+                observed_h: h,
+                ..*r
+            })
+        })
+        .collect::<Option<_>>()?;
+    let score = fits_at_unmoved(event, station, &swapped, p, scatter)?;
+    let eot_s = (rows[0].observed_h - swapped[0].observed_h) * 3600.0;
+    Some((
+        score,
+        format!(
+            "the station's clock readings fit the other kind of local solar time (apparent and mean time differ by the equation of time, {eot_s:+.0} s here): change local_time (apparent to mean, or mean to apparent)"
+        ),
+        "the other kind of solar time".into(),
+    ))
 }
 
 /// A clock off by a constant: every timing shares one offset (two or more timings).
@@ -299,10 +409,11 @@ fn clock_hypothesis(
         .zip(&sig)
         .map(|(r, s)| ((r - offset) / (s * scatter)).powi(2))
         .sum();
+    let local = rows.iter().all(|r| r.local_s_per_deg > 0.0 || r.other_kind_h.is_some());
     (chi2 / ((rows.len() - 1) as f64) < 9.0).then(|| {
         (
             chi2 + 2.0,
-            station_offset_sentence(offset, rows.len(), &station.name),
+            station_offset_sentence(offset, rows.len(), &station.name, local),
             format!("a clock off by {offset:+.1} s"),
         )
     })
@@ -325,6 +436,7 @@ pub fn explain_station(
 ) -> Option<String> {
     let scatter = scatter.max(1.0);
     let mut found = coordinate_hypotheses(event, station, rows, p, scatter);
+    found.extend(kind_hypothesis(event, station, rows, (p, scatter)));
     found.extend(clock_hypothesis(
         event,
         station,
@@ -349,10 +461,16 @@ pub fn explain_station(
     }
 }
 
-/// The sentence for an offset common to every timing of a station: a time zone left in when
-/// it is a whole number of hours or half hours (within 2 minutes), the date off when a whole
-/// day, else a clock that was wrong by that much.
-pub fn station_offset_sentence(offset_s: f64, n: usize, station: &str) -> String {
+/// The sentence for an offset common to every timing of a station: for readings in local solar
+/// time, half a day is the day reckonings confused; a time zone left in when it is a whole
+/// number of hours or half hours (within 2 minutes), the date off when a whole day, else a
+/// clock that was wrong by that much.
+pub fn station_offset_sentence(offset_s: f64, n: usize, station: &str, local: bool) -> String {
+    if local {
+        if let Some(s) = reckoning_sentence(offset_s, station) {
+            return s;
+        }
+    }
     let all = crate::words::all_of(n, "timings");
     let hours = offset_s / 3600.0;
     let days = (offset_s / 86_400.0).round();

@@ -20,6 +20,8 @@
 //! - `screening.rs`: timings of the event, visibility, pre-screening, sigma clipping.
 //! - `diagnosis.rs`: the blunder rules (zone time, date, contacts exchanged, coordinates,
 //!   clocks).
+//! - `historical_diagnosis.rs`: the blunders of historical records (day reckonings, apparent
+//!   and mean time, prime meridians, times to the minute).
 //! - `rejection.rs`: station-wide tests and the record of every row not used.
 //! - `contributions.rs`: information shares, influence, Halley chords, convergence.
 //! - `result.rs`: the settings and the result types.
@@ -40,6 +42,7 @@ pub mod equations;
 pub mod error_budget;
 pub mod fit;
 pub mod halley;
+pub mod historical_diagnosis;
 pub mod identifiability;
 pub mod normal_equations;
 pub mod parameters;

@@ -13,6 +13,7 @@ use super::diagnosis::{
     clock_offset_s, explain_interval, explain_row, explain_station, station_offset_sentence,
     StationTiming,
 };
+use super::historical_diagnosis::{minute_reading, station_timing};
 use super::equations::{perturbation, residual_s, Timing};
 use super::fit::FitOutcome;
 use super::parameters::ParameterSet;
@@ -24,13 +25,9 @@ use crate::observations::timings::{RejectReason, Rejected};
 /// Rows of one station and the sentence that explains them all.
 pub type StationVerdict = (Vec<usize>, String);
 
-fn station_timings(timings: &[Timing], rows: &[usize]) -> Vec<StationTiming> {
+fn station_timings(event: &TransitEvent, timings: &[Timing], rows: &[usize]) -> Vec<StationTiming> {
     rows.iter()
-        .map(|&i| StationTiming {
-            contact: timings[i].obs.contact,
-            observed_h: timings[i].observed_h,
-            sigma_s: timings[i].obs.sigma_s,
-        })
+        .map(|&i| station_timing(event, &timings[i]))
         .collect()
 }
 
@@ -49,9 +46,10 @@ fn clock_verdict(
         .collect();
     let sig: Vec<f64> = rows.iter().map(|&i| timings[i].obs.sigma_s).collect();
     let offset = clock_offset_s(&res?, &sig, s.scatter, threshold)?;
+    let local = rows.iter().all(|&i| timings[i].obs.local.is_some());
     Some((
         rows.to_vec(),
-        station_offset_sentence(offset, rows.len(), name),
+        station_offset_sentence(offset, rows.len(), name, local),
     ))
 }
 
@@ -102,7 +100,7 @@ pub fn station_wide(
             }
             continue;
         }
-        let st = station_timings(timings, &rows);
+        let st = station_timings(event, timings, &rows);
         let station = &timings[rows[0]].obs.station;
         if let Some(d) = explain_station(event, station, &st, &p_now, s.scatter, threshold) {
             verdicts.push((rows, d));
@@ -126,13 +124,19 @@ fn diagnose(
     if let Some(d) = t.obs.duration {
         return explain_interval(event, station, (d.first, t.obs.contact), t.observed_h, p, tolerance_s);
     }
-    explain_row(event, station, t.obs.contact, t.observed_h, p, tolerance_s).or_else(|| {
-        if !alone {
-            return None;
-        }
-        let row = station_timings(std::slice::from_ref(t), &[0]);
-        explain_station(event, station, &row, p, scatter, threshold)
-    })
+    let minute = || {
+        let h = event.contact_hours_perturbed(&station.geocentric(), t.obs.contact, p)?;
+        minute_reading(t, (t.observed_h - h) * 3600.0, tolerance_s)
+    };
+    explain_row(event, station, t.obs.contact, t.observed_h, p, tolerance_s)
+        .or_else(minute)
+        .or_else(|| {
+            if !alone {
+                return None;
+            }
+            let row = station_timings(event, std::slice::from_ref(t), &[0]);
+            explain_station(event, station, &row, p, scatter, threshold)
+        })
 }
 
 fn sun_set_sentence(altitude_deg: f64) -> String {
