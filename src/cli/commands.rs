@@ -7,7 +7,7 @@ use crate::args::{
     TransitsArgs,
 };
 use std::path::Path;
-use transit_parallax::geometry::station::read_stations;
+use transit_parallax::geometry::station::{read_stations, read_stations_with_calendars};
 use transit_parallax::observations::timings::read_observations;
 use transit_parallax::planning::{simulation, sites};
 use transit_parallax::reduction::planet_place::PlanetPlace;
@@ -72,10 +72,13 @@ fn transits(a: TransitsArgs) -> Result<String, Error> {
 }
 
 fn predict(a: PredictArgs) -> Result<String, Error> {
-    let stations = read_stations(&a.stations)?;
+    let (stations, calendars) = read_stations_with_calendars(&a.stations)?;
     let event = a.event.transit()?;
     let predictions: Vec<_> = stations.iter().map(|s| event.predict(s)).collect();
-    let local = a.local_time.map(|k| k.kind());
+    let local = a.local_time.map(|k| prediction::LocalClock {
+        kind: k.kind(),
+        calendars: &calendars,
+    });
     if let Some(path) = &a.light_curve {
         write_light_curve(path, &[&event])?;
     }

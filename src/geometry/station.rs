@@ -1,7 +1,9 @@
 //! Observing stations on the WGS 84 ellipsoid and their geocentric coordinates.
 
 use crate::error::{Error, Result};
+use crate::observations::angles::{parse_angle, Axis, Meridian};
 use crate::observations::csv_table::CsvTable;
+use crate::time::calendar::Calendar;
 use crate::sky::constants::{EARTH_EQUATORIAL_RADIUS_M, WGS84_A_M, WGS84_F};
 use serde::Serialize;
 use std::path::Path;
@@ -113,10 +115,38 @@ pub fn read_stations(path: &Path) -> Result<Vec<Station>> {
 
 /// Stations from an already-read CSV table (see [`read_stations`]).
 pub fn stations_from_table(table: &CsvTable) -> Result<Vec<Station>> {
+    stations_and_calendars(table).map(|(s, _)| s)
+}
+
+/// Read a stations file with each station's calendar (`calendar`: the calendar its local
+/// times are written in; Gregorian where the column is absent or empty).
+///
+/// Errors: as [`read_stations`], and a calendar that is neither `gregorian` nor `julian`.
+pub fn read_stations_with_calendars(path: &Path) -> Result<(Vec<Station>, Vec<Calendar>)> {
+    let table = CsvTable::read(path)?;
+    stations_and_calendars(&table)
+}
+
+/// An angle of a stations file (any written form of `observations::angles`), or the error
+/// naming line and column.
+fn angle_in(table: &CsvTable, line: u64, rec: &csv::StringRecord, col: usize, axis: Axis) -> Result<f64> {
+    parse_angle(table.text(rec, col), axis).map_err(|message| Error::Input {
+        location: table.location(line, Some(col)),
+        message,
+        hint: "a sign, a digit or the hemisphere letter may be wrong".into(),
+    })
+}
+
+/// Stations and their calendars from a table (columns `station`, `latitude`, `longitude`,
+/// optionally `elevation_m`, `meridian` and `calendar`).
+pub fn stations_and_calendars(table: &CsvTable) -> Result<(Vec<Station>, Vec<Calendar>)> {
     let c_name = table.require("station")?;
     let c_lat = table.require("latitude")?;
     let c_lon = table.require("longitude")?;
     let c_elev = table.optional("elevation_m");
+    let c_meridian = table.optional("meridian");
+    let c_calendar = table.optional("calendar");
+    let mut calendars = Vec::with_capacity(table.records.len());
     let mut out: Vec<Station> = Vec::with_capacity(table.records.len());
     let mut seen: std::collections::HashMap<&str, u64> =
         std::collections::HashMap::with_capacity(table.records.len());
@@ -136,8 +166,24 @@ pub fn stations_from_table(table: &CsvTable) -> Result<Vec<Station>> {
                 hint: "give each station once, with a unique name".into(),
             });
         }
-        let lat = table.number_in(*line, rec, c_lat, -90.0, 90.0, "degrees")?;
-        let lon = table.number_in(*line, rec, c_lon, -180.0, 360.0, "degrees (east positive)")?;
+        let meridian = match c_meridian {
+            Some(c) => Meridian::parse(table.text(rec, c)).map_err(|message| Error::Input {
+                location: table.location(*line, Some(c)),
+                message,
+                hint: "write the prime meridian the longitude is counted from".into(),
+            })?,
+            None => Meridian::Greenwich,
+        };
+        if let Some(c) = c_calendar {
+            let text = table.text(rec, c);
+            calendars.push(Calendar::parse(text).ok_or_else(|| Error::Input {
+                location: table.location(*line, Some(c)),
+                message: format!("'{text}' is not a calendar"),
+                hint: "write gregorian (New Style, the default) or julian (Old Style)".into(),
+            })?);
+        }
+        let lat = angle_in(table, *line, rec, c_lat, Axis::Latitude)?;
+        let lon = angle_in(table, *line, rec, c_lon, Axis::Longitude)? + meridian.east_of_greenwich_deg();
         let elev = match c_elev {
             Some(c) if !table.text(rec, c).is_empty() => {
                 table.number_in(*line, rec, c, MIN_ELEVATION_M, MAX_ELEVATION_M, "metres")?
@@ -158,7 +204,7 @@ pub fn stations_from_table(table: &CsvTable) -> Result<Vec<Station>> {
             hint: "add one row per station".into(),
         });
     }
-    Ok(out)
+    Ok((out, calendars))
 }
 
 #[cfg(test)]

@@ -8,6 +8,7 @@ use crate::render::text::{
     SAFETY_CAUTION,
 };
 use crate::sky::solar_time::{local_from_label, LocalTime};
+use crate::time::calendar::{julian_from_gregorian, Calendar};
 use crate::time::iso::{format_utc, push_digits, push_utc};
 use serde_json::{json, Value};
 
@@ -178,18 +179,47 @@ pub const PREDICT_COLUMNS: [&str; 11] = [
     "ephemeris",
 ];
 
+/// How local solar time is written: its kind, and each station's calendar (in the order of
+/// the predictions; Gregorian where the slice is shorter).
+#[derive(Clone, Copy, Debug)]
+pub struct LocalClock<'a> {
+    /// Apparent or mean solar time.
+    pub kind: LocalTime,
+    /// Each station's calendar.
+    pub calendars: &'a [Calendar],
+}
+
+impl<'a> LocalClock<'a> {
+    /// The calendar of the `k`-th prediction.
+    fn calendar(&self, k: usize) -> Calendar {
+        self.calendars.get(k).copied().unwrap_or_default()
+    }
+
+    /// The same clock for the predictions from `start` on (a chunk of the list).
+    fn from_index(self, start: usize) -> LocalClock<'a> {
+        LocalClock {
+            calendars: self.calendars.get(start..).unwrap_or(&[]),
+            ..self
+        }
+    }
+}
+
 /// The local solar-time reading of a contact at a station (civil day reckoning, no zone, as
-/// the input column `time_local` takes it), to 0.01 s.
+/// the input column `time_local` takes it), to 0.01 s, its date in `calendar`.
 fn local_reading(
     event: &TransitEvent,
     hours: f64,
     longitude_deg: f64,
-    kind: LocalTime,
+    (kind, calendar): (LocalTime, Calendar),
 ) -> Option<String> {
     let local = local_from_label(event.label(hours), kind, longitude_deg, event.time_model())?;
     let mut s = String::with_capacity(24);
     push_utc(&mut s, local, 2);
     s.pop();
+    if calendar == Calendar::Julian {
+        let (y, m, d) = julian_from_gregorian(local.date())?;
+        s.replace_range(..10, &format!("{y:04}-{m:02}-{d:02}"));
+    }
     Some(s)
 }
 
@@ -199,12 +229,16 @@ fn local_reading(
 pub fn predictions_csv(
     event: &TransitEvent,
     predictions: &[StationPrediction],
-    local: Option<LocalTime>,
+    local: Option<LocalClock>,
 ) -> String {
     let mut s = String::with_capacity(100 * 4 * predictions.len() + 128);
     let mut columns = PREDICT_COLUMNS.to_vec();
     if local.is_some() {
         columns.insert(3, "time_local");
+    }
+    let calendars = local.is_some_and(|l| !l.calendars.is_empty());
+    if calendars {
+        columns.insert(4, "calendar");
     }
     s.push_str(&columns.join(","));
     s.push('\n');
@@ -218,8 +252,10 @@ pub fn predictions_csv(
     let parts: Vec<String> = std::thread::scope(|scope| {
         let handles: Vec<_> = predictions
             .chunks(chunk)
-            .map(|part| {
+            .enumerate()
+            .map(|(k, part)| {
                 let ephemeris = &ephemeris;
+                let local = local.map(|l| l.from_index(k * chunk));
                 scope.spawn(move || {
                     let mut out = String::with_capacity(100 * 4 * part.len());
                     csv_rows(event, (ephemeris, local), part, &mut out);
@@ -241,7 +277,7 @@ pub fn predictions_csv(
 /// The CSV rows of these predictions, appended to `s`.
 fn csv_rows(
     event: &TransitEvent,
-    (ephemeris, local): (&str, Option<LocalTime>),
+    (ephemeris, local): (&str, Option<LocalClock>),
     predictions: &[StationPrediction],
     s: &mut String,
 ) {
@@ -251,7 +287,7 @@ fn csv_rows(
             push_fixed(s, x, decimals);
         }
     };
-    for p in predictions {
+    for (k, p) in predictions.iter().enumerate() {
         let name = csv_field(&p.station.name);
         let place = format!(
             ",{},{},{ephemeris}\n",
@@ -267,11 +303,16 @@ fn csv_rows(
             if let Some(x) = cc {
                 push_utc(s, event.label(x.hours), 2);
             }
-            if let Some(kind) = local {
+            if let Some(clock) = local {
                 s.push(',');
                 let lon = p.station.longitude_deg;
-                if let Some(text) = cc.and_then(|x| local_reading(event, x.hours, lon, kind)) {
+                let how = (clock.kind, clock.calendar(k));
+                if let Some(text) = cc.and_then(|x| local_reading(event, x.hours, lon, how)) {
                     s.push_str(&text);
+                }
+                if !clock.calendars.is_empty() {
+                    s.push(',');
+                    s.push_str(how.1.name());
                 }
             }
             opt(s, cc.map(|x| x.sun_altitude_deg), 3);
@@ -297,6 +338,8 @@ pub struct PredictionRow<'a> {
     sun_azimuth_deg: Option<f64>,
     #[serde(skip_serializing_if = "Option::is_none")]
     time_local: Option<String>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    calendar: Option<&'static str>,
     time_utc: Option<String>,
     vertex_angle_deg: Option<f64>,
     visible: Option<bool>,
@@ -308,10 +351,14 @@ pub fn predictions_json<'a>(
     ephemeris: &'a str,
     event: &TransitEvent,
     predictions: &'a [StationPrediction],
-    local: Option<LocalTime>,
+    local: Option<LocalClock>,
 ) -> Vec<PredictionRow<'a>> {
     let mut rows = Vec::with_capacity(4 * predictions.len());
-    for p in predictions {
+    for (k, p) in predictions.iter().enumerate() {
+        let how = local.map(|l| (l.kind, l.calendar(k)));
+        let calendar = local
+            .filter(|l| !l.calendars.is_empty())
+            .map(|l| l.calendar(k).name());
         for c in Contact::ALL {
             let cc = p.contacts[c.index()];
             rows.push(PredictionRow {
@@ -319,9 +366,10 @@ pub fn predictions_json<'a>(
                 ephemeris,
                 contact: c.number(),
                 time_utc: cc.map(|x| format_utc(event.label(x.hours), 2)),
-                time_local: local.and_then(|kind| {
-                    cc.and_then(|x| local_reading(event, x.hours, p.station.longitude_deg, kind))
+                time_local: how.and_then(|how| {
+                    cc.and_then(|x| local_reading(event, x.hours, p.station.longitude_deg, how))
                 }),
+                calendar,
                 sun_altitude_deg: cc.map(|x| round(x.sun_altitude_deg, 3)),
                 sun_azimuth_deg: cc.map(|x| round(x.sun_azimuth_deg, 3)),
                 position_angle_deg: cc.map(|x| round(x.position_angle_deg, 2)),
@@ -354,7 +402,7 @@ pub fn delta_t_note(event: &TransitEvent) -> String {
 pub fn predictions_table(
     event: &TransitEvent,
     predictions: &[StationPrediction],
-    local: Option<LocalTime>,
+    local: Option<LocalClock>,
 ) -> String {
     let greatest = event.label(event.hours_of_greatest());
     let mut s = format!(
@@ -368,8 +416,13 @@ pub fn predictions_table(
     s.push_str(&format!("Ephemeris: {}.\n", event.ephemeris_name()));
     s.push_str(&delta_t_note(event));
     s.push('\n');
+    let local_width = if local.is_some_and(|l| l.calendars.contains(&Calendar::Julian)) {
+        26
+    } else {
+        23
+    };
     let local_header = local.map_or(String::new(), |k| {
-        format!(" {:>23}", format!("local {} time", k.name()))
+        format!(" {:>local_width$}", format!("local {} time", k.kind.name()))
     });
     s.push_str(&format!(
         "{} {:>3} {:>26}{local_header} {:>8} {:>8} {:>7} {:>7} {:>9}\n",
@@ -384,7 +437,7 @@ pub fn predictions_table(
     ));
     // Written field by field into one buffer, as `format!` would pad them.
     let mut cell = String::with_capacity(32);
-    for p in predictions {
+    for (k, p) in predictions.iter().enumerate() {
         let name = name_cell(&p.station.name);
         for c in Contact::ALL {
             s.push_str(&name);
@@ -397,10 +450,12 @@ pub fn predictions_table(
                 continue;
             };
             push_right(&mut s, &clock_label(event.label(x.hours), 2), 26);
-            if let Some(kind) = local {
+            if let Some(clock) = local {
                 s.push(' ');
-                let text = local_reading(event, x.hours, p.station.longitude_deg, kind);
-                push_right(&mut s, text.as_deref().unwrap_or("-"), 23);
+                let how = (clock.kind, clock.calendar(k));
+                let text = local_reading(event, x.hours, p.station.longitude_deg, how)
+                    .map(|t| if how.1 == Calendar::Julian { format!("{t} OS") } else { t });
+                push_right(&mut s, text.as_deref().unwrap_or("-"), local_width);
             }
             for (v, decimals, width) in [
                 (x.sun_altitude_deg, 2, 8),
