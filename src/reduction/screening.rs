@@ -107,7 +107,7 @@ pub fn timings_of_event(
 /// An interval's length in hours of UT: as written, less the change of the equation of time
 /// between its predicted contacts where it was measured in apparent time (the interval between
 /// two apparent times is the UT interval plus that change).
-fn interval_hours(obs: &Observation, d: &Interval, event: &TransitEvent) -> f64 {
+pub fn interval_hours(obs: &Observation, d: &Interval, event: &TransitEvent) -> f64 {
     let mut seconds = d.seconds;
     if d.kept_to == Some(LocalTime::Apparent) {
         let geo = obs.station.geocentric();

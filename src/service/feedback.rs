@@ -64,6 +64,9 @@ fn judge(event: &TransitEvent, obs: &Observation) -> TimingFeedback {
         verdict: "rejected",
         diagnosis: None,
     };
+    if let Some(d) = obs.duration {
+        return judge_interval(event, obs, &d, fb);
+    }
     let model = event.time_model();
     let Ok(tt) = model.tt_from_label(obs.time_label) else {
         fb.diagnosis = Some("the time lies outside the years the tool covers".into());
@@ -103,6 +106,36 @@ fn judge(event: &TransitEvent, obs: &Observation) -> TimingFeedback {
         ("doubtful", Some(far.unwrap_or_else(|| format!("{o_c:+.1} s from the prediction: more than the stated uncertainty ({:.0} s) allows; check the clock and the contact's number", obs.sigma_s))))
     } else {
         ("rejected", Some(far.unwrap_or_else(|| format!("{o_c:+.0} s from the prediction, far more than any parallax or clock error; check the date, the time zone and the contact's number"))))
+    };
+    fb
+}
+
+/// A timed interval against the interval predicted at the station (no instant to give).
+fn judge_interval(
+    event: &TransitEvent,
+    obs: &Observation,
+    d: &crate::observations::timings::Interval,
+    mut fb: TimingFeedback,
+) -> TimingFeedback {
+    let p = event.predict(&obs.station);
+    let (Some(a), Some(b)) = (p.contacts[d.first.index()], p.contacts[obs.contact.index()]) else {
+        fb.diagnosis = Some(format!(
+            "this station sees no interval {} of this transit",
+            obs.contact_label()
+        ));
+        return fb;
+    };
+    let observed_h = crate::reduction::screening::interval_hours(obs, d, event);
+    let o_c = (observed_h - (b.hours - a.hours)) * 3600.0;
+    fb.o_c_s = Some(o_c);
+    fb.sun_altitude_deg = Some(a.sun_altitude_deg.min(b.sun_altitude_deg));
+    let sigma = obs.sigma_s.hypot(MODEL_ALLOWANCE_S);
+    (fb.verdict, fb.diagnosis) = if o_c.abs() <= 3.0 * sigma {
+        ("fits", Some(format!("the interval is {o_c:+.1} s from the predicted one, within what its uncertainty allows")))
+    } else if o_c.abs() <= (10.0 * sigma).max(120.0) {
+        ("doubtful", Some(format!("the interval is {o_c:+.1} s from the predicted one: more than its uncertainty ({:.0} s) allows; check the two readings and the pair of contacts", obs.sigma_s)))
+    } else {
+        ("rejected", Some(format!("the interval is {o_c:+.0} s from the predicted one; check the pair of contacts and the readings")))
     };
     fb
 }
@@ -154,8 +187,16 @@ pub fn parallax_information(event: &TransitEvent, fields: &[TimingFields]) -> f6
     set.valid
         .iter()
         .filter_map(|o| {
-            let c = event.predict(&o.station).contacts[o.contact.index()]?;
-            (c.sun_altitude_deg > -0.5).then(|| (c.sensitivity_s_per_arcsec / o.sigma_s).powi(2))
+            let p = event.predict(&o.station);
+            let c = p.contacts[o.contact.index()]?;
+            // An interval's sensitivity is the difference of its two contacts'.
+            let first = match o.duration {
+                Some(d) => Some(p.contacts[d.first.index()]?),
+                None => None,
+            };
+            let sensitivity = c.sensitivity_s_per_arcsec - first.map_or(0.0, |f| f.sensitivity_s_per_arcsec);
+            let up = c.sun_altitude_deg.min(first.map_or(90.0, |f| f.sun_altitude_deg)) > -0.5;
+            up.then(|| (sensitivity / o.sigma_s).powi(2))
         })
         .sum()
 }

@@ -8,7 +8,14 @@ use serde_json::Value;
 /// A contact as sent, written as its number where it reads as one (`II` -> `2`), else as
 /// sent (the reduction then says why it cannot be read).
 fn contact_number(text: String) -> String {
-    crate::geometry::contacts::Contact::parse(&text).map_or(text, |c| c.number().to_string())
+    use crate::observations::contact_forms::parse_contact_pair;
+    match crate::geometry::contacts::Contact::parse(&text) {
+        Some(c) => c.number().to_string(),
+        None => match parse_contact_pair(&text) {
+            Ok((a, b)) => format!("{}-{}", a.number(), b.number()),
+            Err(_) => text,
+        },
+    }
 }
 
 /// A JSON value as the text a CSV field would hold: strings as they are, numbers as written,
@@ -47,12 +54,20 @@ pub fn from_json(body: &[u8]) -> Result<Vec<TimingFields>, String> {
         longitude: text_of(obj.get("longitude"), "longitude")?,
         elevation_m: text_of(obj.get("elevation_m"), "elevation_m")?,
         longitude_sigma_deg: text_of(obj.get("longitude_sigma_deg"), "longitude_sigma_deg")?,
+        meridian: text_of(obj.get("meridian"), "meridian")?,
+        observer: text_of(obj.get("observer"), "observer")?,
+        calendar: text_of(obj.get("calendar"), "calendar")?,
         ..TimingFields::default()
     };
     timings
         .iter()
         .map(|t| {
             let t = t.as_object().ok_or("each timing must be a JSON object")?;
+            // A timing may name its own observer or calendar; the submission's hold otherwise.
+            let own = |key: &str, common: &str| -> Result<String, String> {
+                let v = text_of(t.get(key), key)?;
+                Ok(if v.is_empty() { common.to_string() } else { v })
+            };
             Ok(TimingFields {
                 contact: contact_number(text_of(t.get("contact"), "contact")?),
                 time_utc: text_of(t.get("time_utc"), "time_utc")?,
@@ -60,6 +75,11 @@ pub fn from_json(body: &[u8]) -> Result<Vec<TimingFields>, String> {
                 time_local: text_of(t.get("time_local"), "time_local")?,
                 local_time: text_of(t.get("local_time"), "local_time")?,
                 day_reckoning: text_of(t.get("day_reckoning"), "day_reckoning")?,
+                time_meridian: text_of(t.get("time_meridian"), "time_meridian")?,
+                duration: text_of(t.get("duration"), "duration")?,
+                contact_judged: text_of(t.get("contact_judged"), "contact_judged")?,
+                observer: own("observer", &common.observer)?,
+                calendar: own("calendar", &common.calendar)?,
                 ..common.clone()
             })
         })
@@ -108,6 +128,12 @@ fn from_csv(text: &str) -> Result<Vec<TimingFields>, String> {
             local_time: get("local_time"),
             day_reckoning: get("day_reckoning"),
             longitude_sigma_deg: get("longitude_sigma_deg"),
+            observer: get("observer"),
+            calendar: get("calendar"),
+            meridian: get("meridian"),
+            time_meridian: get("time_meridian"),
+            duration: get("duration"),
+            contact_judged: get("contact_judged"),
         });
     }
     if out.is_empty() {

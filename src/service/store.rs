@@ -43,10 +43,23 @@ pub struct TimingFields {
     pub day_reckoning: String,
     /// The longitude's uncertainty, degrees or `unknown`.
     pub longitude_sigma_deg: String,
+    /// Who timed it.
+    pub observer: String,
+    /// `gregorian` or `julian`.
+    pub calendar: String,
+    /// The prime meridian of the longitude.
+    pub meridian: String,
+    /// The meridian a local clock was kept to.
+    pub time_meridian: String,
+    /// A timed interval (with a pair of contacts).
+    pub duration: String,
+    /// `geometric`, `thread` or `touch`.
+    pub contact_judged: String,
 }
 
-/// The columns of the observations file the store exports, in order.
-pub const EXPORT_COLUMNS: [&str; 11] = [
+/// The columns of the observations file the store exports, in order (the timings table has
+/// one column of the same name each).
+pub const EXPORT_COLUMNS: [&str; 17] = [
     "station",
     "latitude",
     "longitude",
@@ -58,10 +71,16 @@ pub const EXPORT_COLUMNS: [&str; 11] = [
     "local_time",
     "day_reckoning",
     "longitude_sigma_deg",
+    "observer",
+    "calendar",
+    "meridian",
+    "time_meridian",
+    "duration",
+    "contact_judged",
 ];
 
 impl TimingFields {
-    fn values(&self) -> [&str; 11] {
+    fn values(&self) -> [&str; 17] {
         [
             &self.station,
             &self.latitude,
@@ -74,7 +93,39 @@ impl TimingFields {
             &self.local_time,
             &self.day_reckoning,
             &self.longitude_sigma_deg,
+            &self.observer,
+            &self.calendar,
+            &self.meridian,
+            &self.time_meridian,
+            &self.duration,
+            &self.contact_judged,
         ]
+    }
+
+    /// The fields from their values in the order of [`EXPORT_COLUMNS`].
+    fn from_values(mut v: Vec<String>) -> TimingFields {
+        v.resize(EXPORT_COLUMNS.len(), String::new());
+        let mut it = v.into_iter();
+        let mut next = || it.next().unwrap_or_default();
+        TimingFields {
+            station: next(),
+            latitude: next(),
+            longitude: next(),
+            elevation_m: next(),
+            contact: next(),
+            time_utc: next(),
+            sigma_s: next(),
+            time_local: next(),
+            local_time: next(),
+            day_reckoning: next(),
+            longitude_sigma_deg: next(),
+            observer: next(),
+            calendar: next(),
+            meridian: next(),
+            time_meridian: next(),
+            duration: next(),
+            contact_judged: next(),
+        }
     }
 }
 
@@ -127,6 +178,9 @@ CREATE TABLE IF NOT EXISTS timings (
     elevation_m TEXT NOT NULL, contact TEXT NOT NULL, time_utc TEXT NOT NULL,
     sigma_s TEXT NOT NULL, time_local TEXT NOT NULL, local_time TEXT NOT NULL,
     day_reckoning TEXT NOT NULL, longitude_sigma_deg TEXT NOT NULL,
+    observer TEXT NOT NULL DEFAULT '', calendar TEXT NOT NULL DEFAULT '',
+    meridian TEXT NOT NULL DEFAULT '', time_meridian TEXT NOT NULL DEFAULT '',
+    duration TEXT NOT NULL DEFAULT '', contact_judged TEXT NOT NULL DEFAULT '',
     excluded_reason TEXT
 );
 CREATE INDEX IF NOT EXISTS timings_submission ON timings(submission_id);
@@ -138,6 +192,25 @@ CREATE TABLE IF NOT EXISTS audit (
     reason TEXT
 );
 ";
+
+/// Add to the timings table of a database made by an earlier version every column of
+/// [`EXPORT_COLUMNS`] it lacks (empty text in the rows it holds).
+fn add_missing_columns(conn: &Connection) -> StoreResult<()> {
+    let have: Vec<String> = conn
+        .prepare("SELECT name FROM pragma_table_info('timings')")
+        .and_then(|mut stmt| {
+            stmt.query_map([], |r| r.get::<_, String>(0))?
+                .collect::<Result<Vec<_>, _>>()
+        })
+        .map_err(db_err)?;
+    for col in EXPORT_COLUMNS.iter().filter(|c| !have.iter().any(|h| h == *c)) {
+        conn.execute_batch(&format!(
+            "ALTER TABLE timings ADD COLUMN {col} TEXT NOT NULL DEFAULT ''"
+        ))
+        .map_err(db_err)?;
+    }
+    Ok(())
+}
 
 fn now_utc() -> String {
     let since = std::time::SystemTime::now()
@@ -156,6 +229,7 @@ impl Store {
         conn.execute_batch("PRAGMA journal_mode = WAL; PRAGMA synchronous = FULL;")
             .map_err(db_err)?;
         conn.execute_batch(SCHEMA).map_err(db_err)?;
+        add_missing_columns(&conn)?;
         Ok(Store { conn })
     }
 
@@ -221,12 +295,18 @@ impl Store {
         }
         let mut ids = Vec::with_capacity(timings.len());
         for t in timings {
-            let v = t.values();
-            tx.execute(
-                "INSERT INTO timings (submission_id, station, latitude, longitude, elevation_m, contact, time_utc, sigma_s, time_local, local_time, day_reckoning, longitude_sigma_deg) VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?11, ?12)",
-                params![id, v[0], v[1], v[2], v[3], v[4], v[5], v[6], v[7], v[8], v[9], v[10]],
-            )
-            .map_err(db_err)?;
+            let placeholders: Vec<String> =
+                (2..=EXPORT_COLUMNS.len() + 1).map(|k| format!("?{k}")).collect();
+            let sql = format!(
+                "INSERT INTO timings (submission_id, {}) VALUES (?1, {})",
+                EXPORT_COLUMNS.join(", "),
+                placeholders.join(", ")
+            );
+            let values: Vec<rusqlite::types::Value> = std::iter::once(id.into())
+                .chain(t.values().iter().map(|v| v.to_string().into()))
+                .collect();
+            tx.execute(&sql, rusqlite::params_from_iter(values))
+                .map_err(db_err)?;
             ids.push(tx.last_insert_rowid());
         }
         tx.commit().map_err(db_err)?;
@@ -264,28 +344,20 @@ impl Store {
         clause: &str,
         p: impl rusqlite::Params,
     ) -> StoreResult<Vec<StoredTiming>> {
-        let sql = format!("SELECT t.id, t.submission_id, t.station, t.latitude, t.longitude, t.elevation_m, t.contact, t.time_utc, t.sigma_s, t.time_local, t.local_time, t.day_reckoning, t.longitude_sigma_deg, t.excluded_reason FROM timings t JOIN submissions s ON s.id = t.submission_id WHERE {clause} ORDER BY t.id");
+        let cols: Vec<String> = EXPORT_COLUMNS.iter().map(|c| format!("t.{c}")).collect();
+        let n = EXPORT_COLUMNS.len();
+        let sql = format!("SELECT t.id, t.submission_id, {}, t.excluded_reason FROM timings t JOIN submissions s ON s.id = t.submission_id WHERE {clause} ORDER BY t.id", cols.join(", "));
         let mut stmt = self.conn.prepare(&sql).map_err(db_err)?;
         let rows = stmt
             .query_map(p, |r| {
-                let f = |k: usize| r.get::<_, String>(k);
+                let values = (2..n + 2)
+                    .map(|k| r.get::<_, String>(k))
+                    .collect::<Result<Vec<_>, _>>()?;
                 Ok(StoredTiming {
                     id: r.get(0)?,
                     submission_id: r.get(1)?,
-                    fields: TimingFields {
-                        station: f(2)?,
-                        latitude: f(3)?,
-                        longitude: f(4)?,
-                        elevation_m: f(5)?,
-                        contact: f(6)?,
-                        time_utc: f(7)?,
-                        sigma_s: f(8)?,
-                        time_local: f(9)?,
-                        local_time: f(10)?,
-                        day_reckoning: f(11)?,
-                        longitude_sigma_deg: f(12)?,
-                    },
-                    excluded: r.get(13)?,
+                    fields: TimingFields::from_values(values),
+                    excluded: r.get(n + 2)?,
                 })
             })
             .map_err(db_err)?;
