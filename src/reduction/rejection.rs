@@ -128,8 +128,10 @@ fn diagnose(
         let h = event.contact_hours_perturbed(&station.geocentric(), t.obs.contact, p)?;
         minute_reading(t, (t.observed_h - h) * 3600.0, tolerance_s)
     };
-    explain_row(event, station, t.obs.contact, t.observed_h, p, tolerance_s)
-        .or_else(minute)
+    // A time ending in :00 within a minute of its prediction is named before a mistyped
+    // digit of the minutes: the commoner slip of a clock read by eye.
+    minute()
+        .or_else(|| explain_row(event, station, t.obs.contact, t.observed_h, p, tolerance_s))
         .or_else(|| {
             if !alone {
                 return None;
