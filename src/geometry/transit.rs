@@ -103,7 +103,7 @@ impl TransitEvent {
             .label_from_tt(self.elements.instant(hours))
     }
 
-    /// A rough standard uncertainty of the event's Delta T, seconds (see
+    /// The standard uncertainty of the event's Delta T, seconds (the published one: see
     /// [`TimeModel::delta_t_sigma_s`]); 0 when Delta T was fixed by the user.
     pub fn delta_t_sigma_s(&self) -> f64 {
         self.time_model().delta_t_sigma_s(self.greatest)

@@ -18,8 +18,9 @@
 //! freedom adds in quadrature.
 //!
 //! References: the propagation of a model parameter's error by its partial derivative:
-//! JCGM 100:2008 (GUM), section 5.1; Delta T and its uncertainty: L. V. Morrison and
-//! F. R. Stephenson, J. Hist. Astron. 35, 327 (2004).
+//! JCGM 100:2008 (GUM), section 5.1; Delta T and its uncertainty: see `time::delta_t` (the
+//! reconstruction of Morrison, Stephenson, Hohenkerk and Zawilski 2021, IERS observations and
+//! predictions, the spread of published predictions).
 
 use super::equations::{residual_s, Timing};
 use super::fit::LinearisedCampaign;
@@ -43,6 +44,8 @@ pub struct ErrorBudget {
     pub delta_t_sigma_s: Option<f64>,
     /// Whether Delta T was fixed by the user.
     pub delta_t_fixed: bool,
+    /// Where Delta T came from.
+    pub delta_t_source: DeltaTSource,
     /// The parallax's change per second of Delta T, as solved, arcsec per s.
     pub parallax_per_delta_t_arcsec_per_s: Option<f64>,
     /// The same with the planet's offsets held at their fitted values (`None` where they
@@ -234,6 +237,7 @@ pub fn error_budget(s: &Solved) -> ErrorBudget {
         delta_t_s,
         delta_t_sigma_s,
         delta_t_fixed: fixed,
+        delta_t_source: source,
         parallax_per_delta_t_arcsec_per_s: rate,
         parallax_per_delta_t_offsets_held_arcsec_per_s: rate_held,
         delta_t_arcsec,
@@ -254,8 +258,9 @@ impl ErrorBudget {
         let dt = match self.delta_t_sigma_s {
             None => format!("Delta T {:.1} s was fixed with --delta-t and counts as exact; multiply the rate below by your own doubt about it", self.delta_t_s),
             Some(sigma) => format!(
-                "Delta T {:.1} s +- {sigma:.1} s (the built-in model's rough uncertainty)",
-                self.delta_t_s
+                "Delta T {:.1} s +- {sigma:.1} s, from {}",
+                self.delta_t_s,
+                self.delta_t_source.describe()
             ),
         };
         out.push(dt);

@@ -63,7 +63,9 @@ impl FitStatistics {
 /// A probability to three decimals, or to two significant figures below 0.001 (never a bare
 /// 0.000 or 1.000 for a value that is not).
 pub fn probability(p: f64) -> String {
-    if p < 0.001 {
+    if p < 1e-12 {
+        "below 1e-12".to_string()
+    } else if p < 0.001 {
         format!("{p:.1e}")
     } else if p > 0.999 && p < 1.0 {
         format!("1 - {:.1e}", 1.0 - p)

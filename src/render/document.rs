@@ -144,7 +144,7 @@ fn station_rows(red: &Reduction) -> Vec<Vec<String>> {
         .enumerate()
         .map(|(i, s)| {
             let oc: Vec<String> = s
-                .contacts
+                .contact_labels
                 .iter()
                 .zip(&s.residuals_s)
                 .map(|(c, r)| format!("{c}: {r:+.1}"))

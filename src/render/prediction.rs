@@ -159,7 +159,7 @@ pub fn transits_table(events: &[TransitEvent]) -> String {
     }
     s.push_str("Geocentric contacts, month-day and time; times are UTC from 1972 and UT1 (mean solar time at Greenwich) before.\n");
     s.push_str(
-        "Delta T = TT - UT1 with a rough uncertainty; give --delta-t to use another value.\n",
+        "Delta T = TT - UT1 with its published uncertainty (the 2021 reconstruction of Morrison, Stephenson, Hohenkerk and Zawilski before 1973, IERS observations and predictions to 2027, then the spread of published predictions); give --delta-t to use another value.\n",
     );
     s
 }

@@ -407,7 +407,7 @@ fn stations_section(red: &Reduction, s: &mut String) {
             continue;
         }
         let oc: Vec<String> = st
-            .contacts
+            .contact_labels
             .iter()
             .zip(&st.residuals_s)
             .map(|(c, r)| format!("{}:{:+.1}", c, r))
