@@ -103,10 +103,14 @@ impl Scenario {
                  transit of Venus of 2012 June 5-6 (simulated timings, with a few blunders and a black drop).\n\
                  The reduction below recovers the solar parallax and the astronomical unit from them.\n\n",
             Scenario::Expeditions1769 => "Historical-style demonstration: thirteen invented expeditions timed the transit of Venus of\n\
-                 1769 June 3-4 by clocks kept to local apparent or mean time, some reckoning the day from noon;\n\
-                 six longitudes are known exactly, five to about a quarter of a degree and two not at all\n\
-                 (simulated timings with a black drop). The reduction solves for the parallax and every doubtful longitude,\n\
-                 and sets Halley's and Delisle's methods beside the full solution.\n\n",
+                 1769 June 3-4 as the 18th century recorded: clocks kept to local apparent or mean time (one to\n\
+                 another station's meridian), days reckoned from noon, Old Style dates, longitudes from Paris or\n\
+                 in hours of time, known exactly at six stations, to a quarter of a degree at five and not at all\n\
+                 at two; three observers at one fort and two at two others, judging the interior contacts as the\n\
+                 thread of light or the limbs touching; readings given as ranges; one post that timed only the\n\
+                 interval between the interior contacts (simulated timings). The reduction solves for the\n\
+                 parallax, every doubtful longitude and each judgement's lag, and sets Halley's and Delisle's\n\
+                 methods beside the full solution.\n\n",
         }
     }
 

@@ -237,6 +237,31 @@ pub fn parse_angle(text: &str, axis: Axis) -> Result<f64, String> {
     Ok(value)
 }
 
+/// Whole units, minutes and seconds (to 0.1) of a non-negative value, the seconds rounded
+/// first so that they never read 60.
+fn three_parts(v: f64) -> (u64, u64, f64) {
+    let tenths = (v * 36_000.0).round() as u64;
+    let (whole, rest) = (tenths / 36_000, tenths % 36_000);
+    (whole, rest / 600, (rest % 600) as f64 / 10.0)
+}
+
+/// An angle written as records wrote it: degrees, minutes and seconds (to 0.1") with the
+/// hemisphere letter (`17°29'15.0"S`); [`parse_angle`] reads it back.
+pub fn format_sexagesimal(value_deg: f64, axis: Axis) -> String {
+    let (pos, neg) = axis.letters();
+    let (d, m, s) = three_parts(value_deg.abs());
+    let letter = if value_deg < 0.0 { neg } else { pos };
+    format!("{d}°{m:02}'{s:04.1}\"{letter}")
+}
+
+/// A longitude written in hours, minutes and seconds of time (to 0.1 s) with E or W
+/// (`9h58m10.0sW`); [`parse_angle`] reads it back.
+pub fn format_hours_of_time(longitude_deg: f64) -> String {
+    let (h, m, s) = three_parts(longitude_deg.abs() / 15.0);
+    let letter = if longitude_deg < 0.0 { 'W' } else { 'E' };
+    format!("{h}h{m:02}m{s:04.1}s{letter}")
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -272,6 +297,20 @@ mod tests {
         assert!(close(parse_angle("17.5S", Axis::Latitude).unwrap(), -17.5));
         assert!(close(parse_angle("17d29m15sS", Axis::Latitude).unwrap(), lat));
         assert!(close(parse_angle("9h58m10s", Axis::Longitude).unwrap(), -lon));
+    }
+
+    #[test]
+    fn written_forms_read_back() {
+        for v in [-17.487_5f64, 149.541_666, -0.0001, 59.999_99, 0.0] {
+            let axis = if v.abs() < 90.0 { Axis::Latitude } else { Axis::Longitude };
+            let text = format_sexagesimal(v, axis);
+            assert!((parse_angle(&text, axis).unwrap() - v).abs() < 0.1 / 3600.0, "{text}");
+            let text = format_hours_of_time(v);
+            let back = parse_angle(&text, Axis::Longitude).unwrap();
+            assert!((back - v).abs() < 1.5 / 3600.0 * 15.0 / 10.0, "{text}");
+        }
+        assert_eq!(format_sexagesimal(-17.4875, Axis::Latitude), "17°29'15.0\"S");
+        assert_eq!(format_hours_of_time(-149.541_666_7), "9h58m10.0sW");
     }
 
     #[test]

@@ -177,7 +177,8 @@ pub fn parse_row(
     })?;
     let judged = ContactJudged::parse(field(table, rec, cols.judged)).map_err(|m| (m, cols.judged))?;
     let duration_text = field(table, rec, cols.duration);
-    let mut written = AsWritten { calendar, meridian, ..AsWritten::default() };
+    let longitude_in_time = table.text(rec, cols.lon).contains(['h', 'H']);
+    let mut written = AsWritten { calendar, meridian, longitude_in_time, ..AsWritten::default() };
     let (contact, interval, time, zone, local, range_sigma_s) = if duration_text.is_empty() {
         let contact_text = table.text(rec, cols.contact);
         let contact = Contact::parse(contact_text).ok_or_else(|| {

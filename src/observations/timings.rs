@@ -102,6 +102,8 @@ pub struct AsWritten {
     pub range_s: Option<f64>,
     /// Whether the time was written to the minute only.
     pub minute_only: bool,
+    /// Whether the longitude was written in hours of time.
+    pub longitude_in_time: bool,
 }
 
 /// One usable timing.

@@ -6,8 +6,10 @@
 //!
 //! - `sites.rs`: site ranking, greedy network choice, forecasts, sensitivity grids.
 //! - `simulation.rs`: simulated campaigns and Monte Carlo forecasts.
-//! - `historical.rs`: simulated campaigns recorded in local solar time with doubtful
-//!   longitudes.
+//! - `historical.rs`: simulated campaigns recorded as historical expeditions wrote them.
+//! - `records.rs`: a campaign written out as an observations file, in the forms it was
+//!   recorded in.
 pub mod historical;
+pub mod records;
 pub mod simulation;
 pub mod sites;

@@ -237,56 +237,7 @@ pub fn stations_seeing(
         .collect()
 }
 
-/// Write a campaign as an observations CSV (the columns `reduce` reads). Where a timing was
-/// recorded in local solar time or a longitude is not exact, the historical columns follow
-/// (`time_local`, `local_time`, `day_reckoning`, `longitude_sigma_deg`), and a local reading
-/// leaves `time_utc` empty.
-pub fn campaign_csv(set: &ObservationSet) -> String {
-    use crate::observations::longitude::LongitudeKnowledge;
-    let historical = set
-        .valid
-        .iter()
-        .any(|o| o.local.is_some() || o.longitude != LongitudeKnowledge::Exact);
-    let mut s = String::from("station,latitude,longitude,elevation_m,contact,time_utc,sigma_s");
-    s.push_str(if historical {
-        ",time_local,local_time,day_reckoning,longitude_sigma_deg\n"
-    } else {
-        "\n"
-    });
-    for o in &set.valid {
-        let utc = match o.local {
-            Some(_) => String::new(),
-            None => crate::time::iso::format_utc(o.time_label, 1),
-        };
-        s.push_str(&format!(
-            "{},{:.4},{:.4},{:.0},{},{utc},{}",
-            o.station.name,
-            o.station.latitude_deg,
-            o.station.longitude_deg,
-            o.station.elevation_m,
-            o.contact.number(),
-            o.sigma_s
-        ));
-        if historical {
-            let (reading, kind, reckoning) = match &o.local {
-                Some(l) => {
-                    let mut r = crate::time::iso::format_utc(l.reading, 1);
-                    r.pop();
-                    (r, l.kind.name(), l.reckoning.name())
-                }
-                None => (String::new(), "", ""),
-            };
-            let knowledge = match o.longitude {
-                LongitudeKnowledge::Exact => String::new(),
-                LongitudeKnowledge::Sigma(x) => format!("{x}"),
-                LongitudeKnowledge::Unknown => "unknown".into(),
-            };
-            s.push_str(&format!(",{reading},{kind},{reckoning},{knowledge}"));
-        }
-        s.push('\n');
-    }
-    s
-}
+pub use super::records::campaign_csv;
 
 /// One trial's outcome: (AU km, AU sigma km, interval holds the truth) if solved; blunders
 /// injected; blunders caught; timings.

@@ -105,12 +105,13 @@ pub fn halley(
     m
 }
 
-/// A clock offset (no prior) for every station among the rows.
+/// A clock offset (no prior) for every station with instants among the rows (an interval
+/// needs none: its clock's error cancels in it).
 fn add_clocks(timings: &[Timing], rows: &[usize], p: &mut ParameterSet, start: &mut Vec<f64>) {
     let mut seen = std::collections::HashSet::new();
     for &i in rows {
         let t = &timings[i];
-        if seen.insert(t.station) {
+        if !t.is_interval() && seen.insert(t.station) {
             p.add_station_parameter(t.station, ParameterSet::clock_offset(&t.obs.station.name, None));
             start.push(0.0);
         }
