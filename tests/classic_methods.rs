@@ -89,7 +89,10 @@ fn neither_method_beats_the_full_solution_without_saying_why() {
         let s = sol.parallax_sigma_arcsec.unwrap();
         if s < full {
             let note = sol.note.as_deref().unwrap_or("");
-            assert!(note.contains("only because it assumes"), "{m:?}: {s} < {full}: {note}");
+            assert!(
+                note.contains("only because it assumes"),
+                "{m:?}: {s} < {full}: {note}"
+            );
         }
         assert!(sol.difference_sd_arcsec.is_some_and(|d| d > 0.0), "{sol:?}");
     }

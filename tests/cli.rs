@@ -275,7 +275,10 @@ fn non_numeric_field_is_named() {
         "nan.csv",
         b"station,latitude,longitude,elevation_m\na,ten,10,0\n",
     );
-    assert_usage_error(&predict_with(&f), &["nan.csv:2:2", "'ten' is not a latitude"]);
+    assert_usage_error(
+        &predict_with(&f),
+        &["nan.csv:2:2", "'ten' is not a latitude"],
+    );
 }
 
 #[test]

@@ -14,7 +14,11 @@ fn rows() -> Vec<(String, f64, f64)> {
         .filter(|l| !l.starts_with('#') && !l.starts_with("date"))
         .map(|l| {
             let f: Vec<&str> = l.split(',').collect();
-            (f[0].to_string(), f[1].parse().unwrap(), f[2].parse().unwrap())
+            (
+                f[0].to_string(),
+                f[1].parse().unwrap(),
+                f[2].parse().unwrap(),
+            )
         })
         .collect()
 }

@@ -78,7 +78,10 @@ struct Trial {
 }
 
 fn trial(red: &Reduction) -> Trial {
-    let parallax = (red.parallax_arcsec.unwrap(), red.parallax_sigma_arcsec.unwrap());
+    let parallax = (
+        red.parallax_arcsec.unwrap(),
+        red.parallax_sigma_arcsec.unwrap(),
+    );
     let mut lag_z = Vec::new();
     for lag in &red.black_drop {
         let (Some(d), Some(s), None) = (lag.delay_s, lag.sigma_s, lag.relative_to) else {
@@ -95,7 +98,12 @@ fn trial(red: &Reduction) -> Trial {
         .iter()
         .filter(|m| m.method != Method::ConditionEquations)
         .filter(|m| m.parallax_sigma_arcsec.is_some_and(|s| s < parallax.1))
-        .filter(|m| !m.note.as_deref().unwrap_or("").contains("only because it assumes"))
+        .filter(|m| {
+            !m.note
+                .as_deref()
+                .unwrap_or("")
+                .contains("only because it assumes")
+        })
         .map(|m| format!("{:?}", m.method))
         .collect();
     Trial {
@@ -127,14 +135,24 @@ fn stated_sigma_matches_scatter_over_300_campaigns_made_outside_the_tool() {
     });
     let n = trials.len() as f64;
     let mean = trials.iter().map(|t| t.parallax.0).sum::<f64>() / n;
-    let scatter =
-        (trials.iter().map(|t| (t.parallax.0 - mean).powi(2)).sum::<f64>() / (n - 1.0)).sqrt();
+    let scatter = (trials
+        .iter()
+        .map(|t| (t.parallax.0 - mean).powi(2))
+        .sum::<f64>()
+        / (n - 1.0))
+        .sqrt();
     // The mean of the stated variances, as the scatter is a standard deviation.
     let stated = (trials.iter().map(|t| t.parallax.1.powi(2)).sum::<f64>() / n).sqrt();
     eprintln!("full solution: mean {mean:.5}\", scatter {scatter:.5}\", stated {stated:.5}\"");
-    assert!((stated / scatter - 1.0).abs() < 0.10, "stated {stated} vs scatter {scatter}");
+    assert!(
+        (stated / scatter - 1.0).abs() < 0.10,
+        "stated {stated} vs scatter {scatter}"
+    );
     let truth = transit_parallax::sky::constants::nominal_parallax_arcsec();
-    assert!((mean - truth).abs() < 3.0 * scatter / n.sqrt(), "mean {mean}");
+    assert!(
+        (mean - truth).abs() < 3.0 * scatter / n.sqrt(),
+        "mean {mean}"
+    );
     // Each lag: within 3 sigma of the truth in every campaign but a few (3 sigma is passed by
     // chance in 0.27 % of normal draws: at most 1 % allowed), and unbiased over the campaigns.
     for (k, (judged, contact, value)) in TRUE_LAGS.iter().enumerate() {
@@ -147,8 +165,14 @@ fn stated_sigma_matches_scatter_over_300_campaigns_made_outside_the_tool() {
         let beyond = z.iter().filter(|x| x.abs() > 3.0).count();
         eprintln!("lag {judged} {contact} (truth {value} s): {} fitted, z mean {m:+.3}, sd {sd:.3}, {beyond} beyond 3 sigma", z.len());
         assert!(z.len() > 100, "{judged} {contact}: {}", z.len());
-        assert!(beyond as f64 <= 0.01 * z.len() as f64, "{judged} {contact}: {beyond}");
-        assert!(m.abs() < 3.0 / (z.len() as f64).sqrt() + 0.05, "{judged} {contact}: {m}");
+        assert!(
+            beyond as f64 <= 0.01 * z.len() as f64,
+            "{judged} {contact}: {beyond}"
+        );
+        assert!(
+            m.abs() < 3.0 / (z.len() as f64).sqrt() + 0.05,
+            "{judged} {contact}: {m}"
+        );
     }
     let unexplained: Vec<&String> = trials.iter().flat_map(|t| &t.unexplained).collect();
     assert!(unexplained.is_empty(), "{unexplained:?}");

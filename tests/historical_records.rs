@@ -70,7 +70,10 @@ fn the_published_records_of_1769_reduce_to_the_modern_value() {
         .iter()
         .find(|s| s["station"] == "King George's Island")
         .unwrap();
-    assert_eq!(tahiti["observers"], serde_json::json!(["Cook", "Green", "Solander"]));
+    assert_eq!(
+        tahiti["observers"],
+        serde_json::json!(["Cook", "Green", "Solander"])
+    );
     // The two judgements: at Tahiti Cook saw the limbs touch a minute before the thread of
     // light formed (21 43 15 and 21 44 15,5 apparent time, GC71) and, at egress, the thread
     // break half a minute before the bodies touched (3 14 13 and 3 14 45): the fitted lags
@@ -257,7 +260,9 @@ fn a_time_read_to_the_minute_is_named() {
 /// (a round trip of the reader against the predictor; no outside source).
 #[test]
 fn every_written_form_reads_back_to_its_instant() {
-    use transit_parallax::observations::angles::{FERRO_EAST_OF_GREENWICH_DEG, PARIS_EAST_OF_GREENWICH_DEG};
+    use transit_parallax::observations::angles::{
+        FERRO_EAST_OF_GREENWICH_DEG, PARIS_EAST_OF_GREENWICH_DEG,
+    };
     use transit_parallax::sky::solar_time::{local_from_label, LocalTime};
     use transit_parallax::time::calendar::julian_from_gregorian;
     use transit_parallax::time::iso::format_utc;
@@ -289,32 +294,91 @@ fn every_written_form_reads_back_to_its_instant() {
             let apparent = local_from_label(t, LocalTime::Apparent, lon, &model).unwrap();
             let astro = apparent - chrono::TimeDelta::hours(12);
             let greenwich_mean = local_from_label(t, LocalTime::Mean, 0.0, &model).unwrap();
-            let paris_mean = local_from_label(t, LocalTime::Mean, PARIS_EAST_OF_GREENWICH_DEG, &model).unwrap();
-            rows.push(format!("{},a,{lat},{lon},,{n},{},,,,,,", st.name, format_utc(t, 3)));
-            rows.push(format!("{},b,{lat},{lon_paris:.9},paris,{n},,{},apparent,astronomical,julian,,", st.name, julian(astro)));
-            rows.push(format!("{},c,{lat},{lon},,{n},,{},mean,,,greenwich,", st.name, bare(greenwich_mean)));
-            rows.push(format!("{},d,{lat},{lon},,{n},,{},mean,,,paris,", st.name, bare(paris_mean)));
+            let paris_mean =
+                local_from_label(t, LocalTime::Mean, PARIS_EAST_OF_GREENWICH_DEG, &model).unwrap();
+            rows.push(format!(
+                "{},a,{lat},{lon},,{n},{},,,,,,",
+                st.name,
+                format_utc(t, 3)
+            ));
+            rows.push(format!(
+                "{},b,{lat},{lon_paris:.9},paris,{n},,{},apparent,astronomical,julian,,",
+                st.name,
+                julian(astro)
+            ));
+            rows.push(format!(
+                "{},c,{lat},{lon},,{n},,{},mean,,,greenwich,",
+                st.name,
+                bare(greenwich_mean)
+            ));
+            rows.push(format!(
+                "{},d,{lat},{lon},,{n},,{},mean,,,paris,",
+                st.name,
+                bare(paris_mean)
+            ));
             let start = t - chrono::TimeDelta::milliseconds(2500);
             let end = t + chrono::TimeDelta::milliseconds(2500);
-            rows.push(format!("{},e,{lat},{lon},,{n},{}/{},,,,,,", st.name, format_utc(start, 3), &format_utc(end, 3)[11..]));
-            rows.push(format!("{},f,{lat},{:.9}h,ferro,{n},{},,,,,,", st.name, lon_ferro, format_utc(t, 3)).replace("-", "-").replace(&format!("{:.9}h", lon_ferro), &hours(lon_ferro)));
+            rows.push(format!(
+                "{},e,{lat},{lon},,{n},{}/{},,,,,,",
+                st.name,
+                format_utc(start, 3),
+                &format_utc(end, 3)[11..]
+            ));
+            rows.push(
+                format!(
+                    "{},f,{lat},{:.9}h,ferro,{n},{},,,,,,",
+                    st.name,
+                    lon_ferro,
+                    format_utc(t, 3)
+                )
+                .replace("-", "-")
+                .replace(&format!("{:.9}h", lon_ferro), &hours(lon_ferro)),
+            );
         }
         // Intervals of apparent time between the predicted contacts, dated and not.
         for (a, b) in [(1, 2), (0, 3)] {
-            let (Some(ta), Some(tb)) = (label(a), label(b)) else { continue };
+            let (Some(ta), Some(tb)) = (label(a), label(b)) else {
+                continue;
+            };
             let la = local_from_label(ta, LocalTime::Apparent, lon, &model).unwrap();
             let lb = local_from_label(tb, LocalTime::Apparent, lon, &model).unwrap();
             let seconds = (lb - la).num_microseconds().unwrap() as f64 * 1e-6;
             let dated = if k % 2 == 0 { "1769-06-03" } else { "" };
-            rows.push(format!("{},g,{lat},{lon},,{}-{},,{dated},apparent,,,,{seconds:.3}", st.name, a + 1, b + 1));
+            rows.push(format!(
+                "{},g,{lat},{lon},,{}-{},,{dated},apparent,,,,{seconds:.3}",
+                st.name,
+                a + 1,
+                b + 1
+            ));
         }
     }
     let path = temp("every-form.csv", (rows.join("\n") + "\n").as_bytes());
-    let v = reduce(&path, &["--planet-place", "fixed", "--delta-t", "20.6", "--planet", "venus", "--date", "1769-06-03"]);
-    assert!(v["rejected"].as_array().unwrap().is_empty(), "{}", v["rejected"]);
+    let v = reduce(
+        &path,
+        &[
+            "--planet-place",
+            "fixed",
+            "--delta-t",
+            "20.6",
+            "--planet",
+            "venus",
+            "--date",
+            "1769-06-03",
+        ],
+    );
+    assert!(
+        v["rejected"].as_array().unwrap().is_empty(),
+        "{}",
+        v["rejected"]
+    );
     for s in v["stations"].as_array().unwrap() {
         for r in s["residuals_s"].as_array().unwrap() {
-            assert!(r.as_f64().unwrap().abs() < 0.05, "{}: {}", s["station"], s["residuals_s"]);
+            assert!(
+                r.as_f64().unwrap().abs() < 0.05,
+                "{}: {}",
+                s["station"],
+                s["residuals_s"]
+            );
         }
     }
 }
@@ -326,4 +390,116 @@ fn hours(h: f64) -> String {
     let (hh, rest) = (ms / 3_600_000, ms % 3_600_000);
     let (mm, rest) = (rest / 60_000, rest % 60_000);
     format!("{hh}h{mm:02}m{:06.3}s{letter}", rest as f64 / 1000.0)
+}
+
+/// `predict` reads stations in any written form, from any prime meridian, and writes local
+/// solar time in each station's calendar: the same place written three ways predicts the same
+/// contacts, and its Old Style local date is 10 days behind in 1639 (the reform's lag then,
+/// common practice).
+#[test]
+fn predict_reads_written_coordinates_and_writes_old_style_dates() {
+    let stations = "station,latitude,longitude,meridian,calendar\n\
+                    decimal,53.7,-2.8333333,,\n\
+                    sexagesimal,53°42'N,2°50'W,,julian\n\
+                    from paris,53 42 0 N,0h20m40.3sW,paris,\n";
+    let path = temp("forms-stations.csv", stations.as_bytes());
+    let o = run(&[
+        "predict",
+        "--planet",
+        "venus",
+        "--date",
+        "1639-12-04",
+        "--stations",
+        &path,
+        "--local-time",
+        "apparent",
+        "--format",
+        "json",
+    ]);
+    assert!(o.status.success(), "{}", err(&o));
+    let rows: Vec<Value> = serde_json::from_str(&out(&o)).unwrap();
+    let second = |name: &str| {
+        rows.iter()
+            .find(|r| r["station"] == name && r["contact"] == 2)
+            .unwrap()
+            .clone()
+    };
+    let (a, b, c) = (
+        second("decimal"),
+        second("sexagesimal"),
+        second("from paris"),
+    );
+    assert_eq!(a["time_utc"], b["time_utc"]);
+    // 0h20m40.3s W of Paris is 5.1679 deg W of Paris, 2.8306 deg W of Greenwich: within a
+    // second of the others.
+    let t = |r: &Value| {
+        transit_parallax::time::iso::parse_utc(r["time_utc"].as_str().unwrap()).unwrap()
+    };
+    assert!((t(&a) - t(&c)).num_milliseconds().abs() < 1000, "{a} {c}");
+    assert_eq!(b["calendar"], "julian");
+    let (la, lb) = (
+        a["time_local"].as_str().unwrap(),
+        b["time_local"].as_str().unwrap(),
+    );
+    assert_eq!(&la[..10], "1639-12-04");
+    assert_eq!(&lb[..10], "1639-11-24");
+    assert_eq!(la[10..], lb[10..]);
+    // A calendar that is neither names its line and column.
+    let bad = temp(
+        "bad-calendar.csv",
+        b"station,latitude,longitude,calendar\nx,10,10,mayan\n",
+    );
+    let o = run(&[
+        "predict",
+        "--planet",
+        "venus",
+        "--date",
+        "1639-12-04",
+        "--stations",
+        &bad,
+    ]);
+    assert_eq!(o.status.code(), Some(2));
+    assert!(err(&o).contains("bad-calendar.csv:2:4"), "{}", err(&o));
+}
+
+/// After the leap-second table the labels stay UTC, tied to TT, while local solar time follows
+/// UT1 = TT - Delta T: Greenwich local mean time is UT1, not the label. With Delta T fixed at
+/// 240 s, UT1 - UTC = 69.184 s - 240 s = -170.816 s in 2117 (the definitions of TT, TAI and
+/// UTC: IAU 1991 Resolution A4 and IERS Bulletin C's last TAI - UTC of 37 s; the oracle is
+/// arithmetic).
+#[test]
+fn greenwich_local_mean_time_is_ut1_after_the_leap_second_table() {
+    let stations = temp(
+        "greenwich.csv",
+        b"station,latitude,longitude\ngreenwich,51.4769,0\n",
+    );
+    let o = run(&[
+        "predict",
+        "--planet",
+        "venus",
+        "--date",
+        "2117-12-11",
+        "--stations",
+        &stations,
+        "--local-time",
+        "mean",
+        "--delta-t",
+        "240",
+        "--format",
+        "json",
+    ]);
+    assert!(o.status.success(), "{}", err(&o));
+    let rows: Vec<Value> = serde_json::from_str(&out(&o)).unwrap();
+    let mut checked = 0;
+    for r in &rows {
+        let (Some(utc), Some(local)) = (r["time_utc"].as_str(), r["time_local"].as_str()) else {
+            continue;
+        };
+        let utc = transit_parallax::time::iso::parse_utc(utc).unwrap();
+        let local = transit_parallax::time::iso::parse_utc(local).unwrap();
+        let d = (local - utc).num_milliseconds() as f64 / 1000.0;
+        assert!((d + 170.816).abs() < 0.011, "{r}: {d}");
+        checked += 1;
+    }
+    assert_eq!(checked, 4);
 }

@@ -217,24 +217,78 @@ fn hostile_observation_files_never_panic() {
     let hist = "station,latitude,longitude,contact,time_utc,time_local,local_time,day_reckoning,observer,calendar,meridian,time_meridian,duration,contact_judged\n";
     let ok_local = "1769-06-03T09:34:10,apparent,astronomical";
     let historical: Vec<(String, &str)> = vec![
-        (format!("{hist}a,70°22'36\"N,31.09,2,,{ok_local},Hell,mayan,,,,\n"), "not a calendar"),
-        (format!("{hist}a,70°22'36\"N,31.09,2,,{ok_local},Hell,,atlantis,,,\n"), "not a prime meridian"),
-        (format!("{hist}a,70°22'36\"N,31.09,2,,{ok_local},Hell,,,noon,,\n"), "not a meridian for the clock"),
-        (format!("{hist}a,70°22'36\"N,31.09,2,,{ok_local},Hell,,,,,blob\n"), "not a judgement"),
-        (format!("{hist}a,70°72'36\"N,31.09,2,,{ok_local},Hell,,,,,\n"), "under 60"),
-        (format!("{hist}a,70°22'36\"E,31.09,2,,{ok_local},Hell,,,,,\n"), "write N or S"),
-        (format!("{hist}a,70.3,25h0m0sE,2,,{ok_local},Hell,,,,,\n"), "outside"),
-        (format!("{hist}a,70.3,-5 32 30 W,2,,{ok_local},Hell,,,,,\n"), "minus sign"),
-        (format!("{hist}a,70.3,31.09,3-2,,,,,Hell,,,,5:53:14,\n"), "write 2-3"),
-        (format!("{hist}a,70.3,31.09,2-3,,,,,Hell,,,,five hours,\n"), "not a duration"),
-        (format!("{hist}a,70.3,31.09,2-3,,,,,Hell,,,,-5:53:14,\n"), "not a duration"),
-        (format!("{hist}a,70.3,31.09,2-3,,1769-06-03T09:34:10,,,Hell,,,,5:53:14,\n"), "date alone"),
-        (format!("{hist}a,70.3,31.09,2-3,,,sidereal,,Hell,,,,5:53:14,\n"), "not a kind of local time"),
-        (format!("{hist}a,70.3,31.09,2,,1769-06-03T09:34:14/09:34:10,apparent,,Hell,,,,,\n"), "ends before"),
-        (format!("{hist}a,70.3,31.09,2,,1769-06-03T09:00:00/11:00:00,apparent,,Hell,,,,,\n"), "more than an hour"),
-        (format!("{hist}a,70.3,31.09,2,,1701-02-29T09:00:00,apparent,,Hell,julian,,,,\n"), "Julian calendar"),
-        (format!("{hist}a,70.3,31.09,2,1769-06-03T19:34:10Z,,,,Hell,,,greenwich,,\n"), "time_meridian applies"),
-        (format!("{hist}a,70.3,31.09,2,,1769-06-03T09:34:10,apparent,,Hell,,,,PT5X,\n"), "pair of contacts"),
+        (
+            format!("{hist}a,70°22'36\"N,31.09,2,,{ok_local},Hell,mayan,,,,\n"),
+            "not a calendar",
+        ),
+        (
+            format!("{hist}a,70°22'36\"N,31.09,2,,{ok_local},Hell,,atlantis,,,\n"),
+            "not a prime meridian",
+        ),
+        (
+            format!("{hist}a,70°22'36\"N,31.09,2,,{ok_local},Hell,,,noon,,\n"),
+            "not a meridian for the clock",
+        ),
+        (
+            format!("{hist}a,70°22'36\"N,31.09,2,,{ok_local},Hell,,,,,blob\n"),
+            "not a judgement",
+        ),
+        (
+            format!("{hist}a,70°72'36\"N,31.09,2,,{ok_local},Hell,,,,,\n"),
+            "under 60",
+        ),
+        (
+            format!("{hist}a,70°22'36\"E,31.09,2,,{ok_local},Hell,,,,,\n"),
+            "write N or S",
+        ),
+        (
+            format!("{hist}a,70.3,25h0m0sE,2,,{ok_local},Hell,,,,,\n"),
+            "outside",
+        ),
+        (
+            format!("{hist}a,70.3,-5 32 30 W,2,,{ok_local},Hell,,,,,\n"),
+            "minus sign",
+        ),
+        (
+            format!("{hist}a,70.3,31.09,3-2,,,,,Hell,,,,5:53:14,\n"),
+            "write 2-3",
+        ),
+        (
+            format!("{hist}a,70.3,31.09,2-3,,,,,Hell,,,,five hours,\n"),
+            "not a duration",
+        ),
+        (
+            format!("{hist}a,70.3,31.09,2-3,,,,,Hell,,,,-5:53:14,\n"),
+            "not a duration",
+        ),
+        (
+            format!("{hist}a,70.3,31.09,2-3,,1769-06-03T09:34:10,,,Hell,,,,5:53:14,\n"),
+            "date alone",
+        ),
+        (
+            format!("{hist}a,70.3,31.09,2-3,,,sidereal,,Hell,,,,5:53:14,\n"),
+            "not a kind of local time",
+        ),
+        (
+            format!("{hist}a,70.3,31.09,2,,1769-06-03T09:34:14/09:34:10,apparent,,Hell,,,,,\n"),
+            "ends before",
+        ),
+        (
+            format!("{hist}a,70.3,31.09,2,,1769-06-03T09:00:00/11:00:00,apparent,,Hell,,,,,\n"),
+            "more than an hour",
+        ),
+        (
+            format!("{hist}a,70.3,31.09,2,,1701-02-29T09:00:00,apparent,,Hell,julian,,,,\n"),
+            "Julian calendar",
+        ),
+        (
+            format!("{hist}a,70.3,31.09,2,1769-06-03T19:34:10Z,,,,Hell,,,greenwich,,\n"),
+            "time_meridian applies",
+        ),
+        (
+            format!("{hist}a,70.3,31.09,2,,1769-06-03T09:34:10,apparent,,Hell,,,,PT5X,\n"),
+            "pair of contacts",
+        ),
     ];
     for (text, needle) in cases.into_iter().chain(historical) {
         let table = match CsvTable::from_bytes(Path::new("h.csv"), text.as_bytes()) {

@@ -345,3 +345,55 @@ fn an_observations_file_can_be_uploaded() {
     assert_eq!(r.status, 403);
     assert_eq!(settled_solution(&server)["submissions"], 1);
 }
+
+/// A submission written as an 18th-century record: observers, a judged contact, an Old Style
+/// date, a longitude from Paris in hours of time, and a timed interval; stored, given
+/// feedback, exported with every column, and reduced from the export as the service reduces.
+#[test]
+fn a_historical_record_is_submitted_and_exported_as_written() {
+    let server = start(&db("historical"), &[]);
+    let port = server.port;
+    for (k, (name, lat, lon)) in STATIONS.iter().enumerate() {
+        let e = (k as f64 - 2.5) * 3.0;
+        let r = post_json(
+            port,
+            "/api/submissions",
+            &submission(name, *lat, *lon, [e, -e]),
+        );
+        assert_eq!(r.status, 201, "{}", r.body);
+    }
+    let body = serde_json::json!({
+        "station": "Old Fort", "latitude": "22°16'48\"N", "longitude": "7h27m17sE",
+        "meridian": "paris", "calendar": "julian",
+        "timings": [
+            { "observer": "first", "contact": "II", "time_utc": "2012-05-23T22:46:01Z", "contact_judged": "touch" },
+            { "observer": "second", "contact": "II-III", "duration": "5:58:03", "sigma_s": 15 }
+        ]
+    });
+    let r = post_json(port, "/api/submissions", &body.to_string());
+    assert_eq!(r.status, 201, "{}", r.body);
+    let v = r.json();
+    let timings = v["timings"].as_array().unwrap();
+    assert_eq!(timings.len(), 2);
+    assert!(timings[1]["o_c_s"].is_f64(), "{}", timings[1]);
+    let export = get(port, "/api/export.csv", Some(&server.token)).body;
+    let header = export.lines().next().unwrap();
+    for col in [
+        "observer",
+        "calendar",
+        "meridian",
+        "time_meridian",
+        "duration",
+        "contact_judged",
+    ] {
+        assert!(header.split(',').any(|h| h == col), "{col} in {header}");
+    }
+    assert!(export.contains("2-3"), "{export}");
+    assert!(
+        export.contains("julian") && export.contains("touch"),
+        "{export}"
+    );
+    let solution = settled_solution(&server);
+    assert_eq!(solution["timings_total"], 14);
+    assert_export_reduces_to(&server, &solution);
+}

@@ -9,13 +9,13 @@
 //! `planning::historical`: every column of records as the 18th century wrote them appears.
 
 use crate::error::Result;
+use crate::geometry::contacts::Contact;
 use crate::geometry::station::stations_from_table;
 use crate::geometry::transit::{transit_on_date, TransitEvent};
+use crate::observations::contact_forms::ContactJudged;
 use crate::observations::csv_table::CsvTable;
 use crate::planning::historical::{record_historically, HistoricalStyle};
 use crate::planning::simulation::{campaign_csv, simulate_campaign, SimulationSettings};
-use crate::geometry::contacts::Contact;
-use crate::observations::contact_forms::ContactJudged;
 use crate::time::scales::TimeModel;
 use crate::Planet;
 use rand::SeedableRng;
@@ -56,7 +56,10 @@ pub fn expeditions_settings() -> SimulationSettings {
 /// The observers of the stations with more than one (plainly descriptive roles, no names):
 /// the first of each list is the station's principal observer.
 pub const EXPEDITION_OBSERVERS: [(&str, &[&str]); 3] = [
-    ("Coral Lagoon Fort", &["astronomer", "captain", "naturalist"]),
+    (
+        "Coral Lagoon Fort",
+        &["astronomer", "captain", "naturalist"],
+    ),
     ("Ice Bay Factory", &["first observer", "second observer"]),
     ("Neva Island Academy", &["academician", "adjunct"]),
 ];

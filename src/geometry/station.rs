@@ -3,8 +3,8 @@
 use crate::error::{Error, Result};
 use crate::observations::angles::{parse_angle, Axis, Meridian};
 use crate::observations::csv_table::CsvTable;
-use crate::time::calendar::Calendar;
 use crate::sky::constants::{EARTH_EQUATORIAL_RADIUS_M, WGS84_A_M, WGS84_F};
+use crate::time::calendar::Calendar;
 use serde::Serialize;
 use std::path::Path;
 
@@ -129,7 +129,13 @@ pub fn read_stations_with_calendars(path: &Path) -> Result<(Vec<Station>, Vec<Ca
 
 /// An angle of a stations file (any written form of `observations::angles`), or the error
 /// naming line and column.
-fn angle_in(table: &CsvTable, line: u64, rec: &csv::StringRecord, col: usize, axis: Axis) -> Result<f64> {
+fn angle_in(
+    table: &CsvTable,
+    line: u64,
+    rec: &csv::StringRecord,
+    col: usize,
+    axis: Axis,
+) -> Result<f64> {
     parse_angle(table.text(rec, col), axis).map_err(|message| Error::Input {
         location: table.location(line, Some(col)),
         message,
@@ -183,7 +189,8 @@ pub fn stations_and_calendars(table: &CsvTable) -> Result<(Vec<Station>, Vec<Cal
             })?);
         }
         let lat = angle_in(table, *line, rec, c_lat, Axis::Latitude)?;
-        let lon = angle_in(table, *line, rec, c_lon, Axis::Longitude)? + meridian.east_of_greenwich_deg();
+        let lon =
+            angle_in(table, *line, rec, c_lon, Axis::Longitude)? + meridian.east_of_greenwich_deg();
         let elev = match c_elev {
             Some(c) if !table.text(rec, c).is_empty() => {
                 table.number_in(*line, rec, c, MIN_ELEVATION_M, MAX_ELEVATION_M, "metres")?

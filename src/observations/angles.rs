@@ -103,7 +103,9 @@ fn not_an_angle(text: &str, axis: Axis) -> String {
 /// as letters (`9h58m10s`, `149d32m30s`).
 fn hemisphere_letter(text: &str) -> (Option<char>, &str) {
     let t = text.trim();
-    let letter_units = t.chars().any(|c| matches!(c, 'h' | 'H' | 'd' | 'D' | 'm' | 'M'));
+    let letter_units = t
+        .chars()
+        .any(|c| matches!(c, 'h' | 'H' | 'd' | 'D' | 'm' | 'M'));
     let mut chars = t.chars();
     if let (Some(last), Some(before)) = (chars.next_back(), chars.next_back()) {
         let up = last.to_ascii_uppercase();
@@ -113,9 +115,10 @@ fn hemisphere_letter(text: &str) -> (Option<char>, &str) {
         }
     }
     match t.chars().next() {
-        Some(first) if matches!(first.to_ascii_uppercase(), 'N' | 'S' | 'E' | 'W') => {
-            (Some(first.to_ascii_uppercase()), t[first.len_utf8()..].trim_start())
-        }
+        Some(first) if matches!(first.to_ascii_uppercase(), 'N' | 'S' | 'E' | 'W') => (
+            Some(first.to_ascii_uppercase()),
+            t[first.len_utf8()..].trim_start(),
+        ),
         _ => (None, t),
     }
 }
@@ -276,7 +279,13 @@ mod tests {
         // 17°29'15" S, longitude 9h58m10s = 149°32'30" west of Greenwich.
         let lat = -(17.0 + 29.0 / 60.0 + 15.0 / 3600.0);
         let lon = -(149.0 + 32.0 / 60.0 + 30.0 / 3600.0);
-        for t in ["17°29'15\"S", "17 29 15 S", "S 17°29′15″", "-17:29:15", "-17.4875"] {
+        for t in [
+            "17°29'15\"S",
+            "17 29 15 S",
+            "S 17°29′15″",
+            "-17:29:15",
+            "-17.4875",
+        ] {
             assert!(close(parse_angle(t, Axis::Latitude).unwrap(), lat), "{t}");
         }
         for t in [
@@ -295,21 +304,37 @@ mod tests {
         }
         assert!(close(parse_angle("210.5", Axis::Longitude).unwrap(), 210.5));
         assert!(close(parse_angle("17.5S", Axis::Latitude).unwrap(), -17.5));
-        assert!(close(parse_angle("17d29m15sS", Axis::Latitude).unwrap(), lat));
-        assert!(close(parse_angle("9h58m10s", Axis::Longitude).unwrap(), -lon));
+        assert!(close(
+            parse_angle("17d29m15sS", Axis::Latitude).unwrap(),
+            lat
+        ));
+        assert!(close(
+            parse_angle("9h58m10s", Axis::Longitude).unwrap(),
+            -lon
+        ));
     }
 
     #[test]
     fn written_forms_read_back() {
         for v in [-17.487_5f64, 149.541_666, -0.0001, 59.999_99, 0.0] {
-            let axis = if v.abs() < 90.0 { Axis::Latitude } else { Axis::Longitude };
+            let axis = if v.abs() < 90.0 {
+                Axis::Latitude
+            } else {
+                Axis::Longitude
+            };
             let text = format_sexagesimal(v, axis);
-            assert!((parse_angle(&text, axis).unwrap() - v).abs() < 0.1 / 3600.0, "{text}");
+            assert!(
+                (parse_angle(&text, axis).unwrap() - v).abs() < 0.1 / 3600.0,
+                "{text}"
+            );
             let text = format_hours_of_time(v);
             let back = parse_angle(&text, Axis::Longitude).unwrap();
             assert!((back - v).abs() < 1.5 / 3600.0 * 15.0 / 10.0, "{text}");
         }
-        assert_eq!(format_sexagesimal(-17.4875, Axis::Latitude), "17°29'15.0\"S");
+        assert_eq!(
+            format_sexagesimal(-17.4875, Axis::Latitude),
+            "17°29'15.0\"S"
+        );
         assert_eq!(format_hours_of_time(-149.541_666_7), "9h58m10.0sW");
     }
 

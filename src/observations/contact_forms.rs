@@ -59,9 +59,7 @@ pub fn parse_contact_pair(text: &str) -> Result<(Contact, Contact), String> {
     let bad = || {
         format!("'{t}' is not a pair of contacts for a duration; write the two contacts the interval runs between, e.g. 2-3 or II-III")
     };
-    let (a, b) = t
-        .split_once(['-', '–', '—'])
-        .ok_or_else(bad)?;
+    let (a, b) = t.split_once(['-', '–', '—']).ok_or_else(bad)?;
     let (a, b) = (
         Contact::parse(a.trim()).ok_or_else(bad)?,
         Contact::parse(b.trim()).ok_or_else(bad)?,
@@ -83,7 +81,10 @@ mod tests {
     #[test]
     fn pairs_and_judgements_parse() {
         assert_eq!(parse_contact_pair("2-3"), Ok((Contact::II, Contact::III)));
-        assert_eq!(parse_contact_pair("II - III"), Ok((Contact::II, Contact::III)));
+        assert_eq!(
+            parse_contact_pair("II - III"),
+            Ok((Contact::II, Contact::III))
+        );
         assert_eq!(parse_contact_pair("c1–c4"), Ok((Contact::I, Contact::IV)));
         assert!(parse_contact_pair("3-2").unwrap_err().contains("write 2-3"));
         assert!(parse_contact_pair("2").unwrap_err().contains("II-III"));

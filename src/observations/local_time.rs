@@ -149,10 +149,19 @@ mod tests {
             meridian_deg: Some(0.0),
             ..r
         };
-        assert_eq!(greenwich.label(-149.5), parse_utc("1769-06-04T09:25:03.5Z").ok());
+        assert_eq!(
+            greenwich.label(-149.5),
+            parse_utc("1769-06-04T09:25:03.5Z").ok()
+        );
         assert!(!greenwich.follows_station() && r.follows_station());
         // A Julian date, Old Style (11 days behind in 1769), and a range.
-        let j = parse_local("1769-05-23T21:25:00/21:25:07", "mean", "astronomical", (&cols, Calendar::Julian)).unwrap();
+        let j = parse_local(
+            "1769-05-23T21:25:00/21:25:07",
+            "mean",
+            "astronomical",
+            (&cols, Calendar::Julian),
+        )
+        .unwrap();
         assert_eq!(j.label(-149.5), parse_utc("1769-06-04T19:23:03.5Z").ok());
         assert_eq!(j.written.range_s, Some(7.0));
         let e = parse_local("1769-06-03T21:25:03Z", "mean", "", g).unwrap_err();

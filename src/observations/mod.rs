@@ -16,7 +16,7 @@ pub mod angles;
 pub mod contact_forms;
 pub mod csv_table;
 pub mod local_time;
+pub mod longitude;
 pub mod readings;
 pub mod rows;
-pub mod longitude;
 pub mod timings;

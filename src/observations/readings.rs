@@ -216,7 +216,9 @@ pub fn parse_duration(text: &str) -> Result<(f64, Option<f64>), String> {
             let (a, _) = parse_one_duration(a).ok_or_else(bad)?;
             let (b, _) = parse_one_duration(b).ok_or_else(bad)?;
             if b < a {
-                return Err(format!("the range '{t}' ends before it begins; write the shorter duration first"));
+                return Err(format!(
+                    "the range '{t}' ends before it begins; write the shorter duration first"
+                ));
             }
             (0.5 * (a + b), Some(b - a))
         }
@@ -252,21 +254,28 @@ mod tests {
         assert_eq!(r.range_s, Some(4.0));
         assert!((r.range_sigma_s() - 4.0 / 12f64.sqrt()).abs() < 1e-12);
         for short in ["34:14", "14", "1769-06-03T09:34:14"] {
-            let r = parse_time_reading(&format!("1769-06-03T09:34:10/{short}"), Calendar::Gregorian)
-                .unwrap();
+            let r =
+                parse_time_reading(&format!("1769-06-03T09:34:10/{short}"), Calendar::Gregorian)
+                    .unwrap();
             assert_eq!(r.label, at("1769-06-03T09:34:12Z"), "{short}");
         }
         // Norriton, 1769: Smith's first impression "2h 12' 50'' to 53''" (Phil. Trans. 59).
         let r = parse_time_reading("1769-06-03T14:12:50/53", Calendar::Gregorian).unwrap();
-        assert_eq!((r.label, r.range_s), (at("1769-06-03T14:12:51.5Z"), Some(3.0)));
+        assert_eq!(
+            (r.label, r.range_s),
+            (at("1769-06-03T14:12:51.5Z"), Some(3.0))
+        );
         // An offset applies to both ends.
-        let r = parse_time_reading("2012-06-06T08:27:40+10:00/08:27:50", Calendar::Gregorian)
-            .unwrap();
+        let r =
+            parse_time_reading("2012-06-06T08:27:40+10:00/08:27:50", Calendar::Gregorian).unwrap();
         assert_eq!(r.label, at("2012-06-05T22:27:45Z"));
         // To the minute: the whole minute (ISO 8601 reduced precision).
         let r = parse_time_reading("2012-06-05 22:27", Calendar::Gregorian).unwrap();
         assert!(r.minute_only);
-        assert_eq!((r.label, r.range_s), (at("2012-06-05T22:27:30Z"), Some(60.0)));
+        assert_eq!(
+            (r.label, r.range_s),
+            (at("2012-06-05T22:27:30Z"), Some(60.0))
+        );
         // A Julian date: the transit of 1639, Old Style November 24.
         let r = parse_time_reading("1639-11-24T15:15", Calendar::Julian).unwrap();
         assert_eq!(r.label, at("1639-12-04T15:15:30Z"));
@@ -277,8 +286,16 @@ mod tests {
     #[test]
     fn bad_readings_say_how_to_write_them() {
         for (text, calendar, needle) in [
-            ("1769-06-03T09:34:14/09:34:10", Calendar::Gregorian, "ends before"),
-            ("1769-06-03T09:00:00/11:00:00", Calendar::Gregorian, "more than an hour"),
+            (
+                "1769-06-03T09:34:14/09:34:10",
+                Calendar::Gregorian,
+                "ends before",
+            ),
+            (
+                "1769-06-03T09:00:00/11:00:00",
+                Calendar::Gregorian,
+                "more than an hour",
+            ),
             ("1769-06-03T09:34:10/xx", Calendar::Gregorian, "not a time"),
             ("June 3", Calendar::Gregorian, "ISO 8601"),
             ("1701-02-29T10:00", Calendar::Julian, "Julian calendar"),
@@ -300,8 +317,18 @@ mod tests {
             parse_duration("5:53:10/5:53:14").unwrap(),
             (five_53_14 - 2.0, Some(4.0))
         );
-        assert_eq!(parse_duration("5:53").unwrap(), (five_53_14 + 16.0, Some(60.0)));
-        for bad in ["5:73:14", "-5:00:00", "13:00:00", "five hours", "PT5X", "5:53:14/5:53:10"] {
+        assert_eq!(
+            parse_duration("5:53").unwrap(),
+            (five_53_14 + 16.0, Some(60.0))
+        );
+        for bad in [
+            "5:73:14",
+            "-5:00:00",
+            "13:00:00",
+            "five hours",
+            "PT5X",
+            "5:53:14/5:53:10",
+        ] {
             assert!(parse_duration(bad).is_err(), "{bad}");
         }
     }

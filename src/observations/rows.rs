@@ -124,8 +124,11 @@ fn place(
     rec: &csv::StringRecord,
     cols: &Columns,
 ) -> Result<(f64, f64, f64, Meridian), RowError> {
-    let meridian = Meridian::parse(field(table, rec, cols.meridian)).map_err(|m| (m, cols.meridian))?;
-    let angle = |col: usize, axis: Axis| parse_angle(table.text(rec, col), axis).map_err(|m| (m, Some(col)));
+    let meridian =
+        Meridian::parse(field(table, rec, cols.meridian)).map_err(|m| (m, cols.meridian))?;
+    let angle = |col: usize, axis: Axis| {
+        parse_angle(table.text(rec, col), axis).map_err(|m| (m, Some(col)))
+    };
     let lat = angle(cols.lat, Axis::Latitude)?;
     let lon = angle(cols.lon, Axis::Longitude)? + meridian.east_of_greenwich_deg();
     let elev = match cols.elev {
@@ -165,38 +168,67 @@ pub fn parse_row(
     cols: &Columns,
 ) -> Result<(Observation, Zone), RowError> {
     if rec.iter().all(|f| f.trim().is_empty()) {
-        return Err(("every field of the row is empty; delete the row or fill it in".into(), None));
+        return Err((
+            "every field of the row is empty; delete the row or fill it in".into(),
+            None,
+        ));
     }
     let name = table.text(rec, cols.station);
     if name.is_empty() {
-        return Err(("the station name is empty; give every row a station name".into(), Some(cols.station)));
+        return Err((
+            "the station name is empty; give every row a station name".into(),
+            Some(cols.station),
+        ));
     }
     let (lat, lon, elev, meridian) = place(table, line, rec, cols)?;
     let calendar = Calendar::parse(field(table, rec, cols.calendar)).ok_or_else(|| {
         (format!("'{}' is not a calendar; write gregorian (New Style, the default) or julian (Old Style)", field(table, rec, cols.calendar)), cols.calendar)
     })?;
-    let judged = ContactJudged::parse(field(table, rec, cols.judged)).map_err(|m| (m, cols.judged))?;
+    let judged =
+        ContactJudged::parse(field(table, rec, cols.judged)).map_err(|m| (m, cols.judged))?;
     let duration_text = field(table, rec, cols.duration);
     let longitude_in_time = table.text(rec, cols.lon).contains(['h', 'H']);
-    let mut written = AsWritten { calendar, meridian, longitude_in_time, ..AsWritten::default() };
+    let mut written = AsWritten {
+        calendar,
+        meridian,
+        longitude_in_time,
+        ..AsWritten::default()
+    };
     let (contact, interval, time, zone, local, range_sigma_s) = if duration_text.is_empty() {
         let contact_text = table.text(rec, cols.contact);
         let contact = Contact::parse(contact_text).ok_or_else(|| {
             (format!("'{contact_text}' is not a contact; write 1-4, I-IV or C1-C4 (or a pair such as 2-3 with a duration)"), Some(cols.contact))
         })?;
-        let tm = time_meridian(field(table, rec, cols.time_meridian), meridian).map_err(|m| (m, cols.time_meridian))?;
+        let tm = time_meridian(field(table, rec, cols.time_meridian), meridian)
+            .map_err(|m| (m, cols.time_meridian))?;
         let (reading, local) = row_time(table, rec, cols, (lon, tm, calendar))?;
         written.range_s = reading.range_s;
         written.minute_only = reading.minute_only;
-        (contact, None, reading.label, reading.zone, local, reading.range_sigma_s())
+        (
+            contact,
+            None,
+            reading.label,
+            reading.zone,
+            local,
+            reading.range_sigma_s(),
+        )
     } else {
         let (interval, time, sigma) = row_interval(table, rec, cols, calendar, duration_text)?;
         written.range_s = sigma.1;
         (interval.1, Some(interval.0), time, Zone::Utc, None, sigma.0)
     };
-    let time_col = if local.is_some() { cols.local.time_local } else { cols.time };
-    if interval.as_ref().map_or(true, |i| i.date.is_some()) && !(MIN_YEAR..=MAX_YEAR).contains(&time.year()) {
-        return Err((format!("the year {} is outside {MIN_YEAR}-{MAX_YEAR}", time.year()), time_col));
+    let time_col = if local.is_some() {
+        cols.local.time_local
+    } else {
+        cols.time
+    };
+    if interval.as_ref().map_or(true, |i| i.date.is_some())
+        && !(MIN_YEAR..=MAX_YEAR).contains(&time.year())
+    {
+        return Err((
+            format!("the year {} is outside {MIN_YEAR}-{MAX_YEAR}", time.year()),
+            time_col,
+        ));
     }
     let longitude = match cols.longitude_sigma {
         Some(c) => LongitudeKnowledge::parse(table.text(rec, c)).map_err(|m| (m, Some(c)))?,
@@ -242,11 +274,16 @@ fn row_interval(
     calendar: Calendar,
     duration_text: &str,
 ) -> Result<((Interval, Contact), NaiveDateTime, (f64, Option<f64>)), RowError> {
-    let (first, second) = parse_contact_pair(table.text(rec, cols.contact)).map_err(|m| (m, Some(cols.contact)))?;
+    let (first, second) =
+        parse_contact_pair(table.text(rec, cols.contact)).map_err(|m| (m, Some(cols.contact)))?;
     let (seconds, range) = parse_duration(duration_text).map_err(|m| (m, cols.duration))?;
     let utc = field(table, rec, cols.time);
     let local = field(table, rec, cols.local.time_local);
-    let (text, col) = if utc.is_empty() { (local, cols.local.time_local) } else { (utc, cols.time) };
+    let (text, col) = if utc.is_empty() {
+        (local, cols.local.time_local)
+    } else {
+        (utc, cols.time)
+    };
     let date = if text.is_empty() {
         None
     } else {
@@ -266,7 +303,12 @@ fn row_interval(
     let time = date
         .and_then(|d| d.and_hms_opt(12, 0, 0))
         .unwrap_or_default();
-    let interval = Interval { first, seconds, date, kept_to };
+    let interval = Interval {
+        first,
+        seconds,
+        date,
+        kept_to,
+    };
     let range_sigma = range.map_or(0.0, |r| r / 12f64.sqrt());
     Ok(((interval, second), time, (range_sigma, range)))
 }

@@ -139,7 +139,13 @@ pub struct Observation {
 
 impl Observation {
     /// A timing of one instant (every field else at its default): for simulations and tests.
-    pub fn instant(line: u64, station: Station, contact: Contact, time_label: NaiveDateTime, sigma_s: f64) -> Observation {
+    pub fn instant(
+        line: u64,
+        station: Station,
+        contact: Contact,
+        time_label: NaiveDateTime,
+        sigma_s: f64,
+    ) -> Observation {
         Observation {
             line,
             station,
@@ -171,7 +177,7 @@ impl Observation {
 
     /// Whether the row's time says when (an instant, or an interval with a date).
     pub fn is_dated(&self) -> bool {
-        self.duration.is_none_or(|d| d.date.is_some())
+        self.duration.map_or(true, |d| d.date.is_some())
     }
 }
 
@@ -201,7 +207,11 @@ impl ObservationSet {
         let lines = |l: &[u64]| {
             let shown: Vec<String> = l.iter().take(8).map(|n| n.to_string()).collect();
             let more = if l.len() > 8 { ", ..." } else { "" };
-            format!("line{} {}{more}", if l.len() == 1 { "" } else { "s" }, shown.join(", "))
+            format!(
+                "line{} {}{more}",
+                if l.len() == 1 { "" } else { "s" },
+                shown.join(", ")
+            )
         };
         let mut out = Vec::new();
         let l = &self.lines_without_zone;
@@ -285,9 +295,8 @@ pub fn observations_from_table(table: &CsvTable, strict: bool) -> Result<Observa
             }
             Err((message, column)) => {
                 let text = table.text(rec, cols.contact);
-                let contact = Some(
-                    Contact::parse(text).map_or(text.to_string(), |c| c.number().to_string()),
-                );
+                let contact =
+                    Some(Contact::parse(text).map_or(text.to_string(), |c| c.number().to_string()));
                 reject_or_fail(
                     table, &mut set, *line, &name, contact, message, column, strict,
                 )?;

@@ -179,8 +179,16 @@ fn record_one<R: Rng + ?Sized>(
         o.written.meridian = Meridian::Paris;
     }
     o.written.longitude_in_time = HistoricalStyle::listed(&style.longitudes_in_time, &name);
-    let clock = style.clock_meridians.iter().find(|(n, _)| *n == name).map(|x| x.1);
-    let kind = if clock.is_some() { LocalTime::Mean } else { rec.kind };
+    let clock = style
+        .clock_meridians
+        .iter()
+        .find(|(n, _)| *n == name)
+        .map(|x| x.1);
+    let kind = if clock.is_some() {
+        LocalTime::Mean
+    } else {
+        rec.kind
+    };
     let at = clock.unwrap_or(true_longitude);
     let Some(civil) = local_from_label(o.time_label, kind, at, model) else {
         return;
@@ -270,7 +278,11 @@ fn merge_intervals(set: &mut ObservationSet, stations: &[String]) {
         interval.local = None;
         interval.written.range_s = None;
         interval.sigma_s = first.sigma_s.hypot(o.sigma_s);
-        interval.time_label = first.time_label.date().and_hms_opt(12, 0, 0).unwrap_or_default();
+        interval.time_label = first
+            .time_label
+            .date()
+            .and_hms_opt(12, 0, 0)
+            .unwrap_or_default();
         out.push(interval);
     }
     for (k, o) in out.iter_mut().enumerate() {

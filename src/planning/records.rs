@@ -36,7 +36,10 @@ fn reading_or_range(t: NaiveDateTime, width_s: Option<f64>, calendar: Calendar) 
         return reading_text(t, calendar);
     };
     let half = chrono::TimeDelta::nanoseconds((w * 0.5e9).round() as i64);
-    let (start, end) = (reading_text(t - half, calendar), reading_text(t + half, calendar));
+    let (start, end) = (
+        reading_text(t - half, calendar),
+        reading_text(t + half, calendar),
+    );
     if start[..10] == end[..10] {
         format!("{start}/{}", &end[11..])
     } else {
@@ -69,16 +72,24 @@ fn coordinates(o: &Observation) -> (String, String, &'static str) {
         } else {
             format_sexagesimal(lon, Axis::Longitude)
         };
-        return (format_sexagesimal(st.latitude_deg, Axis::Latitude), lon_text, meridian);
+        return (
+            format_sexagesimal(st.latitude_deg, Axis::Latitude),
+            lon_text,
+            meridian,
+        );
     }
-    (format!("{:.4}", st.latitude_deg), format!("{lon:.4}"), meridian)
+    (
+        format!("{:.4}", st.latitude_deg),
+        format!("{lon:.4}"),
+        meridian,
+    )
 }
 
 /// The meridian a clock was kept to, counted as the row counts longitudes.
 fn clock_meridian(o: &Observation) -> String {
     match o.local.and_then(|l| l.meridian_deg) {
         None => String::new(),
-        Some(m) if m == 0.0 => "greenwich".into(),
+        Some(0.0) => "greenwich".into(),
         Some(m) if (m - PARIS_EAST_OF_GREENWICH_DEG).abs() < 1e-9 => "paris".into(),
         Some(m) => format!("{:.4}", m - o.written.meridian.east_of_greenwich_deg()),
     }
@@ -128,7 +139,11 @@ fn row(o: &Observation, historical: bool, records: bool) -> String {
     let (lat, lon, meridian) = if records {
         coordinates(o)
     } else {
-        (format!("{:.4}", o.station.latitude_deg), format!("{:.4}", o.station.longitude_deg), "")
+        (
+            format!("{:.4}", o.station.latitude_deg),
+            format!("{:.4}", o.station.longitude_deg),
+            "",
+        )
     };
     let field = crate::render::text::csv_field;
     let mut s = format!(
@@ -163,7 +178,11 @@ fn row(o: &Observation, historical: bool, records: bool) -> String {
     };
     s.push_str(&format!(",{reading},{kind},{reckoning},{knowledge}"));
     if records {
-        let written_calendar = if calendar == Calendar::Julian { "julian" } else { "" };
+        let written_calendar = if calendar == Calendar::Julian {
+            "julian"
+        } else {
+            ""
+        };
         let judged = match o.judged {
             ContactJudged::Geometric => "",
             j => j.name(),
@@ -172,7 +191,9 @@ fn row(o: &Observation, historical: bool, records: bool) -> String {
             ",{},{written_calendar},{meridian},{},{},{judged}",
             crate::render::text::csv_field(&o.observer),
             clock_meridian(o),
-            o.duration.map(|d| duration_text(d.seconds)).unwrap_or_default(),
+            o.duration
+                .map(|d| duration_text(d.seconds))
+                .unwrap_or_default(),
         ));
     }
     s

@@ -87,7 +87,11 @@ pub enum LagPlan {
 }
 
 /// For every lag parameter, what the timings `used` can determine (see the module's notes).
-pub fn lag_plan(params: &ParameterSet, timings: &[Timing], used: &[usize]) -> Vec<(usize, LagPlan)> {
+pub fn lag_plan(
+    params: &ParameterSet,
+    timings: &[Timing],
+    used: &[usize],
+) -> Vec<(usize, LagPlan)> {
     let mut out = Vec::new();
     for (j, spec) in params.specs().iter().enumerate() {
         let ParameterKind::BlackDrop(judged, contact) = spec.kind else {
@@ -112,7 +116,10 @@ pub fn lag_plan(params: &ParameterSet, timings: &[Timing], used: &[usize]) -> Ve
                 .unwrap_or(judged);
             if reference != judged {
                 LagPlan::Fitted(Some(reference))
-            } else if ContactJudged::LAGGED.iter().any(|&k| k != judged && count(k) > 0) {
+            } else if ContactJudged::LAGGED
+                .iter()
+                .any(|&k| k != judged && count(k) > 0)
+            {
                 LagPlan::Held(format!(
                     "no timing of contact {} was judged geometric, so the lag of '{}' there is held at 0 s and the other judgements' lags are measured relative to it; the interior radius correction carries the '{}' lag",
                     contact.roman(), judged.name(), judged.name()
@@ -210,8 +217,14 @@ mod tests {
     #[test]
     fn partials_follow_the_judgement_and_the_ends_of_an_interval() {
         use ContactJudged::*;
-        assert_eq!(lag_partial(&obs(Contact::II, Touch, None), Touch, Contact::II), 1.0);
-        assert_eq!(lag_partial(&obs(Contact::II, Thread, None), Touch, Contact::II), 0.0);
+        assert_eq!(
+            lag_partial(&obs(Contact::II, Touch, None), Touch, Contact::II),
+            1.0
+        );
+        assert_eq!(
+            lag_partial(&obs(Contact::II, Thread, None), Touch, Contact::II),
+            0.0
+        );
         let interval = obs(Contact::III, Touch, Some(Contact::II));
         assert_eq!(lag_partial(&interval, Touch, Contact::II), -1.0);
         assert_eq!(lag_partial(&interval, Touch, Contact::III), 1.0);

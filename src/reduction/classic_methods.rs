@@ -106,7 +106,11 @@ pub struct MethodSolution {
 
 impl MethodSolution {
     /// A method that gives no figure, and why.
-    pub fn not_determined(method: Method, (timings, stations): (usize, usize), why: String) -> Self {
+    pub fn not_determined(
+        method: Method,
+        (timings, stations): (usize, usize),
+        why: String,
+    ) -> Self {
         MethodSolution {
             method,
             parallax_arcsec: None,
@@ -339,7 +343,10 @@ pub fn why_they_differ(methods: &[MethodSolution]) -> Vec<String> {
         .iter()
         .find(|m| m.method == Method::ConditionEquations)
         .and_then(|m| m.parallax_arcsec);
-    for m in methods.iter().filter(|m| m.method != Method::ConditionEquations) {
+    for m in methods
+        .iter()
+        .filter(|m| m.method != Method::ConditionEquations)
+    {
         let (Some(pf), Some(pm), Some(chance)) = (full, m.parallax_arcsec, m.difference_sd_arcsec)
         else {
             continue;

@@ -60,7 +60,11 @@ pub fn delisle(
             spec.prior = full.prior;
         }
     }
-    for spec in params.specs().iter().filter(|s| matches!(s.kind, ParameterKind::BlackDrop(..))) {
+    for spec in params
+        .specs()
+        .iter()
+        .filter(|s| matches!(s.kind, ParameterKind::BlackDrop(..)))
+    {
         p.add_global_parameter(spec.clone());
     }
     debug_assert!(p.specs().iter().all(|s| s.scope == Scope::Global));
@@ -72,7 +76,12 @@ pub fn delisle(
         Ok((pi, sigma, stats)) => MethodSolution {
             gains: gains(timings, &rows, &outcome),
             sigma_scale: stats.sigma_scale,
-            ..MethodSolution::from_parallax(Method::Delisle, (pi, sigma), (rows.len(), stations), None)
+            ..MethodSolution::from_parallax(
+                Method::Delisle,
+                (pi, sigma),
+                (rows.len(), stations),
+                None,
+            )
         },
         Err(why) => MethodSolution::not_determined(Method::Delisle, (rows.len(), stations), why),
     };

@@ -409,7 +409,9 @@ fn clock_hypothesis(
         .zip(&sig)
         .map(|(r, s)| ((r - offset) / (s * scatter)).powi(2))
         .sum();
-    let local = rows.iter().all(|r| r.local_s_per_deg > 0.0 || r.other_kind_h.is_some());
+    let local = rows
+        .iter()
+        .all(|r| r.local_s_per_deg > 0.0 || r.other_kind_h.is_some());
     (chi2 / ((rows.len() - 1) as f64) < 9.0).then(|| {
         (
             chi2 + 2.0,

@@ -12,11 +12,11 @@
 //! Ephemeris* II (1891); W. Chauvenet, *A Manual of Spherical and Practical Astronomy* (1863),
 //! vol. I (the contact condition on the fundamental plane).
 
+use super::black_drop::lag_partial;
 use super::parameters::{
     ParameterKind, ParameterSet, N_CLASSIC, OFFSET_EAST, OFFSET_NORTH, PARALLAX, RADIUS_DIFFERENCE,
     RADIUS_SUM,
 };
-use super::black_drop::lag_partial;
 use crate::geometry::contacts::{contact_partials, Contact, Perturbation};
 use crate::geometry::station::GeocentricStation;
 use crate::geometry::transit::TransitEvent;
@@ -296,8 +296,12 @@ pub fn computed_hours(
     let geo = moved.as_ref().unwrap_or(&t.geo);
     let (lag_s, _) = extra_globals(t, params, theta);
     if params.nuisance_at_geocentre() {
-        let h = geocentric_nuisance_row(event, geo, t.obs.contact, theta, er)?.0;
-        return Some(h + shift_h + lag_s / 3600.0);
+        let at = |c| geocentric_nuisance_row(event, geo, c, theta, er).map(|x| x.0);
+        let value = match t.obs.duration {
+            None => at(t.obs.contact)? + shift_h,
+            Some(d) => at(t.obs.contact)? - at(d.first)?,
+        };
+        return Some(value + lag_s / 3600.0);
     }
     let p = perturbation(theta, er);
     let h = event.contact_hours_perturbed(geo, t.obs.contact, &p)?;
@@ -370,5 +374,79 @@ mod tests {
             }
         }
         assert!(checked > 100, "{checked}");
+    }
+
+    /// Every global partial of `linearise` (both forms, instants and intervals, a black-drop
+    /// lag among the parameters) against central differences of `computed_hours` (common
+    /// practice for checking an analytic derivative, no source).
+    #[test]
+    fn global_partials_match_central_differences() {
+        use crate::observations::contact_forms::ContactJudged;
+        use crate::observations::timings::{Interval, Observation};
+        let date = chrono::NaiveDate::from_ymd_opt(1769, 6, 3).unwrap();
+        let event = transit_on_date(Planet::Venus, date, &TimeModel::default()).unwrap();
+        let er = event.earth_radii_per_arcsec();
+        for geocentric in [false, true] {
+            let mut params = ParameterSet::classic(8.8);
+            params.add_global_parameter(crate::reduction::parameters::ParameterSpec {
+                name: "black_drop[touch, II]".into(),
+                unit: "s",
+                kind: ParameterKind::BlackDrop(ContactJudged::Touch, Contact::II),
+                scope: crate::reduction::parameters::Scope::Global,
+                start: 0.0,
+                prior: None,
+                fixed: false,
+            });
+            if geocentric {
+                params.set_nuisance_at_geocentre();
+            }
+            let theta = [8.8, 0.3, -0.2, 0.5, -0.4, 7.0];
+            let mut checked = 0;
+            for st in global_stations(40, "p") {
+                for (first, c) in [
+                    (None, Contact::II),
+                    (None, Contact::IV),
+                    (Some(Contact::II), Contact::III),
+                ] {
+                    let mut obs = Observation::instant(2, st.clone(), c, Default::default(), 5.0);
+                    obs.judged = ContactJudged::Touch;
+                    obs.duration = first.map(|f| Interval {
+                        first: f,
+                        seconds: 1.0,
+                        date: None,
+                        kept_to: None,
+                    });
+                    let t = Timing {
+                        geo: st.geocentric(),
+                        obs,
+                        observed_h: 0.0,
+                        station: 0,
+                    };
+                    let Some(lin) = linearise(&event, &t, &params, &theta, er) else {
+                        continue;
+                    };
+                    for j in 0..theta.len() {
+                        let step = if j == PARALLAX { 1e-4 } else { 1e-3 };
+                        let at = |d: f64| {
+                            let mut th = theta;
+                            th[j] += d;
+                            computed_hours(&event, &t, &params, &th, er)
+                        };
+                        let (Some(a), Some(b)) = (at(step), at(-step)) else {
+                            continue;
+                        };
+                        let numeric = (a - b) * 3600.0 / (2.0 * step);
+                        let analytic = lin.global[j];
+                        assert!(
+                            (numeric - analytic).abs() < 1e-3 * (1.0 + analytic.abs()),
+                            "{} {c:?} {first:?} p{j} geocentric {geocentric}: {analytic} vs {numeric}",
+                            st.name
+                        );
+                        checked += 1;
+                    }
+                }
+            }
+            assert!(checked > 300, "{checked}");
+        }
     }
 }

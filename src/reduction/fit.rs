@@ -261,7 +261,10 @@ fn check_rank(
         messages.push(describe_confusion(&list, &separation.confused, &held));
     }
     if free[PARALLAX] {
-        let loose: Vec<f64> = params.specs()[..g].iter().map(|s| loose_sigma(s.unit)).collect();
+        let loose: Vec<f64> = params.specs()[..g]
+            .iter()
+            .map(|s| loose_sigma(s.unit))
+            .collect();
         let growth = growth_when_freed(&normal, (&before, &free[..g]), PARALLAX, &loose)
             .filter(|&x| x > MAX_GROWTH_WHEN_FREED);
         let why = if let Some(growth) = growth {

@@ -90,7 +90,12 @@ pub fn halley(
         Ok((pi, sigma, stats)) => MethodSolution {
             gains: gains(timings, &rows, &outcome),
             sigma_scale: stats.sigma_scale,
-            ..MethodSolution::from_parallax(Method::Halley, (pi, sigma), (rows.len(), stations), None)
+            ..MethodSolution::from_parallax(
+                Method::Halley,
+                (pi, sigma),
+                (rows.len(), stations),
+                None,
+            )
         },
         Err(why) => {
             let hint = if params.specs()[OFFSET_NORTH].fixed {
@@ -98,7 +103,11 @@ pub fn halley(
             } else {
                 "; with --planet-place fixed (or a prior) the planet's path is taken from the ephemeris, as Halley took it from the tables"
             };
-            MethodSolution::not_determined(Method::Halley, (rows.len(), stations), format!("{why}{hint}"))
+            MethodSolution::not_determined(
+                Method::Halley,
+                (rows.len(), stations),
+                format!("{why}{hint}"),
+            )
         }
     };
     m.held = held;
@@ -112,7 +121,10 @@ fn add_clocks(timings: &[Timing], rows: &[usize], p: &mut ParameterSet, start: &
     for &i in rows {
         let t = &timings[i];
         if !t.is_interval() && seen.insert(t.station) {
-            p.add_station_parameter(t.station, ParameterSet::clock_offset(&t.obs.station.name, None));
+            p.add_station_parameter(
+                t.station,
+                ParameterSet::clock_offset(&t.obs.station.name, None),
+            );
             start.push(0.0);
         }
     }
@@ -134,14 +146,18 @@ pub fn held_by_fit(
             let spec = &method.specs()[j];
             let name = &spec.name;
             if full.specs()[j].fixed && spec.fixed {
-                return Some(format!("{name} (held, as in the full solution: --planet-place)"));
+                return Some(format!(
+                    "{name} (held, as in the full solution: --planet-place)"
+                ));
             }
             if spec.fixed {
                 return None;
             }
             Some(if !could[j] {
                 match spec.kind {
-                    ParameterKind::BlackDrop(..) => format!("{name} (no timing of its own to measure it against: held at 0 s)"),
+                    ParameterKind::BlackDrop(..) => {
+                        format!("{name} (no timing of its own to measure it against: held at 0 s)")
+                    }
                     _ => format!("{name} (no timing of that kind of contact: not involved)"),
                 }
             } else {

@@ -19,7 +19,9 @@ use super::equations::Timing;
 use super::fit::{fit, FitOutcome};
 use super::parameters::{ParameterKind, ParameterSet, Scope};
 use crate::geometry::transit::TransitEvent;
-use crate::observations::angles::{Meridian, FERRO_EAST_OF_GREENWICH_DEG, PARIS_EAST_OF_GREENWICH_DEG};
+use crate::observations::angles::{
+    Meridian, FERRO_EAST_OF_GREENWICH_DEG, PARIS_EAST_OF_GREENWICH_DEG,
+};
 use crate::observations::local_time::LocalReading;
 use crate::sky::solar_time::LocalTime;
 use chrono::Timelike;
@@ -161,7 +163,8 @@ pub fn meridian_corrections(
 ) -> Vec<String> {
     let mut out = Vec::new();
     for (j, spec) in params.specs().iter().enumerate() {
-        let (ParameterKind::LongitudeCorrection, Scope::Station(k)) = (spec.kind, spec.scope) else {
+        let (ParameterKind::LongitudeCorrection, Scope::Station(k)) = (spec.kind, spec.scope)
+        else {
             continue;
         };
         let (Some(s), Some(t)) = (sigma[j], timings.iter().find(|t| t.station == k)) else {

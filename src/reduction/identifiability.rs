@@ -272,10 +272,18 @@ pub fn describe_confusion(timings: &[&Timing], names: &[&str], held: &[&str]) ->
     } else {
         "the stations' geometry does not separate them".to_string()
     };
-    let fitted: Vec<&str> = names.iter().copied().filter(|n| !held.contains(n)).collect();
+    let fitted: Vec<&str> = names
+        .iter()
+        .copied()
+        .filter(|n| !held.contains(n))
+        .collect();
     let what = match (held.is_empty(), fitted.is_empty()) {
         (true, _) => "all of them are fitted, in combination".to_string(),
-        (false, true) => format!("{} held at the a-priori value{}", held.join(", "), if held.len() == 1 { " is" } else { "s are" }),
+        (false, true) => format!(
+            "{} held at the a-priori value{}",
+            held.join(", "),
+            if held.len() == 1 { " is" } else { "s are" }
+        ),
         (false, false) => format!(
             "{} {} held at the a-priori value{}, and {} fitted with what is left",
             held.join(", "),
@@ -360,9 +368,13 @@ mod tests {
             _ => (i as f64 - 2.5).powi(3),
         });
         let n = normal_of(&j);
-        let growth =
-            growth_when_freed(&n, (&[true, true, true], &[true, false, true]), 0, &[1.0; 3])
-                .unwrap();
+        let growth = growth_when_freed(
+            &n,
+            (&[true, true, true], &[true, false, true]),
+            0,
+            &[1.0; 3],
+        )
+        .unwrap();
         assert!(growth > MAX_GROWTH_WHEN_FREED, "{growth}");
         // Three orthogonal columns over six rows: a constant, a centred square, a line.
         let j = DMatrix::from_fn(6, 3, |i, k| match k {
@@ -371,9 +383,13 @@ mod tests {
             _ => i as f64 - 2.5,
         });
         let n = normal_of(&j);
-        let growth =
-            growth_when_freed(&n, (&[true, true, true], &[true, true, false]), 0, &[1e3; 3])
-                .unwrap();
+        let growth = growth_when_freed(
+            &n,
+            (&[true, true, true], &[true, true, false]),
+            0,
+            &[1e3; 3],
+        )
+        .unwrap();
         assert!(growth < 1.01, "{growth}");
         assert!(growth_when_freed(&n, (&[true; 3], &[true; 3]), 0, &[1.0; 3]).is_none());
     }

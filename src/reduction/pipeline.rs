@@ -15,11 +15,11 @@
 //! Bevington and Robinson (2003), chapter 8; R. T. Birge, Phys. Rev. 40, 207 (1932).
 
 use super::black_drop::{add_lag_parameters, lag_plan, lags};
-use super::historical_diagnosis::{campaign_kind_check, meridian_corrections};
 use super::classic_methods::{condition_equations, methods};
 use super::contributions::{contributions, convergence, stations_not_used};
 use super::error_budget::{error_budget, Solved};
 use super::fit::FitOutcome;
+use super::historical_diagnosis::{campaign_kind_check, meridian_corrections};
 use super::parameters::{ParameterKind, ParameterSet, Prior, Scope, PARALLAX};
 use super::planet_place::{parallax_shift_arcsec, place_accuracy_arcsec};
 use super::rejection::{record_rejections, station_wide};
@@ -441,9 +441,18 @@ fn summarise(
         convergence,
     };
     if stats.too_large() {
-        red.warnings.extend(campaign_kind_check(&red.event, (c.timings, used), c.params, outcome));
+        red.warnings.extend(campaign_kind_check(
+            &red.event,
+            (c.timings, used),
+            c.params,
+            outcome,
+        ));
     }
-    red.warnings.extend(meridian_corrections(c.timings, c.params, (&outcome.theta, &outcome.sigma)));
+    red.warnings.extend(meridian_corrections(
+        c.timings,
+        c.params,
+        (&outcome.theta, &outcome.sigma),
+    ));
     if determined {
         headline_into(&mut red, stats.coverage_factor_95);
     }

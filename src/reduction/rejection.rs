@@ -13,9 +13,9 @@ use super::diagnosis::{
     clock_offset_s, explain_interval, explain_row, explain_station, station_offset_sentence,
     StationTiming,
 };
-use super::historical_diagnosis::{minute_reading, station_timing};
 use super::equations::{perturbation, residual_s, Timing};
 use super::fit::FitOutcome;
+use super::historical_diagnosis::{minute_reading, station_timing};
 use super::parameters::ParameterSet;
 use super::screening::Screened;
 use crate::geometry::contacts::Perturbation;
@@ -122,7 +122,14 @@ fn diagnose(
     let tolerance_s = (4.0 * scatter * t.obs.sigma_s).max(20.0);
     let station = &t.obs.station;
     if let Some(d) = t.obs.duration {
-        return explain_interval(event, station, (d.first, t.obs.contact), t.observed_h, p, tolerance_s);
+        return explain_interval(
+            event,
+            station,
+            (d.first, t.obs.contact),
+            t.observed_h,
+            p,
+            tolerance_s,
+        );
     }
     let minute = || {
         let h = event.contact_hours_perturbed(&station.geocentric(), t.obs.contact, p)?;
@@ -184,7 +191,10 @@ pub fn record_rejections(
         line: timings[i].obs.line,
         station: timings[i].obs.station.name.clone(),
         contact: Some(timings[i].obs.contact.number()),
-        contact_label: timings[i].obs.duration.map(|_| timings[i].obs.contact_label()),
+        contact_label: timings[i]
+            .obs
+            .duration
+            .map(|_| timings[i].obs.contact_label()),
         reason,
         diagnosis,
         o_c_s: residual_at(i),

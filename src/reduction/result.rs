@@ -231,7 +231,11 @@ impl Reduction {
     /// their combination, not this parameter alone, so its value is not a result.
     pub fn inseparable(&self, j: usize) -> Option<(&str, f64)> {
         let row = self.correlation.get(j)?;
-        let fitted = |k: usize| self.parameters.get(k).is_some_and(|p| !p.fixed && p.sigma.is_some());
+        let fitted = |k: usize| {
+            self.parameters
+                .get(k)
+                .is_some_and(|p| !p.fixed && p.sigma.is_some())
+        };
         if !fitted(j) {
             return None;
         }

@@ -34,7 +34,9 @@ impl FitStatistics {
     /// chi-square is improbably small, the probability of so small a value instead.
     pub fn describe(&self) -> String {
         let tail = match (self.p_value, self.p_lower) {
-            (_, Some(lo)) if lo < 0.05 => format!(", probability of so small a value {}", probability(lo)),
+            (_, Some(lo)) if lo < 0.05 => {
+                format!(", probability of so small a value {}", probability(lo))
+            }
             (Some(p), _) => format!(", p = {}", probability(p)),
             _ => String::new(),
         };
@@ -157,7 +159,11 @@ mod tests {
         // the 0.1 % point near 35.0); the campaign, 25.7 for 65 dof, is too small.
         let s = statistics(25.7, 65);
         assert!(s.too_small() && !s.too_large());
-        assert!(s.describe().contains("so small a value"), "{}", s.describe());
+        assert!(
+            s.describe().contains("so small a value"),
+            "{}",
+            s.describe()
+        );
         assert!(!s.describe().contains("p = 1.000"), "{}", s.describe());
         let s = statistics(65.0, 65);
         assert!(!s.too_small() && !s.too_large());

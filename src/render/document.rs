@@ -7,18 +7,14 @@ use crate::render::charts::{
     convergence_svg, disc_exaggeration, residuals_svg, sampling_note, solar_disc_svg,
     station_map_svg,
 };
-use crate::render::methods::{
-    budget_rows, methods_rows, methods_sentences, BUDGET_HEADERS, METHOD_HEADERS,
-};
 use crate::render::reduction::chi2_sentence;
-use crate::render::reduction::correlation_notes;
+use crate::render::reduction::{black_drop_sentences, correlation_notes};
+use crate::render::report_sections::{
+    html_methods, html_what_else, md_methods, md_what_else, report_light_curve,
+};
 use crate::render::svg::esc;
 use crate::render::text::capitalise;
 use crate::render::text::{au_text, SAFETY_CAUTION};
-use crate::render::what_else::{
-    distant_sentences, scale_intro, scale_rows, size_rows, size_sentences, SCALE_HEADERS,
-    SIZE_HEADERS,
-};
 use std::fmt::Write;
 use std::path::{Path, PathBuf};
 
@@ -84,7 +80,9 @@ fn parameters_rows(red: &Reduction) -> Vec<Vec<String>> {
                 None => format!("{:.5}", p.value),
             };
             let sigma = match inseparable {
-                Some((other, r)) => Some(format!("correlated {r:+.4} with {other}: only the combination is determined")),
+                Some((other, r)) => Some(format!(
+                    "correlated {r:+.4} with {other}: only the combination is determined"
+                )),
                 None => p.sigma.map(|s| format!("{s:.5}")),
             };
             let mut row = vec![
@@ -224,7 +222,7 @@ const REJECTED_HEADERS: [&str; 7] = [
     "diagnosis",
 ];
 
-fn html_table(headers: &[&str], rows: &[Vec<String>]) -> String {
+pub(crate) fn html_table(headers: &[&str], rows: &[Vec<String>]) -> String {
     let mut s = String::from("<table>\n<thead><tr>");
     for h in headers {
         let _ = write!(s, "<th>{}</th>", esc(h));
@@ -245,7 +243,7 @@ fn html_table(headers: &[&str], rows: &[Vec<String>]) -> String {
 /// start emphasis, code, a link or a table cell, entities for `&`, `<` and `>` (so nothing
 /// can be read as raw HTML); line breaks and control characters become spaces. Quotes and apostrophes stay as they are (regression: they used to be HTML
 /// entities).
-fn md_cell(text: &str) -> String {
+pub(crate) fn md_cell(text: &str) -> String {
     let mut s = String::with_capacity(text.len());
     for ch in text.chars() {
         match ch {
@@ -264,7 +262,7 @@ fn md_cell(text: &str) -> String {
     s
 }
 
-fn md_table(headers: &[&str], rows: &[Vec<String>]) -> String {
+pub(crate) fn md_table(headers: &[&str], rows: &[Vec<String>]) -> String {
     let mut s = String::from("|");
     for h in headers {
         let _ = write!(s, " {} |", md_cell(h));
@@ -306,131 +304,14 @@ fn title(red: &Reduction) -> String {
 }
 
 /// The plus-minus sign the page uses, for text written for the terminal.
-fn plus_minus(text: &str) -> String {
+pub(crate) fn plus_minus(text: &str) -> String {
     text.replace(" +- ", " ± ")
 }
 
-fn plus_minus_rows(rows: Vec<Vec<String>>) -> Vec<Vec<String>> {
+pub(crate) fn plus_minus_rows(rows: Vec<Vec<String>>) -> Vec<Vec<String>> {
     rows.into_iter()
         .map(|r| r.iter().map(|c| plus_minus(c)).collect())
         .collect()
-}
-
-const METHODS_TITLE: &str = "The classic methods beside the full solution";
-const BUDGET_TITLE: &str = "Error budget of the parallax";
-
-/// The methods side by side and the error budget, in HTML.
-fn html_methods(red: &Reduction, s: &mut String) {
-    if !red.methods.is_empty() {
-        let _ = writeln!(s, "<h2>{METHODS_TITLE}</h2>");
-        s.push_str(&html_table(
-            &METHOD_HEADERS,
-            &plus_minus_rows(methods_rows(red)),
-        ));
-        for line in methods_sentences(red) {
-            let _ = writeln!(s, "<p>{}.</p>", esc(&plus_minus(&capitalise(&line))));
-        }
-    }
-    if let Some(b) = &red.error_budget {
-        let _ = writeln!(s, "<h2>{BUDGET_TITLE}</h2>");
-        s.push_str(&html_table(
-            &BUDGET_HEADERS,
-            &plus_minus_rows(budget_rows(b)),
-        ));
-        for line in b.sentences() {
-            let _ = writeln!(s, "<p>{}.</p>", esc(&plus_minus(&capitalise(&line))));
-        }
-    }
-}
-
-const WHAT_ELSE_TITLE: &str = "What else the timings measure";
-
-/// The light curve seen from the Earth's centre, for the reports (every minute, from 15
-/// minutes before contact I to 15 after IV), or `None` when it cannot be computed.
-fn report_light_curve(red: &Reduction) -> Option<String> {
-    let points = crate::scale::light_curve::light_curve(&red.event, 60.0, 900.0).ok()?;
-    Some(crate::render::light_curve_chart::light_curve_svg(
-        &red.event, &points,
-    ))
-}
-
-/// The scale of the Solar System, the sizes and the depth, in HTML.
-fn html_what_else(red: &Reduction, s: &mut String) {
-    let w = crate::scale::summary::what_else(red);
-    let _ = writeln!(
-        s,
-        "<h2>{WHAT_ELSE_TITLE}</h2>\n<p>{}</p>",
-        esc(&plus_minus(&scale_intro(red, &w)))
-    );
-    if !w.scale.is_empty() {
-        s.push_str(&html_table(
-            &SCALE_HEADERS,
-            &plus_minus_rows(scale_rows(&w)),
-        ));
-    }
-    for line in size_sentences(red, &w) {
-        let _ = writeln!(s, "<p>{}</p>", esc(&plus_minus(&line)));
-    }
-    if !w.sizes.stations.is_empty() {
-        s.push_str(&html_table(
-            &SIZE_HEADERS,
-            &plus_minus_rows(size_rows(&w, 300)),
-        ));
-    }
-    if let Some(svg) = report_light_curve(red) {
-        let _ = writeln!(s, "<figure>\n{svg}<figcaption>The Sun's brightness seen from the Earth's centre through the transit, contacts I-IV dashed.</figcaption>\n</figure>");
-    }
-    for line in distant_sentences(red, &w) {
-        let _ = writeln!(s, "<p>{}</p>", esc(&plus_minus(&line)));
-    }
-}
-
-/// The scale of the Solar System, the sizes and the depth, in Markdown (the light curve as
-/// its own SVG file, `chart`).
-fn md_what_else(red: &Reduction, s: &mut String, chart: Option<&str>) {
-    let w = crate::scale::summary::what_else(red);
-    let _ = write!(
-        s,
-        "\n## {WHAT_ELSE_TITLE}\n\n{}\n\n",
-        md_cell(&scale_intro(red, &w))
-    );
-    if !w.scale.is_empty() {
-        s.push_str(&md_table(&SCALE_HEADERS, &scale_rows(&w)));
-    }
-    for line in size_sentences(red, &w) {
-        let _ = write!(s, "\n{}\n", md_cell(&line));
-    }
-    if !w.sizes.stations.is_empty() {
-        s.push('\n');
-        s.push_str(&md_table(&SIZE_HEADERS, &size_rows(&w, 300)));
-    }
-    if let Some(file) = chart {
-        let _ = write!(
-            s,
-            "\n![The Sun's brightness seen from the Earth's centre through the transit]({file})\n"
-        );
-    }
-    for line in distant_sentences(red, &w) {
-        let _ = write!(s, "\n{}\n", md_cell(&line));
-    }
-}
-
-/// The methods side by side and the error budget, in Markdown.
-fn md_methods(red: &Reduction, s: &mut String) {
-    if !red.methods.is_empty() {
-        let _ = write!(s, "\n## {METHODS_TITLE}\n\n");
-        s.push_str(&md_table(&METHOD_HEADERS, &methods_rows(red)));
-        for line in methods_sentences(red) {
-            let _ = write!(s, "\n{}.\n", md_cell(&capitalise(&line)));
-        }
-    }
-    if let Some(b) = &red.error_budget {
-        let _ = write!(s, "\n## {BUDGET_TITLE}\n\n");
-        s.push_str(&md_table(&BUDGET_HEADERS, &budget_rows(b)));
-        for line in b.sentences() {
-            let _ = write!(s, "\n{}.\n", md_cell(&capitalise(&line)));
-        }
-    }
 }
 
 /// The self-contained HTML report (well-formed XHTML syntax, inline SVG, no script).
@@ -476,8 +357,11 @@ pub fn html_report(red: &Reduction) -> String {
     let ph = param_headers(red.correlation.len());
     let ph_ref: Vec<&str> = ph.iter().map(String::as_str).collect();
     s.push_str(&html_table(&ph_ref, &parameters_rows(red)));
-    for note in correlation_notes(red) {
-        let _ = writeln!(s, "<p>{}</p>", esc(&note));
+    for note in correlation_notes(red)
+        .into_iter()
+        .chain(black_drop_sentences(red))
+    {
+        let _ = writeln!(s, "<p>{}</p>", esc(&plus_minus(&capitalise(&note))));
     }
     html_methods(red, &mut s);
     html_what_else(red, &mut s);
@@ -555,8 +439,11 @@ pub fn markdown_report(red: &Reduction, stem: &str) -> (String, Vec<(String, Str
     let ph = param_headers(red.correlation.len());
     let ph_ref: Vec<&str> = ph.iter().map(String::as_str).collect();
     s.push_str(&md_table(&ph_ref, &parameters_rows(red)));
-    for note in correlation_notes(red) {
-        let _ = write!(s, "\n{}\n", md_cell(&note));
+    for note in correlation_notes(red)
+        .into_iter()
+        .chain(black_drop_sentences(red))
+    {
+        let _ = write!(s, "\n{}\n", md_cell(&capitalise(&note)));
     }
     md_methods(red, &mut s);
     md_what_else(red, &mut s, light.as_ref().map(|(f, _)| f.as_str()));

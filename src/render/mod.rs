@@ -19,6 +19,8 @@
 //! - `light_curve_chart.rs`: the light curve of a transit as CSV and SVG.
 //! - `what_else.rs`: the scale of the Solar System, the sizes and the transit's depth.
 //! - `document.rs`: the HTML and Markdown reports.
+//! - `report_sections.rs`: the reports' sections on the classic methods, the error budget and
+//!   what else the timings measure.
 pub mod charts;
 pub mod document;
 pub mod labels;
@@ -28,6 +30,7 @@ pub mod planning;
 pub mod planning_charts;
 pub mod prediction;
 pub mod reduction;
+pub mod report_sections;
 pub mod svg;
 pub mod text;
 pub mod what_else;

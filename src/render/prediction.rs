@@ -196,7 +196,7 @@ impl<'a> LocalClock<'a> {
     }
 
     /// The same clock for the predictions from `start` on (a chunk of the list).
-    fn from_index(self, start: usize) -> LocalClock<'a> {
+    fn starting_at(self, start: usize) -> LocalClock<'a> {
         LocalClock {
             calendars: self.calendars.get(start..).unwrap_or(&[]),
             ..self
@@ -255,7 +255,7 @@ pub fn predictions_csv(
             .enumerate()
             .map(|(k, part)| {
                 let ephemeris = &ephemeris;
-                let local = local.map(|l| l.from_index(k * chunk));
+                let local = local.map(|l| l.starting_at(k * chunk));
                 scope.spawn(move || {
                     let mut out = String::with_capacity(100 * 4 * part.len());
                     csv_rows(event, (ephemeris, local), part, &mut out);
@@ -453,8 +453,13 @@ pub fn predictions_table(
             if let Some(clock) = local {
                 s.push(' ');
                 let how = (clock.kind, clock.calendar(k));
-                let text = local_reading(event, x.hours, p.station.longitude_deg, how)
-                    .map(|t| if how.1 == Calendar::Julian { format!("{t} OS") } else { t });
+                let text = local_reading(event, x.hours, p.station.longitude_deg, how).map(|t| {
+                    if how.1 == Calendar::Julian {
+                        format!("{t} OS")
+                    } else {
+                        t
+                    }
+                });
                 push_right(&mut s, text.as_deref().unwrap_or("-"), local_width);
             }
             for (v, decimals, width) in [

@@ -358,7 +358,9 @@ pub fn black_drop_sentences(red: &Reduction) -> Vec<String> {
                         Some(r) => format!("the timings judged '{r}'"),
                         None => "the geometric contact".to_string(),
                     };
-                    format!("{what}: seen {d:+.1} s +- {sigma:.1} s after {behind} (positive: later)")
+                    format!(
+                        "{what}: seen {d:+.1} s +- {sigma:.1} s after {behind} (positive: later)"
+                    )
                 }
                 _ => format!("{what}: {}", b.note.as_deref().unwrap_or("not determined")),
             }

@@ -194,8 +194,12 @@ pub fn parallax_information(event: &TransitEvent, fields: &[TimingFields]) -> f6
                 Some(d) => Some(p.contacts[d.first.index()]?),
                 None => None,
             };
-            let sensitivity = c.sensitivity_s_per_arcsec - first.map_or(0.0, |f| f.sensitivity_s_per_arcsec);
-            let up = c.sun_altitude_deg.min(first.map_or(90.0, |f| f.sun_altitude_deg)) > -0.5;
+            let sensitivity =
+                c.sensitivity_s_per_arcsec - first.map_or(0.0, |f| f.sensitivity_s_per_arcsec);
+            let up = c
+                .sun_altitude_deg
+                .min(first.map_or(90.0, |f| f.sun_altitude_deg))
+                > -0.5;
             up.then(|| (sensitivity / o.sigma_s).powi(2))
         })
         .sum()

@@ -203,7 +203,10 @@ fn add_missing_columns(conn: &Connection) -> StoreResult<()> {
                 .collect::<Result<Vec<_>, _>>()
         })
         .map_err(db_err)?;
-    for col in EXPORT_COLUMNS.iter().filter(|c| !have.iter().any(|h| h == *c)) {
+    for col in EXPORT_COLUMNS
+        .iter()
+        .filter(|c| !have.iter().any(|h| h == *c))
+    {
         conn.execute_batch(&format!(
             "ALTER TABLE timings ADD COLUMN {col} TEXT NOT NULL DEFAULT ''"
         ))
@@ -295,8 +298,9 @@ impl Store {
         }
         let mut ids = Vec::with_capacity(timings.len());
         for t in timings {
-            let placeholders: Vec<String> =
-                (2..=EXPORT_COLUMNS.len() + 1).map(|k| format!("?{k}")).collect();
+            let placeholders: Vec<String> = (2..=EXPORT_COLUMNS.len() + 1)
+                .map(|k| format!("?{k}"))
+                .collect();
             let sql = format!(
                 "INSERT INTO timings (submission_id, {}) VALUES (?1, {})",
                 EXPORT_COLUMNS.join(", "),
@@ -473,4 +477,36 @@ pub fn export_csv(timings: &[StoredTiming]) -> (String, Vec<i64>) {
         ids.push(t.id);
     }
     (s, ids)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    /// A database made before the columns of historical records existed gains them, its rows
+    /// read with those fields empty.
+    #[test]
+    fn an_older_database_gains_the_new_columns() {
+        let dir = std::env::temp_dir().join(format!("tp-store-{}", std::process::id()));
+        let _ = std::fs::remove_dir_all(&dir);
+        std::fs::create_dir_all(&dir).unwrap();
+        let path = dir.join("old.sqlite");
+        {
+            let conn = Connection::open(&path).unwrap();
+            conn.execute_batch(
+                "CREATE TABLE submissions (id INTEGER PRIMARY KEY, received_utc TEXT NOT NULL, content_hash TEXT NOT NULL, body BLOB NOT NULL, status TEXT NOT NULL, error TEXT, edit_key TEXT, supersedes INTEGER, superseded_by INTEGER);
+                 CREATE TABLE timings (id INTEGER PRIMARY KEY, submission_id INTEGER NOT NULL, station TEXT NOT NULL, latitude TEXT NOT NULL, longitude TEXT NOT NULL, elevation_m TEXT NOT NULL, contact TEXT NOT NULL, time_utc TEXT NOT NULL, sigma_s TEXT NOT NULL, time_local TEXT NOT NULL, local_time TEXT NOT NULL, day_reckoning TEXT NOT NULL, longitude_sigma_deg TEXT NOT NULL, excluded_reason TEXT);
+                 INSERT INTO submissions VALUES (1, 'x', 'h', x'00', 'accepted', NULL, 'k', NULL, NULL);
+                 INSERT INTO timings VALUES (1, 1, 'a', '10', '20', '0', '2', '2012-06-05T22:30:00Z', '5', '', '', '', '', NULL);",
+            )
+            .unwrap();
+        }
+        let store = Store::open(&path).unwrap();
+        let t = store.timings_in_force().unwrap();
+        assert_eq!(t.len(), 1);
+        assert_eq!(t[0].fields.station, "a");
+        assert_eq!(t[0].fields.observer, "");
+        let (csv, _) = export_csv(&t);
+        assert!(csv.starts_with(&EXPORT_COLUMNS.join(",")));
+    }
 }

@@ -67,9 +67,8 @@ pub fn gregorian_from_julian(year: i32, month: u32, day: u32) -> Option<NaiveDat
 
 /// The Julian-calendar year, month and day of a Gregorian date.
 pub fn julian_from_gregorian(date: NaiveDate) -> Option<(i32, u32, u32)> {
-    let fixed = calendrical_calculations::rata_die::RataDie::new(i64::from(
-        date.num_days_from_ce(),
-    ));
+    let fixed =
+        calendrical_calculations::rata_die::RataDie::new(i64::from(date.num_days_from_ce()));
     let (y, m, d) = calendrical_calculations::julian::julian_from_fixed(fixed).ok()?;
     Some((y, u32::from(m), u32::from(d)))
 }

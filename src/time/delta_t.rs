@@ -19,7 +19,7 @@
 //!
 //! References: L. V. Morrison, F. R. Stephenson, C. Y. Hohenkerk and M. Zawilski, Proc. R.
 //! Soc. A 477, 20200776 (2021), Table S15.2020, and the authors' tables at
-//! http://astro.ukho.gov.uk/nao/lvm/; IERS Rapid Service/Prediction Center, Bulletin A and
+//! <http://astro.ukho.gov.uk/nao/lvm/>; IERS Rapid Service/Prediction Center, Bulletin A and
 //! finals2000A; F. Espenak and J. Meeus, NASA TP-2006-214141 (2006); L. V. Morrison and
 //! F. R. Stephenson, J. Hist. Astron. 35, 327 (2004).
 
