@@ -50,9 +50,12 @@ impl Timing {
 pub struct Linearised {
     /// The computed contact time (or interval), hours from the elements' epoch.
     pub computed_h: f64,
-    /// Partials of the contact time (s) with respect to every global parameter, the classic
-    /// five first (per arcsec), then the others (black-drop lags: s per s).
-    pub global: Vec<f64>,
+    /// Partials of the contact time (s) with respect to the classic global parameters (per
+    /// arcsec).
+    pub global: [f64; N_CLASSIC],
+    /// Partials with respect to the global parameters after the classic five, in order
+    /// (black-drop lags: s per s); empty where there are none.
+    pub extra: Vec<f64>,
     /// Partials with respect to the timing's own station's parameters, in the order of
     /// [`ParameterSet::station_parameters`].
     pub local: Vec<f64>,
@@ -270,16 +273,20 @@ pub fn linearise(
         .collect();
     Some(Linearised {
         computed_h: computed_h + lag_s / 3600.0,
-        global: classic.iter().copied().chain(extra).collect(),
+        global: classic,
+        extra,
         local,
     })
 }
 
 /// The timing's station with its longitude corrected by `correction_deg`.
 fn moved_station(t: &Timing, correction_deg: f64) -> GeocentricStation {
-    let mut st = t.obs.station.clone();
-    st.longitude_deg += correction_deg;
-    st.geocentric()
+    // The distances from the axis and the equator depend on the latitude and the elevation
+    // only: a longitude correction turns the station about the axis.
+    GeocentricStation {
+        longitude_rad: t.geo.longitude_rad + correction_deg.to_radians(),
+        ..t.geo
+    }
 }
 
 /// The computed contact time of one timing (or its interval), hours from the elements' epoch,
@@ -436,7 +443,11 @@ mod tests {
                             continue;
                         };
                         let numeric = (a - b) * 3600.0 / (2.0 * step);
-                        let analytic = lin.global[j];
+                        let analytic = if j < N_CLASSIC {
+                            lin.global[j]
+                        } else {
+                            lin.extra[j - N_CLASSIC]
+                        };
                         assert!(
                             (numeric - analytic).abs() < 1e-3 * (1.0 + analytic.abs()),
                             "{} {c:?} {first:?} p{j} geocentric {geocentric}: {analytic} vs {numeric}",

@@ -21,7 +21,9 @@ use super::identifiability::{
     parallax_inseparable, MAX_GROWTH_WHEN_FREED,
 };
 use super::normal_equations::{reduced_normal, solve, BlockSolution, LinearSystem, LocalPartials};
-use super::parameters::{ParameterKind, ParameterSet, PARALLAX, RADIUS_DIFFERENCE, RADIUS_SUM};
+use super::parameters::{
+    ParameterKind, ParameterSet, N_CLASSIC, PARALLAX, RADIUS_DIFFERENCE, RADIUS_SUM,
+};
 use crate::geometry::transit::TransitEvent;
 use nalgebra::{DMatrix, DVector};
 
@@ -175,7 +177,7 @@ fn linearise_all(
         let t = &timings[i];
         match linearise(event, t, params, theta, er) {
             Some(l) => {
-                rows.push(l.global);
+                rows.push((l.global, l.extra));
                 local.push(LocalPartials {
                     station: t.station,
                     partials: l.local,
@@ -186,7 +188,13 @@ fn linearise_all(
             None => unsolvable.push(i),
         }
     }
-    let global = DMatrix::from_fn(rows.len(), n_global, |i, j| rows[i][j]);
+    let global = DMatrix::from_fn(rows.len(), n_global, |i, j| {
+        if j < N_CLASSIC {
+            rows[i].0[j]
+        } else {
+            rows[i].1[j - N_CLASSIC]
+        }
+    });
     Linearisation {
         global,
         local,

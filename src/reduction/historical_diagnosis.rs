@@ -167,13 +167,16 @@ pub fn meridian_corrections(
         else {
             continue;
         };
-        let (Some(s), Some(t)) = (sigma[j], timings.iter().find(|t| t.station == k)) else {
+        let Some(s) = sigma[j] else {
             continue;
         };
         let c = theta[j];
         if c.abs() < 3.0 * s {
             continue;
         }
+        let Some(t) = timings.iter().find(|t| t.station == k) else {
+            continue;
+        };
         for (shift, name, value) in meridian_alternatives(t.obs.written.meridian) {
             if (c - shift).abs() < 3.0 * s {
                 out.push(format!(
