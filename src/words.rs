@@ -24,3 +24,16 @@ pub fn roman(contact: u8) -> String {
         n => n.to_string(),
     }
 }
+
+/// An uncertainty to two significant figures at least (never a bare 0.0 for one that is not
+/// zero): `3.1`, `0.050`, `0.0067`.
+pub fn uncertainty(x: f64) -> String {
+    let d = match x.abs() {
+        v if v >= 10.0 => 0,
+        v if v >= 1.0 => 1,
+        v if v >= 0.1 => 2,
+        v if v >= 0.01 => 3,
+        _ => 4,
+    };
+    format!("{x:.d$}")
+}

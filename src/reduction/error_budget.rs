@@ -258,8 +258,9 @@ impl ErrorBudget {
         let dt = match self.delta_t_sigma_s {
             None => format!("Delta T {:.1} s was fixed with --delta-t and counts as exact; multiply the rate below by your own doubt about it", self.delta_t_s),
             Some(sigma) => format!(
-                "Delta T {:.1} s +- {sigma:.1} s, from {}",
+                "Delta T {:.1} s +- {} s, from {}",
                 self.delta_t_s,
+                crate::words::uncertainty(sigma),
                 self.delta_t_source.describe()
             ),
         };

@@ -38,7 +38,7 @@ pub fn transits_json(events: &[TransitEvent]) -> Value {
                     "contacts": contacts,
                     "duration_h": duration_h.map(|d| round(d, 4)),
                     "delta_t_s": round(ev.elements.delta_t_s, 2),
-                    "delta_t_sigma_s": round(ev.delta_t_sigma_s(), 2),
+                    "delta_t_sigma_s": Some(ev.delta_t_sigma_s()).filter(|x| *x > 0.0).map(|x| round(x, 4)),
                     "ephemeris": ev.ephemeris_name(),
                 })
             })
@@ -79,7 +79,10 @@ pub fn transits_csv(events: &[TransitEvent]) -> String {
             c(3),
             ev.min_separation_arcsec,
             ev.elements.delta_t_s,
-            ev.delta_t_sigma_s(),
+            Some(ev.delta_t_sigma_s())
+                .filter(|x| *x > 0.0)
+                .map(crate::words::uncertainty)
+                .unwrap_or_default(),
             ev.ephemeris_name()
         ));
     }
@@ -132,11 +135,7 @@ pub fn transits_table(events: &[TransitEvent]) -> String {
         let greatest = ev.greatest_utc()[5..19].replace('T', " ");
         let date = ev.date().to_string();
         let sep = format!("{:.1}", ev.min_separation_arcsec);
-        let dt = format!(
-            "{:.1} +- {:.1}",
-            ev.elements.delta_t_s,
-            ev.delta_t_sigma_s()
-        );
+        let dt = delta_t_text(ev);
         let scale = scale_of(ev.label(ev.hours_of_greatest()));
         let (c1, c2, c3, c4) = (c(0), c(1), c(2), c(3));
         let ephemeris = ev.ephemeris_name();
@@ -382,6 +381,19 @@ pub fn predictions_json<'a>(
     rows
 }
 
+/// Delta T and its uncertainty as printed (`73.0 +- 3.1`), or `66.184, fixed` where it was
+/// fixed with `--delta-t` and counts as exact.
+fn delta_t_text(ev: &TransitEvent) -> String {
+    match ev.delta_t_sigma_s() {
+        s if s > 0.0 => format!(
+            "{:.1} +- {}",
+            ev.elements.delta_t_s,
+            crate::words::uncertainty(s)
+        ),
+        _ => format!("{:.3}, fixed", ev.elements.delta_t_s),
+    }
+}
+
 /// What the uncertainty of Delta T does to the times printed, in a sentence for the header.
 pub fn delta_t_note(event: &TransitEvent) -> String {
     use crate::time::scales::DeltaTSource;
@@ -406,12 +418,11 @@ pub fn predictions_table(
 ) -> String {
     let greatest = event.label(event.hours_of_greatest());
     let mut s = format!(
-        "Transit of {} on {} (greatest transit {}, Delta T {:.1} s +- {:.1} s)\n",
+        "Transit of {} on {} (greatest transit {}, Delta T {} s)\n",
         event.planet.title(),
         event.date(),
         clock_label(greatest, 2),
-        event.elements.delta_t_s,
-        event.delta_t_sigma_s()
+        delta_t_text(event)
     );
     s.push_str(&format!("Ephemeris: {}.\n", event.ephemeris_name()));
     s.push_str(&delta_t_note(event));
