@@ -93,6 +93,17 @@ fn trial(red: &Reduction) -> Trial {
             .unwrap();
         lag_z.push((k, (d - TRUE_LAGS[k].2) / s));
     }
+    // Where the full solution converges, a classic method converges or says in words what
+    // defeats it.
+    for m in &red.methods {
+        if m.parallax_arcsec.is_none() {
+            let note = m.note.as_deref().unwrap_or("");
+            assert!(!note.is_empty(), "{m:?}");
+            if note.contains("did not converge") {
+                assert!(note.contains("still moved"), "{note}");
+            }
+        }
+    }
     let unexplained = red
         .methods
         .iter()

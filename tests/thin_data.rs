@@ -58,6 +58,60 @@ fn one_station_gives_no_parallax_and_no_au() {
     assert!(!html.contains("million km"));
 }
 
+/// One station's rows of an embedded demonstration campaign, with its header.
+fn one_station_of(campaign: &str, station: &str) -> String {
+    let path = format!("{}/src/data/{campaign}", env!("CARGO_MANIFEST_DIR"));
+    let text = std::fs::read_to_string(path).unwrap();
+    let mut rows: Vec<&str> = text.lines().filter(|l| !l.starts_with('#')).collect();
+    let header = rows.remove(0);
+    let mine: Vec<&str> = rows
+        .into_iter()
+        .filter(|l| l.starts_with(&format!("{station},")))
+        .collect();
+    assert_eq!(mine.len(), 4, "{station}: four contacts");
+    let name = format!("one-{}.csv", station.replace(' ', "-"));
+    temp(&name, format!("{header}\n{}\n", mine.join("\n")).as_bytes())
+}
+
+/// Found trying single stations of the demonstration campaigns: four contacts at one station
+/// (0 degrees of freedom, the planet's place partly held for want of data) printed a parallax
+/// (15.36" +- 12.77" at the 1769 station of unknown longitude, 4.84" +- 14.70" at a 2012
+/// station) because nothing held was one the parallax needed. With the planet's place fitted,
+/// one station bears on the parallax only through the Earth's turning between the contacts,
+/// which an error in the ephemeris's motion of the planet would mimic: not determined. Held at
+/// the ephemeris's place (`--planet-place fixed`), the same rows give a figure against it.
+#[test]
+fn one_station_with_the_planet_place_free_is_not_determined() {
+    for (campaign, station) in [
+        ("expeditions_1769_campaign.csv", "Volcano Harbour"),
+        ("demo_campaign.csv", "Steppe Light Station"),
+    ] {
+        let f = one_station_of(campaign, station);
+        let j = json(&["reduce", &f, "--format", "json"]);
+        assert!(
+            j["parallax_arcsec"].is_null(),
+            "{station}: {}",
+            j["parallax_arcsec"]
+        );
+        assert!(j["au_km"].is_null(), "{station}");
+        let warnings = j["warnings"].to_string();
+        assert!(
+            warnings.contains("every timing comes from one station"),
+            "{warnings}"
+        );
+        assert_all_true(&j, "");
+        let text = out(&run(&["reduce", &f]));
+        assert!(
+            text.contains("was to be fitted (--planet-place free), but"),
+            "{text}"
+        );
+        let fixed = json(&["reduce", &f, "--format", "json", "--planet-place", "fixed"]);
+        let sigma = fixed["parallax_sigma_arcsec"].as_f64().unwrap_or(f64::NAN);
+        assert!(sigma > 0.0, "{station}: held place gives a figure: {fixed}");
+        assert_all_true(&fixed, "");
+    }
+}
+
 #[test]
 fn one_timing_alone_is_not_determined() {
     let j = json(&["reduce", &data("one_timing.csv"), "--format", "json"]);

@@ -200,6 +200,12 @@ pub fn parallax_of(
             .messages
             .iter()
             .find(|m| m.contains("the solar parallax") && !m.contains("no result is given"))
+            .or_else(|| {
+                outcome
+                    .messages
+                    .iter()
+                    .find(|m| m.contains("did not converge"))
+            })
             .or_else(|| outcome.messages.iter().find(|m| m.contains("parallax")))
             .cloned()
             .unwrap_or_else(|| {

@@ -17,8 +17,7 @@
 use super::black_drop::{lag_plan, LagPlan};
 use super::equations::{linearise, residual_s, Timing};
 use super::identifiability::{
-    describe_confusion, growth_when_freed, hold_fixed_what_cannot_be_separated,
-    parallax_inseparable, MAX_GROWTH_WHEN_FREED,
+    describe_confusion, hold_fixed_what_cannot_be_separated, why_parallax_not_determined, Holding,
 };
 use super::normal_equations::{reduced_normal, solve, BlockSolution, LinearSystem, LocalPartials};
 use super::parameters::{
@@ -269,49 +268,18 @@ fn check_rank(
         messages.push(describe_confusion(&list, &separation.confused, &held));
     }
     if free[PARALLAX] {
-        let loose: Vec<f64> = params.specs()[..g]
-            .iter()
-            .map(|s| loose_sigma(s.unit))
-            .collect();
-        let growth = growth_when_freed(&normal, (&before, &free[..g]), PARALLAX, &loose)
-            .filter(|&x| x > MAX_GROWTH_WHEN_FREED);
-        let why = if let Some(growth) = growth {
-            let held: Vec<&str> = (0..g)
-                .filter(|&j| before[j] && !free[j])
-                .map(|j| names[j])
-                .collect();
-            Some(format!(
-                "the solar parallax rests on holding {} at the a-priori value{}, which these timings cannot determine: freed within a loose prior ({}), its uncertainty grows {growth:.0}-fold, so the parallax is not determined by the timings",
-                held.join(", "),
-                if held.len() == 1 { "" } else { "s" },
-                "10\" for the offsets and radii, 60 s for a black-drop lag"
-            ))
-        } else if separation.parallax_entangled {
-            Some(format!(
-                "the solar parallax is entangled with {}, which the timings cannot determine; holding those at their a-priori values would make the parallax rest on that assumption",
-                separation.entangled_with.join(", ")
-            ))
-        } else {
-            parallax_inseparable(&normal, &free[..g], &names, PARALLAX)
+        let held = Holding {
+            before: &before,
+            after: &free[..g],
+            names: &names,
         };
-        if let Some(why) = why {
+        if let Some(why) = why_parallax_not_determined(&normal, params, &held, &separation, &list) {
             free[PARALLAX] = false;
             messages.push(why);
         }
     }
     if !free[PARALLAX] {
         messages.push("the solar parallax cannot be determined from these timings; it is held at the a-priori value and no result is given".to_string());
-    }
-}
-
-/// A loose prior for a parameter held by the rank test, in its unit, for testing whether the
-/// parallax rests on it: 10" for the offsets and radius corrections (far beyond any
-/// ephemeris's error since the 18th century), 60 s for a black-drop lag, 1 degree otherwise.
-fn loose_sigma(unit: &str) -> f64 {
-    match unit {
-        "arcsec" => 10.0,
-        "s" => 60.0,
-        _ => 1.0,
     }
 }
 
@@ -364,6 +332,9 @@ pub fn fit(
         };
         let converged = iterations > 0 && step_is_small(params, &sol);
         if converged || iterations >= MAX_ITERATIONS {
+            if !converged {
+                messages.push(still_moving(params, &sol, iterations));
+            }
             let ending = end(theta, free, messages, converged);
             return lin.outcome(ending, Some(sol), params.len());
         }
@@ -396,6 +367,29 @@ fn step_is_small(params: &ParameterSet, sol: &BlockSolution) -> bool {
         let by_sigma = sol.sigma[j].filter(|_| relative).map_or(0.0, |s| share * s);
         c.abs() < absolute.max(by_sigma)
     })
+}
+
+/// The sentence for an iteration that did not converge: which parameters were still moving at
+/// the last step, and by how much against their uncertainty (the ones the timings determine
+/// only weakly, or that a blunder pulls back and forth).
+fn still_moving(params: &ParameterSet, sol: &BlockSolution, iterations: usize) -> String {
+    let mut moving: Vec<(f64, String)> = sol
+        .correction
+        .iter()
+        .enumerate()
+        .filter_map(|(j, &c)| {
+            let spec = &params.specs()[j];
+            let ratio = sol.sigma[j].map_or(f64::INFINITY, |s| c.abs() / s.max(1e-300));
+            (c.abs() >= 1e-4 || j == PARALLAX && c.abs() >= 1e-6)
+                .then(|| (ratio, format!("{} ({:+.2e} {})", spec.name, c, spec.unit)))
+        })
+        .collect();
+    moving.sort_by(|a, b| b.0.total_cmp(&a.0));
+    let names: Vec<String> = moving.into_iter().take(4).map(|m| m.1).collect();
+    format!(
+        "the iteration did not converge in {iterations} steps: {} still moved at the last step; these parameters, or the rows that determine them, defeat it",
+        names.join(", ")
+    )
 }
 
 /// Largest step of a longitude correction in one iteration, degrees.

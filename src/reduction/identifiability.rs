@@ -12,6 +12,7 @@
 //! chapter 7.
 
 use super::equations::Timing;
+use super::parameters::{ParameterSet, OFFSET_EAST, OFFSET_NORTH, PARALLAX};
 use crate::geometry::contacts::Contact;
 use crate::geometry::station::GeocentricStation;
 use crate::sky::constants::EARTH_EQUATORIAL_RADIUS_M;
@@ -228,24 +229,124 @@ pub fn growth_when_freed(
     Some((freed_variance / held_variance).sqrt())
 }
 
-/// Largest distance between two stations, km.
+/// Which global parameters were free before the rank test held any, which are free after,
+/// and their names.
+pub struct Holding<'a> {
+    /// Free before the rank test.
+    pub before: &'a [bool],
+    /// Free after it.
+    pub after: &'a [bool],
+    /// Names of the global parameters.
+    pub names: &'a [&'a str],
+}
+
+impl Holding<'_> {
+    fn held(&self) -> Vec<&str> {
+        (0..self.after.len())
+            .filter(|&j| self.before[j] && !self.after[j])
+            .map(|j| self.names[j])
+            .collect()
+    }
+}
+
+/// A loose prior for a parameter held by the rank test, in its unit, for testing whether the
+/// parallax rests on it: 10" for the offsets and radius corrections (far beyond any
+/// ephemeris's error since the 18th century), 60 s for a black-drop lag, 1 degree otherwise.
+fn loose_sigma(unit: &str) -> f64 {
+    match unit {
+        "arcsec" => 10.0,
+        "s" => 60.0,
+        _ => 1.0,
+    }
+}
+
+/// Why the timings do not determine the solar parallax, if they do not: it rests on a
+/// parameter held for want of data ([`growth_when_freed`]); it is entangled with parameters
+/// nothing determines; its variance is inflated beyond [`MAX_PARALLAX_INFLATION`]; or, with
+/// the planet's place fitted freely, every timing comes from one station
+/// (`one_station_only`). `None` when the parallax is determined.
+pub fn why_parallax_not_determined(
+    normal: &DMatrix<f64>,
+    params: &ParameterSet,
+    holding: &Holding,
+    separation: &Separation,
+    timings: &[&Timing],
+) -> Option<String> {
+    let g = params.n_global();
+    let loose: Vec<f64> = params.specs()[..g]
+        .iter()
+        .map(|s| loose_sigma(s.unit))
+        .collect();
+    let growth = growth_when_freed(normal, (holding.before, holding.after), PARALLAX, &loose)
+        .filter(|&x| x > MAX_GROWTH_WHEN_FREED);
+    if let Some(growth) = growth {
+        let held = holding.held();
+        return Some(format!(
+            "the solar parallax rests on holding {} at the a-priori value{}, which these timings cannot determine: freed within a loose prior ({}), its uncertainty grows {growth:.0}-fold, so the parallax is not determined by the timings",
+            held.join(", "),
+            if held.len() == 1 { "" } else { "s" },
+            "10\" for the offsets and radii, 60 s for a black-drop lag"
+        ));
+    }
+    if separation.parallax_entangled {
+        return Some(format!(
+            "the solar parallax is entangled with {}, which the timings cannot determine; holding those at their a-priori values would make the parallax rest on that assumption",
+            separation.entangled_with.join(", ")
+        ));
+    }
+    parallax_inseparable(normal, holding.after, holding.names, PARALLAX)
+        .or_else(|| one_station_only(params, timings))
+}
+
+/// With the planet's offsets fitted freely (no prior), one station's timings bear on the
+/// parallax only through the turning of its parallactic shift between the contacts as the
+/// Earth rotates; the ephemeris's motion of the planet across the Sun, which the reduction
+/// takes as exact and does not fit, changes the contacts the same way, so the parallax would
+/// rest on that assumption. The classic methods all compare stations for this reason
+/// (Halley 1716; Delisle 1753). The sentence, when every timing comes from one station.
+fn one_station_only(params: &ParameterSet, timings: &[&Timing]) -> Option<String> {
+    let place_free = [OFFSET_EAST, OFFSET_NORTH]
+        .iter()
+        .all(|&j| !params.specs()[j].fixed && params.specs()[j].prior.is_none());
+    let first = timings.first()?.obs.station.name.as_str();
+    let one = timings.iter().all(|t| t.obs.station.name == first);
+    (place_free && one).then(|| format!(
+        "every timing comes from one station ({first}): with the planet's place fitted, one station measures the parallax only through the turning of its parallactic shift between the contacts as the Earth rotates, which an error in the ephemeris's motion of the planet across the Sun (taken as exact, not fitted) would mimic; timings from a second station far away would determine it, or --planet-place fixed (or prior=ARCSEC) measures it against the ephemeris's place of the planet"
+    ))
+}
+
+/// Stations closer together than this, km, are "a tight cluster" in the sentence that says
+/// why parameters cannot be told apart.
+const CLUSTER_KM: f64 = 1000.0;
+
+/// Largest distance between two stations, km, exact below `CLUSTER_KM`; above it, some
+/// distance of at least `CLUSTER_KM` (the search stops there: the sentence needs no more).
+/// Each station's geocentric position is converted to Cartesian once, so the pairwise search
+/// costs only arithmetic.
 fn spread_km(stations: &[&GeocentricStation]) -> f64 {
-    let mut spread: f64 = 0.0;
-    for a in stations {
-        for b in stations {
-            let d = ((a.rho_cos_phi * a.longitude_rad.cos()
-                - b.rho_cos_phi * b.longitude_rad.cos())
-            .powi(2)
-                + (a.rho_cos_phi * a.longitude_rad.sin() - b.rho_cos_phi * b.longitude_rad.sin())
-                    .powi(2)
-                + (a.rho_sin_phi - b.rho_sin_phi).powi(2))
-            .sqrt()
-                * EARTH_EQUATORIAL_RADIUS_M
-                / 1000.0;
-            spread = spread.max(d);
+    let km_per_radius = EARTH_EQUATORIAL_RADIUS_M / 1000.0;
+    let xyz: Vec<[f64; 3]> = stations
+        .iter()
+        .map(|s| {
+            let (sin_l, cos_l) = s.longitude_rad.sin_cos();
+            [
+                s.rho_cos_phi * cos_l * km_per_radius,
+                s.rho_cos_phi * sin_l * km_per_radius,
+                s.rho_sin_phi * km_per_radius,
+            ]
+        })
+        .collect();
+    let mut spread_km: f64 = 0.0;
+    for (i, a) in xyz.iter().enumerate() {
+        for b in &xyz[i + 1..] {
+            let d = ((a[0] - b[0]).powi(2) + (a[1] - b[1]).powi(2) + (a[2] - b[2]).powi(2)).sqrt();
+            spread_km = spread_km.max(d);
+            if spread_km >= CLUSTER_KM {
+                return spread_km;
+            }
         }
     }
-    spread
+    spread_km
 }
 
 /// The sentence that says which parameters the timings cannot tell apart, why, which of them
@@ -265,7 +366,7 @@ pub fn describe_confusion(timings: &[&Timing], names: &[&str], held: &[&str]) ->
     let spread = spread_km(&stations);
     let why = if stations.len() == 1 {
         "all the timings come from one station".to_string()
-    } else if spread < 1000.0 {
+    } else if spread < CLUSTER_KM {
         format!("all the stations lie within {spread:.0} km of each other")
     } else if kinds.len() == 1 {
         format!("only contact {} was timed", kinds[0].roman())

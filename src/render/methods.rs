@@ -104,11 +104,19 @@ pub fn budget_rows(b: &ErrorBudget) -> Vec<Vec<String>> {
             "not counted: fixed values count as exact".to_string(),
         ),
         (Some(s), Some(x)) => (
-            format!("Delta T ({:.1} s +- {} s)", b.delta_t_s, crate::words::uncertainty(s)),
+            format!(
+                "Delta T ({:.1} s +- {} s)",
+                b.delta_t_s,
+                crate::words::uncertainty(s)
+            ),
             arcsec(x),
         ),
         (Some(s), None) => (
-            format!("Delta T ({:.1} s +- {} s)", b.delta_t_s, crate::words::uncertainty(s)),
+            format!(
+                "Delta T ({:.1} s +- {} s)",
+                b.delta_t_s,
+                crate::words::uncertainty(s)
+            ),
             "not determined".to_string(),
         ),
     };

@@ -217,7 +217,19 @@ pub fn place_sentence(red: &Reduction) -> String {
     }
     };
     match red.planet_place {
-        PlanetPlace::Free => format!("The planet's place relative to the Sun is fitted (two offsets, --planet-place free), so no error of the ephemeris ({ephemeris}) enters the parallax, at the cost of a larger uncertainty."),
+        PlanetPlace::Free => {
+            let held: Vec<&str> = red
+                .parameters
+                .iter()
+                .filter(|p| p.name.starts_with("planet_offset_") && p.fixed)
+                .map(|p| p.name.as_str())
+                .collect();
+            if held.is_empty() {
+                format!("The planet's place relative to the Sun is fitted (two offsets, --planet-place free), so no error of the ephemeris ({ephemeris}) enters the parallax, at the cost of a larger uncertainty.")
+            } else {
+                format!("The planet's place relative to the Sun was to be fitted (--planet-place free), but these timings cannot determine {}, so {} held at the ephemeris's value ({ephemeris}), as the warnings say.", held.join(" or "), if held.len() == 1 { "it is" } else { "both are" })
+            }
+        }
         PlanetPlace::Fixed => format!("The planet's place relative to the Sun is held at the ephemeris's value (--planet-place fixed): {ephemeris}.{}", risk(red.place_bias_arcsec)),
         PlanetPlace::Prior(sigma) => format!("The planet's place relative to the Sun is fitted with a prior of {sigma}\" on each offset (--planet-place prior={sigma}): {ephemeris}.{}", risk(red.place_bias_arcsec)),
     }
