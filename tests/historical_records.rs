@@ -136,6 +136,17 @@ fn changed(name: &str, edit: impl Fn(&str) -> String) -> String {
     temp(name, body.as_bytes())
 }
 
+/// A copy of the records with one station's rows edited.
+fn station_changed(name: &str, station: &str, edit: impl Fn(&str) -> String) -> String {
+    changed(name, |l| {
+        if l.starts_with(station) {
+            edit(l)
+        } else {
+            l.to_string()
+        }
+    })
+}
+
 fn diagnoses(v: &Value) -> String {
     let rejected: Vec<String> = v["rejected"]
         .as_array()
@@ -157,12 +168,8 @@ fn diagnoses(v: &Value) -> String {
 #[test]
 fn historical_blunders_are_named_with_the_column_and_the_value() {
     // Astronomical days read as civil: Wardhus's readings 12 h off.
-    let path = changed("civil.csv", |l| {
-        if l.starts_with("Wardhus") {
-            l.replace(",astronomical,", ",civil,")
-        } else {
-            l.to_string()
-        }
+    let path = station_changed("civil.csv", "Wardhus", |l| {
+        l.replace(",astronomical,", ",civil,")
     });
     let d = diagnoses(&reduce(&path, &[]));
     assert!(d.contains("set day_reckoning to astronomical"), "{d}");
@@ -173,22 +180,12 @@ fn historical_blunders_are_named_with_the_column_and_the_value() {
     let d = diagnoses(&reduce(&path, &["--planet-place", "fixed"]));
     assert!(d.contains("set local_time to apparent"), "{d}");
     // Kola's longitude as Hornsby gives it from Paris (2h 2' 55" E), read as from Greenwich.
-    let path = changed("paris.csv", |l| {
-        if l.starts_with("Kola") {
-            l.replace("2h12m11sE", "2h2m55sE")
-        } else {
-            l.to_string()
-        }
-    });
+    let path = station_changed("paris.csv", "Kola", |l| l.replace("2h12m11sE", "2h2m55sE"));
     let d = diagnoses(&reduce(&path, &[]));
     assert!(d.contains("set meridian to paris"), "{d}");
     // Wardhus dated Old Style (11 days behind) without saying so.
-    let path = changed("julian.csv", |l| {
-        if l.starts_with("Wardhus") {
-            l.replace("1769-06-03T", "1769-05-23T")
-        } else {
-            l.to_string()
-        }
+    let path = station_changed("julian.csv", "Wardhus", |l| {
+        l.replace("1769-06-03T", "1769-05-23T")
     });
     let d = diagnoses(&reduce(&path, &[]));
     assert!(d.contains("set calendar to julian"), "{d}");

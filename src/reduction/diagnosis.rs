@@ -242,28 +242,7 @@ fn fits_moved(
             ..*r
         })
         .collect();
-    fits_at_unmoved(event, st, &moved, p, scatter)
-}
-
-/// [`fits_at`] itself, for timings already converted.
-fn fits_at_unmoved(
-    event: &TransitEvent,
-    st: &Station,
-    rows: &[StationTiming],
-    p: &Perturbation,
-    scatter: f64,
-) -> Option<f64> {
-    let geo = st.geocentric();
-    let mut chi2 = 0.0;
-    for r in rows {
-        let h = predicted_hours(event, &geo, r.contact, p)?;
-        let d = (r.observed_h - h) * 3600.0;
-        if d.abs() > (4.0 * scatter * r.sigma_s).max(20.0) {
-            return None;
-        }
-        chi2 += (d / (r.sigma_s * scatter)).powi(2);
-    }
-    (chi2 / (rows.len() as f64) < 9.0).then_some(chi2)
+    fits_at(event, st, &moved, p, scatter)
 }
 
 /// The coordinate blunders: the longitude's sign, latitude and longitude exchanged.
@@ -375,7 +354,7 @@ fn kind_hypothesis(
             })
         })
         .collect::<Option<_>>()?;
-    let score = fits_at_unmoved(event, station, &swapped, p, scatter)?;
+    let score = fits_at(event, station, &swapped, p, scatter)?;
     let eot_s = (rows[0].observed_h - swapped[0].observed_h) * 3600.0;
     Some((
         score,
