@@ -186,7 +186,6 @@ pub fn parse_row(
     })?;
     let judged =
         ContactJudged::parse(field(table, rec, cols.judged)).map_err(|m| (m, cols.judged))?;
-    let duration_text = field(table, rec, cols.duration);
     let longitude_in_time = table.text(rec, cols.lon).contains(['h', 'H']);
     let mut written = AsWritten {
         calendar,
@@ -194,29 +193,14 @@ pub fn parse_row(
         longitude_in_time,
         ..AsWritten::default()
     };
-    let (contact, interval, time, zone, local, range_sigma_s) = if duration_text.is_empty() {
-        let contact_text = table.text(rec, cols.contact);
-        let contact = Contact::parse(contact_text).ok_or_else(|| {
-            (format!("'{contact_text}' is not a contact; write 1-4, I-IV or C1-C4 (or a pair such as 2-3 with a duration)"), Some(cols.contact))
-        })?;
-        let tm = time_meridian(field(table, rec, cols.time_meridian), meridian)
-            .map_err(|m| (m, cols.time_meridian))?;
-        let (reading, local) = row_time(table, rec, cols, (lon, tm, calendar))?;
-        written.range_s = reading.range_s;
-        written.minute_only = reading.minute_only;
-        (
-            contact,
-            None,
-            reading.label,
-            reading.zone,
-            local,
-            reading.range_sigma_s(),
-        )
-    } else {
-        let (interval, time, sigma) = row_interval(table, rec, cols, calendar, duration_text)?;
-        written.range_s = sigma.1;
-        (interval.1, Some(interval.0), time, Zone::Utc, None, sigma.0)
-    };
+    let RowTiming {
+        contact,
+        interval,
+        time,
+        zone,
+        local,
+        range_sigma_s,
+    } = row_timing(table, rec, cols, (lon, meridian), &mut written)?;
     let time_col = if local.is_some() {
         cols.local.time_local
     } else {
@@ -234,14 +218,7 @@ pub fn parse_row(
         Some(c) => LongitudeKnowledge::parse(table.text(rec, c)).map_err(|m| (m, Some(c)))?,
         None => LongitudeKnowledge::Exact,
     };
-    let default_sigma = match &interval {
-        Some(i) => DEFAULT_SIGMA_S[i.first.index()].hypot(DEFAULT_SIGMA_S[contact.index()]),
-        None => DEFAULT_SIGMA_S[contact.index()],
-    };
-    let (sigma_s, sigma_given) = match cols.sigma {
-        Some(c) if !table.text(rec, c).is_empty() => (parse_sigma(table.text(rec, c), c)?, true),
-        _ => (default_sigma, false),
-    };
+    let (sigma_s, sigma_given) = row_sigma(table, rec, cols, contact, interval.as_ref())?;
     let observation = Observation {
         line,
         station: Station {
@@ -262,6 +239,81 @@ pub fn parse_row(
         written,
     };
     Ok((observation, zone))
+}
+
+/// What a row says of its timing (see [`row_timing`]).
+struct RowTiming {
+    contact: Contact,
+    interval: Option<Interval>,
+    time: NaiveDateTime,
+    zone: Zone,
+    local: Option<LocalReading>,
+    range_sigma_s: f64,
+}
+
+/// What a row says of its timing: the contact (the later of an interval's pair), the interval
+/// for a duration row, the label of its time, the zone it was written in, the local reading
+/// if any, and the sigma of a range reading; `written` gains the range and the minute-only
+/// reading. `lon` and `meridian` are the row's longitude (east of Greenwich) and meridian.
+fn row_timing(
+    table: &CsvTable,
+    rec: &csv::StringRecord,
+    cols: &Columns,
+    (lon, meridian): (f64, Meridian),
+    written: &mut AsWritten,
+) -> Result<RowTiming, RowError> {
+    let duration_text = field(table, rec, cols.duration);
+    if !duration_text.is_empty() {
+        let (interval, time, sigma) =
+            row_interval(table, rec, cols, written.calendar, duration_text)?;
+        written.range_s = sigma.1;
+        return Ok(RowTiming {
+            contact: interval.1,
+            interval: Some(interval.0),
+            time,
+            zone: Zone::Utc,
+            local: None,
+            range_sigma_s: sigma.0,
+        });
+    }
+    let contact_text = table.text(rec, cols.contact);
+    let contact = Contact::parse(contact_text).ok_or_else(|| {
+        (format!("'{contact_text}' is not a contact; write 1-4, I-IV or C1-C4 (or a pair such as 2-3 with a duration)"), Some(cols.contact))
+    })?;
+    let tm = time_meridian(field(table, rec, cols.time_meridian), meridian)
+        .map_err(|m| (m, cols.time_meridian))?;
+    let (reading, local) = row_time(table, rec, cols, (lon, tm, written.calendar))?;
+    written.range_s = reading.range_s;
+    written.minute_only = reading.minute_only;
+    Ok(RowTiming {
+        contact,
+        interval: None,
+        time: reading.label,
+        zone: reading.zone,
+        local,
+        range_sigma_s: reading.range_sigma_s(),
+    })
+}
+
+/// The row's stated sigma, or the default for its contact (for an interval, the defaults of
+/// its two contacts in quadrature), and whether it was stated.
+fn row_sigma(
+    table: &CsvTable,
+    rec: &csv::StringRecord,
+    cols: &Columns,
+    contact: Contact,
+    interval: Option<&Interval>,
+) -> Result<(f64, bool), RowError> {
+    let default_sigma = match interval {
+        Some(i) => DEFAULT_SIGMA_S[i.first.index()].hypot(DEFAULT_SIGMA_S[contact.index()]),
+        None => DEFAULT_SIGMA_S[contact.index()],
+    };
+    match cols.sigma {
+        Some(c) if !table.text(rec, c).is_empty() => {
+            Ok((parse_sigma(table.text(rec, c), c)?, true))
+        }
+        _ => Ok((default_sigma, false)),
+    }
 }
 
 /// A duration row: the pair of contacts, the interval, the date if the time column gives one

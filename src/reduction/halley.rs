@@ -36,28 +36,7 @@ pub fn halley(
     params: &ParameterSet,
     theta: &[f64],
 ) -> MethodSolution {
-    // Per station, how many of its timings are used: an interval counts alone, instants in
-    // twos (one duration).
-    let n_stations = timings.iter().map(|t| t.station + 1).max().unwrap_or(0);
-    let mut instants = vec![0usize; n_stations];
-    let mut intervals = vec![0usize; n_stations];
-    for &i in used {
-        let s = timings[i].station;
-        if timings[i].is_interval() {
-            intervals[s] += 1;
-        } else {
-            instants[s] += 1;
-        }
-    }
-    let counts = |s: usize| instants[s] >= 2 || intervals[s] >= 1;
-    let rows: Vec<usize> = used
-        .iter()
-        .copied()
-        .filter(|&i| {
-            let s = timings[i].station;
-            counts(s) && (timings[i].is_interval() || instants[s] >= 2)
-        })
-        .collect();
+    let rows = duration_rows(timings, used);
     let stations = count_stations(timings, &rows);
     if stations < 2 {
         return MethodSolution::not_determined(
@@ -112,6 +91,32 @@ pub fn halley(
     };
     m.held = held;
     m
+}
+
+/// The rows Halley's method can use: at each station, its timed intervals, and its instants
+/// where there are two or more (one duration at least).
+fn duration_rows(timings: &[Timing], used: &[usize]) -> Vec<usize> {
+    // Per station, how many of its timings are used: an interval counts alone, instants in
+    // twos (one duration).
+    let n_stations = timings.iter().map(|t| t.station + 1).max().unwrap_or(0);
+    let mut instants = vec![0usize; n_stations];
+    let mut intervals = vec![0usize; n_stations];
+    for &i in used {
+        let s = timings[i].station;
+        if timings[i].is_interval() {
+            intervals[s] += 1;
+        } else {
+            instants[s] += 1;
+        }
+    }
+    let counts = |s: usize| instants[s] >= 2 || intervals[s] >= 1;
+    used.iter()
+        .copied()
+        .filter(|&i| {
+            let s = timings[i].station;
+            counts(s) && (timings[i].is_interval() || instants[s] >= 2)
+        })
+        .collect()
 }
 
 /// A clock offset (no prior) for every station with instants among the rows (an interval

@@ -374,20 +374,7 @@ fn summarise(
 ) -> Reduction {
     let (outcome, used) = (&s.outcome, &s.used);
     let n = used.len();
-    let n_free = outcome.free.iter().filter(|&&f| f).count();
-    let w: Vec<f64> = used
-        .iter()
-        .map(|&i| 1.0 / c.timings[i].obs.sigma_s.powi(2))
-        .collect();
-    let chi2: f64 = outcome
-        .residuals_s
-        .iter()
-        .zip(&w)
-        .map(|(r, w)| r * r * w)
-        .sum();
-    // Priors on free parameters are observations too: in the chi-square and the count.
-    let (prior_chi2, n_priors) = c.params.prior_chi2(&outcome.theta, &outcome.free);
-    let stats = statistics(chi2 + prior_chi2, (n + n_priors).saturating_sub(n_free));
+    let (stats, w) = fit_statistics(c, s);
     let determined = outcome.free[PARALLAX] && n > 0 && outcome.converged;
     let er = event.earth_radii_per_arcsec();
     let mut stations = contributions(&event, c.timings, used, outcome, &w, er);
@@ -440,7 +427,44 @@ fn summarise(
         used: used_rows(c.timings, used, outcome),
         convergence,
     };
-    if stats.too_large() {
+    historical_warnings(&mut red, c, s);
+    if determined {
+        headline_into(&mut red, stats.coverage_factor_95);
+    }
+    if options.compare_methods {
+        side_by_side(&mut red, c, s, stats.sigma_scale);
+    }
+    red
+}
+
+/// The chi-square statistics of the fit (priors on free parameters count as observations, in
+/// the chi-square and the count) and the weights of the timings used.
+fn fit_statistics(c: &Campaign, s: &Screened) -> (FitStatistics, Vec<f64>) {
+    let (outcome, used) = (&s.outcome, &s.used);
+    let n_free = outcome.free.iter().filter(|&&f| f).count();
+    let w: Vec<f64> = used
+        .iter()
+        .map(|&i| 1.0 / c.timings[i].obs.sigma_s.powi(2))
+        .collect();
+    let chi2: f64 = outcome
+        .residuals_s
+        .iter()
+        .zip(&w)
+        .map(|(r, w)| r * r * w)
+        .sum();
+    let (prior_chi2, n_priors) = c.params.prior_chi2(&outcome.theta, &outcome.free);
+    let stats = statistics(
+        chi2 + prior_chi2,
+        (used.len() + n_priors).saturating_sub(n_free),
+    );
+    (stats, w)
+}
+
+/// The warnings that read historical records: which kind of time a campaign's stations kept,
+/// when the scatter is too large to be chance, and the meridians' fitted corrections.
+fn historical_warnings(red: &mut Reduction, c: &Campaign, s: &Screened) {
+    let (outcome, used) = (&s.outcome, &s.used);
+    if red.statistics.too_large() {
         red.warnings.extend(campaign_kind_check(
             &red.event,
             (c.timings, used),
@@ -453,13 +477,6 @@ fn summarise(
         c.params,
         (&outcome.theta, &outcome.sigma),
     ));
-    if determined {
-        headline_into(&mut red, stats.coverage_factor_95);
-    }
-    if options.compare_methods {
-        side_by_side(&mut red, c, s, stats.sigma_scale);
-    }
-    red
 }
 
 /// Halley's and Delisle's methods beside the full solution, and the error budget of a

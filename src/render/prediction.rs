@@ -410,12 +410,9 @@ pub fn delta_t_note(event: &TransitEvent) -> String {
     format!("{text}\n")
 }
 
-/// A readable table of station predictions, with the caution.
-pub fn predictions_table(
-    event: &TransitEvent,
-    predictions: &[StationPrediction],
-    local: Option<LocalClock>,
-) -> String {
+/// The table's heading (event, ephemeris, Delta T and the column names) and the width of the
+/// local-time column.
+fn table_heading(event: &TransitEvent, local: Option<LocalClock>) -> (String, usize) {
     let greatest = event.label(event.hours_of_greatest());
     let mut s = format!(
         "Transit of {} on {} (greatest transit {}, Delta T {} s)\n",
@@ -446,6 +443,16 @@ pub fn predictions_table(
         "vertex",
         "s/arcsec"
     ));
+    (s, local_width)
+}
+
+/// A readable table of station predictions, with the caution.
+pub fn predictions_table(
+    event: &TransitEvent,
+    predictions: &[StationPrediction],
+    local: Option<LocalClock>,
+) -> String {
+    let (mut s, local_width) = table_heading(event, local);
     // Written field by field into one buffer, as `format!` would pad them.
     let mut cell = String::with_capacity(32);
     for (k, p) in predictions.iter().enumerate() {
