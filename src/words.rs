@@ -14,20 +14,12 @@ pub fn all_of(n: usize, noun_plural: &str) -> String {
     }
 }
 
-/// A contact number 1-4 as the trade writes it, `I` to `IV` (the number itself otherwise).
-pub fn roman(contact: u8) -> String {
-    match contact {
-        1 => "I".into(),
-        2 => "II".into(),
-        3 => "III".into(),
-        4 => "IV".into(),
-        n => n.to_string(),
-    }
-}
-
 /// An uncertainty to two significant figures at least (never a bare 0.0 for one that is not
 /// zero): `3.1`, `0.050`, `0.0067`.
 pub fn uncertainty(x: f64) -> String {
+    if x != 0.0 && x.abs() < 1e-4 {
+        return format!("{x:.1e}");
+    }
     let d = match x.abs() {
         v if v >= 10.0 => 0,
         v if v >= 1.0 => 1,

@@ -246,6 +246,29 @@ fn a_time_read_to_the_minute_is_named() {
         .unwrap_or_else(|| panic!("line {} not rejected: {}", k + 1, v["rejected"]));
     let d = row["diagnosis"].as_str().unwrap();
     assert!(d.contains("read to the minute only"), "{d}");
+    // Found in review: the same time written as a range of 4 s about the minute is a range,
+    // not a reading to the minute, whatever else is wrong with it.
+    let f: Vec<&str> = lines[k].split(',').collect();
+    let t = transit_parallax::time::iso::parse_utc(f[col]).unwrap();
+    let fmt = |x| transit_parallax::time::iso::format_utc(x, 0);
+    let range = format!(
+        "{}/{}",
+        fmt(t - chrono::TimeDelta::seconds(2)),
+        &fmt(t + chrono::TimeDelta::seconds(2))[11..]
+    );
+    let mut g: Vec<String> = f.iter().map(|x| x.to_string()).collect();
+    g[col] = range;
+    lines[k] = g.join(",");
+    let path = temp("minute-range.csv", (lines.join("\n") + "\n").as_bytes());
+    let v = reduce(&path, &[]);
+    let said = v.to_string();
+    assert!(!said.contains("read to the minute only"), "{said}");
+    let invalid = v["rejected"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .any(|r| r["line"] == k as u64 + 1 && r["reason"] == "invalid");
+    assert!(!invalid, "the range is read: {}", v["rejected"]);
 }
 
 /// Every written form of a row reads back to the instant it was made from: the tool's own
@@ -312,6 +335,21 @@ fn every_written_form_reads_back_to_its_instant() {
                 "{},d,{lat},{lon},,{n},,{},mean,,,paris,",
                 st.name,
                 bare(paris_mean)
+            ));
+            // Found in review: a longitude counted eastward past 180 degrees, with local
+            // time, and a clock kept to Ferro written by its other name.
+            let ferro_mean =
+                local_from_label(t, LocalTime::Mean, FERRO_EAST_OF_GREENWICH_DEG, &model).unwrap();
+            rows.push(format!(
+                "{},h,{lat},{},,{n},,{},apparent,,,,",
+                st.name,
+                if lon < 0.0 { lon + 360.0 } else { lon },
+                bare(apparent)
+            ));
+            rows.push(format!(
+                "{},i,{lat},{lon},,{n},,{},mean,,,hierro,",
+                st.name,
+                bare(ferro_mean)
             ));
             let start = t - chrono::TimeDelta::milliseconds(2500);
             let end = t + chrono::TimeDelta::milliseconds(2500);

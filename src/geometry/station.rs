@@ -1,8 +1,8 @@
 //! Observing stations on the WGS 84 ellipsoid and their geocentric coordinates.
 
 use crate::error::{Error, Result};
-use crate::observations::angles::{parse_angle, Axis, Meridian};
 use crate::observations::csv_table::CsvTable;
+use crate::observations::rows::{place, PlaceColumns};
 use crate::sky::constants::{EARTH_EQUATORIAL_RADIUS_M, WGS84_A_M, WGS84_F};
 use crate::time::calendar::Calendar;
 use serde::Serialize;
@@ -127,22 +127,6 @@ pub fn read_stations_with_calendars(path: &Path) -> Result<(Vec<Station>, Vec<Ca
     stations_and_calendars(&table)
 }
 
-/// An angle of a stations file (any written form of `observations::angles`), or the error
-/// naming line and column.
-fn angle_in(
-    table: &CsvTable,
-    line: u64,
-    rec: &csv::StringRecord,
-    col: usize,
-    axis: Axis,
-) -> Result<f64> {
-    parse_angle(table.text(rec, col), axis).map_err(|message| Error::Input {
-        location: table.location(line, Some(col)),
-        message,
-        hint: "a sign, a digit or the hemisphere letter may be wrong".into(),
-    })
-}
-
 /// Stations and their calendars from a table (columns `station`, `latitude`, `longitude`,
 /// optionally `elevation_m`, `meridian` and `calendar`).
 pub fn stations_and_calendars(table: &CsvTable) -> Result<(Vec<Station>, Vec<Calendar>)> {
@@ -172,14 +156,6 @@ pub fn stations_and_calendars(table: &CsvTable) -> Result<(Vec<Station>, Vec<Cal
                 hint: "give each station once, with a unique name".into(),
             });
         }
-        let meridian = match c_meridian {
-            Some(c) => Meridian::parse(table.text(rec, c)).map_err(|message| Error::Input {
-                location: table.location(*line, Some(c)),
-                message,
-                hint: "write the prime meridian the longitude is counted from".into(),
-            })?,
-            None => Meridian::Greenwich,
-        };
         if let Some(c) = c_calendar {
             let text = table.text(rec, c);
             calendars.push(Calendar::parse(text).ok_or_else(|| Error::Input {
@@ -188,15 +164,18 @@ pub fn stations_and_calendars(table: &CsvTable) -> Result<(Vec<Station>, Vec<Cal
                 hint: "write gregorian (New Style, the default) or julian (Old Style)".into(),
             })?);
         }
-        let lat = angle_in(table, *line, rec, c_lat, Axis::Latitude)?;
-        let lon =
-            angle_in(table, *line, rec, c_lon, Axis::Longitude)? + meridian.east_of_greenwich_deg();
-        let elev = match c_elev {
-            Some(c) if !table.text(rec, c).is_empty() => {
-                table.number_in(*line, rec, c, MIN_ELEVATION_M, MAX_ELEVATION_M, "metres")?
-            }
-            _ => 0.0,
+        let cols = PlaceColumns {
+            lat: c_lat,
+            lon: c_lon,
+            elev: c_elev,
+            meridian: c_meridian,
         };
+        let (lat, lon, elev, _) =
+            place(table, *line, rec, cols).map_err(|(message, col)| Error::Input {
+                location: table.location(*line, col),
+                message,
+                hint: "correct the station's place (a sign, a digit or the hemisphere letter may be wrong)".into(),
+            })?;
         out.push(Station {
             name: name.to_string(),
             latitude_deg: lat,

@@ -61,15 +61,29 @@ impl Meridian {
     /// Parse `greenwich`, `paris`, `ferro` (any case; empty is Greenwich) or that meridian's
     /// longitude east of Greenwich in any form of [`parse_angle`] (`2.3372`, `2°20'14"E`).
     pub fn parse(text: &str) -> Result<Meridian, String> {
+        if text.trim().is_empty() {
+            return Ok(Meridian::Greenwich);
+        }
+        Meridian::named(text).map_or_else(
+            || {
+                parse_angle(text, Axis::Longitude)
+                    .map(Meridian::EastOfGreenwich)
+                    .map_err(|_| {
+                        format!("'{}' is not a prime meridian; write greenwich, paris, ferro, or that meridian's longitude east of Greenwich in degrees (2.3372 for Paris)", text.trim())
+                    })
+            },
+            Ok,
+        )
+    }
+
+    /// A meridian written by name: `greenwich`, `paris`, `ferro` (also `hierro`, `el hierro`),
+    /// in any case.
+    pub fn named(text: &str) -> Option<Meridian> {
         match text.trim().to_ascii_lowercase().as_str() {
-            "" | "greenwich" => Ok(Meridian::Greenwich),
-            "paris" => Ok(Meridian::Paris),
-            "ferro" | "hierro" | "el hierro" => Ok(Meridian::Ferro),
-            _ => parse_angle(text, Axis::Longitude)
-                .map(Meridian::EastOfGreenwich)
-                .map_err(|_| {
-                    format!("'{}' is not a prime meridian; write greenwich, paris, ferro, or that meridian's longitude east of Greenwich in degrees (2.3372 for Paris)", text.trim())
-                }),
+            "greenwich" => Some(Meridian::Greenwich),
+            "paris" => Some(Meridian::Paris),
+            "ferro" | "hierro" | "el hierro" => Some(Meridian::Ferro),
+            _ => None,
         }
     }
 

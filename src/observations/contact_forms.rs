@@ -64,7 +64,12 @@ pub fn parse_contact_pair(text: &str) -> Result<(Contact, Contact), String> {
         Contact::parse(a.trim()).ok_or_else(bad)?,
         Contact::parse(b.trim()).ok_or_else(bad)?,
     );
-    if a >= b {
+    if a == b {
+        return Err(format!(
+            "'{t}': a duration runs between two different contacts; write the pair it was timed between, e.g. 2-3"
+        ));
+    }
+    if a > b {
         return Err(format!(
             "'{t}': a duration runs from the earlier contact to the later; write {}-{}",
             b.number().min(a.number()),
@@ -87,6 +92,9 @@ mod tests {
         );
         assert_eq!(parse_contact_pair("c1–c4"), Ok((Contact::I, Contact::IV)));
         assert!(parse_contact_pair("3-2").unwrap_err().contains("write 2-3"));
+        // Found in review: the same contact twice was told to write itself again.
+        let same = parse_contact_pair("2-2").unwrap_err();
+        assert!(same.contains("two different contacts") && !same.contains("write 2-2"));
         assert!(parse_contact_pair("2").unwrap_err().contains("II-III"));
         assert!(parse_contact_pair("2-5").is_err());
         assert_eq!(ContactJudged::parse("Touch"), Ok(ContactJudged::Touch));

@@ -191,12 +191,13 @@ fn parse_one_duration(text: &str) -> Option<(f64, bool)> {
         [s] => s.parse::<f64>().ok().map(|v| (v, false)),
         [h, m] => {
             let (h, m): (u32, u32) = (h.parse().ok()?, m.parse().ok()?);
-            (m < 60).then(|| (f64::from(h * 3600 + m * 60), true))
+            (m < 60).then(|| (f64::from(h) * 3600.0 + f64::from(m) * 60.0, true))
         }
         [h, m, s] => {
             let (h, m): (u32, u32) = (h.parse().ok()?, m.parse().ok()?);
             let s: f64 = s.parse().ok()?;
-            (m < 60 && (0.0..60.0).contains(&s)).then(|| (f64::from(h * 3600 + m * 60) + s, false))
+            (m < 60 && (0.0..60.0).contains(&s))
+                .then(|| (f64::from(h) * 3600.0 + f64::from(m) * 60.0 + s, false))
         }
         _ => None,
     }
@@ -215,6 +216,9 @@ pub fn parse_duration(text: &str) -> Result<(f64, Option<f64>), String> {
         Some((a, b)) => {
             let (a, _) = parse_one_duration(a).ok_or_else(bad)?;
             let (b, _) = parse_one_duration(b).ok_or_else(bad)?;
+            if !(a.is_finite() && a > 0.0 && b.is_finite()) {
+                return Err(bad());
+            }
             if b < a {
                 return Err(format!(
                     "the range '{t}' ends before it begins; write the shorter duration first"
@@ -328,6 +332,13 @@ mod tests {
             "five hours",
             "PT5X",
             "5:53:14/5:53:10",
+            // Found in review: hours that overflow 32-bit seconds, a range from below zero,
+            // and numbers that are not numbers.
+            "99999999:00:00",
+            "1193047:00:00",
+            "-100/200",
+            "NaN",
+            "inf/inf",
         ] {
             assert!(parse_duration(bad).is_err(), "{bad}");
         }

@@ -116,13 +116,29 @@ fn parse_sigma(text: &str, column: usize) -> Result<f64, RowError> {
     Ok(v)
 }
 
-/// The station's place: latitude, longitude east of Greenwich (from the row's meridian) and
-/// elevation, and the meridian the longitude was counted from.
-fn place(
+/// The columns of a station's place.
+#[derive(Clone, Copy)]
+pub struct PlaceColumns {
+    /// `latitude`.
+    pub lat: usize,
+    /// `longitude`.
+    pub lon: usize,
+    /// `elevation_m`.
+    pub elev: Option<usize>,
+    /// `meridian`.
+    pub meridian: Option<usize>,
+}
+
+/// A station's place as a row writes it (timings and stations files alike): latitude,
+/// longitude east of Greenwich (from the row's meridian, not yet normalised) and elevation,
+/// and the meridian the longitude was counted from.
+///
+/// Errors: the sentence and the column.
+pub fn place(
     table: &CsvTable,
     line: u64,
     rec: &csv::StringRecord,
-    cols: &Columns,
+    cols: PlaceColumns,
 ) -> Result<(f64, f64, f64, Meridian), RowError> {
     let meridian =
         Meridian::parse(field(table, rec, cols.meridian)).map_err(|m| (m, cols.meridian))?;
@@ -151,12 +167,12 @@ fn time_meridian(text: &str, meridian: Meridian) -> Result<Option<f64>, String> 
     if t.is_empty() {
         return Ok(None);
     }
-    match t.to_ascii_lowercase().as_str() {
-        "greenwich" | "paris" | "ferro" => Meridian::parse(t).map(|m| Some(m.east_of_greenwich_deg())),
-        _ => parse_angle(t, Axis::Longitude)
-            .map(|d| Some(d + meridian.east_of_greenwich_deg()))
-            .map_err(|_| format!("'{t}' is not a meridian for the clock; write greenwich, paris, or the meridian's longitude (counted like the longitude column)")),
+    if let Some(named) = Meridian::named(t) {
+        return Ok(Some(named.east_of_greenwich_deg()));
     }
+    parse_angle(t, Axis::Longitude)
+        .map(|d| Some(d + meridian.east_of_greenwich_deg()))
+        .map_err(|_| format!("'{t}' is not a meridian for the clock; write greenwich, paris, ferro, or the meridian's longitude (counted like the longitude column)"))
 }
 
 /// Parse one row (see the module's notes); returns the observation and the zone its time was
@@ -180,7 +196,16 @@ pub fn parse_row(
             Some(cols.station),
         ));
     }
-    let (lat, lon, elev, meridian) = place(table, line, rec, cols)?;
+    let place_cols = PlaceColumns {
+        lat: cols.lat,
+        lon: cols.lon,
+        elev: cols.elev,
+        meridian: cols.meridian,
+    };
+    let (lat, lon, elev, meridian) = place(table, line, rec, place_cols)?;
+    // One longitude for the station and its local readings: written as 200 or as -160, or
+    // as 359 from Paris, a station reads its clock the same way.
+    let lon = normalise_longitude_deg(lon);
     let calendar = Calendar::parse(field(table, rec, cols.calendar)).ok_or_else(|| {
         (format!("'{}' is not a calendar; write gregorian (New Style, the default) or julian (Old Style)", field(table, rec, cols.calendar)), cols.calendar)
     })?;
@@ -224,7 +249,7 @@ pub fn parse_row(
         station: Station {
             name: name.to_string(),
             latitude_deg: lat,
-            longitude_deg: normalise_longitude_deg(lon),
+            longitude_deg: lon,
             elevation_m: elev,
         },
         observer: field(table, rec, cols.observer).to_string(),

@@ -175,6 +175,15 @@ impl Observation {
         }
     }
 
+    /// What two rows of one timing are compared by: an interval's length, or an instant's
+    /// label as seconds from 1970 (its written time scale), s.
+    pub fn value_s(&self) -> f64 {
+        match self.duration {
+            Some(d) => d.seconds,
+            None => self.time_label.and_utc().timestamp_millis() as f64 / 1000.0,
+        }
+    }
+
     /// Whether the row's time says when (an instant, or an interval with a date).
     pub fn is_dated(&self) -> bool {
         self.duration.map_or(true, |d| d.date.is_some())
@@ -262,7 +271,7 @@ pub fn observations_from_table(table: &CsvTable, strict: bool) -> Result<Observa
     // First line of each station, with its coordinates; first line of each timing's identity
     // (station, observer, contact or pair, judgement).
     let mut first_coords: FirstCoordinates = HashMap::new();
-    let mut first_contact: HashMap<TimingKey, (u64, NaiveDateTime)> = HashMap::new();
+    let mut first_contact: HashMap<TimingKey, (u64, f64)> = HashMap::new();
     for (line, rec) in &table.records {
         let name = table.text(rec, cols.station).to_string();
         match parse_row(table, *line, rec, &cols) {
@@ -290,7 +299,7 @@ pub fn observations_from_table(table: &CsvTable, strict: bool) -> Result<Observa
                     set.rejected.push(duplicate(&obs, name, *line, (l0, t0)));
                     continue;
                 }
-                first_contact.insert(key, (*line, obs.time_label));
+                first_contact.insert(key, (*line, obs.value_s()));
                 set.valid.push(obs);
             }
             Err((message, column)) => {
@@ -349,15 +358,10 @@ fn moved_station(
     })
 }
 
-/// A second timing of the same contact at the same station (the first, on line `l0` at
-/// `t0`, is kept).
-fn duplicate(
-    obs: &Observation,
-    name: String,
-    line: u64,
-    (l0, t0): (u64, NaiveDateTime),
-) -> Rejected {
-    let diff = (obs.time_label - t0).num_milliseconds() as f64 / 1000.0;
+/// A second timing of the same contact (or interval) at the same station (the first, on line
+/// `l0` with [`Observation::value_s`] `v0`, is kept).
+fn duplicate(obs: &Observation, name: String, line: u64, (l0, v0): (u64, f64)) -> Rejected {
+    let diff = ((obs.value_s() - v0) * 1000.0).round() / 1000.0;
     let by = if obs.observer.is_empty() {
         String::new()
     } else {
@@ -367,8 +371,11 @@ fn duplicate(
         format!("the same timing was given on line {l0}")
     } else {
         format!(
-            "contact {} at this station was already timed{by} on line {l0} ({diff:+.1} s from it); the first is kept (rows of different observers, or of different judgements of the contact, are separate timings: give the observer column)",
-            obs.contact.roman()
+            "{} at this station was already timed{by} on line {l0} ({diff:+.1} s from it); the first is kept (rows of different observers, or of different judgements of the contact, are separate timings: give the observer column)",
+            match obs.duration {
+                Some(d) => format!("the interval {}-{}", d.first.roman(), obs.contact.roman()),
+                None => format!("contact {}", obs.contact.roman()),
+            }
         )
     };
     Rejected {
@@ -424,6 +431,27 @@ mod tests {
     }
 
     const HEAD: &str = "station,latitude,longitude,elevation_m,contact,time_utc,sigma_s\n";
+
+    /// Found in review: two intervals of one pair were compared by their (undated) labels,
+    /// so different durations were called "the same timing".
+    #[test]
+    fn duplicate_intervals_are_compared_by_their_length() {
+        let head = "station,latitude,longitude,elevation_m,contact,time_utc,sigma_s,duration\n";
+        let s = set(&format!(
+            "{head}a,10,20,0,2-3,,5,5:49:52\na,10,20,0,2-3,,5,5:49:58\na,10,20,0,2-3,,5,5:49:52\n"
+        ));
+        assert_eq!(s.valid.len(), 1);
+        let d: Vec<&str> = s
+            .rejected
+            .iter()
+            .filter_map(|r| r.diagnosis.as_deref())
+            .collect();
+        assert!(
+            d[0].contains("the interval II-III") && d[0].contains("+6.0 s"),
+            "{d:?}"
+        );
+        assert!(d[1].contains("the same timing"), "{d:?}");
+    }
 
     #[test]
     fn every_row_is_accounted_for() {

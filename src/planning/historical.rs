@@ -203,6 +203,9 @@ fn record_one<R: Rng + ?Sized>(
         reading.reading += TimeDelta::nanoseconds((shift * 1e9).round() as i64);
         reading.written.range_s = Some(width);
         o.written.range_s = Some(width);
+        // As a reader of the row has it: the range's own variance (uniform, width^2 / 12)
+        // added to the timing's.
+        o.sigma_s = o.sigma_s.hypot(width / 12f64.sqrt());
     }
     // The label a reader forms from the reading at the recorded longitude.
     if let Some(label) = reading.label(recorded) {

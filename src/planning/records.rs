@@ -47,6 +47,16 @@ fn reading_or_range(t: NaiveDateTime, width_s: Option<f64>, calendar: Calendar) 
     }
 }
 
+/// The sigma a row writes: the timing's own, without the variance of a range that the row
+/// writes beside it (a reader adds that back, width^2 / 12).
+fn sigma_as_written(o: &Observation) -> f64 {
+    let range_var = o.written.range_s.map_or(0.0, |w| w * w / 12.0);
+    (o.sigma_s * o.sigma_s - range_var)
+        .max(0.0)
+        .sqrt()
+        .max(0.01)
+}
+
 /// A duration as `H:MM:SS.s`.
 fn duration_text(seconds: f64) -> String {
     let tenths = (seconds * 10.0).round() as u64;
@@ -56,15 +66,16 @@ fn duration_text(seconds: f64) -> String {
 
 /// The station's coordinates as the row wrote them: latitude, and longitude counted from its
 /// meridian (sexagesimal from Paris, or in hours of time where so recorded).
-fn coordinates(o: &Observation) -> (String, String, &'static str) {
+fn coordinates(o: &Observation) -> (String, String, String) {
     let st = &o.station;
     let lon = crate::geometry::station::normalise_longitude_deg(
         st.longitude_deg - o.written.meridian.east_of_greenwich_deg(),
     );
     let meridian = match o.written.meridian {
-        Meridian::Paris => "paris",
-        Meridian::Ferro => "ferro",
-        _ => "",
+        Meridian::Paris => "paris".to_string(),
+        Meridian::Ferro => "ferro".to_string(),
+        Meridian::EastOfGreenwich(d) => format!("{d:.7}"),
+        Meridian::Greenwich => String::new(),
     };
     if o.written.meridian != Meridian::Greenwich || o.written.longitude_in_time {
         let lon_text = if o.written.longitude_in_time {
@@ -142,7 +153,7 @@ fn row(o: &Observation, historical: bool, records: bool) -> String {
         (
             format!("{:.4}", o.station.latitude_deg),
             format!("{:.4}", o.station.longitude_deg),
-            "",
+            String::new(),
         )
     };
     let field = crate::render::text::csv_field;
@@ -153,7 +164,7 @@ fn row(o: &Observation, historical: bool, records: bool) -> String {
         field(&lon),
         o.station.elevation_m,
         o.contact_label(),
-        (o.sigma_s * 100.0).round() / 100.0
+        (sigma_as_written(o) * 100.0).round() / 100.0
     );
     if !historical {
         return s;
@@ -197,4 +208,42 @@ fn row(o: &Observation, historical: bool, records: bool) -> String {
         ));
     }
     s
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::observations::csv_table::CsvTable;
+    use crate::observations::timings::observations_from_table;
+    use std::path::Path;
+
+    fn read(text: &str) -> ObservationSet {
+        let t = CsvTable::from_bytes(Path::new("t.csv"), text.as_bytes()).unwrap();
+        observations_from_table(&t, true).unwrap()
+    }
+
+    /// Found in review: a meridian given as a number was written back as Greenwich, and a
+    /// range's variance, already in the sigma read, was added again on reading the copy.
+    #[test]
+    fn a_written_campaign_reads_back_as_it_was_read() {
+        let first = read(
+            "station,latitude,longitude,elevation_m,contact,time_utc,sigma_s,time_local,local_time,meridian\n\
+             a,60,10,0,2,,5,1769-06-03T20:10:00/20:10:06,mean,12.5\n\
+             b,-20,-150,0,3,1769-06-04T03:40:00Z,8,,,\n",
+        );
+        let again = read(&campaign_csv(&first));
+        assert_eq!(again.valid.len(), 2);
+        for (x, y) in first.valid.iter().zip(&again.valid) {
+            assert!((x.station.longitude_deg - y.station.longitude_deg).abs() < 1e-6);
+            assert_eq!(x.written.meridian, y.written.meridian);
+            assert!(
+                (x.sigma_s - y.sigma_s).abs() < 0.01,
+                "{} {}",
+                x.sigma_s,
+                y.sigma_s
+            );
+            assert_eq!(x.time_label, y.time_label);
+        }
+        assert!((first.valid[0].sigma_s - 5f64.hypot(6.0 / 12f64.sqrt())).abs() < 1e-9);
+    }
 }

@@ -9,7 +9,8 @@
 //! first order they are one unknown, so the lag is held at 0 s and the radius correction
 //! carries the black drop (the output says so). Where several judgements but no geometric
 //! timing are present, the most frequent judgement's lag is held at 0 and the others are
-//! measured relative to it.
+//! measured relative to it (our own choice of reference: only the differences are measured,
+//! and the most frequent gives them the smallest uncertainties).
 //!
 //! References: the lag as one more unknown of the condition equations, as 19th-century
 //! reductions carried a constant correction for each observer's way of judging a contact:

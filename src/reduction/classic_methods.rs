@@ -11,7 +11,8 @@
 //!   `--planet-place` says, where the durations can separate them from the parallax; where they
 //!   cannot, the parallax is not determined, and `--planet-place fixed` takes the path from the
 //!   ephemeris, as Halley took it from the tables.
-//! - **Delisle's method** (`delisle.rs`; J.-N. Delisle, 1753): the absolute times of one
+//! - **Delisle's method** (`delisle.rs`; J.-N. Delisle, 1753 for Mercury, 1760 for Venus):
+//!   the absolute times of one
 //!   contact at stations of exactly known longitude (good clocks assumed). The tables' error
 //!   in the planet's place and in the radii shifts each contact's geocentric time, the same
 //!   at every station; that shift is the unknown, with the offsets as `--planet-place` says,
@@ -33,7 +34,7 @@ use super::equations::Timing;
 use super::fit::FitOutcome;
 use super::halley::halley;
 use super::parameters::{ParameterSet, PARALLAX};
-use super::statistics::{statistics, FitStatistics};
+use super::statistics::{fit_statistics, FitStatistics};
 use crate::geometry::transit::TransitEvent;
 use crate::sky::constants::au_and_sigma_km;
 use serde::Serialize;
@@ -149,27 +150,6 @@ impl MethodSolution {
             ..MethodSolution::not_determined(method, (timings, stations), String::new())
         }
     }
-}
-
-/// The chi-square statistics of a fit: the timings' weighted squares plus the priors of the
-/// free parameters, with those priors counted as observations.
-pub fn fit_statistics(
-    timings: &[Timing],
-    used: &[usize],
-    params: &ParameterSet,
-    outcome: &FitOutcome,
-) -> FitStatistics {
-    let chi2: f64 = used
-        .iter()
-        .zip(&outcome.residuals_s)
-        .map(|(&i, r)| (r / timings[i].obs.sigma_s).powi(2))
-        .sum();
-    let n_free = outcome.free.iter().filter(|&&f| f).count();
-    let (prior_chi2, n_priors) = params.prior_chi2(&outcome.theta, &outcome.free);
-    statistics(
-        chi2 + prior_chi2,
-        (used.len() + n_priors).saturating_sub(n_free),
-    )
 }
 
 /// Each timing's part in a fit's parallax (the parallax row of C J^T W, times the timing's
@@ -358,9 +338,12 @@ pub fn why_they_differ(methods: &[MethodSolution]) -> Vec<String> {
             continue;
         };
         let d = pm - pf;
-        let sentence = if chance < 1e-9 && d.abs() < 1e-9 {
+        // Below a thousandth of the method's own uncertainty both the difference and its
+        // chance spread are the iterations' rounding (they stop at steps of 1e-6").
+        let negligible = 1e-3 * m.parallax_sigma_arcsec.unwrap_or(0.0).max(1e-6);
+        let sentence = if chance < negligible && d.abs() < negligible {
             format!(
-                "{} agrees with the full solution exactly: here the two take the same information from the same timings",
+                "{} agrees with the full solution to the iterations' precision: here the two take the same information from the same timings",
                 m.method.title()
             )
         } else {

@@ -10,8 +10,9 @@
 //! Black-drop lags are fitted as in the full solution.
 //!
 //! References: J.-N. Delisle, the method of the absolute times of one contact at stations of
-//! known longitude, set out for the transit of 1761 in his memoir and map of 1760 (the
-//! "Mappemonde" of 1753 and after; cited from memory); in condition equations: W. Chauvenet,
+//! known longitude, first proposed for the transit of Mercury of 1753 with a world map of
+//! the contact's times, then set out for the transit of Venus of 1761 in his memoir and
+//! world map of 1760 (both cited from memory); in condition equations: W. Chauvenet,
 //! *A Manual of Spherical and Practical Astronomy* (1863), vol. I (cited from memory of its
 //! treatment).
 

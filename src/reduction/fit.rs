@@ -260,23 +260,26 @@ fn check_rank(
     let before = free[..g].to_vec();
     let separation = hold_fixed_what_cannot_be_separated(&normal, &mut free[..g], &names, PARALLAX);
     let list: Vec<&Timing> = used.iter().map(|&i| &timings[i]).collect();
+    let holding = Holding {
+        before: &before,
+        after: &free[..g],
+        names: &names,
+    };
     if !separation.confused.is_empty() {
-        let held: Vec<&str> = (0..g)
-            .filter(|&j| before[j] && !free[j])
-            .map(|j| names[j])
-            .collect();
-        messages.push(describe_confusion(&list, &separation.confused, &held));
+        messages.push(describe_confusion(
+            &list,
+            &separation.confused,
+            &holding.held(),
+        ));
     }
-    if free[PARALLAX] {
-        let held = Holding {
-            before: &before,
-            after: &free[..g],
-            names: &names,
-        };
-        if let Some(why) = why_parallax_not_determined(&normal, params, &held, &separation, &list) {
-            free[PARALLAX] = false;
-            messages.push(why);
-        }
+    let why = if free[PARALLAX] {
+        why_parallax_not_determined(&normal, params, &holding, &separation, &list)
+    } else {
+        None
+    };
+    if let Some(why) = why {
+        free[PARALLAX] = false;
+        messages.push(why);
     }
     if !free[PARALLAX] {
         messages.push("the solar parallax cannot be determined from these timings; it is held at the a-priori value and no result is given".to_string());

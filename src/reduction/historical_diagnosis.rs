@@ -11,8 +11,13 @@
 //! - Julian and Gregorian dates confused (10 to 12 days): see `screening::timings_of_event`.
 //!
 //! References: the day reckonings, the equation of time and the prime meridians as in
-//! `sky::solar_time` and `observations::angles`; the signatures are common practice of
-//! re-reducing such records (no single source).
+//! `sky::solar_time` and `observations::angles`; the calendars: E. G. Richards, "Calendars",
+//! in *Explanatory Supplement to the Astronomical Almanac*, 3rd ed. (2012), chapter 15 (cited
+//! from memory). Such errors, station by station, in the re-reduction of the 1761 and 1769
+//! records: S. Newcomb, *Astronomical Papers of the American Ephemeris* II (1891) (cited from
+//! memory of its treatment); reading them as signatures is common practice. The thresholds
+//! (within 120 s of half a day; a sum of squares at least halved and down by more than 20)
+//! are our own, checked on the real 1769 records by `tests/historical_records.rs`.
 
 use super::diagnosis::StationTiming;
 use super::equations::Timing;
@@ -95,7 +100,7 @@ pub fn reckoning_sentence(offset_s: f64, station: &str) -> Option<String> {
 /// A timing that ends in :00 (as read, before any conversion) and lies within a minute of its
 /// prediction: it was probably read to the minute only.
 pub fn minute_reading(t: &Timing, residual_s: f64, tolerance_s: f64) -> Option<String> {
-    if t.obs.written.minute_only || t.is_interval() {
+    if t.obs.written.minute_only || t.obs.written.range_s.is_some() || t.is_interval() {
         return None;
     }
     let read = t.obs.local.map_or(t.obs.time_label, |l| l.reading);

@@ -241,7 +241,8 @@ pub struct Holding<'a> {
 }
 
 impl Holding<'_> {
-    fn held(&self) -> Vec<&str> {
+    /// The names of the parameters the rank test held.
+    pub fn held(&self) -> Vec<&str> {
         (0..self.after.len())
             .filter(|&j| self.before[j] && !self.after[j])
             .map(|j| self.names[j])
@@ -251,7 +252,8 @@ impl Holding<'_> {
 
 /// A loose prior for a parameter held by the rank test, in its unit, for testing whether the
 /// parallax rests on it: 10" for the offsets and radius corrections (far beyond any
-/// ephemeris's error since the 18th century), 60 s for a black-drop lag, 1 degree otherwise.
+/// ephemeris's error since the 18th century), 60 s for a black-drop lag (beyond the largest
+/// reported), 1 degree otherwise. Our own round figures.
 fn loose_sigma(unit: &str) -> f64 {
     match unit {
         "arcsec" => 10.0,

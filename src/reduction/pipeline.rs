@@ -25,7 +25,7 @@ use super::planet_place::{parallax_shift_arcsec, place_accuracy_arcsec};
 use super::rejection::{record_rejections, station_wide};
 use super::result::{Parameter, ReduceOptions, Reduction, UsedTiming};
 use super::screening::{scatter_of, screen, timings_of_event, Screened};
-use super::statistics::{statistics, FitStatistics};
+use super::statistics::{fit_statistics, FitStatistics};
 use super::{equations::Timing, fit::fit};
 use crate::error::{Error, Result};
 use crate::geometry::besselian::check_parallax;
@@ -166,10 +166,18 @@ struct Campaign<'a> {
 fn fit_warnings(outcome: &FitOutcome, stats: &FitStatistics) -> Vec<String> {
     let mut warnings = outcome.messages.clone();
     if !outcome.converged && outcome.free[PARALLAX] {
-        warnings.push(format!(
-            "the iteration did not converge in {} steps; the parallax is not determined and no result is given",
-            outcome.iterations
-        ));
+        // The fit's own sentence says what still moved; one sentence says both.
+        let consequence = "; the parallax is not determined and no result is given";
+        match warnings
+            .iter_mut()
+            .find(|w| w.starts_with("the iteration did not converge"))
+        {
+            Some(w) => w.push_str(consequence),
+            None => warnings.push(format!(
+                "the iteration did not converge in {} steps{consequence}",
+                outcome.iterations
+            )),
+        }
     }
     if stats.dof == 0 && outcome.free[PARALLAX] {
         warnings.push(
@@ -374,7 +382,11 @@ fn summarise(
 ) -> Reduction {
     let (outcome, used) = (&s.outcome, &s.used);
     let n = used.len();
-    let (stats, w) = fit_statistics(c, s);
+    let stats = fit_statistics(c.timings, used, c.params, outcome);
+    let w: Vec<f64> = used
+        .iter()
+        .map(|&i| 1.0 / c.timings[i].obs.sigma_s.powi(2))
+        .collect();
     let determined = outcome.free[PARALLAX] && n > 0 && outcome.converged;
     let er = event.earth_radii_per_arcsec();
     let mut stations = contributions(&event, c.timings, used, outcome, &w, er);
@@ -435,29 +447,6 @@ fn summarise(
         side_by_side(&mut red, c, s, stats.sigma_scale);
     }
     red
-}
-
-/// The chi-square statistics of the fit (priors on free parameters count as observations, in
-/// the chi-square and the count) and the weights of the timings used.
-fn fit_statistics(c: &Campaign, s: &Screened) -> (FitStatistics, Vec<f64>) {
-    let (outcome, used) = (&s.outcome, &s.used);
-    let n_free = outcome.free.iter().filter(|&&f| f).count();
-    let w: Vec<f64> = used
-        .iter()
-        .map(|&i| 1.0 / c.timings[i].obs.sigma_s.powi(2))
-        .collect();
-    let chi2: f64 = outcome
-        .residuals_s
-        .iter()
-        .zip(&w)
-        .map(|(r, w)| r * r * w)
-        .sum();
-    let (prior_chi2, n_priors) = c.params.prior_chi2(&outcome.theta, &outcome.free);
-    let stats = statistics(
-        chi2 + prior_chi2,
-        (used.len() + n_priors).saturating_sub(n_free),
-    );
-    (stats, w)
 }
 
 /// The warnings that read historical records: which kind of time a campaign's stations kept,

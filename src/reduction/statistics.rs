@@ -6,7 +6,31 @@
 //! Phys. Rev. 40, 207 (1932) (the ratio sqrt(chi^2/dof) as a test of stated uncertainties);
 //! F. R. Hampel, JASA 69, 383 (1974) (the median absolute deviation).
 
+use super::equations::Timing;
+use super::fit::FitOutcome;
+use super::parameters::ParameterSet;
 use statrs::distribution::{ChiSquared, ContinuousCDF, StudentsT};
+
+/// The chi-square statistics of a fit: the timings' weighted squares plus the priors of the
+/// free parameters, with those priors counted as observations.
+pub fn fit_statistics(
+    timings: &[Timing],
+    used: &[usize],
+    params: &ParameterSet,
+    outcome: &FitOutcome,
+) -> FitStatistics {
+    let chi2: f64 = used
+        .iter()
+        .zip(&outcome.residuals_s)
+        .map(|(&i, r)| (r / timings[i].obs.sigma_s).powi(2))
+        .sum();
+    let n_free = outcome.free.iter().filter(|&&f| f).count();
+    let (prior_chi2, n_priors) = params.prior_chi2(&outcome.theta, &outcome.free);
+    statistics(
+        chi2 + prior_chi2,
+        (used.len() + n_priors).saturating_sub(n_free),
+    )
+}
 
 /// Chi-square statistics of a solution.
 #[derive(Clone, Copy, Debug, PartialEq)]

@@ -1,6 +1,7 @@
 //! Rendering a reduction: the JSON object of the stable interface and a readable terminal
 //! report (solution, parameters, correlations, stations ranked by contribution, rejected rows).
 
+use crate::geometry::contacts::Contact;
 use crate::reduction::error_budget::ErrorBudget;
 use crate::reduction::Reduction;
 use crate::render::text::{au_text, csv_field, name_cell, round as r, SAFETY_CAUTION};
@@ -361,7 +362,7 @@ pub fn black_drop_sentences(red: &Reduction) -> Vec<String> {
         .map(|b| {
             let what = format!(
                 "black drop: contact {} judged '{}'",
-                crate::words::roman(b.contact),
+                Contact::parse(&b.contact.to_string()).map_or("?", Contact::roman),
                 b.contact_judged
             );
             match (b.delay_s, b.sigma_s) {
@@ -370,8 +371,10 @@ pub fn black_drop_sentences(red: &Reduction) -> Vec<String> {
                         Some(r) => format!("the timings judged '{r}'"),
                         None => "the geometric contact".to_string(),
                     };
+                    // Two significant figures of the uncertainty, at least one decimal.
+                    let dec = crate::render::text::decimals_for(sigma).saturating_sub(1).max(1);
                     format!(
-                        "{what}: seen {d:+.1} s +- {sigma:.1} s after {behind} (positive: later)"
+                        "{what}: seen {d:+.dec$} s +- {sigma:.dec$} s after {behind} (positive: later)"
                     )
                 }
                 _ => format!("{what}: {}", b.note.as_deref().unwrap_or("not determined")),

@@ -232,11 +232,6 @@ pub fn delta_t_estimate(year: f64) -> DeltaTEstimate {
     t.extrapolated(year)
 }
 
-/// The decimal year of the last IERS observation compiled in.
-pub fn last_observed_year() -> f64 {
-    table().last_observed_year()
-}
-
 #[cfg(test)]
 mod tests {
     use super::*;
