@@ -28,6 +28,21 @@ fn reduce(path: &str, extra: &[&str]) -> Value {
     serde_json::from_str(&out(&o)).unwrap()
 }
 
+/// `predict` of the transit of Venus on `date` for the stations file `path`, with `extra`.
+fn predict(date: &str, path: &str, extra: &[&str]) -> std::process::Output {
+    let mut args = vec![
+        "predict",
+        "--planet",
+        "venus",
+        "--date",
+        date,
+        "--stations",
+        path,
+    ];
+    args.extend_from_slice(extra);
+    run(&args)
+}
+
 fn method<'a>(v: &'a Value, name: &str) -> &'a Value {
     v["methods"]
         .as_array()
@@ -438,19 +453,11 @@ fn predict_reads_written_coordinates_and_writes_old_style_dates() {
                     sexagesimal,53°42'N,2°50'W,,julian\n\
                     from paris,53 42 0 N,0h20m40.3sW,paris,\n";
     let path = temp("forms-stations.csv", stations.as_bytes());
-    let o = run(&[
-        "predict",
-        "--planet",
-        "venus",
-        "--date",
+    let o = predict(
         "1639-12-04",
-        "--stations",
         &path,
-        "--local-time",
-        "apparent",
-        "--format",
-        "json",
-    ]);
+        &["--local-time", "apparent", "--format", "json"],
+    );
     assert!(o.status.success(), "{}", err(&o));
     let rows: Vec<Value> = serde_json::from_str(&out(&o)).unwrap();
     let second = |name: &str| {
@@ -484,15 +491,7 @@ fn predict_reads_written_coordinates_and_writes_old_style_dates() {
         "bad-calendar.csv",
         b"station,latitude,longitude,calendar\nx,10,10,mayan\n",
     );
-    let o = run(&[
-        "predict",
-        "--planet",
-        "venus",
-        "--date",
-        "1639-12-04",
-        "--stations",
-        &bad,
-    ]);
+    let o = predict("1639-12-04", &bad, &[]);
     assert_eq!(o.status.code(), Some(2));
     assert!(err(&o).contains("bad-calendar.csv:2:4"), "{}", err(&o));
 }
@@ -508,21 +507,18 @@ fn greenwich_local_mean_time_is_ut1_after_the_leap_second_table() {
         "greenwich.csv",
         b"station,latitude,longitude\ngreenwich,51.4769,0\n",
     );
-    let o = run(&[
-        "predict",
-        "--planet",
-        "venus",
-        "--date",
+    let o = predict(
         "2117-12-11",
-        "--stations",
         &stations,
-        "--local-time",
-        "mean",
-        "--delta-t",
-        "240",
-        "--format",
-        "json",
-    ]);
+        &[
+            "--local-time",
+            "mean",
+            "--delta-t",
+            "240",
+            "--format",
+            "json",
+        ],
+    );
     assert!(o.status.success(), "{}", err(&o));
     let rows: Vec<Value> = serde_json::from_str(&out(&o)).unwrap();
     let mut checked = 0;

@@ -163,6 +163,31 @@ def write_spk(module_name, windows_jd, path):
         add(399, 3, moon * (-1.0 / (1.0 + emrat)), dps)
 
 
+def de405_event(planet, jd_guess, delta_t_s):
+    """JPL DE405 around `jd_guess` (a temporary SPK file), the Earth, a timescale with the fixed
+    Delta T, and the contact solver of `planet`: the set-up every historical generator shares."""
+    path = os.path.join(tempfile.mkdtemp(), "de405.bsp")
+    write_spk("de405", [(jd_guess - 3.0, jd_guess + 3.0)], path)
+    eph = SpiceKernel(path)
+    ts = load.timescale(delta_t=delta_t_s)
+    return eph, eph[399], ts, ContactSolver(eph, planet, jd_guess, delta_t_s)
+
+
+def sites_seeing_contacts(earth, solver, draw, rng, count, min_altitude_deg=5.0, min_contacts=2):
+    """`count` sites drawn by `draw(rng)` (latitude, longitude, elevation) that see at least
+    `min_contacts` contacts with the Sun above `min_altitude_deg`; each as (lat, lon, elev,
+    {contact: time})."""
+    sites = []
+    while len(sites) < count:
+        lat, lon, elev = draw(rng)
+        obs = earth + wgs84.latlon(lat, lon, elevation_m=elev)
+        res = solver.contacts(obs)
+        seen = {c: t for c, t in res.items() if solver.sun_altitude_deg(obs, t) > min_altitude_deg}
+        if len(seen) >= min_contacts:
+            sites.append((lat, lon, elev, seen))
+    return sites
+
+
 def iso(jd_label):
     """ISO 8601 string (Z) for a Julian date on the output time label, to 0.1 ms."""
     day = np.floor(jd_label - 0.5) + 0.5

@@ -33,13 +33,10 @@ writes tests/reference/campaigns/venus-1769-historical.csv.
 import csv
 import os
 import sys
-import tempfile
 
 import numpy as np
-from skyfield.api import load, wgs84
-from skyfield.jpllib import SpiceKernel
 
-from generate_contacts import HERE, S_PER_DAY, ContactSolver, iso, write_spk
+from generate_contacts import HERE, S_PER_DAY, de405_event, iso, sites_seeing_contacts
 from generate_local_time import local_apparent_reading
 
 NAME = "venus-1769-historical"
@@ -68,21 +65,9 @@ def local_reading(eph, ts, t_days, lon_deg, kind):
 
 
 def main():
-    path = os.path.join(tempfile.mkdtemp(), "de405.bsp")
-    write_spk("de405", [(JD_GUESS - 3.0, JD_GUESS + 3.0)], path)
-    eph = SpiceKernel(path)
-    earth = eph[399]
-    ts = load.timescale(delta_t=DELTA_T_S)
-    solver = ContactSolver(eph, "venus", JD_GUESS, DELTA_T_S)
+    eph, earth, ts, solver = de405_event("venus", JD_GUESS, DELTA_T_S)
     rng = np.random.default_rng(SEED)
-    stations = []
-    while len(stations) < N_STATIONS:
-        lat, lon, elev = draw_station(rng)
-        obs = earth + wgs84.latlon(lat, lon, elevation_m=elev)
-        res = solver.contacts(obs)
-        seen = {c: t for c, t in res.items() if solver.sun_altitude_deg(obs, t) > 5.0}
-        if len(seen) >= 2:
-            stations.append((lat, lon, elev, seen))
+    stations = sites_seeing_contacts(earth, solver, draw_station, rng, N_STATIONS)
     rows = []
     for k, (lat, lon, elev, seen) in enumerate(stations):
         name = "exp-%02d" % (k + 1)
