@@ -11,9 +11,11 @@
 //! - `delta_t_polynomials.rs`: the Espenak-Meeus polynomials and the Morrison-Stephenson
 //!   parabola (published predictions the extrapolation weighs).
 //! - `calendar.rs`: dates in the Julian calendar (Old Style).
+//! - `civil.rs`: civil (clock) time in IANA zones and at fixed offsets.
 //! - `leap_seconds.rs`: the IERS table of TAI - UTC and the arithmetic of clock labels.
 //! - `iso.rs`: parsing and formatting ISO 8601 labels.
 pub mod calendar;
+pub mod civil;
 pub mod delta_t;
 pub mod delta_t_polynomials;
 pub mod iso;
