@@ -7,7 +7,7 @@
 use std::fmt::Write;
 use std::time::Instant;
 use transit_parallax::geometry::station::read_stations;
-use transit_parallax::render::prediction::predictions_csv;
+use transit_parallax::render::station_predictions::{predictions_csv, Clocks};
 use transit_parallax::time::iso::parse_date;
 use transit_parallax::time::scales::TimeModel;
 use transit_parallax::{transit_on_date, Planet};
@@ -37,7 +37,7 @@ fn main() -> Result<(), Box<dyn std::error::Error>> {
     let t2 = Instant::now();
     let predictions: Vec<_> = stations.iter().map(|s| event.predict(s)).collect();
     let t3 = Instant::now();
-    let csv = predictions_csv(&event, &predictions, None);
+    let csv = predictions_csv(&event, &predictions, Clocks::default());
     let t4 = Instant::now();
     let ms = |a: Instant, b: Instant| (b - a).as_secs_f64() * 1e3;
     println!(

@@ -88,6 +88,17 @@ pub enum Error {
         /// Each row not used: line, station, contact, reason and sentence.
         rows: Vec<String>,
     },
+    /// Rows of a stations or sites file that cannot be read, every one listed with its line,
+    /// column and fix.
+    #[error("{}: {}; fix these rows and run again:{}", file.display(), bad_rows_count(rows.len(), *total), rows_list(rows))]
+    BadRows {
+        /// The file.
+        file: PathBuf,
+        /// One line per bad row.
+        rows: Vec<String>,
+        /// Rows in the file (blank rows not counted).
+        total: usize,
+    },
     /// A numerical method failed to converge or met a degenerate case.
     #[error("computation failed: {0}")]
     Numerical(String),
@@ -105,6 +116,20 @@ impl Error {
             message: message.into(),
         }
     }
+}
+
+fn bad_rows_count(bad: usize, total: usize) -> String {
+    if bad == 1 && total == 1 {
+        "its one row cannot be read".to_string()
+    } else if bad == 1 {
+        format!("1 of its {total} rows cannot be read")
+    } else {
+        format!("{bad} of its {total} rows cannot be read")
+    }
+}
+
+fn rows_list(rows: &[String]) -> String {
+    rows.iter().map(|r| format!("\n  {r}")).collect()
 }
 
 fn rows_text(rows: &[String]) -> String {

@@ -183,6 +183,11 @@ pub struct PredictArgs {
     /// apparent (sundial time) or mean (column time_local, civil day reckoning).
     #[arg(long = "local-time", value_enum, value_name = "apparent|mean")]
     pub local_time: Option<LocalTimeArg>,
+    /// Also give each contact in civil (clock) time: an IANA zone such as Europe/Amsterdam or a
+    /// fixed offset such as +05:30 (column time_civil); a time_zone column in the stations
+    /// file sets it per station, this option filling the rows that leave it empty.
+    #[arg(long = "time-zone", value_name = "ZONE")]
+    pub time_zone: Option<String>,
     /// Write the Sun's brightness seen from the Earth's centre through the transit: .csv
     /// (time_utc,relative_flux) or .svg (the chart, contacts marked).
     #[arg(long = "light-curve", value_name = "FILE.csv|FILE.svg")]

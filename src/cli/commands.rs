@@ -7,14 +7,17 @@ use crate::args::{
     TransitsArgs,
 };
 use std::path::Path;
-use transit_parallax::geometry::station::{read_stations, read_stations_with_calendars};
+use transit_parallax::geometry::station::read_stations;
+use transit_parallax::geometry::station_file::read_station_file;
 use transit_parallax::observations::timings::read_observations;
 use transit_parallax::planning::{simulation, sites};
 use transit_parallax::reduction::planet_place::PlanetPlace;
 use transit_parallax::reduction::{reduce, ReduceOptions};
+use transit_parallax::render::station_predictions::{self, Clocks};
 use transit_parallax::render::text::Format;
 use transit_parallax::render::{document, planning, planning_charts, prediction, reduction};
 use transit_parallax::sky::constants::{nominal_parallax_arcsec, AU_KM};
+use transit_parallax::time::civil::CivilZone;
 use transit_parallax::{Contact, Error};
 
 /// Run one command; the text to print on success.
@@ -72,26 +75,33 @@ fn transits(a: TransitsArgs) -> Result<String, Error> {
 }
 
 fn predict(a: PredictArgs) -> Result<String, Error> {
-    let (stations, calendars) = read_stations_with_calendars(&a.stations)?;
+    let zone = a
+        .time_zone
+        .as_deref()
+        .map(CivilZone::parse)
+        .transpose()
+        .map_err(|m| Error::argument(format!("--time-zone: {m}")))?;
+    let file = read_station_file(&a.stations, zone)?;
     let event = a.event.transit()?;
-    let predictions: Vec<_> = stations.iter().map(|s| event.predict(s)).collect();
-    let local = a.local_time.map(|k| prediction::LocalClock {
-        kind: k.kind(),
-        calendars: &calendars,
-    });
+    let predictions: Vec<_> = file.stations.iter().map(|s| event.predict(s)).collect();
+    let clocks = Clocks {
+        solar: a.local_time.map(|k| k.kind()),
+        calendars: &file.calendars,
+        zones: &file.zones,
+    };
     if let Some(path) = &a.light_curve {
         write_light_curve(path, &[&event])?;
     }
     Ok(match a.format.format() {
-        Format::Table => prediction::predictions_table(&event, &predictions, local),
-        Format::Csv => prediction::predictions_csv(&event, &predictions, local),
+        Format::Table => station_predictions::predictions_table(&event, &predictions, clocks),
+        Format::Csv => station_predictions::predictions_csv(&event, &predictions, clocks),
         Format::Json => {
             let ephemeris = event.ephemeris_name();
-            pretty(&prediction::predictions_json(
+            pretty(&station_predictions::predictions_json(
                 &ephemeris,
                 &event,
                 &predictions,
-                local,
+                clocks,
             ))
         }
     })

@@ -5,11 +5,13 @@
 //! Sun's altitude and azimuth, the position and vertex angles and the sensitivity of each
 //! contact to the solar parallax.
 //!
-//! - `station.rs`: stations on WGS 84, their geocentric coordinates, reading station files.
+//! - `station.rs`: stations on WGS 84 and their geocentric coordinates.
+//! - `station_file.rs`: reading stations files (places, calendars, civil zones), every bad row at once.
 //! - `besselian.rs`: the fundamental-plane elements of an event, fitted as Chebyshev series.
 //! - `contacts.rs`: a station's contacts, circumstances, partial derivatives, full-model check.
 //! - `transit.rs`: finding transits, naming an event by date, predicting stations.
 pub mod besselian;
 pub mod contacts;
 pub mod station;
+pub mod station_file;
 pub mod transit;

@@ -1,12 +1,8 @@
 //! Observing stations on the WGS 84 ellipsoid and their geocentric coordinates.
 
 use crate::error::{Error, Result};
-use crate::observations::csv_table::CsvTable;
-use crate::observations::rows::{place, PlaceColumns};
 use crate::sky::constants::{EARTH_EQUATORIAL_RADIUS_M, WGS84_A_M, WGS84_F};
-use crate::time::calendar::Calendar;
 use serde::Serialize;
-use std::path::Path;
 
 /// Lowest elevation accepted, metres (the Dead Sea shore is at about -430 m).
 pub const MIN_ELEVATION_M: f64 = -500.0;
@@ -103,95 +99,9 @@ pub fn normalise_longitude_deg(lon: f64) -> f64 {
     }
 }
 
-/// Read a stations file: columns `station,latitude,longitude[,elevation_m]` found by name
-/// (a missing `elevation_m` column means 0 m).
-///
-/// Errors: unreadable or empty file, missing column, non-numeric or out-of-range value,
-/// empty or repeated station name; each names file, line and column.
-pub fn read_stations(path: &Path) -> Result<Vec<Station>> {
-    let table = CsvTable::read(path)?;
-    stations_from_table(&table)
-}
-
-/// Stations from an already-read CSV table (see [`read_stations`]).
-pub fn stations_from_table(table: &CsvTable) -> Result<Vec<Station>> {
-    stations_and_calendars(table).map(|(s, _)| s)
-}
-
-/// Read a stations file with each station's calendar (`calendar`: the calendar its local
-/// times are written in; Gregorian where the column is absent or empty).
-///
-/// Errors: as [`read_stations`], and a calendar that is neither `gregorian` nor `julian`.
-pub fn read_stations_with_calendars(path: &Path) -> Result<(Vec<Station>, Vec<Calendar>)> {
-    let table = CsvTable::read(path)?;
-    stations_and_calendars(&table)
-}
-
-/// Stations and their calendars from a table (columns `station`, `latitude`, `longitude`,
-/// optionally `elevation_m`, `meridian` and `calendar`).
-pub fn stations_and_calendars(table: &CsvTable) -> Result<(Vec<Station>, Vec<Calendar>)> {
-    let c_name = table.require("station")?;
-    let c_lat = table.require("latitude")?;
-    let c_lon = table.require("longitude")?;
-    let c_elev = table.optional("elevation_m");
-    let c_meridian = table.optional("meridian");
-    let c_calendar = table.optional("calendar");
-    let mut calendars = Vec::with_capacity(table.records.len());
-    let mut out: Vec<Station> = Vec::with_capacity(table.records.len());
-    let mut seen: std::collections::HashMap<&str, u64> =
-        std::collections::HashMap::with_capacity(table.records.len());
-    for (line, rec) in &table.records {
-        let name = table.text(rec, c_name);
-        if name.is_empty() {
-            return Err(Error::Input {
-                location: table.location(*line, Some(c_name)),
-                message: "the station name is empty".into(),
-                hint: "give every station a name".into(),
-            });
-        }
-        if let Some(first) = seen.insert(name, *line) {
-            return Err(Error::Input {
-                location: table.location(*line, Some(c_name)),
-                message: format!("station '{name}' was already given on line {first}"),
-                hint: "give each station once, with a unique name".into(),
-            });
-        }
-        if let Some(c) = c_calendar {
-            let text = table.text(rec, c);
-            calendars.push(Calendar::parse(text).ok_or_else(|| Error::Input {
-                location: table.location(*line, Some(c)),
-                message: format!("'{text}' is not a calendar"),
-                hint: "write gregorian (New Style, the default) or julian (Old Style)".into(),
-            })?);
-        }
-        let cols = PlaceColumns {
-            lat: c_lat,
-            lon: c_lon,
-            elev: c_elev,
-            meridian: c_meridian,
-        };
-        let (lat, lon, elev, _) =
-            place(table, *line, rec, cols).map_err(|(message, col)| Error::Input {
-                location: table.location(*line, col),
-                message,
-                hint: "correct the station's place (a sign, a digit or the hemisphere letter may be wrong)".into(),
-            })?;
-        out.push(Station {
-            name: name.to_string(),
-            latitude_deg: lat,
-            longitude_deg: normalise_longitude_deg(lon),
-            elevation_m: elev,
-        });
-    }
-    if out.is_empty() {
-        return Err(Error::Input {
-            location: table.location(1, None),
-            message: "the file has a header but no stations".into(),
-            hint: "add one row per station".into(),
-        });
-    }
-    Ok((out, calendars))
-}
+pub use super::station_file::{
+    read_stations, read_stations_with_calendars, stations_and_calendars, stations_from_table,
+};
 
 #[cfg(test)]
 mod tests {

@@ -5,7 +5,8 @@
 //!
 //! - `text.rs`: helpers every renderer shares (formats, rounding, CSV fields, the
 //!   solar-observing caution).
-//! - `prediction.rs`: `transits` and `predict` tables, CSV and JSON.
+//! - `prediction.rs`: `transits` table, CSV and JSON.
+//! - `station_predictions.rs`: `predict` table, CSV and JSON, with local solar and civil time.
 //! - `planning.rs`: `plan` and `simulate` tables, CSV and JSON; sensitivity grids.
 //! - `reduction.rs`: `reduce` table and JSON.
 //! - `svg.rs`: what every chart shares: escaping, the SVG opening, ticks, land outlines and
@@ -31,6 +32,7 @@ pub mod planning_charts;
 pub mod prediction;
 pub mod reduction;
 pub mod report_sections;
+pub mod station_predictions;
 pub mod svg;
 pub mod text;
 pub mod what_else;
