@@ -128,6 +128,12 @@ pub enum Command {
         after_help = "Examples:\n  transit-parallax serve --planet venus --date 2117-12-11 --db campaign.sqlite\n  transit-parallax serve --planet mercury --date 2032-11-13 --db campaign.sqlite --listen 127.0.0.1:8080 --token s3cret"
     )]
     Serve(ServeArgs),
+    /// Print a blank stations or observations file: its header, how to write each column and
+    /// one example row, commented out.
+    #[command(
+        after_help = "Examples:\n  transit-parallax template stations > stations.csv\n  transit-parallax template observations > timings.csv"
+    )]
+    Template(TemplateArgs),
     /// Print a shell completion script (bash, zsh, fish, elvish or powershell).
     #[command(
         after_help = "Examples:\n  transit-parallax completions bash > /etc/bash_completion.d/transit-parallax\n  transit-parallax completions zsh > ~/.zfunc/_transit-parallax"
@@ -138,6 +144,21 @@ pub enum Command {
         after_help = "Examples:\n  transit-parallax manual > transit-parallax.1\n  transit-parallax manual | man -l -"
     )]
     Manual,
+}
+
+// Arguments of `template`.
+#[derive(clap::Args)]
+pub struct TemplateArgs {
+    /// Which file: stations (for predict and plan) or observations (timings, for reduce).
+    #[arg(value_enum)]
+    pub kind: TemplateArg,
+}
+
+/// Values of `template`.
+#[derive(clap::ValueEnum, Clone, Copy, Debug)]
+pub enum TemplateArg {
+    Stations,
+    Observations,
 }
 
 // Arguments of `completions`.

@@ -4,11 +4,12 @@
 use crate::args::{date_of, planet_of};
 use crate::args::{
     Cli, Command, DemoArgs, PlanArgs, PredictArgs, ReduceArgs, ServeArgs, SimulateArgs,
-    TransitsArgs,
+    TemplateArg, TransitsArgs,
 };
 use std::path::Path;
 use transit_parallax::geometry::station::read_stations;
 use transit_parallax::geometry::station_file::read_station_file;
+use transit_parallax::observations::templates::{template_text, TemplateKind};
 use transit_parallax::observations::timings::read_observations;
 use transit_parallax::planning::{simulation, sites};
 use transit_parallax::reduction::planet_place::PlanetPlace;
@@ -30,6 +31,10 @@ pub fn run(command: Command) -> Result<String, Error> {
         Command::Simulate(a) => simulate(a),
         Command::Demo(a) => demo(a),
         Command::Serve(a) => serve(a),
+        Command::Template(a) => Ok(template_text(match a.kind {
+            TemplateArg::Stations => TemplateKind::Stations,
+            TemplateArg::Observations => TemplateKind::Observations,
+        })),
         Command::Completions(a) => completions(a.shell),
         Command::Manual => manual(),
     }

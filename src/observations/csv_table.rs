@@ -21,6 +21,9 @@ impl CsvTable {
     /// Errors: the file cannot be read, is not UTF-8 (the line and byte column are named), is
     /// empty, or is not valid CSV.
     pub fn read(path: &Path) -> Result<CsvTable> {
+        if super::spreadsheet::is_spreadsheet(path) {
+            return super::spreadsheet::read_first_sheet(path);
+        }
         let bytes = std::fs::read(path).map_err(|source| Error::Io {
             path: path.to_path_buf(),
             source,
@@ -28,12 +31,14 @@ impl CsvTable {
         Self::from_bytes(path, &bytes)
     }
 
-    /// Parse CSV text held in memory; `path` labels it in messages.
+    /// Parse CSV text held in memory; `path` labels it in messages. The separator (comma,
+    /// semicolon or tab) is found from the header line, or from a first line `sep=;`; in a
+    /// semicolon- or tab-separated file a decimal comma (`52,1601`) reads as a decimal point.
+    /// Rows whose every field is empty (a spreadsheet's blank rows) are left out.
     ///
     /// Errors: not UTF-8; empty; a CSV syntax error (line named).
     pub fn from_bytes(path: &Path, bytes: &[u8]) -> Result<CsvTable> {
         let text = decode_text(path, bytes)?;
-        let text = text.as_ref();
         if text.trim().is_empty() {
             return Err(Error::Input {
                 location: Location {
@@ -45,10 +50,13 @@ impl CsvTable {
                 hint: "give a header row and at least one data row".into(),
             });
         }
+        let (text, separator) = separator_of(text);
+        let text = text.as_ref();
         let mut reader = csv::ReaderBuilder::new()
             .flexible(true)
             .trim(csv::Trim::All)
             .comment(Some(b'#'))
+            .delimiter(separator)
             .from_reader(text.as_bytes());
         let headers: Vec<String> = reader
             .headers()
@@ -57,10 +65,19 @@ impl CsvTable {
             .map(|h| h.trim().to_ascii_lowercase())
             .collect();
         let line_of = line_finder(text);
+        let decimal_comma = separator != b',';
         let mut records = Vec::new();
         for rec in reader.records() {
             let rec = rec.map_err(|e| csv_error(path, &e))?;
+            if rec.iter().all(str::is_empty) {
+                continue;
+            }
             let line = rec.position().map(|p| line_of(p.byte())).unwrap_or(0);
+            let rec = if decimal_comma {
+                with_decimal_points(&headers, &rec)
+            } else {
+                rec
+            };
             records.push((line, rec));
         }
         Ok(CsvTable {
@@ -170,6 +187,86 @@ fn decode_text<'a>(path: &Path, bytes: &'a [u8]) -> Result<std::borrow::Cow<'a, 
     })
 }
 
+/// Columns whose text is free (names and notes): a comma there is a comma.
+const TEXT_COLUMNS: [&str; 9] = [
+    "station",
+    "observer",
+    "note",
+    "notes",
+    "comment",
+    "comments",
+    "remarks",
+    "instrument",
+    "time_zone",
+];
+
+/// The separator of a delimited text: a first line `sep=X` (a spreadsheet convention), kept in
+/// place as a comment so that line numbers hold; else whichever of comma, semicolon and tab
+/// the header line (the first that is neither blank nor a comment) has most of, outside quotes
+/// (a comma on a tie). RFC 4180 describes the comma-separated form; the others differ only in
+/// the separator.
+fn separator_of(text: std::borrow::Cow<'_, str>) -> (std::borrow::Cow<'_, str>, u8) {
+    // Not trimmed: the separator may be a tab.
+    let first = text.lines().next().unwrap_or("");
+    let first = first.strip_suffix(' ').unwrap_or(first);
+    if first.len() == 5 && first.is_char_boundary(4) && first[..4].eq_ignore_ascii_case("sep=") {
+        let sep = first.as_bytes()[4];
+        let mut owned = text.into_owned();
+        owned.replace_range(..1, "#");
+        return (owned.into(), sep);
+    }
+    let header = text
+        .lines()
+        .map(str::trim)
+        .find(|l| !l.is_empty() && !l.starts_with('#'))
+        .unwrap_or("");
+    let mut counts = [0usize; 3];
+    let mut quoted = false;
+    for c in header.chars() {
+        match c {
+            '"' => quoted = !quoted,
+            ',' if !quoted => counts[0] += 1,
+            ';' if !quoted => counts[1] += 1,
+            '\t' if !quoted => counts[2] += 1,
+            _ => {}
+        }
+    }
+    let sep = [b',', b';', b'\t']
+        .into_iter()
+        .zip(counts)
+        .fold(
+            (b',', 0),
+            |best, (s, n)| if n > best.1 { (s, n) } else { best },
+        )
+        .0;
+    (text, sep)
+}
+
+/// A record with each decimal comma (`52,1601`, `51°28'40,5"N`, `04:26:38,5Z`) read as a point:
+/// a field outside the text columns with one comma, between two digits.
+fn with_decimal_points(headers: &[String], rec: &csv::StringRecord) -> csv::StringRecord {
+    let mut out = csv::StringRecord::new();
+    for (k, field) in rec.iter().enumerate() {
+        let text_column = headers
+            .get(k)
+            .is_some_and(|h| TEXT_COLUMNS.contains(&h.as_str()));
+        let b = field.as_bytes();
+        let comma = field.find(',');
+        let decimal = !text_column
+            && field.matches(',').count() == 1
+            && comma.is_some_and(|i| {
+                i > 0 && i + 1 < b.len() && b[i - 1].is_ascii_digit() && b[i + 1].is_ascii_digit()
+            });
+        if decimal {
+            out.push_field(&field.replace(',', "."));
+        } else {
+            out.push_field(field);
+        }
+    }
+    out.set_position(rec.position().cloned());
+    out
+}
+
 /// Line numbers counted from the records' byte offsets (the csv crate's own line count skips
 /// comment lines): the line of the first non-blank, non-comment line at or after a byte.
 fn line_finder(text: &str) -> impl Fn(u64) -> u64 + '_ {
@@ -204,7 +301,9 @@ fn csv_error(path: &Path, e: &csv::Error) -> Error {
             column: None,
         },
         message: format!("malformed CSV ({e})"),
-        hint: "check quoting and separators (comma-separated, header row first)".into(),
+        hint:
+            "check quoting and separators (comma-, semicolon- or tab-separated, header row first)"
+                .into(),
     }
 }
 

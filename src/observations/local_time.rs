@@ -42,6 +42,7 @@ impl LocalReading {
                 zone: Zone::Missing,
                 range_s: None,
                 minute_only: false,
+                undated: false,
             },
         }
     }
@@ -87,6 +88,12 @@ pub fn parse_local(
         (m, cols.time_local)
     })?;
     let (reading, zone) = (written.label, written.zone);
+    if written.undated {
+        return Err((
+            format!("'{time_local}' has no date; a local solar time needs its date, e.g. 1769-06-03T21:25:03.5"),
+            cols.time_local,
+        ));
+    }
     if zone != Zone::Missing {
         return Err((
             format!("'{time_local}' carries a zone, but a local solar time has none; write the clock reading as it was recorded, e.g. 1769-06-03T21:25:03.5"),

@@ -9,6 +9,8 @@
 //! - `local_time.rs`: readings in local apparent or mean solar time, converted to UT1.
 //! - `contact_forms.rs`: pairs of contacts for timed intervals and how a contact was judged.
 //! - `rows.rs`: one row of an observations file into one timing.
+//! - `spreadsheet.rs`: the first sheet of an .xlsx or .ods file read as a table.
+//! - `templates.rs`: blank stations and observations files with one commented example row.
 //! - `readings.rs`: times and durations as written: Julian dates, ranges, times to the minute.
 //! - `longitude.rs`: how well a station's longitude is known (`longitude_sigma_deg`).
 //! - `timings.rs`: reading and validating timings; rejected rows and their reasons.
@@ -19,4 +21,6 @@ pub mod local_time;
 pub mod longitude;
 pub mod readings;
 pub mod rows;
+pub mod spreadsheet;
+pub mod templates;
 pub mod timings;

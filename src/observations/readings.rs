@@ -30,6 +30,89 @@ pub struct TimeReading {
     pub range_s: Option<f64>,
     /// Whether the time was written to the minute only (`22:27`).
     pub minute_only: bool,
+    /// Whether the time was written without a date (`22:27:46Z`): `label` then stands on
+    /// [`UNDATED_DAY`] until the reduction gives it the date nearest the predicted contact.
+    pub undated: bool,
+}
+
+/// The day an undated time stands on until its date is completed from the event.
+pub const UNDATED_DAY: (i32, u32, u32) = (2000, 1, 1);
+
+/// Whether a text is a time of day with no date: `22:27:46`, `22:27`, `22:27:46.5Z`,
+/// `9:05:00+02:00` (ISO 8601-1:2019 §5.3: a local time or UTC time of day).
+fn is_time_of_day(text: &str) -> bool {
+    let (fields, zone) = time_fields(text);
+    let zone_ok = zone.is_empty()
+        || zone.eq_ignore_ascii_case("z")
+        || (zone.starts_with(['+', '-']) && zone.len() >= 3);
+    (2..=3).contains(&fields.len())
+        && zone_ok
+        && fields.iter().enumerate().all(|(k, f)| {
+            let digits = if k == 2 {
+                f.split_once('.').map_or(*f, |(a, _)| a)
+            } else {
+                f
+            };
+            (1..=2).contains(&digits.len()) && digits.chars().all(|c| c.is_ascii_digit())
+        })
+}
+
+/// A time's decimal comma (ISO 8601-1:2019 §3.2.6 prefers the comma as decimal sign:
+/// `04:26:38,5Z`) as a point; only a comma between two digits after the last colon is read so.
+fn decimal_point(text: &str) -> std::borrow::Cow<'_, str> {
+    let Some(colon) = text.rfind(':') else {
+        return text.into();
+    };
+    let b = text.as_bytes();
+    match text[colon..].find(',').map(|i| colon + i) {
+        Some(i)
+            if i > 0
+                && i + 1 < b.len()
+                && b[i - 1].is_ascii_digit()
+                && b[i + 1].is_ascii_digit() =>
+        {
+            let mut owned = text.to_string();
+            owned.replace_range(i..=i, ".");
+            owned.into()
+        }
+        _ => text.into(),
+    }
+}
+
+/// The message for a date that has the form YYYY-MM-DD but no such day (`2032-11-31`), if so.
+fn no_such_day(text: &str) -> Option<String> {
+    let date = text.get(..10)?;
+    let parts: Vec<&str> = date.split('-').collect();
+    let [y, m, d] = parts.as_slice() else {
+        return None;
+    };
+    if y.len() != 4 || m.len() != 2 || d.len() != 2 {
+        return None;
+    }
+    let (y, m, d): (i32, u32, u32) = (y.parse().ok()?, m.parse().ok()?, d.parse().ok()?);
+    if chrono::NaiveDate::from_ymd_opt(y, m, d).is_some() {
+        return None;
+    }
+    const MONTHS: [&str; 12] = [
+        "January",
+        "February",
+        "March",
+        "April",
+        "May",
+        "June",
+        "July",
+        "August",
+        "September",
+        "October",
+        "November",
+        "December",
+    ];
+    Some(match MONTHS.get((m as usize).wrapping_sub(1)) {
+        Some(name) => format!("no such day: {name} {y} has no day {d}; check the date in '{text}'"),
+        None => format!(
+            "no such day: there is no month {m:02} in '{text}'; write the date as YYYY-MM-DD"
+        ),
+    })
 }
 
 impl TimeReading {
@@ -65,10 +148,20 @@ fn parse_instant(text: &str, calendar: Calendar) -> Result<(NaiveDateTime, Zone,
     };
     let (date, rest) = match split_date(t, calendar) {
         Some(x) => x,
+        None if is_time_of_day(t) => {
+            let (y, m, d) = UNDATED_DAY;
+            let day = chrono::NaiveDate::from_ymd_opt(y, m, d).ok_or_else(bad)?;
+            let (fields, _) = time_fields(t);
+            let normal = format!("{}T{t}", day.format("%Y-%m-%d"));
+            let (label, zone) = parse_utc_zoned(&normal).map_err(|_| {
+                format!("'{t}' is not a time of day; write it like 22:27:46 (or with its date, 2012-06-05T22:27:46Z)")
+            })?;
+            return Ok((label, zone, fields.len() == 2));
+        }
         None if calendar == Calendar::Julian && split_date(t, Calendar::Gregorian).is_none() => {
             return Err(format!("'{t}' does not begin with a date of the Julian calendar (YYYY-MM-DD); check the day and month"));
         }
-        None => return Err(bad()),
+        None => return Err(no_such_day(t).unwrap_or_else(bad)),
     };
     let (fields, _) = time_fields(rest);
     let minute_only = fields.len() == 2;
@@ -120,15 +213,21 @@ fn range_end(
 /// Errors: a sentence saying what is wrong and how to write it (a range that ends before it
 /// begins, or spans more than [`MAX_RANGE_S`]).
 pub fn parse_time_reading(text: &str, calendar: Calendar) -> Result<TimeReading, String> {
-    let t = text.trim();
+    let t = decimal_point(text.trim());
+    let t = t.as_ref();
+    if t.is_empty() {
+        return Err("missing time: the cell is empty; write the time like 2012-06-05T22:25:41.3Z, or delete the row if the contact was not timed".into());
+    }
     let Some((start_text, end_text)) = t.split_once('/') else {
         let (label, zone, minute_only) = parse_instant(t, calendar)?;
+        let undated = split_date(t, calendar).is_none();
         return Ok(if minute_only {
             TimeReading {
                 label: label + chrono::TimeDelta::seconds(30),
                 zone,
                 range_s: Some(60.0),
                 minute_only: true,
+                undated,
             }
         } else {
             TimeReading {
@@ -136,9 +235,13 @@ pub fn parse_time_reading(text: &str, calendar: Calendar) -> Result<TimeReading,
                 zone,
                 range_s: None,
                 minute_only: false,
+                undated,
             }
         });
     };
+    if split_date(start_text, calendar).is_none() && is_time_of_day(start_text) {
+        return Err(format!("the range '{t}' has no date; write its start with its date, 2012-06-05T22:25:40/22:25:43"));
+    }
     let (start, zone, _) = parse_instant(start_text, calendar)?;
     let end = range_end(start_text, end_text, calendar)?;
     let width = seconds_between(start, end);
@@ -157,13 +260,14 @@ pub fn parse_time_reading(text: &str, calendar: Calendar) -> Result<TimeReading,
         zone,
         range_s: Some(width),
         minute_only: false,
+        undated: false,
     })
 }
 
 /// One duration: `H:MM:SS` (seconds may carry decimals), `H:MM` (to the minute), ISO 8601
 /// `PT5H49M52.5S`, or a plain number of seconds; returns seconds and whether it was written
 /// to the minute only.
-fn parse_one_duration(text: &str) -> Option<(f64, bool)> {
+pub(crate) fn parse_one_duration(text: &str) -> Option<(f64, bool)> {
     let t = text.trim();
     if let Some(iso) = t.strip_prefix("PT").or_else(|| t.strip_prefix("pt")) {
         let mut total = 0.0;
@@ -307,6 +411,25 @@ mod tests {
             let e = parse_time_reading(text, calendar).unwrap_err();
             assert!(e.contains(needle), "{text}: {e}");
         }
+    }
+
+    #[test]
+    fn times_of_day_decimal_commas_and_impossible_days() {
+        // ISO 8601-1:2019 §3.2.6: the comma is a decimal sign.
+        let r = parse_time_reading("2032-11-13T04:26:38,5Z", Calendar::Gregorian).expect("comma");
+        assert_eq!(r.label.to_string(), "2032-11-13 04:26:38.500");
+        for text in ["22:27:46", "22:27:46Z", "22:27:46,5", "9:05:00+02:00"] {
+            let r = parse_time_reading(text, Calendar::Gregorian).expect(text);
+            assert!(r.undated && !r.minute_only, "{text}");
+        }
+        let r = parse_time_reading("22:27", Calendar::Gregorian).expect("minute");
+        assert!(r.undated && r.minute_only);
+        assert_eq!(r.label.time().to_string(), "22:27:30");
+        let e = parse_time_reading("2032-11-31T10:00:00Z", Calendar::Gregorian).unwrap_err();
+        assert!(e.contains("no such day: November 2032 has no day 31"), "{e}");
+        let e = parse_time_reading("  ", Calendar::Gregorian).unwrap_err();
+        assert!(e.starts_with("missing time"), "{e}");
+        assert!(parse_time_reading("22:27:46/22:27:50", Calendar::Gregorian).is_err());
     }
 
     #[test]

@@ -310,6 +310,7 @@ fn row_timing(
     let (reading, local) = row_time(table, rec, cols, (lon, tm, written.calendar))?;
     written.range_s = reading.range_s;
     written.minute_only = reading.minute_only;
+    written.undated = reading.undated;
     Ok(RowTiming {
         contact,
         interval: None,

@@ -102,6 +102,8 @@ pub struct AsWritten {
     pub range_s: Option<f64>,
     /// Whether the time was written to the minute only.
     pub minute_only: bool,
+    /// Whether the time was written without a date; the reduction completes it.
+    pub undated: bool,
     /// Whether the longitude was written in hours of time.
     pub longitude_in_time: bool,
 }
@@ -186,7 +188,7 @@ impl Observation {
 
     /// Whether the row's time says when (an instant, or an interval with a date).
     pub fn is_dated(&self) -> bool {
-        self.duration.map_or(true, |d| d.date.is_some())
+        !self.written.undated && self.duration.map_or(true, |d| d.date.is_some())
     }
 }
 

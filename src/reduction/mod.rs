@@ -18,6 +18,7 @@
 //! - `fit.rs`: Gauss-Newton iteration.
 //! - `statistics.rs`: chi-square, p-value, Birge ratio, coverage factors, robust scale.
 //! - `screening.rs`: timings of the event, visibility, pre-screening, sigma clipping.
+//! - `undated.rs`: times written without a date take the date nearest their predicted contact.
 //! - `diagnosis.rs`: the blunder rules (zone time, date, contacts exchanged, coordinates,
 //!   clocks).
 //! - `historical_diagnosis.rs`: the blunders of historical records (day reckonings, apparent
@@ -52,6 +53,7 @@ pub mod rejection;
 pub mod result;
 pub mod screening;
 pub mod statistics;
+pub mod undated;
 
 pub use pipeline::{reduce, reduce_for_event};
 pub use result::{

@@ -71,7 +71,7 @@ fn infer_event(valid: &[Observation], model: &TimeModel) -> Result<TransitEvent>
         .collect();
     if times.is_empty() {
         return Err(Error::argument(
-            "every row is a timed interval with no date, so the transit cannot be found from the file; give --planet and --date",
+            "no row gives a date (each is a time of day alone or a timed interval without one), so the transit cannot be found from the file; give --planet and --date",
         ));
     }
     times.sort();
@@ -111,6 +111,10 @@ pub fn reduce_for_event(
 ) -> Result<Reduction> {
     check_parallax(options.prior_parallax_arcsec)?;
     let model = *event.time_model();
+    let mut set = set;
+    if let Some(note) = super::undated::complete_dates(&mut set.valid, &event) {
+        set.notes.push(note);
+    }
     let mut rejected = set.rejected.clone();
     let timings = timings_of_event(&set.valid, &event, &model, &mut rejected)?;
     let mut params = ParameterSet::classic(options.prior_parallax_arcsec);

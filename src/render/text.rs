@@ -7,8 +7,9 @@ use crate::time::iso::push_digits;
 /// The caution printed with every output meant for observers.
 pub const SAFETY_CAUTION: &str = "CAUTION: looking at the Sun can blind. Never look at the Sun, \
 even briefly or partly covered, without a certified solar filter on the front of the telescope \
-or eye, or watch its image projected on a screen. Follow local guidance, the rules of your \
-site and the directions of an experienced supervisor.";
+or eye, or watch its image projected on a screen. Never look through an optical finder: cap it \
+or take it off. Follow local guidance, the rules of your site and the directions of an \
+experienced supervisor.";
 
 /// Output formats.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
