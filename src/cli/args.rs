@@ -94,7 +94,7 @@ impl EventArgs {
 pub enum Command {
     /// List every transit of a planet in a span of years, with geocentric contacts.
     #[command(
-        after_help = "Examples:\n  transit-parallax transits --planet venus --from 1600 --to 2300\n  transit-parallax transits --planet mercury --from 2030 --to 2060 --format csv"
+        after_help = "Examples:\n  transit-parallax transits --planet venus --from 1600 --to 2300\n  transit-parallax transits --planet mercury --from 2030 --to 2060 --format csv\n  transit-parallax transits --planet mercury --date 2032-11-13 --visibility-map mercury-2032.svg --visibility-grid mercury-2032.csv"
     )]
     Transits(TransitsArgs),
     /// Predict contacts I-IV for each station of a file.
@@ -154,12 +154,16 @@ pub struct TransitsArgs {
     /// venus or mercury.
     #[arg(long)]
     pub planet: String,
-    /// First year (1600-2300).
+    /// First year (1600-2300), with --to.
+    #[arg(long, requires = "to", conflicts_with = "date")]
+    pub from: Option<i32>,
+    /// Last year (1600-2300), with --from.
+    #[arg(long, requires = "from", conflicts_with = "date")]
+    pub to: Option<i32>,
+    /// One transit instead of a span of years: a date within one day of its greatest
+    /// transit, YYYY-MM-DD (UTC); needed by --visibility-map and --visibility-grid.
     #[arg(long)]
-    pub from: i32,
-    /// Last year (1600-2300).
-    #[arg(long)]
-    pub to: i32,
+    pub date: Option<String>,
     /// Output format.
     #[arg(long, value_enum, default_value = "table")]
     pub format: FormatArg,
@@ -169,6 +173,24 @@ pub struct TransitsArgs {
     /// (time_utc,relative_flux; every transit of the years) or .svg (the chart; one transit).
     #[arg(long = "light-curve", value_name = "FILE.csv|FILE.svg")]
     pub light_curve: Option<PathBuf>,
+    /// Draw the world map of where the transit (--date) is seen with the Sun up: whole,
+    /// ingress only, egress only, part or nothing; the horizon at contacts I and IV; lines of
+    /// equal time of each contact.
+    #[arg(long = "visibility-map", value_name = "FILE.svg")]
+    pub visibility_map: Option<PathBuf>,
+    /// Write the map's grid (--date): latitude,longitude,contact,time_utc,sun_altitude_deg
+    /// for every grid point and contact (time and altitude empty where a contact does not
+    /// occur).
+    #[arg(long = "visibility-grid", value_name = "FILE.csv")]
+    pub visibility_grid: Option<PathBuf>,
+    /// Spacing of the visibility grid, degrees (0.5 to 30).
+    #[arg(
+        long = "grid-deg",
+        value_name = "G",
+        default_value_t = 2.0,
+        allow_hyphen_values = true
+    )]
+    pub grid_deg: f64,
 }
 
 // Arguments of `predict`.

@@ -5,7 +5,9 @@ use crate::geometry::contacts::Contact;
 use crate::geometry::station::Station;
 use crate::render::charts::residual_colour;
 use crate::render::labels::wrapped_text;
-use crate::render::svg::{esc, graticule_labels, land_svg, svg_open, ticks, trim_tick};
+use crate::render::svg::{
+    esc, graticule_labels, grid_cells_svg, land_svg, svg_open, ticks, trim_tick, world_px,
+};
 use std::fmt::Write;
 
 /// Colour for a sensitivity (s/arcsec) on a diverging scale saturating at `limit`.
@@ -23,7 +25,7 @@ pub fn sensitivity_map_svg(
     title: &str,
 ) -> String {
     let (w, h) = (720.0, 360.0);
-    let px = |lon: f64, lat: f64| ((lon + 180.0) * 2.0, (90.0 - lat) * 2.0);
+    let px = world_px;
     let limit = points
         .iter()
         .filter(|p| p.sun_altitude_deg >= min_altitude_deg)
@@ -42,30 +44,13 @@ pub fn sensitivity_map_svg(
         (p.sun_altitude_deg >= min_altitude_deg && p.sensitivity_s_per_arcsec.is_finite())
             .then(|| (p.sensitivity_s_per_arcsec / limit * 8.0).round() as i32)
     };
-    let mut i = 0;
-    while i < points.len() {
-        let p = &points[i];
-        let b = bin(p);
-        let mut j = i + 1;
-        while j < points.len() && points[j].latitude_deg == p.latitude_deg && bin(&points[j]) == b {
-            j += 1;
-        }
-        if let Some(b) = b {
-            let (x0, y0) = px(
-                p.longitude_deg - step_deg / 2.0,
-                p.latitude_deg + step_deg / 2.0,
-            );
-            let (x1, _) = px(points[j - 1].longitude_deg + step_deg / 2.0, p.latitude_deg);
-            let _ = writeln!(
-                s,
-                "<rect x=\"{x0:.1}\" y=\"{y0:.1}\" width=\"{:.1}\" height=\"{:.1}\" fill=\"{}\"/>",
-                x1 - x0,
-                step_deg * 2.0,
-                sensitivity_colour(f64::from(b) / 8.0 * limit, limit)
-            );
-        }
-        i = j;
-    }
+    let centres: Vec<(f64, f64)> = points
+        .iter()
+        .map(|p| (p.longitude_deg, p.latitude_deg))
+        .collect();
+    s.push_str(&grid_cells_svg(&centres, (step_deg, step_deg), |k| {
+        bin(&points[k]).map(|b| sensitivity_colour(f64::from(b) / 8.0 * limit, limit))
+    }));
     // Land shaded lightly over everything, so that ocean tells from land where the contact is
     // not seen as well as where it is.
     s.push_str(&land_svg("rgba(55,65,81,0.22)", "#374151", 0.5));
