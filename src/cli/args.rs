@@ -302,8 +302,9 @@ pub struct PlanArgs {
     /// Output format.
     #[arg(long, value_enum, default_value = "table")]
     pub format: FormatArg,
-    /// Draw a world map of the sensitivity of one contact (with --contact) to this SVG file.
-    #[arg(long, value_name = "FILE.svg", requires = "contact")]
+    /// Draw a world map of the sensitivity of one contact (with --contact) to this SVG file,
+    /// the sites numbered with a key and the chosen ones (--choose) marked.
+    #[arg(long, value_name = "FILE.svg")]
     pub map: Option<PathBuf>,
     /// The contact for --map and --grid-csv: 1-4 or I-IV.
     #[arg(long)]
@@ -312,7 +313,7 @@ pub struct PlanArgs {
     #[arg(long = "grid-deg", value_name = "DEG", default_value_t = 2.0)]
     pub grid_deg: f64,
     /// Also write the grid as CSV (with --contact).
-    #[arg(long = "grid-csv", value_name = "FILE.csv", requires = "contact")]
+    #[arg(long = "grid-csv", value_name = "FILE.csv")]
     pub grid_csv: Option<PathBuf>,
 }
 

@@ -193,6 +193,16 @@ fn plan(a: PlanArgs) -> Result<String, Error> {
     check_range("--sigma-s", a.sigma_s, 0.01, 3600.0)?;
     check_range("--min-altitude", a.min_altitude, -1.0, 60.0)?;
     check_range("--grid-deg", a.grid_deg, 0.1, 30.0)?;
+    if a.contact.is_none() && (a.map.is_some() || a.grid_csv.is_some()) {
+        let option = if a.map.is_some() {
+            "--map"
+        } else {
+            "--grid-csv"
+        };
+        return Err(Error::argument(format!(
+            "{option} shows one contact's sensitivity: add --contact 1, 2, 3 or 4 (I to IV) to say which; run once per contact for more"
+        )));
+    }
     let stations = read_stations(&a.sites)?;
     match a.choose {
         Some(0) => {
@@ -237,7 +247,7 @@ fn plan(a: PlanArgs) -> Result<String, Error> {
             &grid,
             (a.grid_deg, a.min_altitude),
             contact,
-            &stations,
+            (&stations, &plan.chosen),
             &title,
         );
         write_file(path, &svg)?;
