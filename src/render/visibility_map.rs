@@ -30,9 +30,9 @@ const MAP_TOP: f64 = 26.0;
 const LABEL_PX: f64 = 9.0;
 /// Spacings tried for the lines of equal time, minutes: the smallest that gives at most
 /// [`MAX_TIME_LINES`] lines for every contact is used.
-const TIME_STEPS_MIN: [f64; 9] = [0.5, 1.0, 2.0, 5.0, 10.0, 15.0, 30.0, 60.0, 120.0];
+pub const TIME_STEPS_MIN: [f64; 9] = [0.5, 1.0, 2.0, 5.0, 10.0, 15.0, 30.0, 60.0, 120.0];
 /// Most lines of equal time drawn for one contact.
-const MAX_TIME_LINES: usize = 5;
+pub const MAX_TIME_LINES: usize = 5;
 
 /// The grid as CSV: one row per grid point and contact, north to south, west to east, contacts
 /// I-IV. `time_utc` and `sun_altitude_deg` are empty where the contact does not occur at that
