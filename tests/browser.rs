@@ -348,3 +348,30 @@ fn planning_charts_are_laid_out_cleanly_in_a_browser() {
     assert!(f.texts > 10, "{} texts", f.texts);
     assert!(f.problems.is_empty(), "{}", f.problems.join("\n"));
 }
+
+#[test]
+fn the_visibility_map_is_laid_out_cleanly_in_a_browser() {
+    let Some(browser) = browser_or_skip() else {
+        return;
+    };
+    let dir = temp_dir("visibility");
+    let mut svgs = Vec::new();
+    for (planet, date) in [("mercury", "2032-11-13"), ("venus", "2117-12-11")] {
+        let map = dir.join(format!("{planet}.svg"));
+        let o = run(&[
+            "transits",
+            "--planet",
+            planet,
+            "--date",
+            date,
+            "--visibility-map",
+            map.to_str().unwrap(),
+        ]);
+        assert!(o.status.success(), "{}", String::from_utf8_lossy(&o.stderr));
+        svgs.push(std::fs::read_to_string(map).unwrap());
+    }
+    let f = measure(&browser, &dir, "visibility", &page_of(&svgs));
+    assert_eq!(f.svgs, 2);
+    assert!(f.texts > 40, "{} texts", f.texts);
+    assert!(f.problems.is_empty(), "{}", f.problems.join("\n"));
+}

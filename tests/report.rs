@@ -275,7 +275,7 @@ fn charts_carry_their_labels_inside_the_view_box() {
         &grid,
         (10.0, 5.0),
         transit_parallax::Contact::II,
-        std::slice::from_ref(&site),
+        (std::slice::from_ref(&site), &[0]),
         "test map",
     );
     assert!(
@@ -291,7 +291,10 @@ fn charts_carry_their_labels_inside_the_view_box() {
         ),
         (&conv, vec!["solar parallax (arcsec)"]),
         (&disc, vec!["100\"", "drawn to scale", "lie off the limb"]),
-        (&plan_map, vec!["30°N", "60°E", "Triangles: the sites"]),
+        (
+            &plan_map,
+            vec!["30°N", "60°E", "Open triangles: the sites", "1 Ice Point"],
+        ),
     ] {
         let ((w, h), texts) = text_positions(svg);
         for n in needles {

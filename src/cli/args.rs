@@ -94,7 +94,7 @@ impl EventArgs {
 pub enum Command {
     /// List every transit of a planet in a span of years, with geocentric contacts.
     #[command(
-        after_help = "Examples:\n  transit-parallax transits --planet venus --from 1600 --to 2300\n  transit-parallax transits --planet mercury --from 2030 --to 2060 --format csv"
+        after_help = "Examples:\n  transit-parallax transits --planet venus --from 1600 --to 2300\n  transit-parallax transits --planet mercury --from 2030 --to 2060 --format csv\n  transit-parallax transits --planet mercury --date 2032-11-13 --visibility-map mercury-2032.svg --visibility-grid mercury-2032.csv"
     )]
     Transits(TransitsArgs),
     /// Predict contacts I-IV for each station of a file.
@@ -175,12 +175,16 @@ pub struct TransitsArgs {
     /// venus or mercury.
     #[arg(long)]
     pub planet: String,
-    /// First year (1600-2300).
+    /// First year (1600-2300), with --to.
+    #[arg(long, requires = "to", conflicts_with = "date")]
+    pub from: Option<i32>,
+    /// Last year (1600-2300), with --from.
+    #[arg(long, requires = "from", conflicts_with = "date")]
+    pub to: Option<i32>,
+    /// One transit instead of a span of years: a date within one day of its greatest
+    /// transit, YYYY-MM-DD (UTC); needed by --visibility-map and --visibility-grid.
     #[arg(long)]
-    pub from: i32,
-    /// Last year (1600-2300).
-    #[arg(long)]
-    pub to: i32,
+    pub date: Option<String>,
     /// Output format.
     #[arg(long, value_enum, default_value = "table")]
     pub format: FormatArg,
@@ -190,6 +194,24 @@ pub struct TransitsArgs {
     /// (time_utc,relative_flux; every transit of the years) or .svg (the chart; one transit).
     #[arg(long = "light-curve", value_name = "FILE.csv|FILE.svg")]
     pub light_curve: Option<PathBuf>,
+    /// Draw the world map of where the transit (--date) is seen with the Sun up: whole,
+    /// ingress only, egress only, part or nothing; the horizon at contacts I and IV; lines of
+    /// equal time of each contact.
+    #[arg(long = "visibility-map", value_name = "FILE.svg")]
+    pub visibility_map: Option<PathBuf>,
+    /// Write the map's grid (--date): latitude,longitude,contact,time_utc,sun_altitude_deg
+    /// for every grid point and contact (time and altitude empty where a contact does not
+    /// occur).
+    #[arg(long = "visibility-grid", value_name = "FILE.csv")]
+    pub visibility_grid: Option<PathBuf>,
+    /// Spacing of the visibility grid, degrees (0.5 to 30).
+    #[arg(
+        long = "grid-deg",
+        value_name = "G",
+        default_value_t = 2.0,
+        allow_hyphen_values = true
+    )]
+    pub grid_deg: f64,
 }
 
 // Arguments of `predict`.
@@ -306,8 +328,9 @@ pub struct PlanArgs {
     /// Output format.
     #[arg(long, value_enum, default_value = "table")]
     pub format: FormatArg,
-    /// Draw a world map of the sensitivity of one contact (with --contact) to this SVG file.
-    #[arg(long, value_name = "FILE.svg", requires = "contact")]
+    /// Draw a world map of the sensitivity of one contact (with --contact) to this SVG file,
+    /// the sites numbered with a key and the chosen ones (--choose) marked.
+    #[arg(long, value_name = "FILE.svg")]
     pub map: Option<PathBuf>,
     /// The contact for --map and --grid-csv: 1-4 or I-IV.
     #[arg(long)]
@@ -316,7 +339,7 @@ pub struct PlanArgs {
     #[arg(long = "grid-deg", value_name = "DEG", default_value_t = 2.0)]
     pub grid_deg: f64,
     /// Also write the grid as CSV (with --contact).
-    #[arg(long = "grid-csv", value_name = "FILE.csv", requires = "contact")]
+    #[arg(long = "grid-csv", value_name = "FILE.csv")]
     pub grid_csv: Option<PathBuf>,
 }
 

@@ -68,15 +68,68 @@ fn manual() -> Result<String, Error> {
 fn transits(a: TransitsArgs) -> Result<String, Error> {
     let planet = planet_of(&a.planet)?;
     let model = a.time.model()?;
-    let events = transit_parallax::transits_in_years(planet, a.from, a.to, &model)?;
+    let events = match (&a.date, a.from, a.to) {
+        (Some(d), _, _) => vec![transit_parallax::transit_on_date(
+            planet,
+            date_of(d)?,
+            &model,
+        )?],
+        (None, Some(from), Some(to)) => {
+            if a.visibility_map.is_some() || a.visibility_grid.is_some() {
+                return Err(Error::argument(
+                    "--visibility-map and --visibility-grid draw one transit: add --date YYYY-MM-DD (a date within one day of its greatest transit) in place of --from and --to",
+                ));
+            }
+            transit_parallax::transits_in_years(planet, from, to, &model)?
+        }
+        _ => {
+            return Err(Error::argument(
+                "give the years with --from YEAR --to YEAR, or one transit with --date YYYY-MM-DD",
+            ))
+        }
+    };
     if let Some(path) = &a.light_curve {
         write_light_curve(path, &events.iter().collect::<Vec<_>>())?;
     }
-    Ok(match a.format.format() {
+    let format = a.format.format();
+    let mut text = match format {
         Format::Table => prediction::transits_table(&events),
         Format::Csv => prediction::transits_csv(&events),
         Format::Json => pretty(&prediction::transits_json(&events)),
-    })
+    };
+    if let ([event], true) = (
+        events.as_slice(),
+        a.visibility_map.is_some() || a.visibility_grid.is_some(),
+    ) {
+        for written in write_visibility(event, &a)? {
+            if format == Format::Table {
+                text.push_str(&written);
+            }
+        }
+    }
+    Ok(text)
+}
+
+/// The visibility map and grid of one transit, as `--visibility-map` and `--visibility-grid`
+/// ask; a line saying what was written for each.
+fn write_visibility(
+    event: &transit_parallax::TransitEvent,
+    a: &TransitsArgs,
+) -> Result<Vec<String>, Error> {
+    use transit_parallax::geometry::visibility::visibility_grid;
+    use transit_parallax::render::visibility_map::{visibility_grid_csv, visibility_map_svg};
+    let threads = std::thread::available_parallelism().map_or(1, |n| n.get().min(8));
+    let grid = visibility_grid(event, a.grid_deg, threads)?;
+    let mut written = Vec::new();
+    if let Some(path) = &a.visibility_map {
+        write_file(path, &visibility_map_svg(event, &grid))?;
+        written.push(format!("visibility map written: {}\n", path.display()));
+    }
+    if let Some(path) = &a.visibility_grid {
+        write_file(path, &visibility_grid_csv(event, &grid))?;
+        written.push(format!("visibility grid written: {}\n", path.display()));
+    }
+    Ok(written)
 }
 
 fn predict(a: PredictArgs) -> Result<String, Error> {
@@ -155,6 +208,16 @@ fn plan(a: PlanArgs) -> Result<String, Error> {
     check_range("--sigma-s", a.sigma_s, 0.01, 3600.0)?;
     check_range("--min-altitude", a.min_altitude, -1.0, 60.0)?;
     check_range("--grid-deg", a.grid_deg, 0.1, 30.0)?;
+    if a.contact.is_none() && (a.map.is_some() || a.grid_csv.is_some()) {
+        let option = if a.map.is_some() {
+            "--map"
+        } else {
+            "--grid-csv"
+        };
+        return Err(Error::argument(format!(
+            "{option} shows one contact's sensitivity: add --contact 1, 2, 3 or 4 (I to IV) to say which; run once per contact for more"
+        )));
+    }
     let stations = read_stations(&a.sites)?;
     match a.choose {
         Some(0) => {
@@ -199,7 +262,7 @@ fn plan(a: PlanArgs) -> Result<String, Error> {
             &grid,
             (a.grid_deg, a.min_altitude),
             contact,
-            &stations,
+            (&stations, &plan.chosen),
             &title,
         );
         write_file(path, &svg)?;

@@ -10,8 +10,11 @@
 //! - `besselian.rs`: the fundamental-plane elements of an event, fitted as Chebyshev series.
 //! - `contacts.rs`: a station's contacts, circumstances, partial derivatives, full-model check.
 //! - `transit.rs`: finding transits, naming an event by date, predicting stations.
+//! - `visibility.rs`: each contact's time and the Sun's altitude over a world grid, and which
+//!   part of the transit each place sees with the Sun up.
 pub mod besselian;
 pub mod contacts;
 pub mod station;
 pub mod station_file;
 pub mod transit;
+pub mod visibility;

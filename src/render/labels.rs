@@ -96,6 +96,33 @@ impl LabelPlacer {
         self.taken.push(TextBox::of_text(text, font_px, spot));
         Some(spot)
     }
+
+    /// Keep later labels off this box (a legend, another chart's labels).
+    pub fn reserve(&mut self, area: TextBox) {
+        self.taken.push(area);
+    }
+
+    /// The baseline start of `text` centred on the first of `centres` (x, y) where it stays
+    /// inside the area and clear of every label placed before, or `None`; a placed label is
+    /// remembered. For labels set on a line, at points along it.
+    pub fn place_centred(
+        &mut self,
+        text: &str,
+        font_px: f64,
+        centres: &[(f64, f64)],
+    ) -> Option<(f64, f64)> {
+        let probe = TextBox::of_text(text, font_px, (0.0, 0.0));
+        let (w, up, down) = (probe.x1, -probe.y0, probe.y1);
+        let spot = centres
+            .iter()
+            .map(|&(x, y)| (x - w / 2.0, y + (up - down) / 2.0))
+            .find(|&at| {
+                let b = TextBox::of_text(text, font_px, at);
+                b.within(&self.area) && self.taken.iter().all(|t| !t.overlaps(&b))
+            })?;
+        self.taken.push(TextBox::of_text(text, font_px, spot));
+        Some(spot)
+    }
 }
 
 /// The words of `text` in lines of at most `max_width_px` at `font_px` (a word longer than a
@@ -156,6 +183,34 @@ mod tests {
         assert_eq!(lines.join(" "), text);
         assert_eq!(wrap("", 10.0, 100.0), Vec::<String>::new());
         assert_eq!(wrap("averyveryverylongword x", 10.0, 20.0).len(), 2);
+    }
+
+    #[test]
+    fn labels_on_lines_stay_inside_and_clear_of_reserved_boxes() {
+        let area = TextBox {
+            x0: 0.0,
+            y0: 0.0,
+            x1: 200.0,
+            y1: 100.0,
+        };
+        let mut placer = LabelPlacer::new(area);
+        let legend = TextBox {
+            x0: 100.0,
+            y0: 0.0,
+            x1: 200.0,
+            y1: 100.0,
+        };
+        placer.reserve(legend);
+        // The first centre pushes the label past the left edge, the second onto the legend:
+        // the third is taken.
+        let spot = placer
+            .place_centred("I 06:41", 10.0, &[(2.0, 50.0), (150.0, 50.0), (50.0, 50.0)])
+            .unwrap();
+        let b = TextBox::of_text("I 06:41", 10.0, spot);
+        assert!(b.within(&area) && !b.overlaps(&legend));
+        assert!((b.x0 + b.x1) / 2.0 - 50.0 < 1e-9);
+        // The same spot again is taken: no place left among these centres.
+        assert_eq!(placer.place_centred("I 06:41", 10.0, &[(50.0, 50.0)]), None);
     }
 
     #[test]

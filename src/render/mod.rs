@@ -15,6 +15,8 @@
 //!   chart's width.
 //! - `charts.rs`: the reduction's charts (solar disc, station map, residuals, convergence).
 //! - `planning_charts.rs`: the sensitivity map and the histogram of simulated AU estimates.
+//! - `visibility_map.rs`: the visibility map of a transit and its grid as CSV.
+//! - `contours.rs`: contour lines of a gridded field (marching squares).
 //! - `methods.rs`: the classic methods side by side and the error budget, for the table and
 //!   the reports.
 //! - `light_curve_chart.rs`: the light curve of a transit as CSV and SVG.
@@ -23,6 +25,7 @@
 //! - `report_sections.rs`: the reports' sections on the classic methods, the error budget and
 //!   what else the timings measure.
 pub mod charts;
+pub mod contours;
 pub mod document;
 pub mod labels;
 pub mod light_curve_chart;
@@ -35,4 +38,5 @@ pub mod report_sections;
 pub mod station_predictions;
 pub mod svg;
 pub mod text;
+pub mod visibility_map;
 pub mod what_else;

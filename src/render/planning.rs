@@ -4,7 +4,8 @@ use crate::geometry::transit::TransitEvent;
 use crate::planning::simulation::{MonteCarloSummary, SimulationSettings};
 use crate::planning::sites::{GridPoint, Plan};
 use crate::render::text::{
-    clock_label, csv_field, name_cell, round as r, scale_of, thousands, SAFETY_CAUTION,
+    clock_label, csv_field, decimals_for, km_to_three_digits, name_cell, round as r, scale_of,
+    thousands, SAFETY_CAUTION,
 };
 use crate::sky::constants::AU_KM;
 use crate::time::iso::format_utc;
@@ -85,11 +86,12 @@ fn au_sigma_km(parallax_sigma_arcsec: f64) -> f64 {
 
 /// The forecasts and the reasons for the choice, below the table of sites.
 fn plan_summary(plan: &Plan, s: &mut String) {
-    s.push_str("\ngain %: how much larger the forecast uncertainty of the whole candidate network would be without the site.\n");
+    s.push_str("\n#: the site's number on the map (`--map`), in the order of the sites file.\ngain %: how much larger the forecast uncertainty of the whole candidate network would be without the site.\n");
     if let Some(a) = plan.all_sites_sigma_arcsec {
         s.push_str(&format!(
-            "Forecast with every site: parallax +- {a:.4}\" (AU +- {} km).\n",
-            thousands(au_sigma_km(a))
+            "Forecast with every site: parallax +- {a:.d$}\" (AU +- {}).\n",
+            km_to_three_digits(au_sigma_km(a)),
+            d = decimals_for(a)
         ));
     }
     if !plan.chosen.is_empty() {
@@ -105,8 +107,9 @@ fn plan_summary(plan: &Plan, s: &mut String) {
         ));
         match plan.chosen_sigma_arcsec {
             Some(x) => s.push_str(&format!(
-                "Forecast for the chosen sites: parallax +- {x:.4}\" (AU +- {} km).\n",
-                thousands(au_sigma_km(x))
+                "Forecast for the chosen sites: parallax +- {x:.d$}\" (AU +- {}).\n",
+                km_to_three_digits(au_sigma_km(x)),
+                d = decimals_for(x)
             )),
             None => s.push_str("The chosen sites cannot determine the parallax by themselves.\n"),
         }
@@ -127,7 +130,8 @@ pub fn plan_table(event: &TransitEvent, plan: &Plan, min_altitude_deg: f64) -> S
         event.ephemeris_name()
     );
     s.push_str(&format!(
-        "{}  {:>3} {:>26} {:>8} {:>9} {:>8}\n",
+        "{:>3} {}  {:>3} {:>26} {:>8} {:>9} {:>8}\n",
+        "#",
         name_cell("site"),
         "",
         format!(
@@ -143,7 +147,12 @@ pub fn plan_table(event: &TransitEvent, plan: &Plan, min_altitude_deg: f64) -> S
         let mark = if plan.chosen.contains(&i) { "*" } else { " " };
         for (k, c) in site.contacts.iter().enumerate() {
             s.push_str(&format!(
-                "{}{} {:>3} {:>26} {:>8.1} {:>9.2} {:>8}{}\n",
+                "{:>3} {}{} {:>3} {:>26} {:>8.1} {:>9.2} {:>8}{}\n",
+                if k == 0 {
+                    (i + 1).to_string()
+                } else {
+                    String::new()
+                },
                 if k == 0 { name.clone() } else { name_cell("") },
                 if k == 0 { mark } else { " " },
                 c.contact.roman(),
@@ -165,7 +174,10 @@ pub fn plan_table(event: &TransitEvent, plan: &Plan, min_altitude_deg: f64) -> S
             ));
         }
         if site.contacts.is_empty() {
-            s.push_str(&format!("{name}{mark} no contact of this transit here\n"));
+            s.push_str(&format!(
+                "{:>3} {name}{mark} no contact of this transit here\n",
+                i + 1
+            ));
         }
     }
     plan_summary(plan, &mut s);

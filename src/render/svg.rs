@@ -82,12 +82,95 @@ pub fn land_svg(fill: &str, stroke: &str, width: f64) -> String {
     for ring in land_rings() {
         let pts: Vec<String> = ring
             .iter()
-            .map(|&(lon, lat)| format!("{:.1},{:.1}", (lon + 180.0) * 2.0, (90.0 - lat) * 2.0))
+            .map(|&(lon, lat)| {
+                let (x, y) = world_px(lon, lat);
+                format!("{x:.1},{y:.1}")
+            })
             .collect();
         let _ = writeln!(s, "<polygon points=\"{}\"/>", pts.join(" "));
     }
     s.push_str("</g>\n");
     s
+}
+
+/// Pixels per degree of the equirectangular world frame every map shares (720 x 360).
+pub const PX_PER_DEG: f64 = 2.0;
+
+/// A longitude and latitude (degrees) on the 720 x 360 equirectangular frame, in pixels from
+/// its top left corner (plate carree: x proportional to longitude, y to latitude).
+pub fn world_px(longitude_deg: f64, latitude_deg: f64) -> (f64, f64) {
+    (
+        (longitude_deg + 180.0) * PX_PER_DEG,
+        (90.0 - latitude_deg) * PX_PER_DEG,
+    )
+}
+
+/// Grid cells on the world frame as rectangles, the cells of one row of latitude that share a
+/// fill merged into one run. `cells` are the cells' centres (longitude, latitude) in degrees,
+/// row by row; `step_deg` their (longitude, latitude) size; `fill_of(k)` the fill of cell k
+/// (`None`: not drawn). Cells are clipped to the frame.
+pub fn grid_cells_svg(
+    cells: &[(f64, f64)],
+    (step_lon_deg, step_lat_deg): (f64, f64),
+    fill_of: impl Fn(usize) -> Option<String>,
+) -> String {
+    let mut s = String::new();
+    let mut i = 0;
+    while i < cells.len() {
+        let fill = fill_of(i);
+        let mut j = i + 1;
+        while j < cells.len() && cells[j].1 == cells[i].1 && fill_of(j) == fill {
+            j += 1;
+        }
+        if let Some(fill) = fill {
+            let lat = cells[i].1;
+            let (x0, y0) = world_px(
+                (cells[i].0 - step_lon_deg / 2.0).max(-180.0),
+                (lat + step_lat_deg / 2.0).min(90.0),
+            );
+            let (x1, y1) = world_px(
+                (cells[j - 1].0 + step_lon_deg / 2.0).min(180.0),
+                (lat - step_lat_deg / 2.0).max(-90.0),
+            );
+            let _ = writeln!(
+                s,
+                "<rect x=\"{x0:.1}\" y=\"{y0:.1}\" width=\"{:.1}\" height=\"{:.1}\" fill=\"{fill}\"/>",
+                x1 - x0,
+                y1 - y0
+            );
+        }
+        i = j;
+    }
+    s
+}
+
+/// Lines of latitude and longitude every 30 degrees on the world frame.
+pub fn graticule_lines(stroke: &str) -> String {
+    let mut s = format!("<g stroke=\"{stroke}\" stroke-width=\"0.4\" fill=\"none\">");
+    for lat in (-60..=60).step_by(30) {
+        let (_, y) = world_px(0.0, f64::from(lat));
+        let _ = write!(s, "<line x1=\"0\" y1=\"{y:.1}\" x2=\"720\" y2=\"{y:.1}\"/>");
+    }
+    for lon in (-150..=150).step_by(30) {
+        let (x, _) = world_px(f64::from(lon), 0.0);
+        let _ = write!(s, "<line x1=\"{x:.1}\" y1=\"0\" x2=\"{x:.1}\" y2=\"360\"/>");
+    }
+    s.push_str("</g>\n");
+    s
+}
+
+/// The boxes of the labels [`graticule_labels`] writes, for keeping other labels off them.
+pub fn graticule_label_boxes(h: f64) -> Vec<crate::render::labels::TextBox> {
+    use crate::render::labels::TextBox;
+    let mut boxes: Vec<TextBox> = [-60i32, -30, 0, 30, 60]
+        .iter()
+        .map(|&lat| TextBox::of_text("60°N", 9.0, (3.0, f64::from(90 - lat) * 2.0 - 2.0)))
+        .collect();
+    for lon in [-120i32, -60, 0, 60, 120] {
+        let x = f64::from(lon + 180) * 2.0;
+        boxes.push(TextBox::of_text("120°W", 9.0, (x + 2.0, h - 3.0)));
+    }
+    boxes
 }
 
 /// A tick value without needless decimals (`148`, `148.5`, not `148.000`).

@@ -133,6 +133,24 @@ pub fn au_text(h: &Headline, pm: &str) -> String {
     )
 }
 
+/// A length in km to about three significant digits, for an uncertainty: `1.39 million km`
+/// from a million up, `382,000 km` or `1,090 km` below (the digits past the third would
+/// claim a precision the forecast does not have).
+pub fn km_to_three_digits(km: f64) -> String {
+    if !km.is_finite() {
+        return "not determined".into();
+    }
+    if km.abs() >= 1e6 {
+        let d = decimals_for(km.abs() * 1e-6);
+        return format!("{:.d$} million km", km * 1e-6);
+    }
+    if km == 0.0 {
+        return "0 km".into();
+    }
+    let magnitude = 10f64.powf(km.abs().log10().floor() - 2.0).max(1.0);
+    format!("{} km", thousands((km / magnitude).round() * magnitude))
+}
+
 /// A number rounded to a whole and written with thousands separators: `1,094,605`.
 pub fn thousands(x: f64) -> String {
     let v = x.round();
@@ -192,6 +210,16 @@ pub fn capitalise(s: &str) -> String {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn uncertainties_in_km_keep_three_digits() {
+        assert_eq!(km_to_three_digits(10_382_243.0), "10.4 million km");
+        assert_eq!(km_to_three_digits(1_385_665.0), "1.39 million km");
+        assert_eq!(km_to_three_digits(382_243.0), "382,000 km");
+        assert_eq!(km_to_three_digits(1_094.4), "1,090 km");
+        assert_eq!(km_to_three_digits(57.4), "57 km");
+        assert_eq!(km_to_three_digits(f64::NAN), "not determined");
+    }
 
     #[test]
     fn names_fill_the_same_display_width() {
