@@ -426,7 +426,10 @@ mod tests {
         assert!(r.undated && r.minute_only);
         assert_eq!(r.label.time().to_string(), "22:27:30");
         let e = parse_time_reading("2032-11-31T10:00:00Z", Calendar::Gregorian).unwrap_err();
-        assert!(e.contains("no such day: November 2032 has no day 31"), "{e}");
+        assert!(
+            e.contains("no such day: November 2032 has no day 31"),
+            "{e}"
+        );
         let e = parse_time_reading("  ", Calendar::Gregorian).unwrap_err();
         assert!(e.starts_with("missing time"), "{e}");
         assert!(parse_time_reading("22:27:46/22:27:50", Calendar::Gregorian).is_err());
