@@ -187,7 +187,7 @@ fn hostile_observation_files_never_panic() {
         ),
         (
             format!("{head}a,10,20,0,2,2012-13-45T22:30:00Z,5\n"),
-            "ISO 8601",
+            "no such day",
         ),
         (
             format!("{head}a,10,20,0,2,2012-06-05T22:30:00Z,0\n"),
