@@ -356,7 +356,10 @@ fn zones_note(predictions: &[StationPrediction], clocks: Clocks) -> String {
         .iter()
         .map(|(zone, names)| format!("{zone} for {}", names.join(", ")))
         .collect();
-    format!("Civil time: {}.\n", parts.join("; "))
+    let sentence = format!("Civil time: {}.", parts.join("; "));
+    let mut out = textwrap::fill(&sentence, 100);
+    out.push('\n');
+    out
 }
 
 /// The table's heading (event, ephemeris, Delta T and the column names) and the width of the
