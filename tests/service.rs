@@ -344,6 +344,22 @@ fn an_observations_file_can_be_uploaded() {
     );
     assert_eq!(r.status, 403);
     assert_eq!(settled_solution(&server)["submissions"], 1);
+    // A file as a spreadsheet in a European locale writes it: semicolons, decimal commas, a
+    // time with no date (judged on the day nearest its prediction), a blank row.
+    let page = get(port, "/", None).body;
+    let k = page.find("name=\"csrf\" value=\"").unwrap() + 19;
+    let csrf = page[k..k + 32].to_string();
+    let local = "station;latitude;longitude;elevation_m;contact;time_utc;sigma_s\nLantern Quay Club;22,28;114,16;40;III;04:36:00,5Z;8\n;;;;;;\n";
+    let body = format!(
+        "--XyZ\r\nContent-Disposition: form-data; name=\"csrf\"\r\n\r\n{csrf}\r\n--XyZ\r\nContent-Disposition: form-data; name=\"file\"; filename=\"t.csv\"\r\nContent-Type: text/csv\r\n\r\n{local}\r\n--XyZ--\r\n"
+    );
+    let r = request(port, "POST", "/upload", &headers, body.as_bytes());
+    assert_eq!(r.status, 201, "{}", r.body);
+    assert!(
+        r.body.contains("Lantern Quay Club") && r.body.contains("fits"),
+        "{}",
+        r.body
+    );
 }
 
 /// A submission written as an 18th-century record: observers, a judged contact, an Old Style

@@ -12,6 +12,7 @@
 use super::csv_table::CsvTable;
 use crate::error::{Error, Location, Result};
 use calamine::{open_workbook_auto, Data, Reader};
+
 use std::path::Path;
 
 /// Whether a path names a spreadsheet this module reads (by its extension, any case).
@@ -25,34 +26,63 @@ pub fn is_spreadsheet(path: &Path) -> bool {
 ///
 /// Errors: the file cannot be opened as a spreadsheet, has no sheet, or no header row.
 pub fn read_first_sheet(path: &Path) -> Result<CsvTable> {
-    let at_line = |line: u64, message: String, hint: &str| Error::Input {
+    let book = open_workbook_auto(path).map_err(|e| unreadable(path, &e));
+    first_sheet(path, book?)
+}
+
+/// Whether bytes begin as a spreadsheet does: a ZIP archive (.xlsx, .ods; PKWARE APPNOTE
+/// 4.3.7, local file header signature) or an OLE2 compound file (.xls).
+pub fn looks_like_spreadsheet(bytes: &[u8]) -> bool {
+    bytes.starts_with(b"PK\x03\x04") || bytes.starts_with(&[0xD0, 0xCF, 0x11, 0xE0])
+}
+
+/// The first sheet of a spreadsheet held in memory (an upload); `label` names it in messages.
+///
+/// Errors: as [`read_first_sheet`].
+pub fn first_sheet_of_bytes(label: &Path, bytes: &[u8]) -> Result<CsvTable> {
+    let cursor = std::io::Cursor::new(bytes.to_vec());
+    let book = calamine::open_workbook_auto_from_rs(cursor).map_err(|e| unreadable(label, &e));
+    first_sheet(label, book?)
+}
+
+fn unreadable(path: &Path, e: &dyn std::fmt::Display) -> Error {
+    at_line(
+        path,
+        format!("the file cannot be read as a spreadsheet ({e})"),
+        "save it again as .xlsx or .ods, or export the sheet as CSV",
+    )
+}
+
+fn at_line(path: &Path, message: String, hint: &str) -> Error {
+    Error::Input {
         location: Location {
             file: path.to_path_buf(),
-            line,
+            line: 1,
             column: None,
         },
         message,
         hint: hint.into(),
-    };
-    let mut book = open_workbook_auto(path).map_err(|e| {
-        at_line(
-            1,
-            format!("the file cannot be read as a spreadsheet ({e})"),
-            "save it again as .xlsx or .ods, or export the sheet as CSV",
-        )
-    })?;
+    }
+}
+
+/// The table of a workbook's first sheet.
+fn first_sheet<RS: std::io::Read + std::io::Seek>(
+    path: &Path,
+    mut book: calamine::Sheets<RS>,
+) -> Result<CsvTable> {
+    let again = "save it again as .xlsx or .ods, or export the sheet as CSV";
     let range = match book.worksheet_range_at(0) {
         Some(Ok(r)) => r,
         Some(Err(e)) => {
             return Err(at_line(
-                1,
+                path,
                 format!("its first sheet cannot be read ({e})"),
-                "save it again as .xlsx or .ods, or export the sheet as CSV",
+                again,
             ))
         }
         None => {
             return Err(at_line(
-                1,
+                path,
                 "the spreadsheet has no sheet".into(),
                 "put the table on its first sheet",
             ))
@@ -67,7 +97,7 @@ pub fn read_first_sheet(path: &Path) -> Result<CsvTable> {
     // Rows above the header (notes) are skipped; lines keep the sheet's own row numbers.
     let Some((_, header)) = rows.find(|(_, f)| f.iter().any(|x| !x.is_empty())) else {
         return Err(at_line(
-            1,
+            path,
             "the first sheet is empty".into(),
             "give a header row and at least one data row",
         ));

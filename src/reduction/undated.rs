@@ -17,11 +17,7 @@ pub fn complete_dates(valid: &mut [Observation], event: &TransitEvent) -> Option
         .iter_mut()
         .filter(|o| o.written.undated && o.duration.is_none())
     {
-        let predicted = event.predict(&obs.station).contacts[obs.contact.index()]
-            .map_or(event.hours_of_greatest(), |c| c.hours);
-        let target = event.label(predicted);
-        obs.time_label = nearest_on_some_day(obs.time_label, target);
-        obs.written.undated = false;
+        complete_date(obs, event);
         lines.push(obs.line.to_string());
         let date = obs.time_label.date();
         if !dates.contains(&date) {
@@ -39,6 +35,18 @@ pub fn complete_dates(valid: &mut [Observation], event: &TransitEvent) -> Option
         lines.join(", "),
         shown.join(", ")
     ))
+}
+
+/// Give one undated timing (an instant) the date nearest its predicted contact at its station
+/// (the event's greatest transit where that contact does not happen there).
+pub fn complete_date(obs: &mut Observation, event: &TransitEvent) {
+    if !obs.written.undated || obs.duration.is_some() {
+        return;
+    }
+    let predicted = event.predict(&obs.station).contacts[obs.contact.index()]
+        .map_or(event.hours_of_greatest(), |c| c.hours);
+    obs.time_label = nearest_on_some_day(obs.time_label, event.label(predicted));
+    obs.written.undated = false;
 }
 
 /// The time of day of `label` on the day (that of `target` or either side) nearest `target`.

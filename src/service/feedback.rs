@@ -67,6 +67,10 @@ fn judge(event: &TransitEvent, obs: &Observation) -> TimingFeedback {
     if let Some(d) = obs.duration {
         return judge_interval(event, obs, &d, fb);
     }
+    // A time without a date is judged on the day nearest its prediction, as the reduction does.
+    let mut completed = obs.clone();
+    crate::reduction::undated::complete_date(&mut completed, event);
+    let obs = &completed;
     let model = event.time_model();
     let Ok(tt) = model.tt_from_label(obs.time_label) else {
         fb.diagnosis = Some("the time lies outside the years the tool covers".into());

@@ -3,6 +3,7 @@
 //! file). Values are kept as text, as sent; the reduction's reader judges them.
 
 use super::store::TimingFields;
+use crate::observations::csv_table::CsvTable;
 use serde_json::Value;
 
 /// A contact as sent, written as its number where it reads as one (`II` -> `2`), else as
@@ -86,36 +87,41 @@ pub fn from_json(body: &[u8]) -> Result<Vec<TimingFields>, String> {
         .collect()
 }
 
-/// The timings of an uploaded observations file (UTF-8 text).
+/// The timings of an uploaded observations file: CSV text (comma, semicolon or tab separated,
+/// as `reduce` reads it) or a spreadsheet (.xlsx, .ods: its first sheet).
 ///
 /// Errors: a sentence saying what is wrong with the file.
 pub fn from_csv_bytes(bytes: &[u8]) -> Result<Vec<TimingFields>, String> {
-    let text =
-        std::str::from_utf8(bytes).map_err(|e| format!("the file is not UTF-8 text ({e})"))?;
-    from_csv(text)
+    let label = std::path::Path::new("the file");
+    let table = if crate::observations::spreadsheet::looks_like_spreadsheet(bytes) {
+        crate::observations::spreadsheet::first_sheet_of_bytes(label, bytes)
+    } else {
+        CsvTable::from_bytes(label, bytes)
+    };
+    fields_of_table(&table.map_err(|e| e.to_string())?)
 }
 
 /// The timings of a pasted observations file: columns by header name, any of the export's.
 fn from_csv(text: &str) -> Result<Vec<TimingFields>, String> {
-    let mut reader = csv::ReaderBuilder::new()
-        .comment(Some(b'#'))
-        .flexible(true)
-        .trim(csv::Trim::All)
-        .from_reader(text.as_bytes());
-    let headers = reader
-        .headers()
-        .map_err(|e| format!("the file: {e}"))?
-        .clone();
-    let col = |name: &str| headers.iter().position(|h| h.eq_ignore_ascii_case(name));
-    if col("station").is_none() {
+    let table = CsvTable::from_bytes(std::path::Path::new("the pasted file"), text.as_bytes())
+        .map_err(|e| e.to_string())?;
+    fields_of_table(&table)
+}
+
+/// The fields of each row of a table read as `reduce` reads it.
+fn fields_of_table(table: &CsvTable) -> Result<Vec<TimingFields>, String> {
+    if table.optional("station").is_none() {
         return Err(
             "the pasted file has no 'station' column; its first line must name the columns".into(),
         );
     }
     let mut out = Vec::new();
-    for record in reader.records() {
-        let r = record.map_err(|e| format!("the file: {e}"))?;
-        let get = |name: &str| col(name).and_then(|k| r.get(k)).unwrap_or("").to_string();
+    for (_, r) in &table.records {
+        let get = |name: &str| {
+            table
+                .optional(name)
+                .map_or(String::new(), |k| table.text(r, k).to_string())
+        };
         out.push(TimingFields {
             station: get("station"),
             latitude: get("latitude"),
