@@ -183,19 +183,7 @@ pub fn parse_row(
     rec: &csv::StringRecord,
     cols: &Columns,
 ) -> Result<(Observation, Zone), RowError> {
-    if rec.iter().all(|f| f.trim().is_empty()) {
-        return Err((
-            "every field of the row is empty; delete the row or fill it in".into(),
-            None,
-        ));
-    }
-    let name = table.text(rec, cols.station);
-    if name.is_empty() {
-        return Err((
-            "the station name is empty; give every row a station name".into(),
-            Some(cols.station),
-        ));
-    }
+    let name = station_name(table, rec, cols)?;
     let place_cols = PlaceColumns {
         lat: cols.lat,
         lon: cols.lon,
@@ -264,6 +252,28 @@ pub fn parse_row(
         written,
     };
     Ok((observation, zone))
+}
+
+/// The row's station name, or why the row has none (every field empty, or the name's).
+fn station_name<'a>(
+    table: &CsvTable,
+    rec: &'a csv::StringRecord,
+    cols: &Columns,
+) -> Result<&'a str, RowError> {
+    if rec.iter().all(|f| f.trim().is_empty()) {
+        return Err((
+            "every field of the row is empty; delete the row or fill it in".into(),
+            None,
+        ));
+    }
+    let name = table.text(rec, cols.station);
+    if name.is_empty() {
+        return Err((
+            "the station name is empty; give every row a station name".into(),
+            Some(cols.station),
+        ));
+    }
+    Ok(name)
 }
 
 /// What a row says of its timing (see [`row_timing`]).
