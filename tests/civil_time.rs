@@ -6,7 +6,7 @@
 
 mod common;
 use chrono::NaiveDateTime;
-use common::{err, out, run, temp};
+use common::{err, out, run, run_words, temp};
 use transit_parallax::time::civil::CivilZone;
 
 fn reference() -> Vec<(String, NaiveDateTime, String, i32)> {
@@ -66,19 +66,10 @@ fn predict_gives_each_station_its_clock_time() {
         Hill Station,12.97,77.59,900,\n\
         Ridge Hut,-43.95,-176.55,40,Pacific/Chatham\n";
     let path = temp("civil_stations.csv", stations.as_bytes());
-    let o = run(&[
-        "predict",
-        "--planet",
-        "mercury",
-        "--date",
-        "2032-11-13",
-        "--stations",
-        &path,
-        "--time-zone",
-        "Asia/Kolkata",
-        "--format",
-        "json",
-    ]);
+    let o = run_words(
+        "predict --planet mercury --date 2032-11-13 --stations",
+        &[&path, "--time-zone", "Asia/Kolkata", "--format", "json"],
+    );
     assert!(o.status.success(), "{}", err(&o));
     let rows: serde_json::Value = serde_json::from_str(&out(&o)).expect("json");
     let rows = rows.as_array().expect("array");
@@ -150,15 +141,10 @@ fn the_table_and_csv_name_each_rows_zone() {
 fn a_zone_that_does_not_exist_is_named_with_its_line() {
     let stations = "station,latitude,longitude,time_zone\nA,52,4,Europe/Amsterdam\nB,52,4,Europe/Leiden\nC,52,4,+25:00\n";
     let path = temp("civil_bad.csv", stations.as_bytes());
-    let o = run(&[
-        "predict",
-        "--planet",
-        "mercury",
-        "--date",
-        "2032-11-13",
-        "--stations",
-        &path,
-    ]);
+    let o = run_words(
+        "predict --planet mercury --date 2032-11-13 --stations",
+        &[&path],
+    );
     assert_eq!(o.status.code(), Some(2));
     let e = err(&o);
     assert!(e.contains("2 of its 3 rows cannot be read"), "{e}");
@@ -167,17 +153,10 @@ fn a_zone_that_does_not_exist_is_named_with_its_line() {
         e.contains("civil_bad.csv:4:4 (column 'time_zone'): '+25:00' is not an offset"),
         "{e}"
     );
-    let o = run(&[
-        "predict",
-        "--planet",
-        "mercury",
-        "--date",
-        "2032-11-13",
-        "--stations",
-        &path,
-        "--time-zone",
-        "Mars/Olympus",
-    ]);
+    let o = run_words(
+        "predict --planet mercury --date 2032-11-13 --stations",
+        &[&path, "--time-zone", "Mars/Olympus"],
+    );
     assert_eq!(o.status.code(), Some(2));
     assert!(
         err(&o).contains("--time-zone: 'Mars/Olympus' is not a zone"),

@@ -5,7 +5,7 @@
 //! very result of the clean comma-separated file; stations files likewise predict alike.
 
 mod common;
-use common::{err, out, run, temp};
+use common::{err, out, run, run_words, temp};
 
 const CLEAN: &str = include_str!("../src/data/demo_campaign.csv");
 
@@ -306,17 +306,10 @@ fn stations_in_semicolons_and_sexagesimal_predict_alike() {
     let local = "sep=;\nstation;latitude;longitude;elevation_m\nCanal Club;52°09'36,36\"N;4°29'49,2\"E;2\nBay School;33°55'29,64\"S;18°25'26,76\"E;10\n";
     let predict = |name: &str, text: &str| {
         let path = temp(name, text.as_bytes());
-        let o = run(&[
-            "predict",
-            "--planet",
-            "mercury",
-            "--date",
-            "2032-11-13",
-            "--stations",
-            &path,
-            "--format",
-            "csv",
-        ]);
+        let o = run_words(
+            "predict --planet mercury --date 2032-11-13 --stations",
+            &[&path, "--format", "csv"],
+        );
         assert!(o.status.success(), "{name}: {}", err(&o));
         out(&o)
     };
@@ -346,15 +339,10 @@ fn templates_print_a_header_and_a_commented_example() {
     // The example, uncommented, is a valid row of its kind.
     let stations = out(&run(&["template", "stations"])).replace("\n# Example", "\nExample");
     let path = temp("forms_template_stations.csv", stations.as_bytes());
-    let o = run(&[
-        "predict",
-        "--planet",
-        "mercury",
-        "--date",
-        "2032-11-13",
-        "--stations",
-        &path,
-    ]);
+    let o = run_words(
+        "predict --planet mercury --date 2032-11-13 --stations",
+        &[&path],
+    );
     assert!(o.status.success(), "{}", err(&o));
     assert!(out(&o).contains("Civil time: Europe/Amsterdam for every station."));
     let o = run(&["template", "observations"]);
@@ -368,15 +356,7 @@ fn templates_print_a_header_and_a_commented_example() {
 fn plan_lists_every_bad_site_at_once() {
     let text = "station,latitude,longitude\nA,52,4\nB,95,4\nC,10,east\nD,-33,18\n";
     let path = temp("forms_bad_sites.csv", text.as_bytes());
-    let o = run(&[
-        "plan",
-        "--planet",
-        "venus",
-        "--date",
-        "2117-12-11",
-        "--sites",
-        &path,
-    ]);
+    let o = run_words("plan --planet venus --date 2117-12-11 --sites", &[&path]);
     assert_eq!(o.status.code(), Some(2));
     let e = err(&o);
     assert!(e.contains("2 of its 4 rows cannot be read"), "{e}");

@@ -39,3 +39,11 @@ pub fn temp(name: &str, bytes: &[u8]) -> String {
     p.to_string_lossy().into_owned()
 }
 pub mod server;
+
+/// Run the binary with the words of `command` (split at spaces) followed by `more` (paths and
+/// other arguments that may hold spaces).
+pub fn run_words(command: &str, more: &[&str]) -> Output {
+    let mut args: Vec<&str> = command.split_whitespace().collect();
+    args.extend_from_slice(more);
+    run(&args)
+}
