@@ -118,6 +118,7 @@ impl Error {
     }
 }
 
+/// The count of bad rows as the message says it (`2 of its 14 rows cannot be read`).
 fn bad_rows_count(bad: usize, total: usize) -> String {
     if bad == 1 && total == 1 {
         "its one row cannot be read".to_string()
@@ -128,10 +129,12 @@ fn bad_rows_count(bad: usize, total: usize) -> String {
     }
 }
 
+/// The bad rows, one indented line each.
 fn rows_list(rows: &[String]) -> String {
     rows.iter().map(|r| format!("\n  {r}")).collect()
 }
 
+/// The list of bad rows after a sentence asking to fix them (or how to add rows where none).
 fn rows_text(rows: &[String]) -> String {
     if rows.is_empty() {
         return "add one row per timing below the header".to_string();

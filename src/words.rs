@@ -29,3 +29,38 @@ pub fn uncertainty(x: f64) -> String {
     };
     format!("{x:.d$}")
 }
+/// Line numbers as a reader takes them in: ascending, runs joined (`2-5, 9, 12-13`).
+pub fn line_ranges(lines: &[u64]) -> String {
+    let mut sorted = lines.to_vec();
+    sorted.sort_unstable();
+    sorted.dedup();
+    let mut parts: Vec<String> = Vec::new();
+    let mut k = 0;
+    while k < sorted.len() {
+        let start = sorted[k];
+        let mut end = start;
+        while k + 1 < sorted.len() && sorted[k + 1] == end + 1 {
+            k += 1;
+            end = sorted[k];
+        }
+        parts.push(if end == start {
+            start.to_string()
+        } else {
+            format!("{start}-{end}")
+        });
+        k += 1;
+    }
+    parts.join(", ")
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn line_ranges_join_runs() {
+        assert_eq!(line_ranges(&[12, 2, 3, 4, 5, 9, 13]), "2-5, 9, 12-13");
+        assert_eq!(line_ranges(&[7]), "7");
+        assert_eq!(line_ranges(&[]), "");
+    }
+}

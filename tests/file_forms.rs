@@ -363,3 +363,114 @@ fn plan_lists_every_bad_site_at_once() {
     assert!(e.contains("forms_bad_sites.csv:3:2"), "{e}");
     assert!(e.contains("forms_bad_sites.csv:4:3"), "{e}");
 }
+
+/// A stored ZIP archive of these entries (name, text), as an office program would write it.
+fn zip_of(entries: &[(&str, &str)]) -> Vec<u8> {
+    use std::io::Write;
+    let mut out = std::io::Cursor::new(Vec::new());
+    {
+        let mut zip = zip::ZipWriter::new(&mut out);
+        for (name, text) in entries {
+            zip.start_file(*name, zip::write::SimpleFileOptions::default())
+                .expect("entry");
+            zip.write_all(text.as_bytes()).expect("write");
+        }
+        zip.finish().expect("zip");
+    }
+    out.into_inner()
+}
+
+#[test]
+fn a_workbook_with_notes_above_its_header_and_a_stray_far_cell_reads_as_the_csv() {
+    use rust_xlsxwriter::Workbook;
+    let mut book = Workbook::new();
+    let sheet = book.add_worksheet();
+    sheet
+        .write_string(0, 0, "# Timings of the demonstration campaign")
+        .expect("note");
+    for (c, h) in HEADER.iter().enumerate() {
+        sheet.write_string(2, c as u16, *h).expect("header");
+    }
+    for (k, r) in rows().iter().enumerate() {
+        for (c, v) in r.iter().enumerate() {
+            sheet.write_string(k as u32 + 3, c as u16, v).expect("cell");
+        }
+    }
+    // A stray cell in the sheet's last row and column: the reader must not build the whole
+    // sheet in memory (17 billion cells) to reach it.
+    sheet
+        .write_string(1_048_575, 16_383, "x")
+        .expect("far cell");
+    // Named .csv: files are known by their content, not their name.
+    let path = std::env::temp_dir().join(format!("tp-forms-far-{}.csv", std::process::id()));
+    book.save(&path).expect("xlsx written");
+    assert_same_result("far cell", &reduce(path.to_str().expect("path"), &[]));
+}
+
+#[test]
+fn a_sheet_too_large_to_expand_and_an_old_workbook_are_refused_with_a_way_out() {
+    let rows = r#"<table:table-row table:number-rows-repeated="1000000"><table:table-cell table:number-columns-repeated="7" office:value-type="float" office:value="1"/></table:table-row>"#;
+    let content = format!(
+        r#"<?xml version="1.0" encoding="UTF-8"?><office:document-content xmlns:office="urn:oasis:names:tc:opendocument:xmlns:office:1.0" xmlns:table="urn:oasis:names:tc:opendocument:xmlns:table:1.0" office:version="1.2"><office:body><office:spreadsheet><table:table table:name="S">{rows}</table:table></office:spreadsheet></office:body></office:document-content>"#
+    );
+    let bytes = zip_of(&[
+        ("mimetype", "application/vnd.oasis.opendocument.spreadsheet"),
+        ("content.xml", &content),
+    ]);
+    let path = temp("forms_repeated.ods", &bytes);
+    let o = run(&["reduce", &path]);
+    assert_eq!(o.status.code(), Some(2), "{}", err(&o));
+    let e = err(&o);
+    assert!(e.contains("too large to read"), "{e}");
+    assert!(e.contains("7000000 cells"), "{e}");
+    // An OLE2 compound file (.xls): refused before any reader expands it.
+    let mut old = vec![0xD0, 0xCF, 0x11, 0xE0, 0xA1, 0xB1, 0x1A, 0xE1];
+    old.resize(4096, 0);
+    let path = temp("forms_old.xls", &old);
+    let o = run(&["reduce", &path]);
+    assert_eq!(o.status.code(), Some(2));
+    assert!(err(&o).contains("save it as .xlsx or .ods"), "{}", err(&o));
+}
+
+#[test]
+fn a_decimal_comma_in_a_comma_separated_stations_file_is_named() {
+    let text = "station,latitude,longitude\nA,52,1601,4.4970\nB,48.85,2.35\n";
+    let path = temp("forms_overfull.csv", text.as_bytes());
+    let o = run_words(
+        "predict --planet mercury --date 2032-11-13 --stations",
+        &[&path],
+    );
+    assert_eq!(o.status.code(), Some(2));
+    let e = err(&o);
+    assert!(
+        e.contains("forms_overfull.csv:2: the row has 4 fields but the header names 3"),
+        "{e}"
+    );
+    assert!(e.contains("semicolons"), "{e}");
+}
+
+#[test]
+fn offsets_west_of_greenwich_and_decimal_commas_before_an_offset() {
+    let text = "station,latitude,longitude\nA,-22.9,-43.2\n";
+    let path = temp("forms_west.csv", text.as_bytes());
+    let o = run_words(
+        "predict --planet mercury --date 2032-11-13 --format json --time-zone -03:00 --stations",
+        &[&path],
+    );
+    assert!(o.status.success(), "{}", err(&o));
+    assert!(out(&o).contains("-03:00"), "{}", out(&o));
+    // Times written with the clock's offset and a decimal comma, semicolon-separated.
+    let mut text = HEADER.join(";") + "\n";
+    for r in rows() {
+        let utc =
+            chrono::NaiveDateTime::parse_from_str(&r[5], "%Y-%m-%dT%H:%M:%S%.fZ").expect("time");
+        let local = (utc + chrono::TimeDelta::hours(2)).format("%Y-%m-%dT%H:%M:%S%.3f+02:00");
+        let time = local.to_string().replace('.', ",");
+        let mut f = r.clone();
+        f[5] = time;
+        text.push_str(&f.join(";").replace("0,000+", "0+"));
+        text.push('\n');
+    }
+    let path = temp("forms_offsets.csv", text.as_bytes());
+    assert_same_result("offsets", &reduce(&path, &[]));
+}

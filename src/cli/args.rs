@@ -229,7 +229,7 @@ pub struct PredictArgs {
     /// Also give each contact in civil (clock) time: an IANA zone such as Europe/Amsterdam or a
     /// fixed offset such as +05:30 (column time_civil); a time_zone column in the stations
     /// file sets it per station, this option filling the rows that leave it empty.
-    #[arg(long = "time-zone", value_name = "ZONE")]
+    #[arg(long = "time-zone", value_name = "ZONE", allow_hyphen_values = true)]
     pub time_zone: Option<String>,
     /// Write the Sun's brightness seen from the Earth's centre through the transit: .csv
     /// (time_utc,relative_flux) or .svg (the chart, contacts marked).

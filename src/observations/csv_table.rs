@@ -16,18 +16,19 @@ pub struct CsvTable {
 }
 
 impl CsvTable {
-    /// Read a CSV file from disk.
+    /// Read a CSV file, or the first sheet of an `.xlsx` or `.ods` workbook, from disk.
     ///
     /// Errors: the file cannot be read, is not UTF-8 (the line and byte column are named), is
     /// empty, or is not valid CSV.
     pub fn read(path: &Path) -> Result<CsvTable> {
-        if super::spreadsheet::is_spreadsheet(path) {
-            return super::spreadsheet::read_first_sheet(path);
-        }
         let bytes = std::fs::read(path).map_err(|source| Error::Io {
             path: path.to_path_buf(),
             source,
         })?;
+        // By content, not by name: a CSV file saved as `.xlsx`, or a workbook as `.csv`.
+        if super::spreadsheet::looks_like_spreadsheet(&bytes) {
+            return super::spreadsheet::first_sheet_of_bytes(path, &bytes);
+        }
         Self::from_bytes(path, &bytes)
     }
 
@@ -67,18 +68,35 @@ impl CsvTable {
         let line_of = line_finder(text);
         let decimal_comma = separator != b',';
         let mut records = Vec::new();
+        let mut overfull = Vec::new();
         for rec in reader.records() {
             let rec = rec.map_err(|e| csv_error(path, &e))?;
             if rec.iter().all(str::is_empty) {
                 continue;
             }
             let line = rec.position().map(|p| line_of(p.byte())).unwrap_or(0);
+            if rec.iter().skip(headers.len()).any(|f| !f.is_empty()) {
+                overfull.push(overfull_row(
+                    path,
+                    line,
+                    rec.len(),
+                    headers.len(),
+                    separator,
+                ));
+            }
             let rec = if decimal_comma {
                 with_decimal_points(&headers, &rec)
             } else {
                 rec
             };
             records.push((line, rec));
+        }
+        if !overfull.is_empty() {
+            return Err(Error::BadRows {
+                file: path.to_path_buf(),
+                rows: overfull,
+                total: records.len(),
+            });
         }
         Ok(CsvTable {
             path: path.to_path_buf(),
@@ -243,28 +261,37 @@ fn separator_of(text: std::borrow::Cow<'_, str>) -> (std::borrow::Cow<'_, str>, 
 }
 
 /// A record with each decimal comma (`52,1601`, `51°28'40,5"N`, `04:26:38,5Z`) read as a point:
-/// a field outside the text columns with one comma, between two digits.
+/// in a field outside the text columns, a comma between two digits, one in each part of a
+/// range `START/END` at most.
 fn with_decimal_points(headers: &[String], rec: &csv::StringRecord) -> csv::StringRecord {
     let mut out = csv::StringRecord::new();
     for (k, field) in rec.iter().enumerate() {
         let text_column = headers
             .get(k)
             .is_some_and(|h| TEXT_COLUMNS.contains(&h.as_str()));
-        let b = field.as_bytes();
-        let comma = field.find(',');
-        let decimal = !text_column
-            && field.matches(',').count() == 1
-            && comma.is_some_and(|i| {
-                i > 0 && i + 1 < b.len() && b[i - 1].is_ascii_digit() && b[i + 1].is_ascii_digit()
-            });
-        if decimal {
-            out.push_field(&field.replace(',', "."));
-        } else {
+        if text_column || !field.contains(',') {
             out.push_field(field);
+            continue;
         }
+        let parts: Vec<String> = field.split('/').map(decimal_point_of_part).collect();
+        out.push_field(&parts.join("/"));
     }
     out.set_position(rec.position().cloned());
     out
+}
+
+/// One number's decimal comma as a point, if it has exactly one comma, between two digits.
+fn decimal_point_of_part(part: &str) -> String {
+    let b = part.as_bytes();
+    let decimal = part.matches(',').count() == 1
+        && part.find(',').is_some_and(|i| {
+            i > 0 && i + 1 < b.len() && b[i - 1].is_ascii_digit() && b[i + 1].is_ascii_digit()
+        });
+    if decimal {
+        part.replace(',', ".")
+    } else {
+        part.to_string()
+    }
 }
 
 /// Line numbers counted from the records' byte offsets (the csv crate's own line count skips
@@ -292,6 +319,20 @@ fn line_finder(text: &str) -> impl Fn(u64) -> u64 + '_ {
     }
 }
 
+/// The line of the bad-rows list for a row with more fields than the header has names.
+fn overfull_row(path: &Path, line: u64, fields: usize, names: usize, separator: u8) -> String {
+    let why = if separator == b',' {
+        "a decimal comma (52,1601) in a comma-separated file splits a number in two; write decimal points, put such numbers in quotes, or separate the columns with semicolons"
+    } else {
+        "a separator inside a value splits it in two; put such values in quotes, or give the extra columns a name in the header"
+    };
+    format!(
+        "{}:{line}: the row has {fields} fields but the header names {names}; {why}",
+        path.display()
+    )
+}
+
+/// The error for text the csv crate cannot read as CSV.
 fn csv_error(path: &Path, e: &csv::Error) -> Error {
     let line = e.position().map(|p| p.line()).unwrap_or(1);
     Error::Input {
@@ -318,6 +359,22 @@ mod tests {
         let t = CsvTable::from_bytes(Path::new("x.csv"), text).unwrap();
         let lines: Vec<u64> = t.records.iter().map(|(l, _)| *l).collect();
         assert_eq!(lines, vec![2, 3]);
+    }
+
+    #[test]
+    fn a_decimal_comma_in_a_comma_separated_file_is_a_bad_row() {
+        let text = b"station,latitude,longitude\nA,52,1601,4.497\nB,1.0,2.0,\n";
+        let e = CsvTable::from_bytes(Path::new("s.csv"), text).expect_err("overfull");
+        let text = e.to_string();
+        assert!(
+            text.contains("s.csv:2: the row has 4 fields but the header names 3"),
+            "{text}"
+        );
+        assert!(text.contains("decimal comma"), "{text}");
+        assert!(
+            !text.contains("s.csv:3"),
+            "a trailing empty field is not an error: {text}"
+        );
     }
 
     #[test]

@@ -21,6 +21,8 @@ pub mod local_time;
 pub mod longitude;
 pub mod readings;
 pub mod rows;
+pub mod sheet_extent;
 pub mod spreadsheet;
+pub mod spreadsheet_cells;
 pub mod templates;
 pub mod timings;

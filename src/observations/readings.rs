@@ -58,25 +58,29 @@ fn is_time_of_day(text: &str) -> bool {
 }
 
 /// A time's decimal comma (ISO 8601-1:2019 §3.2.6 prefers the comma as decimal sign:
-/// `04:26:38,5Z`) as a point; only a comma between two digits after the last colon is read so.
+/// `04:26:38,5Z`) as a point: in each part of a range `START/END`, a comma between two digits
+/// somewhere after a colon (so `22:27:46,5+01:00` too).
 fn decimal_point(text: &str) -> std::borrow::Cow<'_, str> {
-    let Some(colon) = text.rfind(':') else {
+    if !text.contains(',') {
         return text.into();
-    };
-    let b = text.as_bytes();
-    match text[colon..].find(',').map(|i| colon + i) {
-        Some(i)
-            if i > 0
-                && i + 1 < b.len()
-                && b[i - 1].is_ascii_digit()
-                && b[i + 1].is_ascii_digit() =>
-        {
-            let mut owned = text.to_string();
-            owned.replace_range(i..=i, ".");
-            owned.into()
-        }
-        _ => text.into(),
     }
+    let parts: Vec<String> = text.split('/').map(decimal_point_of_instant).collect();
+    parts.join("/").into()
+}
+
+/// One instant's decimal comma as a point (see [`decimal_point`]).
+fn decimal_point_of_instant(text: &str) -> String {
+    let b = text.as_bytes();
+    let Some(colon) = text.find(':') else {
+        return text.to_string();
+    };
+    let mut owned = text.to_string();
+    if let Some(i) = text[colon..].find(',').map(|i| colon + i) {
+        if i + 1 < b.len() && b[i - 1].is_ascii_digit() && b[i + 1].is_ascii_digit() {
+            owned.replace_range(i..=i, ".");
+        }
+    }
+    owned
 }
 
 /// The message for a date that has the form YYYY-MM-DD but no such day (`2032-11-31`), if so.
@@ -373,6 +377,18 @@ mod tests {
             (r.label, r.range_s),
             (at("1769-06-03T14:12:51.5Z"), Some(3.0))
         );
+        // Decimal commas in both ends of a range, and before an offset (ISO 8601-1 §3.2.6).
+        let r = parse_time_reading(
+            "2012-06-06T08:27:40,5+10:00/08:27:50,5",
+            Calendar::Gregorian,
+        )
+        .unwrap();
+        assert_eq!(r.label, at("2012-06-05T22:27:45.5Z"));
+        let r = parse_time_reading("2012-06-05T22:27:46,5+00:00:00", Calendar::Gregorian).unwrap();
+        assert_eq!(r.label, at("2012-06-05T22:27:46.5Z"));
+        // An offset with seconds (a local mean time), as the tz database writes them.
+        let r = parse_time_reading("1874-12-09T02:19:32+00:19:32", Calendar::Gregorian).unwrap();
+        assert_eq!(r.label, at("1874-12-09T02:00:00Z"));
         // An offset applies to both ends.
         let r =
             parse_time_reading("2012-06-06T08:27:40+10:00/08:27:50", Calendar::Gregorian).unwrap();

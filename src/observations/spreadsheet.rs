@@ -1,34 +1,21 @@
-//! Spreadsheets read directly: the first sheet of an `.xlsx`, `.xlsm`, `.xls` or `.ods` file
-//! becomes a table as a CSV file would, its row numbers the spreadsheet's own (the header in
-//! row 1 is line 1) and its columns counted from A, so that messages point at the cell.
+//! Spreadsheets read directly: the first sheet of an `.xlsx` or `.ods` file becomes a table as
+//! a CSV file would, its row numbers the spreadsheet's own (the header in row 1 is line 1) and
+//! its columns counted from A, so that messages point at the cell. Notes typed above the
+//! header or between rows (a first cell beginning with `#`) are left out; a formula's error
+//! (`#N/A`) is never a note: the rows holding one are listed for the user to fix.
 //!
-//! Cells are read with the `calamine` crate. Date and time cells become ISO 8601 text: a date
-//! with a time as `2012-06-05T22:27:46.5` (no zone: the reading notes say it was read as UTC),
-//! a time alone (a serial under one day, or an ISO duration in OpenDocument) as `22:27:46.5`,
-//! which the reduction completes with its date. Spreadsheet serial dates count days from
-//! 1899-12-30 (1900 system) or 1904-01-01 (ECMA-376 Part 1, §18.17.4.1); OpenDocument stores
-//! ISO 8601 text (OASIS OpenDocument 1.2, part 1, §19.385 office:date-value).
+//! Cells are read with the `calamine` crate: an `.xlsx` sheet cell by cell as it streams, an
+//! `.ods` sheet after its size has been checked ([`super::sheet_extent`]), so that a sheet
+//! that declares a million rows or a stray cell far away never fills the memory.
 
 use super::csv_table::CsvTable;
+use super::sheet_extent::{self, MAX_CELLS, MAX_UNCOMPRESSED_BYTES};
+use super::spreadsheet_cells::{cell_text, CellKind, CellText};
 use crate::error::{Error, Location, Result};
-use calamine::{open_workbook_auto, Data, Reader};
-
+use calamine::Reader;
+use std::collections::BTreeMap;
+use std::io::Cursor;
 use std::path::Path;
-
-/// Whether a path names a spreadsheet this module reads (by its extension, any case).
-pub fn is_spreadsheet(path: &Path) -> bool {
-    path.extension()
-        .and_then(|e| e.to_str())
-        .is_some_and(|e| ["xlsx", "xlsm", "xls", "ods"].contains(&e.to_ascii_lowercase().as_str()))
-}
-
-/// The first sheet of a spreadsheet as a table: the first row with any text is the header.
-///
-/// Errors: the file cannot be opened as a spreadsheet, has no sheet, or no header row.
-pub fn read_first_sheet(path: &Path) -> Result<CsvTable> {
-    let book = open_workbook_auto(path).map_err(|e| unreadable(path, &e));
-    first_sheet(path, book?)
-}
 
 /// Whether bytes begin as a spreadsheet does: a ZIP archive (.xlsx, .ods; PKWARE APPNOTE
 /// 4.3.7, local file header signature) or an OLE2 compound file (.xls).
@@ -36,15 +23,195 @@ pub fn looks_like_spreadsheet(bytes: &[u8]) -> bool {
     bytes.starts_with(b"PK\x03\x04") || bytes.starts_with(&[0xD0, 0xCF, 0x11, 0xE0])
 }
 
-/// The first sheet of a spreadsheet held in memory (an upload); `label` names it in messages.
+/// The first sheet of a spreadsheet file as a table: the first row holding anything but a
+/// note is the header.
 ///
-/// Errors: as [`read_first_sheet`].
-pub fn first_sheet_of_bytes(label: &Path, bytes: &[u8]) -> Result<CsvTable> {
-    let cursor = std::io::Cursor::new(bytes.to_vec());
-    let book = calamine::open_workbook_auto_from_rs(cursor).map_err(|e| unreadable(label, &e));
-    first_sheet(label, book?)
+/// Errors: as [`first_sheet_of_bytes`], or the file cannot be read.
+pub fn read_first_sheet(path: &Path) -> Result<CsvTable> {
+    let bytes = std::fs::read(path).map_err(|source| Error::Io {
+        path: path.to_path_buf(),
+        source,
+    })?;
+    first_sheet_of_bytes(path, &bytes)
 }
 
+/// The first sheet of a spreadsheet held in memory; `label` names it in messages.
+///
+/// Errors: not an `.xlsx` or `.ods` workbook (an `.xls` file is asked to be saved again); a
+/// sheet too large to expand; no sheet or no header; [`Error::BadRows`] listing the cells that
+/// hold a formula's error.
+pub fn first_sheet_of_bytes(label: &Path, bytes: &[u8]) -> Result<CsvTable> {
+    if bytes.starts_with(b"PK") {
+        let declared =
+            sheet_extent::declared_uncompressed_bytes(bytes).map_err(|e| unreadable(label, &e))?;
+        if declared > MAX_UNCOMPRESSED_BYTES {
+            return Err(too_large(
+                label,
+                &format!("it unpacks to {} MB", declared / 1_000_000),
+            ));
+        }
+    }
+    // Each reader is chosen by content and opened only after the checks: an `.xls` or
+    // `.ods` reader expands every sheet as it opens.
+    let cells = if !bytes.starts_with(b"PK") || sheet_extent::is_binary_workbook(bytes) {
+        return Err(at_line(
+            label,
+            "this is an older or binary Excel workbook (.xls or .xlsb), which is not read".into(),
+            "save it as .xlsx or .ods (or export the sheet as CSV) and give that file",
+        ));
+    } else if sheet_extent::is_open_document(bytes) {
+        ods_cells(label, bytes)?
+    } else {
+        let mut book: calamine::Xlsx<_> = calamine::open_workbook_from_rs(Cursor::new(bytes))
+            .map_err(|e| unreadable(label, &e))?;
+        xlsx_cells(label, &mut book)?
+    };
+    table_of(label, cells)
+}
+
+/// The cells of a sheet holding anything, by row and column (both from 0).
+type SheetCells = BTreeMap<u32, Vec<(u32, CellText)>>;
+
+/// The cells of an `.xlsx` workbook's first sheet, streamed, stopping past [`MAX_CELLS`].
+fn xlsx_cells(label: &Path, book: &mut calamine::Xlsx<Cursor<&[u8]>>) -> Result<SheetCells> {
+    let Some(name) = book.sheet_names().first().cloned() else {
+        return Err(no_sheet(label));
+    };
+    let mut reader = book
+        .worksheet_cells_reader(&name)
+        .map_err(|e| unreadable(label, &e))?;
+    let mut cells = SheetCells::new();
+    let mut count = 0u64;
+    while let Some(cell) = reader.next_cell().map_err(|e| unreadable(label, &e))? {
+        let (row, col) = cell.get_position();
+        let text = cell_text(&cell.get_value().clone().into());
+        if text.is_empty() {
+            continue;
+        }
+        count += 1;
+        if count > MAX_CELLS {
+            return Err(too_large(
+                label,
+                "its first sheet holds more cells than that",
+            ));
+        }
+        cells.entry(row).or_default().push((col, text));
+    }
+    Ok(cells)
+}
+
+/// The cells of an `.ods` workbook's first sheet, once its sheets are known to be safe to
+/// expand.
+fn ods_cells(label: &Path, bytes: &[u8]) -> Result<SheetCells> {
+    let spanned = sheet_extent::ods_cells_spanned(bytes).map_err(|e| unreadable(label, &e))?;
+    if spanned > MAX_CELLS {
+        return Err(too_large(
+            label,
+            &format!("its sheets span {spanned} cells once their repeated rows are expanded"),
+        ));
+    }
+    let mut book: calamine::Ods<_> =
+        calamine::open_workbook_from_rs(Cursor::new(bytes)).map_err(|e| unreadable(label, &e))?;
+    let range = match book.worksheet_range_at(0) {
+        Some(r) => r.map_err(|e| unreadable(label, &e))?,
+        None => return Err(no_sheet(label)),
+    };
+    let mut cells = SheetCells::new();
+    for (row, col, value) in range.used_cells() {
+        let text = cell_text(value);
+        if !text.is_empty() {
+            let (row, col) = (row as u32, col as u32);
+            let (row0, col0) = range.start().unwrap_or((0, 0));
+            cells
+                .entry(row0 + row)
+                .or_default()
+                .push((col0 + col, text));
+        }
+    }
+    Ok(cells)
+}
+
+/// The table of a sheet's cells: notes left out, the first other row the header, cells beside
+/// the table (right of its last named column) left out, every cell holding a formula's error
+/// listed as a bad row.
+fn table_of(label: &Path, cells: SheetCells) -> Result<CsvTable> {
+    let mut rows = cells.into_iter().filter(|(_, row)| {
+        !row.iter()
+            .find(|(_, c)| !c.is_empty())
+            .is_some_and(|(_, c)| c.is_note())
+    });
+    let Some((_, header)) = rows.next() else {
+        return Err(at_line(
+            label,
+            "the first sheet is empty".into(),
+            "give a header row and at least one data row",
+        ));
+    };
+    let headers: Vec<String> = fields_of(&header)
+        .iter()
+        .map(|h| h.trim().to_ascii_lowercase())
+        .collect();
+    let mut records = Vec::new();
+    let mut errors = Vec::new();
+    for (row, mut cells) in rows {
+        // Cells beside the table (right of its last named column) are not part of it.
+        cells.retain(|(col, _)| (*col as usize) < headers.len());
+        if cells.is_empty() {
+            continue;
+        }
+        let line = u64::from(row) + 1;
+        for (col, cell) in &cells {
+            if let CellKind::Error(name) = &cell.kind {
+                errors.push(error_cell_line(label, line, *col, &headers, name));
+            }
+        }
+        let mut rec = csv::StringRecord::from(fields_of(&cells));
+        rec.trim();
+        records.push((line, rec));
+    }
+    if !errors.is_empty() {
+        return Err(Error::BadRows {
+            file: label.to_path_buf(),
+            rows: errors,
+            total: records.len(),
+        });
+    }
+    Ok(CsvTable {
+        path: label.to_path_buf(),
+        headers,
+        records,
+    })
+}
+
+/// A row's fields from column A to its last cell holding anything.
+fn fields_of(cells: &[(u32, CellText)]) -> Vec<String> {
+    let width = cells
+        .iter()
+        .map(|(c, _)| *c as usize + 1)
+        .max()
+        .unwrap_or(0);
+    let mut fields = vec![String::new(); width];
+    for (col, cell) in cells {
+        fields[*col as usize] = cell.text.clone();
+    }
+    fields
+}
+
+/// The line of the bad-rows list for a cell holding a formula's error.
+fn error_cell_line(label: &Path, line: u64, col: u32, headers: &[String], name: &str) -> String {
+    let column = headers
+        .get(col as usize)
+        .filter(|h| !h.is_empty())
+        .map(|h| format!(" (column '{h}')"))
+        .unwrap_or_default();
+    format!(
+        "{}:{line}:{}{column}: the cell holds the spreadsheet error {name}; correct the formula or type the value",
+        label.display(),
+        col + 1
+    )
+}
+
+/// The error for a file calamine cannot open.
 fn unreadable(path: &Path, e: &dyn std::fmt::Display) -> Error {
     at_line(
         path,
@@ -53,6 +220,28 @@ fn unreadable(path: &Path, e: &dyn std::fmt::Display) -> Error {
     )
 }
 
+/// The error for a sheet too large to expand; `why` says what was found.
+fn too_large(path: &Path, why: &str) -> Error {
+    at_line(
+        path,
+        format!(
+            "the spreadsheet is too large to read: {why} (at most {MAX_CELLS} cells and {} MB unpacked are read)",
+            MAX_UNCOMPRESSED_BYTES / 1_000_000
+        ),
+        "delete stray cells far from the table (or export the table alone as CSV) and give that file",
+    )
+}
+
+/// The error for a workbook with no sheet.
+fn no_sheet(path: &Path) -> Error {
+    at_line(
+        path,
+        "the spreadsheet has no sheet".into(),
+        "put the table on its first sheet",
+    )
+}
+
+/// An input error at line 1 of a file.
 fn at_line(path: &Path, message: String, hint: &str) -> Error {
     Error::Input {
         location: Location {
@@ -65,143 +254,49 @@ fn at_line(path: &Path, message: String, hint: &str) -> Error {
     }
 }
 
-/// The table of a workbook's first sheet.
-fn first_sheet<RS: std::io::Read + std::io::Seek>(
-    path: &Path,
-    mut book: calamine::Sheets<RS>,
-) -> Result<CsvTable> {
-    let again = "save it again as .xlsx or .ods, or export the sheet as CSV";
-    let range = match book.worksheet_range_at(0) {
-        Some(Ok(r)) => r,
-        Some(Err(e)) => {
-            return Err(at_line(
-                path,
-                format!("its first sheet cannot be read ({e})"),
-                again,
-            ))
-        }
-        None => {
-            return Err(at_line(
-                path,
-                "the spreadsheet has no sheet".into(),
-                "put the table on its first sheet",
-            ))
-        }
-    };
-    let (row0, col0) = range.start().unwrap_or((0, 0));
-    let mut rows = range.rows().enumerate().map(|(k, cells)| {
-        let mut fields: Vec<String> = vec![String::new(); col0 as usize];
-        fields.extend(cells.iter().map(cell_text));
-        (u64::from(row0) + k as u64 + 1, fields)
-    });
-    // Rows above the header (notes) are skipped; lines keep the sheet's own row numbers.
-    let Some((_, header)) = rows.find(|(_, f)| f.iter().any(|x| !x.is_empty())) else {
-        return Err(at_line(
-            path,
-            "the first sheet is empty".into(),
-            "give a header row and at least one data row",
-        ));
-    };
-    let headers: Vec<String> = header
-        .iter()
-        .map(|h| h.trim().to_ascii_lowercase())
-        .collect();
-    let records = rows
-        .filter(|(_, f)| {
-            f.iter().any(|x| !x.is_empty()) && !f.first().is_some_and(|x| x.starts_with('#'))
-        })
-        .map(|(line, f)| {
-            let mut rec = csv::StringRecord::from(f);
-            rec.trim();
-            (line, rec)
-        })
-        .collect();
-    Ok(CsvTable {
-        path: path.to_path_buf(),
-        headers,
-        records,
-    })
-}
-
-/// A cell as the text a CSV file would hold.
-fn cell_text(cell: &Data) -> String {
-    match cell {
-        Data::Empty => String::new(),
-        Data::String(s) => s.clone(),
-        Data::Int(i) => i.to_string(),
-        Data::Float(f) => f.to_string(),
-        Data::Bool(b) => b.to_string(),
-        Data::DateTime(d) => {
-            let serial_days = d.as_f64();
-            match d.as_datetime() {
-                Some(t) if (0.0..1.0).contains(&serial_days) && !d.is_duration() => {
-                    time_text(t.time())
-                }
-                Some(t) if d.is_duration() => time_text(t.time()),
-                Some(t) => format!("{}T{}", t.date(), time_text(t.time())),
-                None => serial_days.to_string(),
-            }
-        }
-        Data::DateTimeIso(s) => s.clone(),
-        Data::DurationIso(s) => iso_duration_as_time(s).unwrap_or_else(|| s.clone()),
-        Data::Error(e) => format!("#{e:?}"),
-    }
-}
-
-/// A time of day to the millisecond, trailing zeros of the fraction dropped (`22:27:46.5`).
-fn time_text(t: chrono::NaiveTime) -> String {
-    use chrono::Timelike;
-    // Serial days carry binary rounding: round to the millisecond.
-    let ms_total = (u64::from(t.num_seconds_from_midnight()) * 1000
-        + u64::from(t.nanosecond()) / 1_000_000
-        + u64::from(t.nanosecond() % 1_000_000 >= 500_000))
-        % 86_400_000;
-    let (s, ms) = (ms_total / 1000, ms_total % 1000);
-    let mut out = format!("{:02}:{:02}:{:02}", s / 3600, s / 60 % 60, s % 60);
-    if ms > 0 {
-        let frac = format!("{ms:03}");
-        out.push('.');
-        out.push_str(frac.trim_end_matches('0'));
-    }
-    out
-}
-
-/// An OpenDocument time cell (`PT22H27M46.5S`, ISO 8601 duration since midnight) as a time
-/// of day, if it is one (under 24 hours).
-fn iso_duration_as_time(text: &str) -> Option<String> {
-    let (value_s, _) = crate::observations::readings::parse_one_duration(text)?;
-    if !(0.0..86_400.0).contains(&value_s) {
-        return None;
-    }
-    let whole_ms = (value_s * 1000.0).round() as i64;
-    let t = chrono::NaiveTime::from_num_seconds_from_midnight_opt(
-        u32::try_from(whole_ms / 1000).ok()?,
-        u32::try_from(whole_ms % 1000).ok()? * 1_000_000,
-    )?;
-    Some(time_text(t))
-}
-
 #[cfg(test)]
 mod tests {
     use super::*;
 
-    #[test]
-    fn times_are_written_to_the_millisecond() {
-        let t = chrono::NaiveTime::from_hms_nano_opt(22, 27, 46, 499_999_600).expect("time");
-        assert_eq!(time_text(t), "22:27:46.5");
-        let t = chrono::NaiveTime::from_hms_opt(4, 26, 38).expect("time");
-        assert_eq!(time_text(t), "04:26:38");
-        assert_eq!(
-            iso_duration_as_time("PT22H27M46.5S").as_deref(),
-            Some("22:27:46.5")
-        );
-        assert_eq!(iso_duration_as_time("PT25H").as_deref(), None);
+    fn cell(text: &str, kind: CellKind) -> CellText {
+        CellText {
+            text: text.into(),
+            kind,
+        }
     }
 
     #[test]
-    fn spreadsheets_are_known_by_their_extension() {
-        assert!(is_spreadsheet(Path::new("timings.XLSX")));
-        assert!(is_spreadsheet(Path::new("a/b.ods")));
-        assert!(!is_spreadsheet(Path::new("timings.csv")));
+    fn notes_above_the_header_are_left_out_and_error_cells_listed() {
+        let mut cells = SheetCells::new();
+        cells.insert(0, vec![(1, cell("# campaign notes", CellKind::Text))]);
+        cells.insert(
+            2,
+            vec![
+                (0, cell("station", CellKind::Text)),
+                (1, cell("time_utc", CellKind::Text)),
+            ],
+        );
+        cells.insert(
+            3,
+            vec![
+                (0, cell("A", CellKind::Text)),
+                (1, cell("", CellKind::Error("#N/A".into()))),
+            ],
+        );
+        let e = table_of(Path::new("t.xlsx"), cells).expect_err("error cell");
+        let text = e.to_string();
+        assert!(
+            text.contains(
+                "t.xlsx:4:2 (column 'time_utc'): the cell holds the spreadsheet error #N/A"
+            ),
+            "{text}"
+        );
+        let mut cells = SheetCells::new();
+        cells.insert(0, vec![(0, cell("# notes", CellKind::Text))]);
+        cells.insert(1, vec![(0, cell("station", CellKind::Text))]);
+        cells.insert(4, vec![(0, cell("A", CellKind::Text))]);
+        let t = table_of(Path::new("t.xlsx"), cells).expect("table");
+        assert_eq!(t.headers, vec!["station"]);
+        assert_eq!(t.records[0].0, 5);
     }
 }

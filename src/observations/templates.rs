@@ -48,13 +48,13 @@ station,latitude,longitude,elevation_m,time_zone
         TemplateKind::Observations => format!(
             "\
 # Timings: one row per contact timed. Columns are found by name; extra columns are ignored.
-# contact: 1-4 (or I-IV). time_utc: ISO 8601 in UTC, 2032-11-13T06:43:40.5Z, or with the
-# clock's offset, 2032-11-13T07:43:40.5+01:00; a time to the minute only (07:43) counts the
+# contact: 1-4 (or I-IV). time_utc: ISO 8601 in UTC, 2032-11-13T11:05:59.6Z, or with the
+# clock's offset, 2032-11-13T12:05:59.6+01:00; a time to the minute only (12:06) counts the
 # whole minute. sigma_s: how sure the time is, in seconds (one standard deviation; leave it
 # empty for the usual default). observer: who timed it, where several timed at one station.
 # Delete the # before the example row and change it, or add rows below it.
 {}station,latitude,longitude,elevation_m,contact,time_utc,sigma_s,observer
-# Example Garden School,52.1601,4.4970,2,2,2032-11-13T06:43:40.5Z,2,first observer
+# Example Garden School,52.1601,4.4970,2,3,2032-11-13T11:05:59.6Z,5,first observer
 ",
             caution_comment()
         ),

@@ -11,14 +11,14 @@ use chrono::{NaiveDateTime, TimeDelta};
 /// predicted date and the days either side. Returns the sentence for the reduction's notes, or
 /// `None` where every time had its date.
 pub fn complete_dates(valid: &mut [Observation], event: &TransitEvent) -> Option<String> {
-    let mut lines = Vec::new();
+    let mut lines: Vec<u64> = Vec::new();
     let mut dates = Vec::new();
     for obs in valid
         .iter_mut()
         .filter(|o| o.written.undated && o.duration.is_none())
     {
         complete_date(obs, event);
-        lines.push(obs.line.to_string());
+        lines.push(obs.line);
         let date = obs.time_label.date();
         if !dates.contains(&date) {
             dates.push(date);
@@ -27,12 +27,14 @@ pub fn complete_dates(valid: &mut [Observation], event: &TransitEvent) -> Option
     if lines.is_empty() {
         return None;
     }
+    dates.sort_unstable();
     let shown: Vec<String> = dates.iter().map(ToString::to_string).collect();
+    let each = if lines.len() == 1 { "it" } else { "each" };
     Some(format!(
-        "{} written without a date (line{} {}) took the date that puts each nearest its predicted contact at its station ({}); write the date with the time to be sure of it",
+        "{} written without a date (line{} {}) took the date that puts {each} nearest its predicted contact at its station ({}); write the date with the time to be sure of it",
         crate::words::count(lines.len(), "time", "times"),
         if lines.len() == 1 { "" } else { "s" },
-        lines.join(", "),
+        crate::words::line_ranges(&lines),
         shown.join(", ")
     ))
 }

@@ -252,15 +252,17 @@ pub struct PredictionRow<'a> {
     station: &'a str,
     sun_altitude_deg: Option<f64>,
     sun_azimuth_deg: Option<f64>,
+    /// Present (null where there is no civil time) whenever any station has a zone.
     #[serde(skip_serializing_if = "Option::is_none")]
-    time_civil: Option<String>,
+    time_civil: Option<Option<String>>,
     #[serde(skip_serializing_if = "Option::is_none")]
     time_local: Option<String>,
     #[serde(skip_serializing_if = "Option::is_none")]
     calendar: Option<&'static str>,
     time_utc: Option<String>,
+    /// Present (null for a station without a zone) whenever any station has a zone.
     #[serde(skip_serializing_if = "Option::is_none")]
-    time_zone: Option<String>,
+    time_zone: Option<Option<String>>,
     vertex_angle_deg: Option<f64>,
     visible: Option<bool>,
 }
@@ -274,6 +276,7 @@ pub fn predictions_json<'a>(
     clocks: Clocks,
 ) -> Vec<PredictionRow<'a>> {
     let mut rows = Vec::with_capacity(4 * predictions.len());
+    let civil = clocks.civil();
     for (k, p) in predictions.iter().enumerate() {
         let how = clocks.solar.map(|kind| (kind, clocks.calendar(k)));
         let calendar = Some(clocks.calendar(k).name()).filter(|_| clocks.calendar_column());
@@ -289,8 +292,9 @@ pub fn predictions_json<'a>(
                     cc.and_then(|x| local_reading(event, x.hours, p.station.longitude_deg, how))
                 }),
                 calendar,
-                time_civil: zone.and_then(|z| cc.map(|x| civil_reading(event, x.hours, z))),
-                time_zone: zone.map(|z| z.name()),
+                time_civil: civil
+                    .then(|| zone.and_then(|z| cc.map(|x| civil_reading(event, x.hours, z)))),
+                time_zone: civil.then(|| zone.map(|z| z.name())),
                 sun_altitude_deg: cc.map(|x| round(x.sun_altitude_deg, 3)),
                 sun_azimuth_deg: cc.map(|x| round(x.sun_azimuth_deg, 3)),
                 position_angle_deg: cc.map(|x| round(x.position_angle_deg, 2)),
@@ -332,8 +336,8 @@ pub fn delta_t_note(event: &TransitEvent) -> String {
     format!("{text}\n")
 }
 
-/// Width of the table's civil-time column (`2032-11-13 08:19:56.12 +00:19:32`).
-const CIVIL_WIDTH: usize = 32;
+/// Width of the table's civil-time column (`2032-11-13 08:19:56.12 +00:19:32 LMT`).
+const CIVIL_WIDTH: usize = 37;
 
 /// The heading's sentence naming each station's civil zone: `Civil time: Europe/Amsterdam
 /// for A, B; +05:30 for C.`, stations without a zone named too.
@@ -445,10 +449,16 @@ pub fn predictions_table(
             if clocks.civil() {
                 s.push(' ');
                 let text = clocks.zone(k).map(|z| {
-                    let mut t = civil_reading(event, x.hours, z);
-                    // 2032-11-13T08:19:56.12+01:00 as 2032-11-13 08:19:56.12 +01:00
+                    let reading = z.reading(event.label(x.hours));
+                    let mut t = reading.iso(2);
+                    // 2032-11-13T08:19:56.12+01:00 as 2032-11-13 08:19:56.12 +01:00 CET
                     t.replace_range(10..11, " ");
                     t.insert(22, ' ');
+                    let abbreviation = &reading.abbreviation;
+                    if abbreviation.chars().all(|c| c.is_ascii_alphabetic()) {
+                        t.push(' ');
+                        t.push_str(abbreviation);
+                    }
                     t
                 });
                 push_right(

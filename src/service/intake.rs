@@ -103,7 +103,7 @@ pub fn from_csv_bytes(bytes: &[u8]) -> Result<Vec<TimingFields>, String> {
 
 /// The timings of a pasted observations file: columns by header name, any of the export's.
 fn from_csv(text: &str) -> Result<Vec<TimingFields>, String> {
-    let table = CsvTable::from_bytes(std::path::Path::new("the pasted file"), text.as_bytes())
+    let table = CsvTable::from_bytes(std::path::Path::new("the pasted text"), text.as_bytes())
         .map_err(|e| e.to_string())?;
     fields_of_table(&table)
 }
@@ -111,9 +111,10 @@ fn from_csv(text: &str) -> Result<Vec<TimingFields>, String> {
 /// The fields of each row of a table read as `reduce` reads it.
 fn fields_of_table(table: &CsvTable) -> Result<Vec<TimingFields>, String> {
     if table.optional("station").is_none() {
-        return Err(
-            "the pasted file has no 'station' column; its first line must name the columns".into(),
-        );
+        return Err(format!(
+            "{} has no 'station' column; its first line must name the columns",
+            table.path.display()
+        ));
     }
     let mut out = Vec::new();
     for (_, r) in &table.records {
@@ -143,7 +144,7 @@ fn fields_of_table(table: &CsvTable) -> Result<Vec<TimingFields>, String> {
         });
     }
     if out.is_empty() {
-        return Err("the pasted file has a header and no rows".into());
+        return Err(format!("{} has a header and no rows", table.path.display()));
     }
     Ok(out)
 }

@@ -77,7 +77,7 @@ pub fn timing_form(action: &str, csrf: &str, key: Option<&str>, fields: &[Timing
 /// The form that uploads an observations file (multipart), with the anti-forgery token.
 pub fn upload_form(csrf: &str) -> String {
     format!(
-        "<form method=\"post\" action=\"/upload\" enctype=\"multipart/form-data\">\n<input type=\"hidden\" name=\"csrf\" value=\"{}\"/>\n<fieldset><legend>Or send an observations file (CSV, as above)</legend>\n<input type=\"file\" name=\"file\" id=\"file\" accept=\".csv,text/csv\"/> <button type=\"submit\" id=\"upload\">Send the file</button></fieldset>\n</form>\n",
+        "<form method=\"post\" action=\"/upload\" enctype=\"multipart/form-data\">\n<input type=\"hidden\" name=\"csrf\" value=\"{}\"/>\n<fieldset><legend>Or send an observations file (CSV with the columns above, or an .xlsx or .ods spreadsheet)</legend>\n<input type=\"file\" name=\"file\" id=\"file\" accept=\".csv,.tsv,.txt,.xlsx,.ods,text/csv\"/> <button type=\"submit\" id=\"upload\">Send the file</button></fieldset>\n</form>\n",
         esc(csrf)
     )
 }

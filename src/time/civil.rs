@@ -18,8 +18,11 @@ use chrono::NaiveDateTime;
 pub enum CivilZone {
     /// A zone of the tz database, with its history of offsets and daylight saving.
     Named(jiff::tz::TimeZone),
-    /// A fixed offset east of UTC, seconds.
-    Fixed(i32),
+    /// A fixed offset from UTC.
+    Fixed {
+        /// Seconds east of UTC.
+        offset_s: i32,
+    },
 }
 
 /// The zone's reading of one instant: its offset then and the abbreviation in use.
@@ -35,7 +38,8 @@ pub struct CivilReading {
 
 impl CivilZone {
     /// Read a zone: an IANA name (`Europe/Amsterdam`, any case), `UTC`/`Z`, or a fixed offset
-    /// `+05:30`, `-0300`, `+09`, optionally after `UTC` or `GMT` (`UTC+01:00`).
+    /// `+05:30`, `-0300`, `+09` or with seconds `+00:19:32` (a local mean time), optionally
+    /// after `UTC` or `GMT` (`UTC+01:00`).
     ///
     /// Errors: a sentence saying what was wrong and how to write a zone.
     pub fn parse(text: &str) -> Result<CivilZone, String> {
@@ -49,12 +53,12 @@ impl CivilZone {
             .or_else(|| upper.strip_prefix("GMT"))
             .unwrap_or(&upper);
         if rest.starts_with('+') || rest.starts_with('-') {
-            return parse_offset_s(rest).map(CivilZone::Fixed).ok_or_else(|| {
-                format!("'{t}' is not an offset from UTC; write it as +HH:MM (for example +05:30 or -03:00), within 18 hours")
+            return parse_offset_s(rest).map(|offset_s| CivilZone::Fixed { offset_s }).ok_or_else(|| {
+                format!("'{t}' is not an offset from UTC; write it as +HH:MM (for example +05:30 or -03:00) or +HH:MM:SS, within 18 hours")
             });
         }
         if rest.is_empty() || upper == "Z" {
-            return Ok(CivilZone::Fixed(0));
+            return Ok(CivilZone::Fixed { offset_s: 0 });
         }
         jiff::tz::TimeZoneDatabase::bundled()
             .get(t)
@@ -68,7 +72,7 @@ impl CivilZone {
     pub fn name(&self) -> String {
         match self {
             CivilZone::Named(tz) => tz.iana_name().unwrap_or("UTC").to_string(),
-            CivilZone::Fixed(offset_s) => offset_text(*offset_s),
+            CivilZone::Fixed { offset_s } => offset_text(*offset_s),
         }
     }
 
@@ -87,7 +91,7 @@ impl CivilZone {
                 let offset_s = info.offset().seconds();
                 (offset_s, info.abbreviation().to_string())
             }
-            CivilZone::Fixed(offset_s) => (*offset_s, offset_text(*offset_s)),
+            CivilZone::Fixed { offset_s } => (*offset_s, offset_text(*offset_s)),
         };
         CivilReading {
             local: utc + chrono::TimeDelta::seconds(i64::from(offset_s)),
@@ -98,21 +102,29 @@ impl CivilZone {
 }
 
 /// `+HH:MM`, `+HHMM`, `+HH` (sign already first) as an offset in seconds, within ±18 h.
-fn parse_offset_s(text: &str) -> Option<i32> {
-    let sign = if text.starts_with('-') { -1 } else { 1 };
-    let digits: String = text[1..].chars().filter(|c| *c != ':').collect();
-    if !digits.chars().all(|c| c.is_ascii_digit()) {
-        return None;
-    }
-    let (h, m): (i32, i32) = match digits.len() {
-        1 | 2 => (digits.parse().ok()?, 0),
-        4 => (digits[..2].parse().ok()?, digits[2..].parse().ok()?),
+pub(crate) fn parse_offset_s(text: &str) -> Option<i32> {
+    let sign = match text.chars().next()? {
+        '-' | '\u{2212}' => -1,
+        '+' => 1,
         _ => return None,
     };
-    if m >= 60 || h * 60 + m > 18 * 60 {
+    let body = text.trim_start_matches(['+', '-', '\u{2212}']);
+    let digits: String = body.chars().filter(|c| *c != ':').collect();
+    if digits.is_empty() || !digits.chars().all(|c| c.is_ascii_digit()) {
         return None;
     }
-    Some(sign * (h * 3600 + m * 60))
+    let number = |r: std::ops::Range<usize>| digits.get(r)?.parse::<i32>().ok();
+    let (h, m, s) = match digits.len() {
+        1 | 2 => (number(0..digits.len())?, 0, 0),
+        4 => (number(0..2)?, number(2..4)?, 0),
+        6 => (number(0..2)?, number(2..4)?, number(4..6)?),
+        _ => return None,
+    };
+    let total_s = h * 3600 + m * 60 + s;
+    if m >= 60 || s >= 60 || total_s > 18 * 3600 {
+        return None;
+    }
+    Some(sign * total_s)
 }
 
 /// An offset as ISO 8601 writes it, `+01:00`; with seconds (`+00:19:32`, a local mean time of

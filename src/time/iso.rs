@@ -10,13 +10,13 @@ use chrono::{NaiveDate, NaiveDateTime, TimeDelta};
 pub enum Zone {
     /// A trailing `Z`: UTC.
     Utc,
-    /// An offset from UTC in minutes (`+08:00` is 480), converted to UTC.
+    /// An offset from UTC in seconds (`+08:00` is 28800), converted to UTC.
     Offset(i32),
     /// No zone at all: read as UTC.
     Missing,
 }
 
-/// Split a trailing zone (`Z`, `+HH:MM`, `-HH:MM`, `+HHMM`, `+HH`) off a time.
+/// Split a trailing zone (`Z`, `+HH:MM`, `-HH:MM`, `+HHMM`, `+HH`, `+HH:MM:SS`) off a time.
 fn split_zone(text: &str) -> std::result::Result<(&str, Zone), String> {
     if let Some(body) = text.strip_suffix('Z').or_else(|| text.strip_suffix('z')) {
         return Ok((body, Zone::Utc));
@@ -31,24 +31,10 @@ fn split_zone(text: &str) -> std::result::Result<(&str, Zone), String> {
         return Ok((text, Zone::Missing));
     };
     let (body, offset) = text.split_at(pos);
-    let sign = if offset.starts_with('-') { -1 } else { 1 };
-    let digits: String = offset[1..].chars().filter(|c| *c != ':').collect();
-    let bad = || {
-        format!("'{text}' has a time-zone offset that is not +HH:MM; give the time in UTC with a trailing Z, e.g. 2012-06-05T22:25:41.3Z")
-    };
-    if !(digits.len() == 2 || digits.len() == 4) || !digits.chars().all(|c| c.is_ascii_digit()) {
-        return Err(bad());
-    }
-    let hours: i32 = digits[..2].parse().map_err(|_| bad())?;
-    let minutes: i32 = if digits.len() == 4 {
-        digits[2..].parse().map_err(|_| bad())?
-    } else {
-        0
-    };
-    if hours > 14 || minutes > 59 {
-        return Err(bad());
-    }
-    Ok((body, Zone::Offset(sign * (hours * 60 + minutes))))
+    let offset_s = crate::time::civil::parse_offset_s(offset).ok_or_else(|| {
+        format!("'{text}' has a time-zone offset that is not +HH:MM or +HH:MM:SS; give the time in UTC with a trailing Z, e.g. 2012-06-05T22:25:41.3Z")
+    })?;
+    Ok((body, Zone::Offset(offset_s)))
 }
 
 /// Whether a leap second was inserted at the end of this UTC day (IERS Bulletin C: the day
@@ -83,7 +69,7 @@ pub fn parse_utc_zoned(text: &str) -> std::result::Result<(NaiveDateTime, Zone),
         }
     }
     let label = match zone {
-        Zone::Offset(minutes) => label - TimeDelta::minutes(i64::from(minutes)),
+        Zone::Offset(offset_s) => label - TimeDelta::seconds(i64::from(offset_s)),
         _ => label,
     };
     Ok((label, zone))
