@@ -34,23 +34,25 @@ pub const GEOMETRY_SIGMA_S: f64 = 0.1;
 
 const STYLE: &str = "@page { size: auto; margin: 12mm; }
 * { box-sizing: border-box; }
-body { font: 10pt/1.3 'DejaVu Sans', Arial, sans-serif; color: #000; background: #fff; max-width: 186mm; margin: 8px auto; }
-h1 { font-size: 15pt; margin: 6px 0 2px; }
-h2 { font-size: 11pt; margin: 8px 0 3px; }
+body { font: 9.5pt/1.28 'DejaVu Sans', Arial, sans-serif; color: #000; background: #fff; max-width: 186mm; margin: 8px auto; }
+h1 { font-size: 14pt; margin: 5px 0 2px; }
+h2 { font-size: 10.5pt; margin: 6px 0 2px; }
 p { margin: 3px 0; }
 .caution { border: 3px solid #000; background: #ffe9a8; padding: 5px 9px; font-weight: bold; font-size: 10.5pt; }
 table { border-collapse: collapse; width: 100%; }
-th, td { border: 1px solid #777; padding: 2px 4px; text-align: left; vertical-align: top; }
+th, td { border: 1px solid #777; padding: 1px 4px; text-align: left; vertical-align: top; }
 th { background: #eee; font-size: 9pt; }
 td.num { text-align: right; }
-.note { font-size: 8.5pt; color: #222; }
-.drawings { display: flex; gap: 10px; justify-content: space-around; }
-figure { margin: 0; width: 50%; text-align: center; }
+td.t { white-space: nowrap; }
+.note { font-size: 8pt; color: #222; }
+.drawings { display: flex; gap: 10px; align-items: flex-start; }
+figure { margin: 0; width: 36%; text-align: center; }
+.drawings .note { width: 28%; margin-top: 18px; }
 figcaption { font-size: 9pt; font-weight: bold; }
-svg.limb { width: 52mm; height: auto; display: block; margin: 0 auto; }
-.blank td { height: 7.5mm; }
+svg.limb { width: 42mm; height: auto; display: block; margin: 0 auto; }
+.blank td { height: 6.5mm; }
 .fill { display: flex; gap: 12px; margin-top: 5px; }
-.fill span { flex: 1; border-bottom: 1px solid #000; padding-top: 9px; font-size: 9pt; }
+.fill span { flex: 1; border-bottom: 1px solid #000; padding-top: 6px; font-size: 9pt; }
 footer { margin-top: 6px; border-top: 1px solid #777; font-size: 8pt; }
 @media print { body { margin: 0 auto; max-width: none; } }";
 
@@ -146,7 +148,7 @@ fn push_contact_row(
         return;
     };
     if let Some(z) = st.zone {
-        let _ = write!(s, "<td>{}</td>", civil_html(event, x.hours, z));
+        let _ = write!(s, "<td class=\"t\">{}</td>", civil_html(event, x.hours, z));
     }
     let seen = if sun_is_up(x.sun_altitude_deg) {
         "yes, Sun up"
@@ -155,8 +157,8 @@ fn push_contact_row(
     };
     let _ = writeln!(
         s,
-        "<td>{}</td><td class=\"num\">{:.1}°</td><td class=\"num\">{:.1}°</td>\
-         <td class=\"num\">{:.1}°</td><td class=\"num\">{:.1}°</td><td>{seen}</td></tr>",
+        "<td class=\"t\">{}</td><td class=\"num\">{:.1}°</td><td class=\"num\">{:.1}°</td>\
+         <td class=\"num\">{:.1}°</td><td class=\"num\">{:.1}°</td><td class=\"t\">{seen}</td></tr>",
         utc_html(event, x.hours),
         x.sun_altitude_deg,
         x.sun_azimuth_deg,
@@ -188,7 +190,7 @@ fn push_contacts(s: &mut String, event: &TransitEvent, st: &SheetStation) {
          what you see may differ by several seconds (the black drop, seeing, your clock). \
          Altitude: true altitude of the Sun's centre (no refraction); azimuth from north \
          through east. Seen: the Sun's upper limb above the horizon (true altitude above −0°50′).</p>",
-        esc(&delta_t_text(event))
+        esc(&delta_t_text(event).replace("+-", "±"))
     );
 }
 
@@ -243,30 +245,29 @@ fn push_drawings(s: &mut String, st: &SheetStation) {
     s.push_str("<h2>Where on the Sun's edge to look</h2>\n<div class=\"drawings\">\n");
     let _ = writeln!(
         s,
-        "<figure><figcaption>As seen in the sky (zenith up), by vertex angle</figcaption>\n{}</figure>",
+        "<figure><figcaption>In the sky: zenith up<br>(vertex angle)</figcaption>\n{}</figure>",
         limb_svg(LimbFrame::Zenith, &marks(true))
     );
     let _ = writeln!(
         s,
-        "<figure><figcaption>Equatorial mount: north up, east left, by position angle</figcaption>\n{}</figure>",
+        "<figure><figcaption>Equatorial mount: north up,<br>east left (position angle)</figcaption>\n{}</figure>",
         limb_svg(LimbFrame::North, &marks(false))
     );
     s.push_str(
-        "</div>\n<p class=\"note\">Position angle is counted from the north point of the disc \
+        "<p class=\"note\">Position angle is counted from the north point of the disc \
          through east, vertex angle from the point nearest the zenith through east; both \
          anticlockwise here, as the sky is seen directly. A star diagonal mirrors the image and a \
          projection screen may mirror or turn it: check which way the Sun drifts before the \
-         transit.</p>\n",
+         transit.</p>\n</div>\n",
     );
 }
 
 /// The blank table for the timings, with the lines for observer, instrument and clock.
 fn push_blank_table(s: &mut String) {
     s.push_str(
-        "<h2>Your timings</h2>\n<table class=\"blank\">\n<tr><th>Contact (I–IV)</th>\
-         <th>Time on your clock (hh : mm : ss.s)</th><th>Clock's zone or offset</th>\
-         <th>How sure (± s)</th><th>Observer</th><th>What you saw (black drop, unsteady \
-         limb, cloud)</th></tr>\n",
+        "<h2>Your timings</h2>\n<table class=\"blank\">\n<tr><th>Contact</th>\
+         <th>Clock time (hh:mm:ss.s)</th><th>Zone or offset</th>\
+         <th>How sure (± s)</th><th>Observer</th><th>What you saw (black drop, cloud)</th></tr>\n",
     );
     for _ in 0..5 {
         s.push_str(
@@ -303,7 +304,7 @@ fn push_footer(s: &mut String, event: &TransitEvent, st: &SheetStation, seen_up:
          s. {}</p></footer>",
         env!("CARGO_PKG_VERSION"),
         esc(&event.ephemeris_name()),
-        esc(&delta_t_text(event)),
+        esc(&delta_t_text(event).replace("+-", "±")),
         esc(delta_t_note(event).trim())
     );
 }

@@ -36,15 +36,15 @@ pub struct LimbMark {
 }
 
 /// Width and height of the drawing's view box, px.
-const VIEW_PX: (f64, f64) = (260.0, 250.0);
+const VIEW_PX: (f64, f64) = (260.0, 240.0);
 /// Centre of the disc in the view box, px.
-const CENTRE_PX: (f64, f64) = (130.0, 136.0);
+const CENTRE_PX: (f64, f64) = (130.0, 130.0);
 /// Radius of the disc, px.
 const DISC_RADIUS_PX: f64 = 78.0;
 /// Radius of the circle the contact numerals are centred on, px.
 const LABEL_RADIUS_PX: f64 = 98.0;
 /// Least angle between two numerals on the label circle, degrees (an arc of 27 px, more than
-/// the widest numeral, "III" at 13 px, needs).
+/// the widest numeral, "III" at 18 px, needs).
 pub const MIN_LABEL_GAP_DEG: f64 = 16.0;
 
 /// The point at `angle_deg` from the top of a circle, anticlockwise (east left), in view-box
@@ -140,7 +140,7 @@ pub fn limb_svg(frame: LimbFrame, marks: &[LimbMark]) -> String {
     for (text, x, y, anchor) in frame_labels(frame) {
         let _ = writeln!(
             s,
-            "<text x=\"{x}\" y=\"{y}\" text-anchor=\"{anchor}\" font-size=\"13\" font-weight=\"bold\">{text}</text>"
+            "<text x=\"{x}\" y=\"{y}\" text-anchor=\"{anchor}\" font-size=\"15\" font-weight=\"bold\">{text}</text>"
         );
     }
     push_marks(&mut s, marks);
@@ -166,8 +166,8 @@ fn push_marks(s: &mut String, marks: &[LimbMark]) {
         );
         let _ = writeln!(
             s,
-            "<text x=\"{lx:.1}\" y=\"{:.1}\" text-anchor=\"middle\" font-size=\"12\" font-weight=\"bold\">{}</text>",
-            ly + 4.0,
+            "<text x=\"{lx:.1}\" y=\"{:.1}\" text-anchor=\"middle\" font-size=\"16\" font-weight=\"bold\">{}</text>",
+            ly + 5.5,
             m.contact.roman()
         );
     }
