@@ -44,7 +44,7 @@ th, td { border: 1px solid #777; padding: 1px 4px; text-align: left; vertical-al
 th { background: #eee; font-size: 9pt; }
 td.num { text-align: right; }
 td.t { white-space: nowrap; }
-.note { font-size: 8pt; color: #222; }
+.note { font-size: 7.5pt; color: #222; }
 .drawings { display: flex; gap: 10px; align-items: flex-start; }
 figure { margin: 0; width: 36%; text-align: center; }
 .drawings .note { width: 28%; margin-top: 18px; }
@@ -53,7 +53,7 @@ svg.limb { width: 42mm; height: auto; display: block; margin: 0 auto; }
 .blank td { height: 6.5mm; }
 .fill { display: flex; gap: 12px; margin-top: 5px; }
 .fill span { flex: 1; border-bottom: 1px solid #000; padding-top: 6px; font-size: 9pt; }
-footer { margin-top: 6px; border-top: 1px solid #777; font-size: 8pt; }
+footer { margin-top: 4px; border-top: 1px solid #777; font-size: 7.5pt; }
 @media print { body { margin: 0 auto; max-width: none; } }";
 
 /// A contact's UTC label rounded to the second, `2032-11-13T06:41:21Z`.
@@ -277,8 +277,7 @@ fn push_blank_table(s: &mut String) {
     }
     s.push_str(
         "</table>\n<div class=\"fill\"><span>Observer(s):</span><span>Instrument, filter, \
-         magnification:</span></div>\n<div class=\"fill\"><span>How the clock was set \
-         (GPS, radio signal, phone) and its error:</span></div>\n<p class=\"note\">For \
+         magnification:</span><span>Clock set by (GPS, radio, phone), its error:</span></div>\n<p class=\"note\">For \
          <code>reduce</code>, copy each row into an observations file (<code>transit-parallax \
          template observations</code>): contact, time_utc (or the clock time with its offset, \
          2032-11-13T07:43:40.5+01:00), sigma_s (how sure) and observer.</p>\n",

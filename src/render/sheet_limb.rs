@@ -55,39 +55,63 @@ pub fn limb_point_px(centre_px: (f64, f64), radius_px: f64, angle_deg: f64) -> (
 }
 
 /// Angles for the numerals of marks at `angles_deg`, spread so that no two lie closer than
-/// `min_gap_deg` around the circle, each moved as little as the spreading needs.
+/// `min_gap_deg` around the circle, nor closer than that to a `reserved_deg` angle (where a
+/// frame label or arrow stands), each moved as little as the spreading needs.
 ///
 /// Returns: one angle per input, degrees in 0..360, in the input order.
-/// Notes: neighbours closer than the gap are pushed apart symmetrically, repeatedly, until
-/// every gap is met (four marks need a few passes); the marks themselves do not move.
-pub fn label_angles_deg(angles_deg: &[f64], min_gap_deg: f64) -> Vec<f64> {
-    let n = angles_deg.len();
-    let mut order: Vec<usize> = (0..n).collect();
-    order.sort_by(|&a, &b| angles_deg[a].rem_euclid(360.0).total_cmp(&angles_deg[b].rem_euclid(360.0)));
-    let mut placed: Vec<f64> = order.iter().map(|&k| angles_deg[k].rem_euclid(360.0)).collect();
+/// Notes: neighbours closer than the gap are pushed apart, symmetrically or, beside a reserved
+/// angle, the movable one alone, repeatedly until every gap is met (four marks need a few
+/// passes); the marks themselves do not move.
+pub fn label_angles_deg(angles_deg: &[f64], reserved_deg: &[f64], min_gap_deg: f64) -> Vec<f64> {
+    // (angle, input index or None for a reserved angle)
+    let mut items: Vec<(f64, Option<usize>)> = angles_deg
+        .iter()
+        .enumerate()
+        .map(|(k, a)| (a.rem_euclid(360.0), Some(k)))
+        .chain(reserved_deg.iter().map(|a| (a.rem_euclid(360.0), None)))
+        .collect();
+    items.sort_by(|a, b| a.0.total_cmp(&b.0));
+    let n = items.len();
     if n > 1 && min_gap_deg * n as f64 <= 360.0 {
-        for _ in 0..200 {
+        for _ in 0..500 {
             let mut moved = false;
             for i in 0..n {
                 let j = (i + 1) % n;
-                let gap = (placed[j] - placed[i]).rem_euclid(360.0);
-                if gap < min_gap_deg - 1e-9 {
-                    let push = 0.5 * (min_gap_deg - gap) + 1e-6;
-                    placed[i] -= push;
-                    placed[j] += push;
-                    moved = true;
+                let deficit = min_gap_deg - (items[j].0 - items[i].0).rem_euclid(360.0);
+                if deficit <= 1e-9 {
+                    continue;
                 }
+                let (share_i, share_j) = match (items[i].1, items[j].1) {
+                    (Some(_), Some(_)) => (0.5, 0.5),
+                    (Some(_), None) => (1.0, 0.0),
+                    (None, Some(_)) => (0.0, 1.0),
+                    (None, None) => continue,
+                };
+                items[i].0 -= share_i * (deficit + 1e-6);
+                items[j].0 += share_j * (deficit + 1e-6);
+                moved = true;
             }
             if !moved {
                 break;
             }
         }
     }
-    let mut out = vec![0.0; n];
-    for (slot, &k) in order.iter().enumerate() {
-        out[k] = placed[slot].rem_euclid(360.0);
+    let mut out = vec![0.0; angles_deg.len()];
+    for (angle, index) in items {
+        if let Some(k) = index {
+            out[k] = angle.rem_euclid(360.0);
+        }
     }
     out
+}
+
+/// Where a frame's own labels and arrow stand on the label circle, degrees: the top (the up
+/// arrow and its label), and for the north-up frame the east point.
+fn reserved_deg(frame: LimbFrame) -> &'static [f64] {
+    match frame {
+        LimbFrame::Zenith => &[0.0],
+        LimbFrame::North => &[0.0, 90.0],
+    }
 }
 
 /// The fixed labels of a frame: (text, x px, y px, text-anchor).
@@ -143,15 +167,15 @@ pub fn limb_svg(frame: LimbFrame, marks: &[LimbMark]) -> String {
             "<text x=\"{x}\" y=\"{y}\" text-anchor=\"{anchor}\" font-size=\"15\" font-weight=\"bold\">{text}</text>"
         );
     }
-    push_marks(&mut s, marks);
+    push_marks(&mut s, marks, reserved_deg(frame));
     s.push_str("</svg>");
     s
 }
 
 /// Each contact's dot, tick and numeral.
-fn push_marks(s: &mut String, marks: &[LimbMark]) {
+fn push_marks(s: &mut String, marks: &[LimbMark], reserved_deg: &[f64]) {
     let angles: Vec<f64> = marks.iter().map(|m| m.angle_deg).collect();
-    let label_deg = label_angles_deg(&angles, MIN_LABEL_GAP_DEG);
+    let label_deg = label_angles_deg(&angles, reserved_deg, MIN_LABEL_GAP_DEG);
     for (m, &at_deg) in marks.iter().zip(&label_deg) {
         let (x, y) = limb_point_px(CENTRE_PX, DISC_RADIUS_PX, m.angle_deg);
         let (tx, ty) = limb_point_px(CENTRE_PX, LABEL_RADIUS_PX - 9.0, at_deg);
@@ -196,7 +220,7 @@ mod tests {
     fn close_numerals_are_spread_and_far_ones_stay() {
         // Mercury 2032: contacts I and II 0.4 deg apart, III and IV likewise.
         let marks = [77.7, 77.3, 329.5, 329.1];
-        let placed = label_angles_deg(&marks, MIN_LABEL_GAP_DEG);
+        let placed = label_angles_deg(&marks, &[], MIN_LABEL_GAP_DEG);
         for i in 0..4 {
             for j in i + 1..4 {
                 assert!(
@@ -207,10 +231,16 @@ mod tests {
             assert!(gap_deg(placed[i], marks[i]) <= MIN_LABEL_GAP_DEG, "{placed:?}");
         }
         // Across 0/360 as well.
-        let placed = label_angles_deg(&[359.0, 1.0], MIN_LABEL_GAP_DEG);
+        let placed = label_angles_deg(&[359.0, 1.0], &[], MIN_LABEL_GAP_DEG);
         assert!(gap_deg(placed[0], placed[1]) >= MIN_LABEL_GAP_DEG - 1e-6, "{placed:?}");
         let far = [10.0, 100.0, 200.0];
-        assert_eq!(label_angles_deg(&far, MIN_LABEL_GAP_DEG), far.to_vec());
+        assert_eq!(label_angles_deg(&far, &[], MIN_LABEL_GAP_DEG), far.to_vec());
+        // A reserved angle does not move, and numerals keep clear of it.
+        let placed = label_angles_deg(&[346.5, 345.6], &[0.0], MIN_LABEL_GAP_DEG);
+        for p in &placed {
+            assert!(gap_deg(*p, 0.0) >= MIN_LABEL_GAP_DEG - 1e-6, "{placed:?}");
+        }
+        assert!(gap_deg(placed[0], placed[1]) >= MIN_LABEL_GAP_DEG - 1e-6, "{placed:?}");
     }
 
     #[test]
