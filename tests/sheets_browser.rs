@@ -78,7 +78,7 @@ const MEASURE_TEXT: &str = r#"<script>
   }
   var pre = document.createElement('pre');
   pre.id = 'layout-findings';
-  pre.textContent = JSON.stringify({ texts: boxes.length, problems: problems });
+  pre.textContent = JSON.stringify({ width: width, texts: boxes.length, problems: problems });
   document.body.appendChild(pre);
 })();
 </script>"#;
@@ -109,6 +109,11 @@ fn measure_sheet(browser: &Path, dir: &Path, sheet: &Path, width_px: u32) -> (u6
         .replace("&quot;", "\"")
         .replace("&amp;", "&");
     let v: serde_json::Value = serde_json::from_str(&text).unwrap();
+    let laid_out_px = v["width"].as_u64().unwrap();
+    assert!(
+        laid_out_px.abs_diff(u64::from(width_px)) < 20,
+        "laid out {laid_out_px} px wide, not {width_px}"
+    );
     let problems = v["problems"].as_array().unwrap();
     (
         v["texts"].as_u64().unwrap(),
