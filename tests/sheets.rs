@@ -82,18 +82,27 @@ fn rows_of<'a>(rows: &'a [serde_json::Value], station: &str) -> Vec<&'a serde_js
 }
 
 fn station_names() -> Vec<&'static str> {
-    STATIONS.lines().skip(1).map(|l| l.split(',').next().unwrap()).collect()
+    STATIONS
+        .lines()
+        .skip(1)
+        .map(|l| l.split(',').next().unwrap())
+        .collect()
 }
 
 #[test]
 fn every_station_gets_a_safe_sheet_with_the_caution_and_the_predicted_times() {
     let (rows, dir) = predict_with_sheets("sheets");
     for (name, stem) in station_names().into_iter().zip(STEMS) {
-        assert!(stem.chars().all(|c| c.is_ascii_alphanumeric() || c == '-' || c == '_'));
+        assert!(stem
+            .chars()
+            .all(|c| c.is_ascii_alphanumeric() || c == '-' || c == '_'));
         let html = std::fs::read_to_string(dir.join(format!("{stem}.html"))).unwrap();
         assert!(dir.join(format!("{stem}.ics")).exists(), "{stem}.ics");
         let caution = html.find(SAFETY_CAUTION).expect("caution");
-        assert!(caution < html.find("<h1>").unwrap(), "the caution comes first");
+        assert!(
+            caution < html.find("<h1>").unwrap(),
+            "the caution comes first"
+        );
         for bad in ["<script", "src=", "href=", "url(", "@import"] {
             assert!(!html.to_ascii_lowercase().contains(bad), "{stem}: {bad}");
         }
@@ -123,7 +132,11 @@ fn every_station_gets_a_safe_sheet_with_the_caution_and_the_predicted_times() {
 /// most 75 octets, BEGIN and END balanced; its DTSTART values and counts of VEVENT, VALARM.
 fn check_ics(ics: &str) -> (Vec<String>, usize, usize) {
     assert!(ics.ends_with("\r\n"));
-    assert_eq!(ics.matches('\n').count(), ics.matches("\r\n").count(), "CRLF only");
+    assert_eq!(
+        ics.matches('\n').count(),
+        ics.matches("\r\n").count(),
+        "CRLF only"
+    );
     let mut open: Vec<&str> = Vec::new();
     let (mut starts, mut events, mut alarms) = (Vec::new(), 0, 0);
     for line in ics.split("\r\n").filter(|l| !l.is_empty()) {
@@ -152,10 +165,7 @@ fn each_calendar_holds_the_contacts_seen_with_the_sun_up_at_their_predicted_time
         let seen: Vec<String> = rows_of(&rows, name)
             .into_iter()
             .filter(|r| r["sun_altitude_deg"].as_f64().unwrap() > -50.0 / 60.0)
-            .map(|r| {
-                to_second(r["time_utc"].as_str().unwrap())
-                    .replace(['-', ':'], "")
-            })
+            .map(|r| to_second(r["time_utc"].as_str().unwrap()).replace(['-', ':'], ""))
             .collect();
         assert_eq!(events, seen.len(), "{stem}");
         assert_eq!(alarms, events, "{stem}: one reminder per event");
@@ -171,12 +181,18 @@ fn each_calendar_holds_the_contacts_seen_with_the_sun_up_at_their_predicted_time
     let (_, again) = predict_with_sheets("calendars-again");
     let uids = |d: &Path| {
         let ics = std::fs::read_to_string(d.join("Jade_Terrace_School.ics")).unwrap();
-        ics.lines().filter(|l| l.starts_with("UID:")).map(String::from).collect::<Vec<_>>()
+        ics.lines()
+            .filter(|l| l.starts_with("UID:"))
+            .map(String::from)
+            .collect::<Vec<_>>()
     };
     assert_eq!(uids(&dir), uids(&again));
     let ics = std::fs::read_to_string(dir.join("Jade_Terrace_School.ics")).unwrap();
     assert!(ics.contains("SUMMARY:Transit of Mercury: contact II (Jade Terrace School)"));
-    assert!(ics.contains("TRIGGER;RELATED=START:-PT1800S"), "30 min before contact I");
+    assert!(
+        ics.contains("TRIGGER;RELATED=START:-PT1800S"),
+        "30 min before contact I"
+    );
 }
 
 #[test]
@@ -195,12 +211,23 @@ fn sunrise_and_sunset_agree_with_the_noaa_algorithm_within_a_minute() {
         let html = std::fs::read_to_string(dir.join(format!("{}.html", stems[f[0]]))).unwrap();
         let para = &html[html.find("Sunrise and sunset").unwrap()..];
         let para = &para[..para.find("</p>").unwrap()];
-        assert!(para.contains(&format!("The Sun {} during the transit", f[1])), "{para}");
-        let utc = datetimes(para).into_iter().find(|t| t.ends_with('Z')).unwrap();
+        assert!(
+            para.contains(&format!("The Sun {} during the transit", f[1])),
+            "{para}"
+        );
+        let utc = datetimes(para)
+            .into_iter()
+            .find(|t| t.ends_with('Z'))
+            .unwrap();
         let ours = DateTime::parse_from_rfc3339(&utc).unwrap();
         let noaa = DateTime::parse_from_rfc3339(f[2]).unwrap();
         let diff_s = (ours - noaa).num_seconds().abs();
-        assert!(diff_s <= 60, "{}: {utc} against {} ({diff_s} s)", f[0], f[2]);
+        assert!(
+            diff_s <= 60,
+            "{}: {utc} against {} ({diff_s} s)",
+            f[0],
+            f[2]
+        );
         checked += 1;
     }
     assert_eq!(checked, 3);

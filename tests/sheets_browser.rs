@@ -35,10 +35,14 @@ fn sheets(dir: &Path) -> Vec<PathBuf> {
         out.to_str().unwrap(),
     ]);
     assert!(o.status.success(), "{}", String::from_utf8_lossy(&o.stderr));
-    ["Leiden_Primary_School", "Saltmarsh_Academy", "Jade_Terrace_School"]
-        .iter()
-        .map(|n| out.join(format!("{n}.html")))
-        .collect()
+    [
+        "Leiden_Primary_School",
+        "Saltmarsh_Academy",
+        "Jade_Terrace_School",
+    ]
+    .iter()
+    .map(|n| out.join(format!("{n}.html")))
+    .collect()
 }
 
 /// Measures every text node of the page (HTML and SVG) and appends the findings as JSON in
@@ -88,7 +92,11 @@ fn measure_sheet(browser: &Path, dir: &Path, sheet: &Path, width_px: u32) -> (u6
     let html = std::fs::read_to_string(sheet).unwrap();
     let end = html.rfind("</body>").unwrap();
     let page = dir.join(format!("measured-{width_px}.html"));
-    std::fs::write(&page, format!("{}{MEASURE_TEXT}{}", &html[..end], &html[end..])).unwrap();
+    std::fs::write(
+        &page,
+        format!("{}{MEASURE_TEXT}{}", &html[..end], &html[end..]),
+    )
+    .unwrap();
     let o = chromium(
         browser,
         &page,
@@ -117,7 +125,10 @@ fn measure_sheet(browser: &Path, dir: &Path, sheet: &Path, width_px: u32) -> (u6
     let problems = v["problems"].as_array().unwrap();
     (
         v["texts"].as_u64().unwrap(),
-        problems.iter().map(|p| p.as_str().unwrap().to_string()).collect(),
+        problems
+            .iter()
+            .map(|p| p.as_str().unwrap().to_string())
+            .collect(),
     )
 }
 
@@ -164,9 +175,8 @@ fn each_sheet_prints_on_one_page_of_a4_and_of_letter() {
                     "--no-pdf-header-footer".into(),
                 ],
             );
-            let bytes = std::fs::read(&pdf).unwrap_or_else(|_| {
-                panic!("no PDF: {}", String::from_utf8_lossy(&o.stderr))
-            });
+            let bytes = std::fs::read(&pdf)
+                .unwrap_or_else(|_| panic!("no PDF: {}", String::from_utf8_lossy(&o.stderr)));
             assert!(bytes.len() > 1000, "{paper}: PDF of {} bytes", bytes.len());
             assert_eq!(pdf_pages(&bytes), 1, "{}: {paper}", sheet.display());
         }
@@ -211,7 +221,11 @@ fn a_screenshot_of_a_sheet_shows_a_page() {
             format!("--screenshot={}", shot.display()),
         ],
     );
-    assert!(shot.exists(), "no screenshot: {}", String::from_utf8_lossy(&o.stderr));
+    assert!(
+        shot.exists(),
+        "no screenshot: {}",
+        String::from_utf8_lossy(&o.stderr)
+    );
     let decoder = png::Decoder::new(std::fs::File::open(&shot).unwrap());
     let mut reader = decoder.read_info().unwrap();
     let mut buf = vec![0; reader.output_buffer_size()];

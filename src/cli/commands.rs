@@ -152,7 +152,13 @@ fn predict(a: PredictArgs) -> Result<String, Error> {
         write_light_curve(path, &[&event])?;
     }
     if let Some(dir) = &a.sheets {
-        let written = write_sheets(dir, &event, &predictions, &file.zones, std::time::SystemTime::now().into())?;
+        let written = write_sheets(
+            dir,
+            &event,
+            &predictions,
+            &file.zones,
+            std::time::SystemTime::now().into(),
+        )?;
         eprintln!(
             "{} observers' sheets (with their calendars) written to {}",
             written.len() / 2,

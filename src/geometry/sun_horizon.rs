@@ -52,7 +52,7 @@ pub fn sun_is_up(sun_altitude_deg: f64) -> bool {
 /// A root of `f` in `[a_h, b_h]` by bisection, where `f(a_h)` and `f(b_h)` differ in sign.
 ///
 /// Arguments: `f`, a continuous function of hours; `a_h < b_h`, the bracket, hours.
-/// Returns: an hour within [`BISECTION_TOLERANCE_H`] of the root.
+/// Returns: an hour within 0.01 s of the root.
 /// References: any numerical text, e.g. W. H. Press et al., *Numerical Recipes*, 3rd ed.
 /// (2007), section 9.1.
 pub fn bisect_hours(f: impl Fn(f64) -> f64, a_h: f64, b_h: f64) -> f64 {
@@ -80,9 +80,8 @@ pub fn bisect_hours(f: impl Fn(f64) -> f64, a_h: f64, b_h: f64) -> f64 {
 /// References: Meeus (1998), ch. 15, for the standard altitude.
 pub fn sun_during(event: &TransitEvent, station: &Station, from_h: f64, to_h: f64) -> SunDuring {
     let geo = station.geocentric();
-    let above = |hours: f64| {
-        sun_alt_az_parallactic(&event.elements, &geo, hours).0 - SUNRISE_ALTITUDE_DEG
-    };
+    let above =
+        |hours: f64| sun_alt_az_parallactic(&event.elements, &geo, hours).0 - SUNRISE_ALTITUDE_DEG;
     let steps = (((to_h - from_h) / SEARCH_STEP_H).ceil() as usize).max(1);
     let step_h = (to_h - from_h) / steps as f64;
     let mut crossings = Vec::new();
@@ -135,14 +134,19 @@ mod tests {
             longitude_deg: 114.16,
             elevation_m: 40.0,
         };
-        let c1 = event.predict(&station).contacts[0].expect("contact I").hours;
-        let c4 = event.predict(&station).contacts[3].expect("contact IV").hours;
+        let c1 = event.predict(&station).contacts[0]
+            .expect("contact I")
+            .hours;
+        let c4 = event.predict(&station).contacts[3]
+            .expect("contact IV")
+            .hours;
         let SunDuring::Crossings(found) = sun_during(&event, &station, c1, c4) else {
             panic!("the Sun sets at Hong Kong during the transit");
         };
         assert_eq!(found.len(), 1);
         assert!(!found[0].rising);
-        let alt_deg = sun_alt_az_parallactic(&event.elements, &station.geocentric(), found[0].hours).0;
+        let alt_deg =
+            sun_alt_az_parallactic(&event.elements, &station.geocentric(), found[0].hours).0;
         assert!((alt_deg - SUNRISE_ALTITUDE_DEG).abs() < 1e-4, "{alt_deg}");
         assert!(sun_is_up(0.0) && !sun_is_up(-0.9));
     }

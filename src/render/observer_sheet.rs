@@ -196,7 +196,13 @@ fn push_contacts(s: &mut String, event: &TransitEvent, st: &SheetStation) {
 
 /// Whether the Sun rises or sets between contacts I and IV, in a paragraph.
 fn push_sun_during(s: &mut String, event: &TransitEvent, st: &SheetStation) {
-    let hours: Vec<f64> = st.prediction.contacts.iter().flatten().map(|c| c.hours).collect();
+    let hours: Vec<f64> = st
+        .prediction
+        .contacts
+        .iter()
+        .flatten()
+        .map(|c| c.hours)
+        .collect();
     let (Some(&first_h), Some(&last_h)) = (hours.first(), hours.last()) else {
         return;
     };
@@ -204,7 +210,8 @@ fn push_sun_during(s: &mut String, event: &TransitEvent, st: &SheetStation) {
     let text = match during {
         SunDuring::UpThroughout => "The Sun stays up through the whole transit.".to_string(),
         SunDuring::DownThroughout => {
-            "The Sun is down for the whole transit: nothing of it can be seen from here.".to_string()
+            "The Sun is down for the whole transit: nothing of it can be seen from here."
+                .to_string()
         }
         SunDuring::Crossings(list) => list
             .iter()

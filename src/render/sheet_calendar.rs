@@ -39,7 +39,13 @@ pub fn contact_uid(event: &TransitEvent, station_name: &str, contact: Contact) -
     let hash: String = digest[..6].iter().map(|b| format!("{b:02x}")).collect();
     let safe: String = station_name
         .chars()
-        .map(|c| if c.is_ascii_alphanumeric() { c.to_ascii_lowercase() } else { '-' })
+        .map(|c| {
+            if c.is_ascii_alphanumeric() {
+                c.to_ascii_lowercase()
+            } else {
+                '-'
+            }
+        })
         .collect();
     format!(
         "{}-{}-c{}-{}-{hash}@transit-parallax",

@@ -100,8 +100,14 @@ mod tests {
 
     #[test]
     fn names_are_made_safe() {
-        assert_eq!(safe_file_stem("Leiden Primary School"), "Leiden_Primary_School");
-        assert_eq!(safe_file_stem("École Saint-Jean / Nord"), "cole_Saint-Jean_Nord");
+        assert_eq!(
+            safe_file_stem("Leiden Primary School"),
+            "Leiden_Primary_School"
+        );
+        assert_eq!(
+            safe_file_stem("École Saint-Jean / Nord"),
+            "cole_Saint-Jean_Nord"
+        );
         assert_eq!(safe_file_stem("../../etc/passwd"), "etc_passwd");
         assert_eq!(safe_file_stem("東京"), "station");
         assert_eq!(safe_file_stem("con"), "con_station");
@@ -109,7 +115,8 @@ mod tests {
         for name in ["a b", "x<y>|z?*", "tab\there", "dots..."] {
             let stem = safe_file_stem(name);
             assert!(
-                stem.chars().all(|c| c.is_ascii_alphanumeric() || c == '-' || c == '_'),
+                stem.chars()
+                    .all(|c| c.is_ascii_alphanumeric() || c == '-' || c == '_'),
                 "{stem}"
             );
         }
@@ -118,6 +125,9 @@ mod tests {
     #[test]
     fn collisions_get_numbers_case_blind() {
         let stems = distinct_file_stems(["North Hill", "North/Hill", "north hill", "Other"]);
-        assert_eq!(stems, ["North_Hill", "North_Hill-2", "north_hill-3", "Other"]);
+        assert_eq!(
+            stems,
+            ["North_Hill", "North_Hill-2", "north_hill-3", "Other"]
+        );
     }
 }

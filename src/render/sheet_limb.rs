@@ -209,9 +209,15 @@ mod tests {
     #[test]
     fn angles_run_anticlockwise_from_the_top_east_left() {
         let (x, y) = limb_point_px((0.0, 0.0), 10.0, 0.0);
-        assert!(x.abs() < 1e-12 && (y + 10.0).abs() < 1e-12, "0 deg is at the top");
+        assert!(
+            x.abs() < 1e-12 && (y + 10.0).abs() < 1e-12,
+            "0 deg is at the top"
+        );
         let (x, y) = limb_point_px((0.0, 0.0), 10.0, 90.0);
-        assert!((x + 10.0).abs() < 1e-12 && y.abs() < 1e-12, "90 deg (east) is left");
+        assert!(
+            (x + 10.0).abs() < 1e-12 && y.abs() < 1e-12,
+            "90 deg (east) is left"
+        );
         let (x, _) = limb_point_px((0.0, 0.0), 10.0, 270.0);
         assert!((x - 10.0).abs() < 1e-12, "270 deg (west) is right");
     }
@@ -228,11 +234,17 @@ mod tests {
                     "{placed:?}"
                 );
             }
-            assert!(gap_deg(placed[i], marks[i]) <= MIN_LABEL_GAP_DEG, "{placed:?}");
+            assert!(
+                gap_deg(placed[i], marks[i]) <= MIN_LABEL_GAP_DEG,
+                "{placed:?}"
+            );
         }
         // Across 0/360 as well.
         let placed = label_angles_deg(&[359.0, 1.0], &[], MIN_LABEL_GAP_DEG);
-        assert!(gap_deg(placed[0], placed[1]) >= MIN_LABEL_GAP_DEG - 1e-6, "{placed:?}");
+        assert!(
+            gap_deg(placed[0], placed[1]) >= MIN_LABEL_GAP_DEG - 1e-6,
+            "{placed:?}"
+        );
         let far = [10.0, 100.0, 200.0];
         assert_eq!(label_angles_deg(&far, &[], MIN_LABEL_GAP_DEG), far.to_vec());
         // A reserved angle does not move, and numerals keep clear of it.
@@ -240,14 +252,23 @@ mod tests {
         for p in &placed {
             assert!(gap_deg(*p, 0.0) >= MIN_LABEL_GAP_DEG - 1e-6, "{placed:?}");
         }
-        assert!(gap_deg(placed[0], placed[1]) >= MIN_LABEL_GAP_DEG - 1e-6, "{placed:?}");
+        assert!(
+            gap_deg(placed[0], placed[1]) >= MIN_LABEL_GAP_DEG - 1e-6,
+            "{placed:?}"
+        );
     }
 
     #[test]
     fn the_drawing_has_every_mark_and_the_labels_of_its_frame() {
         let marks = [
-            LimbMark { contact: Contact::I, angle_deg: 77.7 },
-            LimbMark { contact: Contact::IV, angle_deg: 329.1 },
+            LimbMark {
+                contact: Contact::I,
+                angle_deg: 77.7,
+            },
+            LimbMark {
+                contact: Contact::IV,
+                angle_deg: 329.1,
+            },
         ];
         let svg = limb_svg(LimbFrame::North, &marks);
         assert!(svg.contains(">I</text>") && svg.contains(">IV</text>"));

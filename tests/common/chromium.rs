@@ -37,7 +37,12 @@ pub fn temp_dir(name: &str) -> PathBuf {
 }
 
 /// Headless Chromium on a local page with these extra arguments; its output.
-pub fn chromium(browser: &Path, page: &Path, profile: &Path, extra: &[String]) -> std::process::Output {
+pub fn chromium(
+    browser: &Path,
+    page: &Path,
+    profile: &Path,
+    extra: &[String],
+) -> std::process::Output {
     Command::new(browser)
         .args([
             "--headless",
@@ -158,4 +163,3 @@ pub fn measure(browser: &Path, dir: &Path, name: &str, html: &str) -> Findings {
             .collect(),
     }
 }
-
