@@ -127,3 +127,25 @@ pub fn station_calendar(
     }
     calendar.done().to_string()
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn uids_are_stable_and_keep_alike_names_apart() {
+        let event = crate::transit_on_date(
+            crate::Planet::Mercury,
+            crate::time::iso::parse_date("2032-11-13").expect("date"),
+            &crate::time::scales::TimeModel::default(),
+        )
+        .expect("transit");
+        let a = contact_uid(&event, "North Hill", Contact::II);
+        assert_eq!(a, contact_uid(&event, "North Hill", Contact::II));
+        assert!(a.starts_with("mercury-2032-11-13-c2-north-hill-"), "{a}");
+        assert_ne!(a, contact_uid(&event, "North/Hill", Contact::II));
+        assert_ne!(a, contact_uid(&event, "North Hill", Contact::III));
+        assert_eq!(reminder_min(Contact::I), 30);
+        assert_eq!(reminder_min(Contact::IV), 15);
+    }
+}
