@@ -274,7 +274,7 @@ fn push_blank_table(s: &mut String) {
     s.push_str(
         "<h2>Your timings</h2>\n<table class=\"blank\">\n<tr><th>Contact</th>\
          <th>Clock time (hh:mm:ss.s)</th><th>Zone or offset</th>\
-         <th>How sure (± s)</th><th>Observer</th><th>What you saw (black drop, cloud)</th></tr>\n",
+         <th>Sure to<th>Sure to ± s</th>nbsp;±<th>Sure to ± s</th>nbsp;s</th><th>Observer</th><th>What you saw (black drop, cloud)</th></tr>\n",
     );
     for _ in 0..5 {
         s.push_str(
@@ -283,8 +283,8 @@ fn push_blank_table(s: &mut String) {
         );
     }
     s.push_str(
-        "</table>\n<div class=\"fill\"><span>Observer(s):</span><span>Instrument, filter, \
-         magnification:</span><span>Clock set by (GPS, radio, phone), its error:</span></div>\n<p class=\"note\">For \
+        "</table>\n<div class=\"fill\"><span>Observer(s):</span><span>Instrument, aperture (mm), \
+         filter or projection:</span><span>Clock set by (GPS, radio, phone), its error:</span></div>\n<p class=\"note\">For \
          <code>reduce</code>, copy each row into an observations file (<code>transit-parallax \
          template observations</code>): contact, time_utc (or the clock time with its offset, \
          2032-11-13T07:43:40.5+01:00), sigma_s (how sure) and observer.</p>\n",
