@@ -193,6 +193,23 @@ fn each_calendar_holds_the_contacts_seen_with_the_sun_up_at_their_predicted_time
         ics.contains("TRIGGER;RELATED=START:-PT1800S"),
         "30 min before contact I"
     );
+    // Unfolded (RFC 5545 §3.1), each description gives the clock time, the Sun's altitude and
+    // the caution; each reminder is shown on screen.
+    let unfolded = ics.replace("\r\n ", "");
+    let descriptions: Vec<&str> = unfolded
+        .split("\r\n")
+        .filter(|l| l.starts_with("DESCRIPTION:Contact"))
+        .collect();
+    assert_eq!(
+        descriptions.len(),
+        2,
+        "contacts I and II are seen at Hong Kong"
+    );
+    for d in descriptions {
+        assert!(d.contains("Clock time ") && d.contains("(HKT)"), "{d}");
+        assert!(d.contains("Sun's altitude") && d.contains("CAUTION: looking at the Sun"));
+    }
+    assert_eq!(unfolded.matches("ACTION:DISPLAY").count(), 2);
 }
 
 #[test]
