@@ -198,7 +198,7 @@ fn each_calendar_holds_the_contacts_seen_with_the_sun_up_at_their_predicted_time
     let unfolded = ics.replace("\r\n ", "");
     let descriptions: Vec<&str> = unfolded
         .split("\r\n")
-        .filter(|l| l.starts_with("DESCRIPTION:Contact"))
+        .filter(|l| l.starts_with("DESCRIPTION:Contact") && l.contains(" at Jade Terrace"))
         .collect();
     assert_eq!(
         descriptions.len(),
