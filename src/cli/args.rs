@@ -99,7 +99,7 @@ pub enum Command {
     Transits(TransitsArgs),
     /// Predict contacts I-IV for each station of a file.
     #[command(
-        after_help = "Examples:\n  transit-parallax predict --planet mercury --date 2032-11-13 --stations stations.csv\n  transit-parallax predict --planet venus --date 2117-12-11 --stations stations.csv --format csv\n  transit-parallax predict --planet venus --date 1769-06-03 --stations stations.csv --local-time apparent"
+        after_help = "Examples:\n  transit-parallax predict --planet mercury --date 2032-11-13 --stations stations.csv\n  transit-parallax predict --planet venus --date 2117-12-11 --stations stations.csv --format csv\n  transit-parallax predict --planet venus --date 1769-06-03 --stations stations.csv --local-time apparent\n  transit-parallax predict --planet mercury --date 2032-11-13 --stations stations.csv --sheets sheets/"
     )]
     Predict(PredictArgs),
     /// Reduce contact timings to the solar parallax and the astronomical unit.
@@ -235,6 +235,11 @@ pub struct PredictArgs {
     /// (time_utc,relative_flux) or .svg (the chart, contacts marked).
     #[arg(long = "light-curve", value_name = "FILE.csv|FILE.svg")]
     pub light_curve: Option<PathBuf>,
+    /// Also write for every station a printable sheet DIR/<station>.html (caution, contacts in
+    /// clock time and UTC, sunrise or sunset, where on the limb to look, a table for the
+    /// timings) and its calendar DIR/<station>.ics (one event per contact seen with the Sun up).
+    #[arg(long, value_name = "DIR")]
+    pub sheets: Option<PathBuf>,
     /// Output format.
     #[arg(long, value_enum, default_value = "table")]
     pub format: FormatArg,

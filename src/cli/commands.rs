@@ -14,6 +14,7 @@ use transit_parallax::observations::timings::read_observations;
 use transit_parallax::planning::{simulation, sites};
 use transit_parallax::reduction::planet_place::PlanetPlace;
 use transit_parallax::reduction::{reduce, ReduceOptions};
+use transit_parallax::render::sheet_files::write_sheets;
 use transit_parallax::render::station_predictions::{self, Clocks};
 use transit_parallax::render::text::Format;
 use transit_parallax::render::{document, planning, planning_charts, prediction, reduction};
@@ -149,6 +150,20 @@ fn predict(a: PredictArgs) -> Result<String, Error> {
     };
     if let Some(path) = &a.light_curve {
         write_light_curve(path, &[&event])?;
+    }
+    if let Some(dir) = &a.sheets {
+        let written = write_sheets(
+            dir,
+            &event,
+            &predictions,
+            &file.zones,
+            std::time::SystemTime::now().into(),
+        )?;
+        eprintln!(
+            "{} observers' sheets (with their calendars) written to {}",
+            written.len() / 2,
+            dir.display()
+        );
     }
     Ok(match a.format.format() {
         Format::Table => station_predictions::predictions_table(&event, &predictions, clocks),

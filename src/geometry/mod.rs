@@ -10,11 +10,13 @@
 //! - `besselian.rs`: the fundamental-plane elements of an event, fitted as Chebyshev series.
 //! - `contacts.rs`: a station's contacts, circumstances, partial derivatives, full-model check.
 //! - `transit.rs`: finding transits, naming an event by date, predicting stations.
+//! - `sun_horizon.rs`: sunrise and sunset at a station between two contacts.
 //! - `visibility.rs`: each contact's time and the Sun's altitude over a world grid, and which
 //!   part of the transit each place sees with the Sun up.
 pub mod besselian;
 pub mod contacts;
 pub mod station;
 pub mod station_file;
+pub mod sun_horizon;
 pub mod transit;
 pub mod visibility;

@@ -21,6 +21,10 @@
 //!   the reports.
 //! - `light_curve_chart.rs`: the light curve of a transit as CSV and SVG.
 //! - `what_else.rs`: the scale of the Solar System, the sizes and the transit's depth.
+//! - `observer_sheet.rs`: one printable page per station for its observers.
+//! - `sheet_limb.rs`: the solar disc with each contact's place on the limb, for the sheet.
+//! - `sheet_calendar.rs`: each station's contacts as an RFC 5545 calendar.
+//! - `sheet_files.rs`: the sheets and calendars written to a folder, names made safe.
 //! - `document.rs`: the HTML and Markdown reports.
 //! - `report_sections.rs`: the reports' sections on the classic methods, the error budget and
 //!   what else the timings measure.
@@ -30,11 +34,15 @@ pub mod document;
 pub mod labels;
 pub mod light_curve_chart;
 pub mod methods;
+pub mod observer_sheet;
 pub mod planning;
 pub mod planning_charts;
 pub mod prediction;
 pub mod reduction;
 pub mod report_sections;
+pub mod sheet_calendar;
+pub mod sheet_files;
+pub mod sheet_limb;
 pub mod station_predictions;
 pub mod svg;
 pub mod text;

@@ -38,6 +38,7 @@ pub fn temp(name: &str, bytes: &[u8]) -> String {
     std::fs::write(&p, bytes).unwrap();
     p.to_string_lossy().into_owned()
 }
+pub mod chromium;
 pub mod server;
 
 /// Run the binary with the words of `command` (split at spaces) followed by `more` (paths and
