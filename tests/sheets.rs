@@ -89,6 +89,23 @@ fn station_names() -> Vec<&'static str> {
         .collect()
 }
 
+/// Every row of every table of a page has as many cells as the table's first row (a heading
+/// and its blank rows must line up).
+fn assert_tables_are_rectangular(stem: &str, html: &str) {
+    for table in html.split("<table").skip(1) {
+        let table = table.split("</table>").next().unwrap_or("");
+        let cells: Vec<usize> = table
+            .split("<tr")
+            .skip(1)
+            .map(|row| row.matches("<td").count() + row.matches("<th").count())
+            .collect();
+        assert!(
+            cells.windows(2).all(|w| w[0] == w[1]),
+            "{stem}: a table's rows have {cells:?} cells"
+        );
+    }
+}
+
 #[test]
 fn every_station_gets_a_safe_sheet_with_the_caution_and_the_predicted_times() {
     let (rows, dir) = predict_with_sheets("sheets");
@@ -106,6 +123,11 @@ fn every_station_gets_a_safe_sheet_with_the_caution_and_the_predicted_times() {
         for bad in ["<script", "src=", "href=", "url(", "@import"] {
             assert!(!html.to_ascii_lowercase().contains(bad), "{stem}: {bad}");
         }
+        assert_tables_are_rectangular(stem, &html);
+        assert!(
+            !html.replace("&nbsp;", "").contains("nbsp;"),
+            "{stem}: an entity lost its ampersand"
+        );
         let stamps = datetimes(&html);
         for r in rows_of(&rows, name) {
             let utc = to_second(r["time_utc"].as_str().unwrap());

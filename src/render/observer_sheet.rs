@@ -274,7 +274,7 @@ fn push_blank_table(s: &mut String) {
     s.push_str(
         "<h2>Your timings</h2>\n<table class=\"blank\">\n<tr><th>Contact</th>\
          <th>Clock time (hh:mm:ss.s)</th><th>Zone or offset</th>\
-         <th>Sure to<th>Sure to ± s</th>nbsp;±<th>Sure to ± s</th>nbsp;s</th><th>Observer</th><th>What you saw (black drop, cloud)</th></tr>\n",
+         <th>Sure to&nbsp;±&nbsp;s</th><th>Observer</th><th>What you saw (black drop, cloud)</th></tr>\n",
     );
     for _ in 0..5 {
         s.push_str(
