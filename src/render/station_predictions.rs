@@ -87,6 +87,24 @@ fn civil_reading(event: &TransitEvent, hours: f64, zone: &CivilZone) -> String {
     zone.reading(event.label(hours)).iso(2)
 }
 
+/// The table's civil-time cell: `2032-11-13 08:19:56.12 +01:00 CET` (the abbreviation where
+/// the zone has one in letters).
+fn civil_cell(event: &TransitEvent, hours: f64, zone: &CivilZone) -> String {
+    let reading = zone.reading(event.label(hours));
+    let mut t = reading.iso(2);
+    t.replace_range(10..11, " ");
+    t.insert(22, ' ');
+    if reading
+        .abbreviation
+        .chars()
+        .all(|c| c.is_ascii_alphabetic())
+    {
+        t.push(' ');
+        t.push_str(&reading.abbreviation);
+    }
+    t
+}
+
 /// The local solar-time reading of a contact at a station (civil day reckoning, no zone, as
 /// the input column `time_local` takes it), to 0.01 s, its date in `calendar`.
 fn local_reading(
@@ -448,19 +466,7 @@ pub fn predictions_table(
             }
             if clocks.civil() {
                 s.push(' ');
-                let text = clocks.zone(k).map(|z| {
-                    let reading = z.reading(event.label(x.hours));
-                    let mut t = reading.iso(2);
-                    // 2032-11-13T08:19:56.12+01:00 as 2032-11-13 08:19:56.12 +01:00 CET
-                    t.replace_range(10..11, " ");
-                    t.insert(22, ' ');
-                    let abbreviation = &reading.abbreviation;
-                    if abbreviation.chars().all(|c| c.is_ascii_alphabetic()) {
-                        t.push(' ');
-                        t.push_str(abbreviation);
-                    }
-                    t
-                });
+                let text = clocks.zone(k).map(|z| civil_cell(event, x.hours, z));
                 push_right(
                     &mut s,
                     text.as_deref().unwrap_or("no zone given"),
