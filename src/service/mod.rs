@@ -8,10 +8,18 @@
 //! - `organiser.rs`: the organiser's page.
 //! - `server.rs`: the state, the participant's routes, the background reduction.
 //! - `routes.rs`: the organiser's and the interface's routes, the router, the start.
+//! - `security.rs`: the security headers on every response, and the router's protective layers.
+//! - `forgery.rs`: the visitor's anti-forgery cookie and tokens, the origin and content-type checks.
+//! - `sign_in.rs`: the organiser's sign-in, session cookie and sign-out.
+//! - `limits.rs`: the body limit said plainly (413 pages), the rate limit with `--public`.
 pub mod feedback;
+pub mod forgery;
 pub mod intake;
+pub mod limits;
 pub mod organiser;
 pub mod pages;
 pub mod routes;
+pub mod security;
 pub mod server;
+pub mod sign_in;
 pub mod store;

@@ -27,8 +27,8 @@ pub struct OrganiserView<'a> {
     pub unreadable: &'a [(i64, String, String)],
     /// The audit trail: (time, action, timing, reason).
     pub audit: &'a [super::store::AuditEntry],
-    /// The organiser's token and the forms' anti-forgery token.
-    pub tokens: (&'a str, &'a str),
+    /// The organiser's anti-forgery token for the page's forms (never the organiser's token).
+    pub csrf: &'a str,
 }
 
 fn summary(v: &OrganiserView, s: &mut String) {
@@ -100,7 +100,7 @@ fn state_of(v: &OrganiserView, t: &StoredTiming) -> (String, String) {
 }
 
 fn rows(v: &OrganiserView, s: &mut String) {
-    let (token, csrf) = v.tokens;
+    let csrf = v.csrf;
     s.push_str("<h2>Every timing</h2>\n<table id=\"rows\"><tr><th>id</th><th>station</th><th>contact</th><th>time</th><th>state</th><th>why</th><th>action</th></tr>\n");
     for t in v.timings.iter().take(2000) {
         let (state, why) = state_of(v, t);
@@ -110,9 +110,9 @@ fn rows(v: &OrganiserView, s: &mut String) {
             &t.fields.time_utc
         };
         let action = if t.excluded.is_some() {
-            format!("<form method=\"post\" action=\"/organiser/restore\"><input type=\"hidden\" name=\"token\" value=\"{}\"/><input type=\"hidden\" name=\"csrf\" value=\"{}\"/><input type=\"hidden\" name=\"timing\" value=\"{}\"/><button type=\"submit\">restore</button></form>", esc(token), esc(csrf), t.id)
+            format!("<form method=\"post\" action=\"/organiser/restore\"><input type=\"hidden\" name=\"csrf\" value=\"{}\"/><input type=\"hidden\" name=\"timing\" value=\"{}\"/><button type=\"submit\">restore</button></form>", esc(csrf), t.id)
         } else {
-            format!("<form method=\"post\" action=\"/organiser/exclude\"><input type=\"hidden\" name=\"token\" value=\"{}\"/><input type=\"hidden\" name=\"csrf\" value=\"{}\"/><input type=\"hidden\" name=\"timing\" value=\"{}\"/><input name=\"reason\" placeholder=\"reason\" size=\"14\"/><button type=\"submit\">exclude</button></form>", esc(token), esc(csrf), t.id)
+            format!("<form method=\"post\" action=\"/organiser/exclude\"><input type=\"hidden\" name=\"csrf\" value=\"{}\"/><input type=\"hidden\" name=\"timing\" value=\"{}\"/><input name=\"reason\" placeholder=\"reason\" size=\"14\"/><button type=\"submit\">exclude</button></form>", esc(csrf), t.id)
         };
         let _ = writeln!(s, "<tr><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{action}</td></tr>", t.id, esc(&t.fields.station), esc(&t.fields.contact), esc(time), esc(&state), esc(&why));
     }
@@ -159,8 +159,8 @@ fn trails(v: &OrganiserView, s: &mut String) {
 /// The organiser's page.
 pub fn organiser_page(v: &OrganiserView) -> String {
     let mut s = String::new();
-    let token = esc(v.tokens.0);
-    let _ = writeln!(s, "<p>Downloads: <a id=\"export\" href=\"/api/export.csv?token={token}\">every timing in force (observations CSV)</a> · <a href=\"/organiser/report.html?token={token}\">the report (HTML)</a> · <a href=\"/organiser?token={token}\">reload</a></p>");
+    let _ = writeln!(s, "<p>Downloads: <a id=\"export\" href=\"/api/export.csv\">every timing in force (observations CSV)</a> · <a href=\"/organiser/report.html\">the report (HTML)</a> · <a href=\"/organiser\">reload</a></p>");
+    s.push_str(&super::sign_in::sign_out_form(v.csrf));
     summary(v, &mut s);
     if let Some((red, _)) = v.solution {
         methods(red, &mut s);

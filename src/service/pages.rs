@@ -9,7 +9,9 @@ use crate::render::svg::esc;
 use crate::render::text::SAFETY_CAUTION;
 use std::fmt::Write;
 
-const STYLE: &str = "body{font-family:sans-serif;max-width:1000px;margin:1.5em auto;padding:0 1em;color:#111827;line-height:1.45}table{border-collapse:collapse;margin:1em 0;font-size:0.9em}th,td{border:1px solid #d1d5db;padding:3px 6px;text-align:left;vertical-align:top}th{background:#f3f4f6}.caution{border:2px solid #b91c1c;background:#fef2f2;padding:0.6em 1em;font-weight:bold}.fits{color:#166534}.doubtful{color:#92400e}.rejected{color:#b91c1c}fieldset{margin:1em 0}label{display:inline-block;margin:0.2em 0.8em 0.2em 0}";
+/// The pages' style sheet, the exact text of their `<style>` element (allowed by its SHA-256
+/// hash in the content-security policy).
+pub const STYLE: &str = "body{font-family:sans-serif;max-width:1000px;margin:1.5em auto;padding:0 1em;color:#111827;line-height:1.45}table{border-collapse:collapse;margin:1em 0;font-size:0.9em}th,td{border:1px solid #d1d5db;padding:3px 6px;text-align:left;vertical-align:top}th{background:#f3f4f6}.caution{border:2px solid #b91c1c;background:#fef2f2;padding:0.6em 1em;font-weight:bold}.fits{color:#166534}.doubtful{color:#92400e}.rejected{color:#b91c1c}fieldset{margin:1em 0}label{display:inline-block;margin:0.2em 0.8em 0.2em 0}";
 
 /// The page's frame: title, style, the solar caution first.
 pub fn page(title: &str, body: &str) -> String {

@@ -10,7 +10,7 @@ use axum::extract::{DefaultBodyLimit, Query, State};
 use axum::http::{header, HeaderMap, StatusCode};
 use axum::response::{Html, IntoResponse, Redirect, Response};
 use axum::routing::{get, post};
-use axum::{Json, Router};
+use axum::{Extension, Json, Router};
 use serde_json::json;
 use std::collections::HashMap;
 use std::sync::Arc;
@@ -81,16 +81,14 @@ async fn report(State(app): State<Shared>, headers: HeaderMap, Query(q): Q) -> R
     }
 }
 
-async fn organiser(State(app): State<Shared>, headers: HeaderMap, Query(q): Q) -> Response {
+async fn organiser(
+    State(app): State<Shared>,
+    Extension(visitor): Extension<super::forgery::Visitor>,
+    headers: HeaderMap,
+    Query(q): Q,
+) -> Response {
     if !app.authorised(&headers, &q) {
-        return (
-            StatusCode::UNAUTHORIZED,
-            Html(message_page(
-                "Organiser only",
-                "open this page with the organiser's token (?token=...)",
-            )),
-        )
-            .into_response();
+        return unauthorised();
     }
     let gathered = app.with_store(|s| {
         Ok((
@@ -117,31 +115,29 @@ async fn organiser(State(app): State<Shared>, headers: HeaderMap, Query(q): Q) -
         counts,
         unreadable: &unreadable,
         audit: &audit,
-        tokens: (app.token(), app.csrf()),
+        csrf: &visitor.token,
     };
     Html(organiser_page(&view)).into_response()
 }
 
 /// Exclude (`exclude` true, with a reason) or restore a timing from the organiser's form.
-async fn set_state(app: Shared, body: Bytes, exclude: bool) -> Response {
+async fn set_state(
+    app: Shared,
+    (visitor, headers): (super::forgery::Visitor, HeaderMap),
+    body: Bytes,
+    exclude: bool,
+) -> Response {
     let form: Vec<(String, String)> = serde_urlencoded::from_bytes(&body).unwrap_or_default();
     let get = |k: &str| {
         form.iter()
             .find(|(n, _)| n == k)
             .map(|(_, v)| v.trim().to_string())
     };
-    if get("token").as_deref() != Some(app.token()) {
+    if !app.authorised(&headers, &HashMap::new()) {
         return unauthorised();
     }
-    if get("csrf").as_deref() != Some(app.csrf()) {
-        return (
-            StatusCode::FORBIDDEN,
-            Html(message_page(
-                "Refused",
-                "the form's token is missing or wrong; reload the page",
-            )),
-        )
-            .into_response();
+    if !visitor.accepts(get("csrf").as_deref()) {
+        return super::forgery::refused_form();
     }
     let Some(id) = get("timing").and_then(|t| t.parse::<i64>().ok()) else {
         return (
@@ -164,7 +160,7 @@ async fn set_state(app: Shared, body: Bytes, exclude: bool) -> Response {
     match app.with_store(|s| s.set_excluded(id, if exclude { reason.as_deref() } else { None })) {
         Ok(true) => {
             app.mark_changed();
-            Redirect::to(&format!("/organiser?token={}", app.token())).into_response()
+            Redirect::to("/organiser").into_response()
         }
         Ok(false) => (
             StatusCode::NOT_FOUND,
@@ -175,17 +171,20 @@ async fn set_state(app: Shared, body: Bytes, exclude: bool) -> Response {
     }
 }
 
-async fn exclude(State(app): State<Shared>, body: Bytes) -> Response {
-    set_state(app, body, true).await
+type V = Extension<super::forgery::Visitor>;
+
+async fn exclude(State(app): State<Shared>, Extension(v): V, h: HeaderMap, b: Bytes) -> Response {
+    set_state(app, (v, h), b, true).await
 }
 
-async fn restore(State(app): State<Shared>, body: Bytes) -> Response {
-    set_state(app, body, false).await
+async fn restore(State(app): State<Shared>, Extension(v): V, h: HeaderMap, b: Bytes) -> Response {
+    set_state(app, (v, h), b, false).await
 }
 
-/// The router of every route, with the body limit.
-pub fn router(app: Shared) -> Router {
-    Router::new()
+/// The router of every route, with the body limit, in its protective layers
+/// (`security::harden`; `rate`: the per-address limit of posts, with `--public`).
+pub fn router(app: Shared, rate: Option<super::limits::RateLimit>) -> Router {
+    let routes = Router::new()
         .route("/", get(super::server::participant_route))
         .route("/submit", post(super::server::submit_route))
         .route("/upload", post(super::server::upload_route))
@@ -201,7 +200,8 @@ pub fn router(app: Shared) -> Router {
         .route("/organiser/exclude", post(exclude))
         .route("/organiser/restore", post(restore))
         .layer(DefaultBodyLimit::max(BODY_LIMIT))
-        .with_state(app)
+        .with_state(app.clone());
+    super::security::harden(routes, app, rate)
 }
 
 /// How the server is started.
@@ -256,6 +256,10 @@ pub fn serve(
         if settings.public && !local.ip().is_loopback() {
             eprintln!("warning: listening on a public address: anyone who can reach it can send timings; keep the organiser's token secret");
         }
+        let rate = settings.public.then_some(super::limits::RateLimit::PUBLIC);
+        if let Some(r) = rate {
+            eprintln!("{}", r.describe());
+        }
         eprintln!("listening on http://{local}");
         if generated {
             eprintln!("organiser token: {token}");
@@ -268,7 +272,9 @@ pub fn serve(
                 }
             }
         };
-        axum::serve(listener, router(app))
+        let service = router(app, rate)
+            .into_make_service_with_connect_info::<std::net::SocketAddr>();
+        axum::serve(listener, service)
             .with_graceful_shutdown(stop)
             .await
             .map_err(|e| crate::Error::argument(format!("the server stopped: {e}")))

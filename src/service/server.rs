@@ -3,6 +3,7 @@
 //! each change (debounced), never in a request.
 
 use super::feedback::{feedback, parallax_information};
+use super::forgery::{refused_form, Visitor};
 use super::intake::{from_form, from_json};
 use super::pages::{feedback_page, message_page, page, timing_form};
 use super::store::{export_csv, Store, TimingFields};
@@ -12,7 +13,7 @@ use axum::body::Bytes;
 use axum::extract::{Path, Query, State};
 use axum::http::{header, HeaderMap, StatusCode};
 use axum::response::{Html, IntoResponse, Response};
-use axum::Json;
+use axum::{Extension, Json};
 use serde_json::json;
 use std::collections::HashMap;
 use std::sync::atomic::{AtomicU64, Ordering};
@@ -20,7 +21,7 @@ use std::sync::{Arc, Mutex, RwLock};
 use tokio::sync::Notify;
 
 /// Largest request body, bytes.
-pub const BODY_LIMIT: usize = 256 * 1024;
+pub const BODY_LIMIT: usize = super::limits::BODY_LIMIT_BYTES;
 
 /// How long the background task waits after a change before reducing, so that the
 /// submissions of a burst are reduced together.
@@ -44,7 +45,8 @@ pub struct App {
     event: TransitEvent,
     store: Mutex<Store>,
     token: String,
-    csrf: String,
+    /// The organiser's sessions (see `sign_in.rs`).
+    pub sessions: super::sign_in::Sessions,
     generation: AtomicU64,
     notify: Notify,
     latest: RwLock<Latest>,
@@ -77,7 +79,7 @@ impl App {
             event,
             store: Mutex::new(store),
             token,
-            csrf: random_token(32),
+            sessions: Default::default(),
             generation: AtomicU64::new(1),
             notify: Notify::new(),
             latest: RwLock::new(Latest::default()),
@@ -110,11 +112,6 @@ impl App {
         &self.token
     }
 
-    /// The forms' anti-forgery token.
-    pub fn csrf(&self) -> &str {
-        &self.csrf
-    }
-
     /// Run `f` on the store under its lock.
     pub fn with_store<T>(
         &self,
@@ -127,13 +124,15 @@ impl App {
         f(&mut guard)
     }
 
-    /// Whether the request carries the organiser's token (Bearer header or `?token=`).
-    pub fn authorised(&self, headers: &HeaderMap, query: &HashMap<String, String>) -> bool {
+    /// Whether the request is the organiser's: the token in `Authorization: Bearer`, or a
+    /// session cookie (`?token=` is turned into a session by `sign_in::gate`, never read here).
+    pub fn authorised(&self, headers: &HeaderMap, _query: &HashMap<String, String>) -> bool {
         let bearer = headers
             .get(header::AUTHORIZATION)
             .and_then(|v| v.to_str().ok())
             .and_then(|v| v.strip_prefix("Bearer "));
-        bearer == Some(self.token.as_str()) || query.get("token") == Some(&self.token)
+        bearer.is_some_and(|b| super::sign_in::same_secret(b, &self.token))
+            || self.sessions.holds(headers)
     }
 
     /// The station's expected share of the information on the parallax.
@@ -279,7 +278,12 @@ fn field<'a>(form: &'a [(String, String)], name: &str) -> Option<&'a str> {
         .map(|(_, v)| v.as_str())
 }
 
-async fn form_submit(app: Shared, body: Bytes, supersedes: Option<(i64, String)>) -> Response {
+async fn form_submit(
+    app: Shared,
+    visitor: Visitor,
+    body: Bytes,
+    supersedes: Option<(i64, String)>,
+) -> Response {
     let form = match form_pairs(&body) {
         Ok(f) => f,
         Err(why) => {
@@ -290,15 +294,8 @@ async fn form_submit(app: Shared, body: Bytes, supersedes: Option<(i64, String)>
                 .into_response()
         }
     };
-    if field(&form, "csrf") != Some(app.csrf.as_str()) {
-        return (
-            StatusCode::FORBIDDEN,
-            Html(message_page(
-                "Refused",
-                "the form's token is missing or wrong; reload the form and send it again",
-            )),
-        )
-            .into_response();
+    if !visitor.accepts(field(&form, "csrf")) {
+        return refused_form();
     }
     let old = match supersedes {
         Some((id, key)) => match app.with_store(|s| s.submission(id)) {
@@ -323,16 +320,24 @@ async fn form_submit(app: Shared, body: Bytes, supersedes: Option<(i64, String)>
 }
 
 /// `GET /`.
-pub async fn participant_route(State(app): State<Shared>) -> Html<String> {
+pub async fn participant_route(
+    State(app): State<Shared>,
+    Extension(visitor): Extension<Visitor>,
+) -> Html<String> {
     let intro = format!("<p>Send the contact times you observed of the transit of {} of {}. You will see at once how each compares with its prediction at your station.</p>\n", app.event.planet, app.event.date());
-    let forms =
-        timing_form("/submit", &app.csrf, None, &[]) + &super::pages::upload_form(&app.csrf);
+    let forms = timing_form("/submit", &visitor.token, None, &[])
+        + &super::pages::upload_form(&visitor.token)
+        + &super::limits::limits_sentence();
     Html(page("Send your timings", &(intro + &forms)))
 }
 
 /// `POST /submit`.
-pub async fn submit_route(State(app): State<Shared>, body: Bytes) -> Response {
-    form_submit(app, body, None).await
+pub async fn submit_route(
+    State(app): State<Shared>,
+    Extension(visitor): Extension<Visitor>,
+    body: Bytes,
+) -> Response {
+    form_submit(app, visitor, body, None).await
 }
 
 /// The reply page for a stored submission: its feedback (`201`; `200` for an identical one),
@@ -378,25 +383,15 @@ fn feedback_reply(
 /// submission stored raw).
 pub async fn upload_route(
     State(app): State<Shared>,
-    mut form: axum::extract::Multipart,
+    Extension(visitor): Extension<Visitor>,
+    form: axum::extract::Multipart,
 ) -> Response {
-    let (mut csrf, mut file) = (String::new(), None);
-    while let Ok(Some(part)) = form.next_field().await {
-        match part.name() {
-            Some("csrf") => csrf = part.text().await.unwrap_or_default(),
-            Some("file") => file = part.bytes().await.ok(),
-            _ => {}
-        }
-    }
-    if csrf != app.csrf {
-        return (
-            StatusCode::FORBIDDEN,
-            Html(message_page(
-                "Refused",
-                "the form's token is missing or wrong; reload the form and send it again",
-            )),
-        )
-            .into_response();
+    let (csrf, file) = match super::limits::read_upload(form).await {
+        Ok(parts) => parts,
+        Err(refusal) => return refusal,
+    };
+    if !visitor.accepts(Some(&csrf)) {
+        return refused_form();
     }
     let Some(bytes) = file.filter(|b| !b.is_empty()) else {
         return (
@@ -416,6 +411,7 @@ pub async fn upload_route(
 /// `GET /submission/{id}?key=`.
 pub async fn review_route(
     State(app): State<Shared>,
+    Extension(visitor): Extension<Visitor>,
     Path(id): Path<i64>,
     Query(q): Query<HashMap<String, String>>,
 ) -> Response {
@@ -428,7 +424,7 @@ pub async fn review_route(
                 body.push_str("<h2>Correct it</h2>\n<p>Sending this form stores a new version; the old one is kept.</p>\n");
                 body.push_str(&timing_form(
                     &format!("/submission/{id}"),
-                    &app.csrf,
+                    &visitor.token,
                     Some(&key),
                     &fields,
                 ));
@@ -452,6 +448,7 @@ pub async fn review_route(
 /// `POST /submission/{id}`.
 pub async fn correct_route(
     State(app): State<Shared>,
+    Extension(visitor): Extension<Visitor>,
     Path(id): Path<i64>,
     body: Bytes,
 ) -> Response {
@@ -459,5 +456,5 @@ pub async fn correct_route(
         .ok()
         .and_then(|f| field(&f, "key").map(String::from))
         .unwrap_or_default();
-    form_submit(app, body, Some((id, key))).await
+    form_submit(app, visitor, body, Some((id, key))).await
 }
