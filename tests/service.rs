@@ -5,7 +5,9 @@
 
 mod common;
 
-use common::server::{assert_export_reduces_to, get, post_json, request, settled_solution, start};
+use common::server::{
+    assert_export_reduces_to, get, post_json, request, settled_solution, sign_in, start, visitor,
+};
 use common::{err, out, run, temp};
 
 fn db(name: &str) -> std::path::PathBuf {
@@ -169,9 +171,10 @@ fn hostile_input_is_refused_and_nothing_is_rendered_raw() {
         &["Content-Type: application/x-www-form-urlencoded"],
         b"token=organiser1&timing=1&reason=x",
     );
-    assert_eq!(forged_exclude.status, 403);
+    // Without a session the organiser's form is refused before anything else.
+    assert_eq!(forged_exclude.status, 401);
     assert_eq!(settled_solution(&server)["submissions"], before);
-    let page = get(port, "/organiser?token=organiser1", None);
+    let page = get(port, "/organiser", Some("organiser1"));
     assert_eq!(page.status, 200);
     assert!(
         !page.body.contains(evil),
@@ -203,18 +206,28 @@ fn the_organiser_excludes_and_restores_and_participants_correct() {
         );
     }
     let first = settled_solution(&server);
-    let csrf = {
-        let page = get(port, "/", None).body;
-        let k = page.find("name=\"csrf\" value=\"").unwrap() + 19;
-        page[k..k + 32].to_string()
-    };
-    let token = server.token.clone();
-    let form = format!("token={token}&csrf={csrf}&timing=1&reason=clock+doubtful");
+    let (visitor_cookie, csrf) = visitor(port);
+    let session = sign_in(port, &server.token);
+    let cookies = format!("Cookie: {visitor_cookie}; {session}");
+    let form_headers = [
+        "Content-Type: application/x-www-form-urlencoded",
+        cookies.as_str(),
+    ];
+    // Signed in, but without the anti-forgery token: refused.
     let r = request(
         port,
         "POST",
         "/organiser/exclude",
-        &["Content-Type: application/x-www-form-urlencoded"],
+        &form_headers,
+        b"timing=1&reason=x",
+    );
+    assert_eq!(r.status, 403, "{}", r.body);
+    let form = format!("csrf={csrf}&timing=1&reason=clock+doubtful");
+    let r = request(
+        port,
+        "POST",
+        "/organiser/exclude",
+        &form_headers,
         form.as_bytes(),
     );
     assert_eq!(r.status, 303, "{}", r.body);
@@ -223,15 +236,15 @@ fn the_organiser_excludes_and_restores_and_participants_correct() {
         after["timings_total"].as_i64().unwrap(),
         first["timings_total"].as_i64().unwrap() - 1
     );
-    let page = get(port, &format!("/organiser?token={token}"), None).body;
+    let page = request(port, "GET", "/organiser", &[cookies.as_str()], b"").body;
     assert!(page.contains("clock doubtful") && page.contains("excluded"));
-    let form = format!("token={token}&csrf={csrf}&timing=1");
+    let form = format!("csrf={csrf}&timing=1");
     assert_eq!(
         request(
             port,
             "POST",
             "/organiser/restore",
-            &["Content-Type: application/x-www-form-urlencoded"],
+            &form_headers,
             form.as_bytes()
         )
         .status,
@@ -263,7 +276,7 @@ fn the_organiser_excludes_and_restores_and_participants_correct() {
         port,
         "POST",
         &format!("/submission/{id}"),
-        &["Content-Type: application/x-www-form-urlencoded"],
+        &form_headers,
         corrected.as_bytes(),
     );
     assert_eq!(r.status, 201, "{}", r.body);
@@ -313,15 +326,19 @@ fn an_observations_file_can_be_uploaded() {
     let port = server.port;
     let page = get(port, "/", None).body;
     assert!(page.contains("enctype=\"multipart/form-data\"") && !page.contains("<script"));
-    let k = page.find("name=\"csrf\" value=\"").unwrap() + 19;
-    let csrf = &page[k..k + 32];
+    let (cookie, csrf) = visitor(port);
+    let cookie = format!("Cookie: {cookie}");
+    let csrf = csrf.as_str();
     let file = "station,latitude,longitude,elevation_m,contact,time_utc,sigma_s\nJade Harbour School,22.28,114.16,40,II,2012-06-05T22:29:40Z,8\n";
     let multipart = |token: &str| {
         format!(
             "--XyZ\r\nContent-Disposition: form-data; name=\"csrf\"\r\n\r\n{token}\r\n--XyZ\r\nContent-Disposition: form-data; name=\"file\"; filename=\"t.csv\"\r\nContent-Type: text/csv\r\n\r\n{file}\r\n--XyZ--\r\n"
         )
     };
-    let headers = ["Content-Type: multipart/form-data; boundary=XyZ"];
+    let headers = [
+        "Content-Type: multipart/form-data; boundary=XyZ",
+        cookie.as_str(),
+    ];
     let r = request(
         port,
         "POST",
@@ -346,9 +363,6 @@ fn an_observations_file_can_be_uploaded() {
     assert_eq!(settled_solution(&server)["submissions"], 1);
     // A file as a spreadsheet in a European locale writes it: semicolons, decimal commas, a
     // time with no date (judged on the day nearest its prediction), a blank row.
-    let page = get(port, "/", None).body;
-    let k = page.find("name=\"csrf\" value=\"").unwrap() + 19;
-    let csrf = page[k..k + 32].to_string();
     let local = "station;latitude;longitude;elevation_m;contact;time_utc;sigma_s\nLantern Quay Club;22,28;114,16;40;III;04:36:00,5Z;8\n;;;;;;\n";
     let body = format!(
         "--XyZ\r\nContent-Disposition: form-data; name=\"csrf\"\r\n\r\n{csrf}\r\n--XyZ\r\nContent-Disposition: form-data; name=\"file\"; filename=\"t.csv\"\r\nContent-Type: text/csv\r\n\r\n{local}\r\n--XyZ--\r\n"

@@ -84,6 +84,11 @@ impl CsvTable {
                     separator,
                 ));
             }
+            let rec = if rec.iter().any(|f| f != unneutralised(f)) {
+                rec.iter().map(unneutralised).collect()
+            } else {
+                rec
+            };
             let rec = if decimal_comma {
                 with_decimal_points(&headers, &rec)
             } else {
@@ -171,6 +176,35 @@ impl CsvTable {
             });
         }
         Ok(value)
+    }
+}
+
+/// The characters that make a spreadsheet read a cell as a formula (OWASP, "CSV Injection").
+const FORMULA_STARTS: [char; 6] = ['=', '+', '-', '@', '\t', '\r'];
+
+/// A cell made safe for spreadsheets: a cell beginning with `=`, `+`, `-`, `@`, a tab or a
+/// carriage return gets a leading `'`, unless `numeric` and it is a plain number (`-33.9`).
+/// [`CsvTable::from_bytes`] reads such a cell back without the `'`.
+///
+/// Reference: OWASP, "CSV Injection" (owasp.org/www-community/attacks/CSV_Injection).
+pub fn formula_safe(text: &str, numeric: bool) -> std::borrow::Cow<'_, str> {
+    let plain_number = text.parse::<f64>().is_ok()
+        && text
+            .chars()
+            .all(|c| c.is_ascii_digit() || ".+-eE".contains(c));
+    if text.starts_with(FORMULA_STARTS) && !(numeric && plain_number) {
+        format!("'{text}").into()
+    } else {
+        text.into()
+    }
+}
+
+/// A cell as written before [`formula_safe`]: the leading `'` dropped where the rest begins
+/// with one of the formula characters.
+fn unneutralised(field: &str) -> &str {
+    match field.strip_prefix('\'') {
+        Some(rest) if rest.starts_with(FORMULA_STARTS) => rest,
+        _ => field,
     }
 }
 

@@ -182,7 +182,11 @@ pub async fn check_posts(req: Request, next: Next) -> Response {
     if !same_origin(req.headers()) {
         let why = "this request was sent from another site; send it from this service's own pages or without an Origin header";
         return if api {
-            (StatusCode::FORBIDDEN, Json(serde_json::json!({ "error": why }))).into_response()
+            (
+                StatusCode::FORBIDDEN,
+                Json(serde_json::json!({ "error": why })),
+            )
+                .into_response()
         } else {
             (StatusCode::FORBIDDEN, Html(message_page("Refused", why))).into_response()
         };
@@ -231,7 +235,10 @@ mod tests {
         assert!(!same_origin(&headers(Some("https://evil.example"))));
         assert!(!same_origin(&headers(Some("null"))));
         let mut h = HeaderMap::new();
-        h.insert(header::COOKIE, HeaderValue::from_static("x=1; tp_visitor=abc"));
+        h.insert(
+            header::COOKIE,
+            HeaderValue::from_static("x=1; tp_visitor=abc"),
+        );
         assert_eq!(cookie(&h, VISITOR_COOKIE), Some("abc"));
     }
 }

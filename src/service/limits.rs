@@ -92,8 +92,15 @@ pub async fn read_upload(
         if e.status() == StatusCode::PAYLOAD_TOO_LARGE {
             too_large(false)
         } else {
-            let why = format!("the upload could not be read ({}); choose the file and send it again", e.body_text());
-            (StatusCode::BAD_REQUEST, Html(super::pages::message_page("Not received", &why))).into_response()
+            let why = format!(
+                "the upload could not be read ({}); choose the file and send it again",
+                e.body_text()
+            );
+            (
+                StatusCode::BAD_REQUEST,
+                Html(super::pages::message_page("Not received", &why)),
+            )
+                .into_response()
         }
     };
     loop {
@@ -166,7 +173,8 @@ pub async fn limit_rate(
         }
         return next.run(req).await;
     }
-    let why = "Too many posts from your address in a short time; wait a few seconds and send again.";
+    let why =
+        "Too many posts from your address in a short time; wait a few seconds and send again.";
     let mut res = if req.uri().path().starts_with("/api/") {
         (
             StatusCode::TOO_MANY_REQUESTS,

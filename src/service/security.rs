@@ -33,7 +33,11 @@ fn base64(bytes: &[u8]) -> String {
     const ALPHABET: &[u8; 64] = b"ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789+/";
     let mut out = String::new();
     for chunk in bytes.chunks(3) {
-        let b = [chunk[0], *chunk.get(1).unwrap_or(&0), *chunk.get(2).unwrap_or(&0)];
+        let b = [
+            chunk[0],
+            *chunk.get(1).unwrap_or(&0),
+            *chunk.get(2).unwrap_or(&0),
+        ];
         let n = (u32::from(b[0]) << 16) | (u32::from(b[1]) << 8) | u32::from(b[2]);
         for k in 0..4 {
             if k <= chunk.len() {
@@ -93,7 +97,10 @@ pub fn harden(router: Router, app: Arc<App>, rate: Option<super::limits::RateLim
         .layer(from_fn_with_state(forgery, super::forgery::visitor))
         .layer(from_fn(super::limits::explain_too_large));
     if let Some(rate) = rate {
-        r = r.layer(from_fn_with_state(rate.limiter(), super::limits::limit_rate));
+        r = r.layer(from_fn_with_state(
+            rate.limiter(),
+            super::limits::limit_rate,
+        ));
     }
     r.layer(from_fn_with_state(Arc::new(csp), add_headers))
 }

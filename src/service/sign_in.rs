@@ -60,8 +60,7 @@ impl Sessions {
 /// Whether two secrets are equal, in time that depends on their lengths only.
 pub fn same_secret(a: &str, b: &str) -> bool {
     a.len() == b.len()
-        && a
-            .bytes()
+        && a.bytes()
             .zip(b.bytes())
             .fold(0u8, |acc, (x, y)| acc | (x ^ y))
             == 0

@@ -459,6 +459,17 @@ impl Store {
     }
 }
 
+/// The export's columns that hold numbers: a plain number there (`-33.9`) is written as it
+/// is; any other cell beginning with a formula character is written with a leading `'`.
+const NUMERIC_COLUMNS: [&str; 6] = [
+    "latitude",
+    "longitude",
+    "elevation_m",
+    "sigma_s",
+    "longitude_sigma_deg",
+    "meridian",
+];
+
 /// The timings in force and not excluded as an observations file that `reduce` reads, each
 /// field CSV-quoted; returns the text and the timing id of each data line (line k + 2).
 pub fn export_csv(timings: &[StoredTiming]) -> (String, Vec<i64>) {
@@ -470,7 +481,12 @@ pub fn export_csv(timings: &[StoredTiming]) -> (String, Vec<i64>) {
             .fields
             .values()
             .iter()
-            .map(|v| crate::render::text::csv_field(v))
+            .zip(EXPORT_COLUMNS)
+            .map(|(v, col)| {
+                let numeric = NUMERIC_COLUMNS.contains(&col);
+                let safe = crate::observations::csv_table::formula_safe(v, numeric);
+                crate::render::text::csv_field(&safe)
+            })
             .collect();
         s.push_str(&fields.join(","));
         s.push('\n');

@@ -63,6 +63,8 @@ pub fn start(db: &std::path::Path, extra: &[&str]) -> Server {
 pub struct Reply {
     pub status: u16,
     pub body: String,
+    /// The status line and headers, as sent.
+    pub head: String,
 }
 
 impl Reply {
@@ -78,6 +80,7 @@ pub fn request(port: u16, method: &str, path: &str, headers: &[&str], body: &[u8
         return Reply {
             status: 0,
             body: String::new(),
+            head: String::new(),
         };
     };
     s.set_read_timeout(Some(Duration::from_secs(60))).ok();
@@ -110,7 +113,54 @@ pub fn request(port: u16, method: &str, path: &str, headers: &[&str], body: &[u8
     } else {
         body
     };
-    Reply { status, body }
+    let head = text[..text.find("\r\n\r\n").unwrap_or(0)].to_string();
+    Reply { status, body, head }
+}
+
+impl Reply {
+    /// The value of the first header of this name (case-insensitive), if any.
+    pub fn header(&self, name: &str) -> Option<String> {
+        let want = format!("{}:", name.to_ascii_lowercase());
+        self.head
+            .lines()
+            .find(|l| l.to_ascii_lowercase().starts_with(&want))
+            .map(|l| l[want.len()..].trim().to_string())
+    }
+
+    /// Every `Set-Cookie` value.
+    pub fn set_cookies(&self) -> Vec<String> {
+        self.head
+            .lines()
+            .filter(|l| l.to_ascii_lowercase().starts_with("set-cookie:"))
+            .map(|l| l[11..].trim().to_string())
+            .collect()
+    }
+}
+
+/// The `name=value` of a cookie a reply sets.
+pub fn cookie_of(reply: &Reply, name: &str) -> Option<String> {
+    reply
+        .set_cookies()
+        .iter()
+        .find(|c| c.starts_with(&format!("{name}=")))
+        .map(|c| c.split(';').next().unwrap().to_string())
+}
+
+/// A visitor of the participant's form: its cookie (`tp_visitor=...`) and its forms'
+/// anti-forgery token.
+pub fn visitor(port: u16) -> (String, String) {
+    let r = request(port, "GET", "/", &[], b"");
+    let cookie = cookie_of(&r, "tp_visitor").expect("a visitor cookie");
+    let k = r.body.find("name=\"csrf\" value=\"").expect("a csrf field") + 19;
+    let csrf = r.body[k..k + 64].to_string();
+    (cookie, csrf)
+}
+
+/// Sign the organiser in through `?token=`; the session cookie (`tp_organiser=...`).
+pub fn sign_in(port: u16, token: &str) -> String {
+    let r = request(port, "GET", &format!("/organiser?token={token}"), &[], b"");
+    assert_eq!(r.status, 303, "{}", r.body);
+    cookie_of(&r, "tp_organiser").expect("a session cookie")
 }
 
 fn dechunk(body: &str) -> String {
