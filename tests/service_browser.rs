@@ -87,6 +87,7 @@ async fn screenshot(c: &Client, name: &str) {
 /// table's text.
 async fn send_form(c: &Client, base: &str, station: (&str, &str, &str), time: &str) -> String {
     c.goto(&format!("{base}/")).await.expect("the form");
+    assert_styled(c, "the form").await;
     fill(c, "station", station.0).await;
     fill(c, "latitude", station.1).await;
     fill(c, "longitude", station.2).await;
@@ -113,10 +114,31 @@ async fn send_form(c: &Client, base: &str, station: (&str, &str, &str), time: &s
     }
 }
 
+/// Whether the page's caution is drawn in its style (the inline style element allowed by its
+/// hash in the content-security policy: unstyled, its border would be the browser's default).
+async fn assert_styled(c: &Client, page: &str) {
+    let v = c
+        .execute(
+            "return getComputedStyle(document.querySelector('.caution')).borderTopColor;",
+            vec![],
+        )
+        .await
+        .expect("a computed style");
+    assert_eq!(
+        v,
+        serde_json::json!("rgb(185, 28, 28)"),
+        "{page} styled under the CSP"
+    );
+}
+
 async fn organiser_counts(c: &Client, base: &str, token: &str) -> (String, String) {
+    // `?token=` signs in and is redirected away; the session cookie holds the organiser.
     c.goto(&format!("{base}/organiser?token={token}"))
         .await
         .expect("the organiser's page");
+    let url = c.current_url().await.expect("an address");
+    assert!(!url.as_str().contains(token), "the token left in {url}");
+    assert_styled(c, "the organiser's page").await;
     let n = c
         .find(Locator::Id("n-timings"))
         .await
@@ -232,6 +254,12 @@ fn a_participant_and_the_organiser_in_a_real_browser() {
         screenshot(&c, "service-organiser-after.png").await;
         assert_eq!(n2, "13");
         assert_ne!(p1, p2, "the solution changed with the new timing");
+        c.goto(&format!("{base}/organiser/report.html"))
+            .await
+            .expect("the report");
+        assert_styled(&c, "the report").await;
+        let source = c.source().await.expect("the report's source");
+        assert!(!source.contains("organiser7"), "the token on the report");
         c.close().await.ok();
     });
 }

@@ -7,7 +7,8 @@
 //!   belong to the visitor's own cookie is refused (`403`); the check is in constant time.
 //! - Every post whose `Origin` header names another site than the one the request came to
 //!   (its `Host`) is refused (`403`), as the same cheat sheet's "verifying origin with
-//!   standard headers" advises; a request without `Origin` (scripts, `curl`) passes.
+//!   standard headers" advises; a request without `Origin` (scripts, `curl`) passes, and
+//!   `Origin: null` passes only with `Sec-Fetch-Site: same-origin`.
 //! - `POST /api/submissions` takes only `Content-Type: application/json` (`415`): a page
 //!   elsewhere can post `text/plain` or a form without a preflight, never JSON.
 //!
@@ -155,6 +156,14 @@ fn same_origin(headers: &HeaderMap) -> bool {
     let Some(origin) = headers.get(header::ORIGIN) else {
         return true;
     };
+    // Under `Referrer-Policy: no-referrer` Chromium sends `Origin: null` with a page's own
+    // form posts; the Fetch Metadata header then says where the request started (W3C, "Fetch
+    // Metadata Request Headers", section 2.4; a sandboxed or foreign page sends `cross-site`).
+    if origin.as_bytes() == b"null" {
+        return headers
+            .get("sec-fetch-site")
+            .is_some_and(|v| v.as_bytes() == b"same-origin");
+    }
     let host = headers.get(header::HOST).and_then(|h| h.to_str().ok());
     let origin_host = origin
         .to_str()
@@ -234,6 +243,11 @@ mod tests {
         assert!(!same_origin(&headers(Some("http://127.0.0.1:9999"))));
         assert!(!same_origin(&headers(Some("https://evil.example"))));
         assert!(!same_origin(&headers(Some("null"))));
+        let mut h = headers(Some("null"));
+        h.insert("sec-fetch-site", HeaderValue::from_static("same-origin"));
+        assert!(same_origin(&h));
+        h.insert("sec-fetch-site", HeaderValue::from_static("cross-site"));
+        assert!(!same_origin(&h));
         let mut h = HeaderMap::new();
         h.insert(
             header::COOKIE,
