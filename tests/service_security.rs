@@ -147,7 +147,12 @@ fn no_page_holds_the_token_and_the_organiser_signs_in_and_out() {
     assert!(r.body.contains("autocomplete=\"current-password\""));
     assert_eq!(get(port, "/api/solution", Some(TOKEN)).status, 200);
     assert_eq!(get(port, "/organiser/report.html", Some(TOKEN)).status, 200);
-    // The sign-in form, then sign-out ends the session.
+}
+
+#[test]
+fn the_sign_in_form_holds_the_organiser_until_sign_out() {
+    let server = start(&db("sign-in"), &["--token", TOKEN]);
+    let port = server.port;
     let (vc, csrf) = visitor(port);
     let ct = "Content-Type: application/x-www-form-urlencoded";
     let vh = format!("Cookie: {vc}");
@@ -243,6 +248,34 @@ fn formula_cells_round_trip_through_the_export_and_reduce() {
     );
 }
 
+/// The headers every response carries.
+fn assert_security_headers(what: &str, r: &common::server::Reply) {
+    let csp = r
+        .header("content-security-policy")
+        .unwrap_or_else(|| panic!("CSP on {what}"));
+    assert!(
+        csp.contains("default-src 'none'")
+            && csp.contains("frame-ancestors 'none'")
+            && !csp.contains("unsafe-inline"),
+        "{csp}"
+    );
+    assert_eq!(
+        r.header("x-content-type-options").as_deref(),
+        Some("nosniff"),
+        "{what}"
+    );
+    assert_eq!(
+        r.header("referrer-policy").as_deref(),
+        Some("no-referrer"),
+        "{what}"
+    );
+    assert_eq!(
+        r.header("x-frame-options").as_deref(),
+        Some("DENY"),
+        "{what}"
+    );
+}
+
 #[test]
 fn headers_everywhere_and_limits_said_plainly() {
     let server = start(&db("headers"), &["--token", TOKEN]);
@@ -299,30 +332,7 @@ fn headers_everywhere_and_limits_said_plainly() {
         ("413", &paste),
         ("413 api", &api),
     ] {
-        let csp = r
-            .header("content-security-policy")
-            .unwrap_or_else(|| panic!("CSP on {what}"));
-        assert!(
-            csp.contains("default-src 'none'")
-                && csp.contains("frame-ancestors 'none'")
-                && !csp.contains("unsafe-inline"),
-            "{csp}"
-        );
-        assert_eq!(
-            r.header("x-content-type-options").as_deref(),
-            Some("nosniff"),
-            "{what}"
-        );
-        assert_eq!(
-            r.header("referrer-policy").as_deref(),
-            Some("no-referrer"),
-            "{what}"
-        );
-        assert_eq!(
-            r.header("x-frame-options").as_deref(),
-            Some("DENY"),
-            "{what}"
-        );
+        assert_security_headers(what, r);
     }
     assert_eq!(settled_solution(&server)["submissions"], 0);
 }
