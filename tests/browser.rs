@@ -7,7 +7,7 @@
 
 mod common;
 
-use common::chromium::{browser_or_skip, chromium, measure, temp_dir};
+use common::chromium::{browser_or_skip, chromium, measure, screenshot_pixels, temp_dir};
 use common::{data, run, temp};
 use std::path::Path;
 
@@ -45,20 +45,11 @@ fn a_browser_renders_the_demo_report() {
         "no screenshot: {}",
         String::from_utf8_lossy(&o.stderr)
     );
-    let decoder = png::Decoder::new(std::fs::File::open(&shot).unwrap());
-    let mut reader = decoder.read_info().unwrap();
-    let mut buf = vec![0; reader.output_buffer_size()];
-    let info = reader.next_frame(&mut buf).unwrap();
-    assert_eq!(
-        (info.width, info.height),
-        (1200, 3000),
-        "rendered at full size"
-    );
-    let bytes = &buf[..info.buffer_size()];
-    let step = info.color_type.samples();
+    let (width, height, pixels) = screenshot_pixels(&shot);
+    assert_eq!((width, height), (1200, 3000), "rendered at full size");
     let mut distinct = std::collections::HashSet::new();
     let mut non_white = 0usize;
-    for px in bytes.chunks(step) {
+    for px in &pixels {
         distinct.insert(px.to_vec());
         if px.iter().take(3).any(|&c| c < 200) {
             non_white += 1;

@@ -6,7 +6,7 @@
 
 mod common;
 
-use common::chromium::{browser_or_skip, chromium, temp_dir};
+use common::chromium::{browser_or_skip, chromium, screenshot_pixels, temp_dir};
 use common::run;
 use std::path::{Path, PathBuf};
 
@@ -226,13 +226,9 @@ fn a_screenshot_of_a_sheet_shows_a_page() {
         "no screenshot: {}",
         String::from_utf8_lossy(&o.stderr)
     );
-    let decoder = png::Decoder::new(std::fs::File::open(&shot).unwrap());
-    let mut reader = decoder.read_info().unwrap();
-    let mut buf = vec![0; reader.output_buffer_size()];
-    let info = reader.next_frame(&mut buf).unwrap();
-    let step = info.color_type.samples();
-    let dark = buf[..info.buffer_size()]
-        .chunks(step)
+    let (_, _, pixels) = screenshot_pixels(&shot);
+    let dark = pixels
+        .iter()
         .filter(|px| px.iter().take(3).all(|&c| c < 100))
         .count();
     assert!(dark > 5_000, "too little drawn ({dark} dark pixels)");

@@ -163,3 +163,19 @@ pub fn measure(browser: &Path, dir: &Path, name: &str, html: &str) -> Findings {
             .collect(),
     }
 }
+
+/// A screenshot Chromium wrote: its width and height in pixels and each pixel's samples
+/// (RGB or RGBA), decoded with the `png` crate.
+#[allow(dead_code)]
+pub fn screenshot_pixels(shot: &Path) -> (u32, u32, Vec<Vec<u8>>) {
+    let decoder = png::Decoder::new(std::fs::File::open(shot).expect("screenshot"));
+    let mut reader = decoder.read_info().expect("png header");
+    let mut buf = vec![0; reader.output_buffer_size()];
+    let info = reader.next_frame(&mut buf).expect("png frame");
+    let step = info.color_type.samples();
+    let pixels = buf[..info.buffer_size()]
+        .chunks(step)
+        .map(<[u8]>::to_vec)
+        .collect();
+    (info.width, info.height, pixels)
+}
