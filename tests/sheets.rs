@@ -5,7 +5,7 @@
 mod common;
 
 use chrono::{DateTime, TimeDelta};
-use common::{err, out, run, temp};
+use common::{err, out, run_words, temp};
 use std::collections::HashMap;
 use std::path::{Path, PathBuf};
 use transit_parallax::render::text::SAFETY_CAUTION;
@@ -37,19 +37,11 @@ fn predict_with_sheets(name: &str) -> (Vec<serde_json::Value>, PathBuf) {
     let stations = temp(&format!("{name}-stations.csv"), STATIONS.as_bytes());
     let dir = std::env::temp_dir().join(format!("tp-sheets-{}-{name}", std::process::id()));
     let _ = std::fs::remove_dir_all(&dir);
-    let o = run(&[
-        "predict",
-        "--planet",
-        "mercury",
-        "--date",
-        "2032-11-13",
-        "--stations",
-        &stations,
-        "--format",
-        "json",
-        "--sheets",
-        dir.join("nested").to_str().unwrap(),
-    ]);
+    let nested = dir.join("nested");
+    let o = run_words(
+        "predict --planet mercury --date 2032-11-13 --format json --stations",
+        &[&stations, "--sheets", nested.to_str().unwrap()],
+    );
     assert!(o.status.success(), "{}", err(&o));
     assert!(err(&o).contains("6 observers' sheets"), "{}", err(&o));
     let rows: Vec<serde_json::Value> = serde_json::from_str(&out(&o)).unwrap();
@@ -276,17 +268,10 @@ fn sunrise_and_sunset_agree_with_the_noaa_algorithm_within_a_minute() {
 fn an_unwritable_folder_is_a_clear_error() {
     let stations = temp("unwritable-stations.csv", STATIONS.as_bytes());
     let file = temp("not-a-folder", b"x");
-    let o = run(&[
-        "predict",
-        "--planet",
-        "mercury",
-        "--date",
-        "2032-11-13",
-        "--stations",
-        &stations,
-        "--sheets",
-        &format!("{file}/sheets"),
-    ]);
+    let o = run_words(
+        "predict --planet mercury --date 2032-11-13 --stations",
+        &[&stations, "--sheets", &format!("{file}/sheets")],
+    );
     assert!(!o.status.success());
     assert!(err(&o).contains("cannot read or write"), "{}", err(&o));
     assert!(err(&o).contains("not-a-folder"), "{}", err(&o));
