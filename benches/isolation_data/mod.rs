@@ -55,7 +55,7 @@ pub fn write_campaign(event: &TransitEvent, db: &std::path::Path, n: usize) -> u
         ..SimulationSettings::default()
     };
     let mut rng = rand_chacha::ChaCha8Rng::seed_from_u64(50_000);
-    let stations = global_stations(n / 3 + 10, "s");
+    let stations = global_stations(n / 2 + 100, "s");
     let campaign = simulate_campaign(event, &stations, &settings, &mut rng);
     let mut fields = from_csv_bytes(campaign_csv(&campaign.observations).as_bytes())
         .expect("the simulated campaign reads");

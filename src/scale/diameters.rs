@@ -14,6 +14,7 @@
 //! *Astronomical Papers of the American Ephemeris* II (1891); propagation of the covariance to
 //! first order: JCGM 100:2008 (GUM), section 5.2 (correlated input quantities).
 
+use std::collections::HashMap;
 use crate::geometry::besselian::geocentric_separation_rad;
 use crate::geometry::contacts::{Contact, Perturbation};
 use crate::reduction::parameters::{PARALLAX, RADIUS_DIFFERENCE, RADIUS_SUM};
@@ -187,34 +188,31 @@ pub fn sizes(red: &Reduction) -> Sizes {
     out
 }
 
-/// A station's fitted longitude correction (degrees), 0 where it has none.
-fn longitude_correction_deg(red: &Reduction, station: &str) -> f64 {
-    let name = format!("longitude_correction[{station}]");
-    red.parameters
-        .iter()
-        .find(|p| p.name == name)
-        .map_or(0.0, |p| p.value)
-}
-
 /// Each station's estimate from its ingress and egress durations: the observed duration over
 /// the duration predicted for the IAU radius at that station (the planet's speed across the
 /// limb being the prediction's), times the IAU diameter scaled to the measured AU.
 fn station_sizes(red: &Reduction, nominal_km: f64) -> Vec<StationSize> {
     let fitted = red.perturbation();
+    // Each station's fitted longitude correction (degrees, 0 where it has none) and its rows
+    // used, in order, gathered once (not searched once per station).
+    let corrections = crate::render::reduction::longitude_corrections(red);
+    let mut used_by_station: HashMap<&str, Vec<_>> = HashMap::new();
+    for u in &red.used {
+        used_by_station.entry(u.station.as_str()).or_default().push(u);
+    }
     let mut out = Vec::new();
     for st in red.stations.iter().filter(|s| s.timings > 0) {
+        let correction_deg = corrections.get(st.station.as_str()).map_or(0.0, |c| c.0);
         let station = crate::geometry::station::Station {
             name: st.station.clone(),
             latitude_deg: st.latitude_deg,
-            longitude_deg: st.longitude_deg + longitude_correction_deg(red, &st.station),
+            longitude_deg: st.longitude_deg + correction_deg,
             elevation_m: st.elevation_m,
         };
         let geo = station.geocentric();
-        let rows: Vec<_> = red
-            .used
-            .iter()
-            .filter(|u| u.station == st.station)
-            .collect();
+        let rows: &[_] = used_by_station
+            .get(st.station.as_str())
+            .map_or(&[], Vec::as_slice);
         for (pair, a, b) in [
             ("ingress", Contact::I, Contact::II),
             ("egress", Contact::III, Contact::IV),
