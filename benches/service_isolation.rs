@@ -190,7 +190,12 @@ fn catch_up(port: u16, body: &str, expected: u64) -> Option<f64> {
         &["Content-Type: application/json".into()],
         body,
     );
-    assert_eq!(reply.status, 201, "{}", String::from_utf8_lossy(&reply.body));
+    assert_eq!(
+        reply.status,
+        201,
+        "{}",
+        String::from_utf8_lossy(&reply.body)
+    );
     wait_for_timings(port, expected, Duration::from_secs(120))
 }
 
@@ -222,7 +227,11 @@ fn main() {
     );
     let idle = participant_latencies(port, 2.0);
     report_latencies("participant GET /, idle", &idle);
-    let idle_catch_up = catch_up(port, &isolation_data::new_submission(&event, 0), rows as u64 + 4);
+    let idle_catch_up = catch_up(
+        port,
+        &isolation_data::new_submission(&event, 0),
+        rows as u64 + 4,
+    );
     println!("catch-up of one new submission, idle: {idle_catch_up:.2?} s");
 
     let stop = Arc::new(AtomicBool::new(false));
@@ -230,7 +239,11 @@ fn main() {
     std::thread::sleep(Duration::from_millis(500));
     let probe = std::thread::spawn(move || participant_latencies(port, seconds));
     std::thread::sleep(Duration::from_secs_f64(seconds / 3.0));
-    let busy_catch_up = catch_up(port, &isolation_data::new_submission(&event, 1), rows as u64 + 8);
+    let busy_catch_up = catch_up(
+        port,
+        &isolation_data::new_submission(&event, 1),
+        rows as u64 + 8,
+    );
     let busy = probe.join().expect("the probe");
     stop.store(true, Ordering::Relaxed);
     let (reports, solutions) = load.join().expect("the load");
@@ -238,7 +251,9 @@ fn main() {
         "participant GET /, 4 report downloads + 2 solution requests running",
         &busy,
     );
-    println!("organiser requests completed during the load: {reports} reports, {solutions} solutions");
+    println!(
+        "organiser requests completed during the load: {reports} reports, {solutions} solutions"
+    );
     println!("catch-up of one new submission, under that load: {busy_catch_up:.2?} s");
     let _ = std::fs::remove_dir_all(&dir);
 }

@@ -14,7 +14,6 @@
 //! *Astronomical Papers of the American Ephemeris* II (1891); propagation of the covariance to
 //! first order: JCGM 100:2008 (GUM), section 5.2 (correlated input quantities).
 
-use std::collections::HashMap;
 use crate::geometry::besselian::geocentric_separation_rad;
 use crate::geometry::contacts::{Contact, Perturbation};
 use crate::reduction::parameters::{PARALLAX, RADIUS_DIFFERENCE, RADIUS_SUM};
@@ -22,6 +21,7 @@ use crate::reduction::Reduction;
 use crate::sky::constants::{au_km_from_parallax_arcsec, ARCSEC_RAD, AU_KM};
 use crate::sky::ephemeris::geocentric_state;
 use crate::sky::vector::norm;
+use std::collections::HashMap;
 
 /// The largest uncertainty, as a share of the diameter, with which a diameter is given: a
 /// wider one says the timings fix the radius corrections only in combination with the
@@ -198,7 +198,10 @@ fn station_sizes(red: &Reduction, nominal_km: f64) -> Vec<StationSize> {
     let corrections = crate::render::reduction::longitude_corrections(red);
     let mut used_by_station: HashMap<&str, Vec<_>> = HashMap::new();
     for u in &red.used {
-        used_by_station.entry(u.station.as_str()).or_default().push(u);
+        used_by_station
+            .entry(u.station.as_str())
+            .or_default()
+            .push(u);
     }
     let mut out = Vec::new();
     for st in red.stations.iter().filter(|s| s.timings > 0) {

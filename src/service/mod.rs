@@ -1,6 +1,10 @@
 //! Stage 9, pooled submissions: a small web service where a campaign's participants submit
 //! timings and get instant feedback, and the organiser watches the solution firm up.
 //!
+//! - `cache.rs`: each version's reduction, solution JSON, report and export, computed once on
+//!   a bounded worker and served from an `Arc` cache.
+//! - `cached.rs`: the solution, export, report and organiser's page served from that cache.
+//! - `timing_table.rs`: the organiser's table of every timing, paged and filtered in SQL.
 //! - `store.rs`: the SQLite database (raw submissions, timings as sent, the audit trail).
 //! - `intake.rs`: a submission's JSON body or form into timings.
 //! - `feedback.rs`: each timing against its prediction at once, and the station's share.
@@ -8,6 +12,8 @@
 //! - `organiser.rs`: the organiser's page.
 //! - `server.rs`: the state, the participant's routes, the background reduction.
 //! - `routes.rs`: the organiser's and the interface's routes, the router, the start.
+pub mod cache;
+pub mod cached;
 pub mod feedback;
 pub mod intake;
 pub mod organiser;
@@ -15,3 +21,4 @@ pub mod pages;
 pub mod routes;
 pub mod server;
 pub mod store;
+pub mod timing_table;

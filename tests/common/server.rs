@@ -63,9 +63,20 @@ pub fn start(db: &std::path::Path, extra: &[&str]) -> Server {
 pub struct Reply {
     pub status: u16,
     pub body: String,
+    /// The status line and header lines.
+    pub head: String,
 }
 
 impl Reply {
+    /// A header's value (name in any case).
+    #[allow(dead_code)]
+    pub fn header(&self, name: &str) -> Option<&str> {
+        self.head.lines().find_map(|l| {
+            let (k, v) = l.split_once(':')?;
+            k.eq_ignore_ascii_case(name).then(|| v.trim())
+        })
+    }
+
     pub fn json(&self) -> serde_json::Value {
         serde_json::from_str(&self.body).unwrap_or_else(|e| panic!("{e}: {}", self.body))
     }
@@ -78,6 +89,7 @@ pub fn request(port: u16, method: &str, path: &str, headers: &[&str], body: &[u8
         return Reply {
             status: 0,
             body: String::new(),
+            head: String::new(),
         };
     };
     s.set_read_timeout(Some(Duration::from_secs(60))).ok();
@@ -110,7 +122,8 @@ pub fn request(port: u16, method: &str, path: &str, headers: &[&str], body: &[u8
     } else {
         body
     };
-    Reply { status, body }
+    let head = text[..text.find("\r\n\r\n").unwrap_or(0)].to_string();
+    Reply { status, body, head }
 }
 
 fn dechunk(body: &str) -> String {
