@@ -42,10 +42,10 @@ impl Reply {
     }
 }
 
-/// One HTTP/1.1 request on a new connection, read to the end.
+/// One HTTP/1.0 request on a new connection, read to the end (never chunked).
 fn request(port: u16, method: &str, path: &str, headers: &[String], body: &str) -> Reply {
     let mut s = std::net::TcpStream::connect(("127.0.0.1", port)).expect("the server answers");
-    let mut head = format!("{method} {path} HTTP/1.1\r\nHost: 127.0.0.1\r\nConnection: close\r\nContent-Length: {}\r\n", body.len());
+    let mut head = format!("{method} {path} HTTP/1.0\r\nHost: 127.0.0.1\r\nConnection: close\r\nContent-Length: {}\r\n", body.len());
     for h in headers {
         head.push_str(h);
         head.push_str("\r\n");
