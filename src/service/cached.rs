@@ -72,7 +72,11 @@ pub fn solution(app: &App, headers: &HeaderMap) -> Response {
     } else {
         &b",\"pending\":false}"[..]
     };
-    let prefix = solved.solution_json.clone();
+    let prefix = if solved.version == 0 {
+        Bytes::from_static(b"{\"error\":\"no solution yet\",\"version\":0")
+    } else {
+        solved.solution_json.clone()
+    };
     versioned(
         headers,
         (etag, solved.version, pending),
