@@ -406,6 +406,8 @@ fn a_historical_record_is_submitted_and_exported_as_written() {
     let timings = v["timings"].as_array().unwrap();
     assert_eq!(timings.len(), 2);
     assert!(timings[1]["o_c_s"].is_f64(), "{}", timings[1]);
+    // The export is made once per version of the data, with the solution: wait for it.
+    let solution = settled_solution(&server);
     let export = get(port, "/api/export.csv", Some(&server.token)).body;
     let header = export.lines().next().unwrap();
     for col in [
@@ -423,7 +425,77 @@ fn a_historical_record_is_submitted_and_exported_as_written() {
         export.contains("julian") && export.contains("touch"),
         "{export}"
     );
-    let solution = settled_solution(&server);
     assert_eq!(solution["timings_total"], 14);
     assert_export_reduces_to(&server, &solution);
+}
+
+/// The solution, export and report are made once per version of the data and served from a
+/// cache: the same version twice has the same `ETag` and bytes, `If-None-Match` answers `304`,
+/// a new timing raises the version; the organiser's table pages through every timing.
+#[test]
+fn heavy_artefacts_are_cached_per_version_and_the_table_pages() {
+    let path = db("cache");
+    let server = start(&path, &["--token", "organiser"]);
+    let port = server.port;
+    for k in 0..3 {
+        let body = submission(&format!("cache-{k}"), 21.3 + k as f64, -157.8, [0.0, 0.0]);
+        assert_eq!(post_json(port, "/api/submissions", &body).status, 201);
+    }
+    let solution = settled_solution(&server);
+    let version = solution["version"].as_u64().expect("a version");
+    let auth = "Authorization: Bearer organiser";
+    let mut report = request(port, "GET", "/organiser/report.html", &[auth], b"");
+    for _ in 0..100 {
+        if report.status == 200 && report.header("x-data-version") == Some(version.to_string()) {
+            break;
+        }
+        std::thread::sleep(std::time::Duration::from_millis(100));
+        report = request(port, "GET", "/organiser/report.html", &[auth], b"");
+    }
+    assert_eq!(report.status, 200, "{}", report.body);
+    let again = request(port, "GET", "/organiser/report.html", &[auth], b"");
+    assert_eq!(report.header("etag"), again.header("etag"));
+    assert_eq!(report.body, again.body);
+    let etag = report.header("etag").expect("an ETag").to_string();
+    let if_none = format!("If-None-Match: {etag}");
+    let cached = request(
+        port,
+        "GET",
+        "/organiser/report.html",
+        &[auth, &if_none],
+        b"",
+    );
+    assert_eq!(cached.status, 304);
+    for path in ["/api/solution", "/api/export.csv"] {
+        let first = request(port, "GET", path, &[auth], b"");
+        let tag = format!("If-None-Match: {}", first.header("etag").expect("an ETag"));
+        assert_eq!(
+            request(port, "GET", path, &[auth, &tag], b"").status,
+            304,
+            "{path}"
+        );
+    }
+    // A new timing raises the version.
+    let body = submission("cache-new", 35.0, 139.0, [0.0, 0.0]);
+    assert_eq!(post_json(port, "/api/submissions", &body).status, 201);
+    let newer = settled_solution(&server);
+    assert!(newer["version"].as_u64().unwrap() > version);
+    let export = request(port, "GET", "/api/export.csv", &[auth], b"");
+    assert_ne!(export.header("etag"), Some(etag));
+    // The table: 4 stations' timings, filtered by station and state, paged.
+    let page = get(
+        port,
+        "/organiser?station=cache-new&state=in_force",
+        Some("organiser"),
+    );
+    assert_eq!(page.status, 200);
+    assert!(page.body.contains("cache-new"), "{}", page.body);
+    assert!(!page.body.contains("<td>cache-0</td>"), "{}", page.body);
+    assert!(page.body.contains("Timings 1-"), "{}", page.body);
+    let none = get(port, "/organiser?state=excluded", Some("organiser"));
+    assert!(
+        none.body.contains("No timing on this page; 0 match."),
+        "{}",
+        none.body
+    );
 }

@@ -6,7 +6,9 @@
 
 mod common;
 
-use common::server::{get, post_json, request, settled_solution, sign_in, start, visitor};
+use common::server::{
+    get, post_json, request, settled_report, settled_solution, sign_in, start, visitor,
+};
 use common::{err, out, run, temp};
 
 fn db(name: &str) -> std::path::PathBuf {
@@ -99,7 +101,7 @@ fn no_page_holds_the_token_and_the_organiser_signs_in_and_out() {
     let port = server.port;
     let r = post_json(port, "/api/submissions", &good_body("Jade Harbour School"));
     let review = r.json()["review"].as_str().unwrap().to_string();
-    settled_solution(&server);
+    settled_report(&server);
     let redirect = request(
         port,
         "GET",
@@ -210,6 +212,7 @@ fn formula_cells_round_trip_through_the_export_and_reduce() {
             201
         );
     }
+    let solution = settled_solution(&server);
     let export = get(port, "/api/export.csv", Some(TOKEN)).body;
     let cells: Vec<&str> = export
         .lines()
@@ -222,7 +225,6 @@ fn formula_cells_round_trip_through_the_export_and_reduce() {
         export.contains(",-33.87,"),
         "numbers stay numbers: {export}"
     );
-    let solution = settled_solution(&server);
     let path = temp(&format!("formula-{port}.csv"), export.as_bytes());
     let o = run(&[
         "reduce",

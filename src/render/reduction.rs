@@ -7,6 +7,7 @@ use crate::reduction::Reduction;
 use crate::render::text::{au_text, csv_field, name_cell, round as r, SAFETY_CAUTION};
 use crate::words::count;
 use serde_json::{json, Value};
+use std::collections::HashMap;
 
 /// A number rounded for JSON, or null when absent or not finite.
 pub(crate) fn opt(x: Option<f64>, decimals: i32) -> Value {
@@ -25,11 +26,28 @@ pub fn longitude_correction(red: &Reduction, station: &str) -> Option<(f64, Opti
         .map(|p| (p.value, p.sigma))
 }
 
+/// Every station's fitted longitude correction and its uncertainty (degrees), by station
+/// name: one pass over the parameters, so that a campaign of tens of thousands of stations
+/// is not searched once per station.
+pub fn longitude_corrections(red: &Reduction) -> HashMap<&str, (f64, Option<f64>)> {
+    red.parameters
+        .iter()
+        .filter_map(|p| {
+            let station = p
+                .name
+                .strip_prefix("longitude_correction[")?
+                .strip_suffix(']')?;
+            Some((station, (p.value, p.sigma)))
+        })
+        .collect()
+}
+
 fn stations_json(red: &Reduction) -> Vec<Value> {
+    let corrections = longitude_corrections(red);
     red.stations
         .iter()
         .map(|s| {
-            let correction = longitude_correction(red, &s.station);
+            let correction = corrections.get(s.station.as_str()).copied();
             json!({
                 "longitude_correction_deg": correction.map(|c| r(c.0, 6)),
                 "longitude_correction_sigma_deg": correction.and_then(|c| c.1).map(|x| r(x, 6)),
@@ -308,8 +326,9 @@ fn parameters_section(red: &Reduction, s: &mut String) {
             )),
         }
     }
+    let corrections = longitude_corrections(red);
     for st in &red.stations {
-        if let Some((c, sigma)) = longitude_correction(red, &st.station) {
+        if let Some(&(c, sigma)) = corrections.get(st.station.as_str()) {
             let Some(sigma) = sigma else {
                 s.push_str(&format!(
                     "  longitude of {}: given {:.4}; its correction is not determined by these timings\n",

@@ -21,6 +21,7 @@ use crate::reduction::Reduction;
 use crate::sky::constants::{au_km_from_parallax_arcsec, ARCSEC_RAD, AU_KM};
 use crate::sky::ephemeris::geocentric_state;
 use crate::sky::vector::norm;
+use std::collections::HashMap;
 
 /// The largest uncertainty, as a share of the diameter, with which a diameter is given: a
 /// wider one says the timings fix the radius corrections only in combination with the
@@ -187,34 +188,34 @@ pub fn sizes(red: &Reduction) -> Sizes {
     out
 }
 
-/// A station's fitted longitude correction (degrees), 0 where it has none.
-fn longitude_correction_deg(red: &Reduction, station: &str) -> f64 {
-    let name = format!("longitude_correction[{station}]");
-    red.parameters
-        .iter()
-        .find(|p| p.name == name)
-        .map_or(0.0, |p| p.value)
-}
-
 /// Each station's estimate from its ingress and egress durations: the observed duration over
 /// the duration predicted for the IAU radius at that station (the planet's speed across the
 /// limb being the prediction's), times the IAU diameter scaled to the measured AU.
 fn station_sizes(red: &Reduction, nominal_km: f64) -> Vec<StationSize> {
     let fitted = red.perturbation();
+    // Each station's fitted longitude correction (degrees, 0 where it has none) and its rows
+    // used, in order, gathered once (not searched once per station).
+    let corrections = crate::render::reduction::longitude_corrections(red);
+    let mut used_by_station: HashMap<&str, Vec<_>> = HashMap::new();
+    for u in &red.used {
+        used_by_station
+            .entry(u.station.as_str())
+            .or_default()
+            .push(u);
+    }
     let mut out = Vec::new();
     for st in red.stations.iter().filter(|s| s.timings > 0) {
+        let correction_deg = corrections.get(st.station.as_str()).map_or(0.0, |c| c.0);
         let station = crate::geometry::station::Station {
             name: st.station.clone(),
             latitude_deg: st.latitude_deg,
-            longitude_deg: st.longitude_deg + longitude_correction_deg(red, &st.station),
+            longitude_deg: st.longitude_deg + correction_deg,
             elevation_m: st.elevation_m,
         };
         let geo = station.geocentric();
-        let rows: Vec<_> = red
-            .used
-            .iter()
-            .filter(|u| u.station == st.station)
-            .collect();
+        let rows: &[_] = used_by_station
+            .get(st.station.as_str())
+            .map_or(&[], Vec::as_slice);
         for (pair, a, b) in [
             ("ingress", Contact::I, Contact::II),
             ("egress", Contact::III, Contact::IV),

@@ -1,6 +1,10 @@
 //! Stage 9, pooled submissions: a small web service where a campaign's participants submit
 //! timings and get instant feedback, and the organiser watches the solution firm up.
 //!
+//! - `cache.rs`: each version's reduction, solution JSON, report and export, computed once on
+//!   a bounded worker and served from an `Arc` cache.
+//! - `cached.rs`: the solution, export, report and organiser's page served from that cache.
+//! - `timing_table.rs`: the organiser's table of every timing, paged and filtered in SQL.
 //! - `store.rs`: the SQLite database (raw submissions, timings as sent, the audit trail).
 //! - `intake.rs`: a submission's JSON body or form into timings.
 //! - `feedback.rs`: each timing against its prediction at once, and the station's share.
@@ -12,6 +16,8 @@
 //! - `forgery.rs`: the visitor's anti-forgery cookie and tokens, the origin and content-type checks.
 //! - `sign_in.rs`: the organiser's sign-in, session cookie and sign-out.
 //! - `limits.rs`: the body limit said plainly (413 pages), the rate limit with `--public`.
+pub mod cache;
+pub mod cached;
 pub mod feedback;
 pub mod forgery;
 pub mod intake;
@@ -23,3 +29,4 @@ pub mod security;
 pub mod server;
 pub mod sign_in;
 pub mod store;
+pub mod timing_table;

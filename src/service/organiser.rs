@@ -4,7 +4,6 @@
 //! restore it, the unreadable submissions, the audit trail and the downloads.
 
 use super::pages::page;
-use super::store::StoredTiming;
 use crate::reduction::Reduction;
 use crate::render::charts::{convergence_svg, residuals_svg, solar_disc_svg, station_map_svg};
 use crate::render::svg::esc;
@@ -13,14 +12,18 @@ use std::fmt::Write;
 
 /// What the page shows, gathered by the server.
 pub struct OrganiserView<'a> {
-    /// The latest solution and the timing id of each line of the file it reduced.
-    pub solution: Option<(&'a Reduction, &'a [i64])>,
+    /// The latest solution.
+    pub solution: Option<&'a Reduction>,
     /// Why there is no solution.
     pub error: Option<&'a str>,
     /// Whether timings arrived since the solution was computed.
     pub pending: bool,
-    /// Every timing in force.
-    pub timings: &'a [StoredTiming],
+    /// Timings in force, and those of them excluded by the organiser.
+    pub timing_counts: (i64, i64),
+    /// The table of the timings, the page asked for (`timing_table.rs`).
+    pub table_html: &'a str,
+    /// The solution's methods and charts, made once per version (`charts_html`).
+    pub charts_html: &'a str,
     /// (submissions in force, stored, unreadable).
     pub counts: (i64, i64, i64),
     /// Unreadable submissions: (id, arrival, reason).
@@ -33,11 +36,10 @@ pub struct OrganiserView<'a> {
 
 fn summary(v: &OrganiserView, s: &mut String) {
     let (in_force, stored, unreadable) = v.counts;
-    let rows = v.timings.len();
-    let excluded = v.timings.iter().filter(|t| t.excluded.is_some()).count();
+    let (rows, excluded) = v.timing_counts;
     let _ = writeln!(s, "<p id=\"counts\">Submissions in force: <b id=\"n-submissions\">{in_force}</b> (stored {stored}, unreadable {unreadable}); timings: <b id=\"n-timings\">{rows}</b>, excluded by you: {excluded}.{}</p>", if v.pending { " New timings are being reduced; reload in a moment." } else { "" });
     match (v.solution, v.error) {
-        (Some((red, _)), _) => match red.headline() {
+        (Some(red), _) => match red.headline() {
             Some(h) => {
                 let _ = writeln!(s, "<table class=\"headline\"><tr><td>solar parallax</td><td id=\"parallax\">{:.4}\" ± {:.4}\"</td></tr><tr><td>astronomical unit</td><td id=\"au\">{}</td></tr><tr><td>timings used</td><td id=\"n-used\">{} of {}</td></tr><tr><td>chi-square</td><td>{}</td></tr></table>", h.parallax_arcsec, h.parallax_sigma_arcsec, esc(&au_text(&h, "±")), red.timings_used, red.timings_total, esc(&red.statistics.describe()));
             }
@@ -72,58 +74,23 @@ fn methods(red: &Reduction, s: &mut String) {
     s.push_str("</table>\n");
 }
 
-/// The state of one timing in the latest solution.
-fn state_of(v: &OrganiserView, t: &StoredTiming) -> (String, String) {
-    if let Some(r) = &t.excluded {
-        return ("excluded".into(), format!("by the organiser: {r}"));
-    }
-    let Some((red, ids)) = v.solution else {
-        return ("pending".into(), String::new());
-    };
-    let Some(k) = ids.iter().position(|&id| id == t.id) else {
-        return (
-            "pending".into(),
-            "arrived after the solution was computed".into(),
-        );
-    };
-    let line = k as u64 + 2;
-    if let Some(u) = red.used.iter().find(|u| u.line == line) {
-        return ("used".into(), format!("O - C {:+.1} s", u.o_c_s));
-    }
-    match red.rejected.iter().find(|r| r.line == line) {
-        Some(r) => (
-            format!("rejected ({})", r.reason.as_str()),
-            r.diagnosis.clone().unwrap_or_default(),
-        ),
-        None => ("pending".into(), String::new()),
+/// The form that excludes (with a reason) or restores one timing.
+pub(super) fn action_form(csrf: &str, id: i64, excluded: bool) -> String {
+    if excluded {
+        format!("<form method=\"post\" action=\"/organiser/restore\"><input type=\"hidden\" name=\"csrf\" value=\"{}\"/><input type=\"hidden\" name=\"timing\" value=\"{}\"/><button type=\"submit\">restore</button></form>", esc(csrf), id)
+    } else {
+        format!("<form method=\"post\" action=\"/organiser/exclude\"><input type=\"hidden\" name=\"csrf\" value=\"{}\"/><input type=\"hidden\" name=\"timing\" value=\"{}\"/><input name=\"reason\" placeholder=\"reason\" aria-label=\"reason for excluding timing {}\" size=\"14\"/><button type=\"submit\">exclude</button></form>", esc(csrf), id, id)
     }
 }
 
-fn rows(v: &OrganiserView, s: &mut String) {
-    let csrf = v.csrf;
-    s.push_str("<h2>Every timing</h2>\n<table id=\"rows\"><tr><th>id</th><th>station</th><th>contact</th><th>time</th><th>state</th><th>why</th><th>action</th></tr>\n");
-    for t in v.timings.iter().take(2000) {
-        let (state, why) = state_of(v, t);
-        let time = if t.fields.time_utc.is_empty() {
-            &t.fields.time_local
-        } else {
-            &t.fields.time_utc
-        };
-        let action = if t.excluded.is_some() {
-            format!("<form method=\"post\" action=\"/organiser/restore\"><input type=\"hidden\" name=\"csrf\" value=\"{}\"/><input type=\"hidden\" name=\"timing\" value=\"{}\"/><button type=\"submit\">restore</button></form>", esc(csrf), t.id)
-        } else {
-            format!("<form method=\"post\" action=\"/organiser/exclude\"><input type=\"hidden\" name=\"csrf\" value=\"{}\"/><input type=\"hidden\" name=\"timing\" value=\"{}\"/><input name=\"reason\" placeholder=\"reason\" size=\"14\"/><button type=\"submit\">exclude</button></form>", esc(csrf), t.id)
-        };
-        let _ = writeln!(s, "<tr><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{action}</td></tr>", t.id, esc(&t.fields.station), esc(&t.fields.contact), esc(time), esc(&state), esc(&why));
+/// The solution's methods side by side and its charts (made once per version of the data).
+pub fn charts_html(red: &Reduction) -> String {
+    let mut s = String::new();
+    methods(red, &mut s);
+    if red.parallax_arcsec.is_some() {
+        let _ = writeln!(s, "<h2>Charts</h2>\n<figure>{}</figure>\n<figure>{}</figure>\n<figure>{}</figure>\n<figure>{}</figure>", solar_disc_svg(red), station_map_svg(red), residuals_svg(red), convergence_svg(red));
     }
-    s.push_str("</table>\n");
-    if v.timings.len() > 2000 {
-        let _ = writeln!(
-            s,
-            "<p>The first 2,000 of {} timings are shown; the export has them all.</p>",
-            v.timings.len()
-        );
-    }
+    s
 }
 
 fn trails(v: &OrganiserView, s: &mut String) {
@@ -162,13 +129,8 @@ pub fn organiser_page(v: &OrganiserView) -> String {
     let _ = writeln!(s, "<p>Downloads: <a id=\"export\" href=\"/api/export.csv\">every timing in force (observations CSV)</a> · <a href=\"/organiser/report.html\">the report (HTML)</a> · <a href=\"/organiser\">reload</a></p>");
     s.push_str(&super::sign_in::sign_out_form(v.csrf));
     summary(v, &mut s);
-    if let Some((red, _)) = v.solution {
-        methods(red, &mut s);
-        if red.parallax_arcsec.is_some() {
-            let _ = writeln!(s, "<h2>Charts</h2>\n<figure>{}</figure>\n<figure>{}</figure>\n<figure>{}</figure>\n<figure>{}</figure>", solar_disc_svg(red), station_map_svg(red), residuals_svg(red), convergence_svg(red));
-        }
-    }
-    rows(v, &mut s);
+    s.push_str(v.charts_html);
+    s.push_str(v.table_html);
     trails(v, &mut s);
     page("Organiser: the campaign's solution", &s)
 }

@@ -1,13 +1,12 @@
 //! The organiser's routes, the solution and export of the stable interface, the router and
 //! the start of the server.
 
-use super::organiser::{organiser_page, OrganiserView};
+use super::cache::recompute_loop;
 use super::pages::message_page;
-use super::server::{recompute_loop, App, BODY_LIMIT};
-use super::store::export_csv;
+use super::server::{App, BODY_LIMIT};
 use axum::body::Bytes;
 use axum::extract::{DefaultBodyLimit, Query, State};
-use axum::http::{header, HeaderMap, StatusCode};
+use axum::http::{HeaderMap, StatusCode};
 use axum::response::{Html, IntoResponse, Redirect, Response};
 use axum::routing::{get, post};
 use axum::{Extension, Json, Router};
@@ -30,55 +29,21 @@ async fn solution(State(app): State<Shared>, headers: HeaderMap, Query(q): Q) ->
     if !app.authorised(&headers, &q) {
         return unauthorised();
     }
-    let submissions = app.with_store(|s| s.counts()).map(|c| c.0).unwrap_or(0);
-    let pending = app.pending();
-    let latest = app.latest_read();
-    let mut v = match latest.as_ref().and_then(|l| l.reduction.as_ref()) {
-        Some(red) => crate::render::reduction::reduction_json(red),
-        None => {
-            json!({ "error": latest.as_ref().and_then(|l| l.error.clone()).unwrap_or_else(|| "no solution yet".into()) })
-        }
-    };
-    if let Some(map) = v.as_object_mut() {
-        map.insert("submissions".into(), json!(submissions));
-        map.insert("pending".into(), json!(pending));
-    }
-    Json(v).into_response()
+    super::cached::solution(&app, &headers)
 }
 
 async fn export(State(app): State<Shared>, headers: HeaderMap, Query(q): Q) -> Response {
     if !app.authorised(&headers, &q) {
         return unauthorised();
     }
-    match app.with_store(|s| s.timings_in_force()) {
-        Ok(t) => (
-            [(header::CONTENT_TYPE, "text/csv; charset=utf-8")],
-            export_csv(&t).0,
-        )
-            .into_response(),
-        Err(e) => (StatusCode::INTERNAL_SERVER_ERROR, e).into_response(),
-    }
+    super::cached::export(&app, &headers)
 }
 
 async fn report(State(app): State<Shared>, headers: HeaderMap, Query(q): Q) -> Response {
     if !app.authorised(&headers, &q) {
         return unauthorised();
     }
-    match app
-        .latest_read()
-        .as_ref()
-        .and_then(|l| l.reduction.as_ref())
-    {
-        Some(red) => Html(crate::render::document::html_report(red)).into_response(),
-        None => (
-            StatusCode::NOT_FOUND,
-            Html(message_page(
-                "No report yet",
-                "no timing has been reduced yet",
-            )),
-        )
-            .into_response(),
-    }
+    super::cached::report(&app, &headers)
 }
 
 async fn organiser(
@@ -90,34 +55,7 @@ async fn organiser(
     if !app.authorised(&headers, &q) {
         return unauthorised();
     }
-    let gathered = app.with_store(|s| {
-        Ok((
-            s.timings_in_force()?,
-            s.counts()?,
-            s.unreadable(200)?,
-            s.audit(200)?,
-        ))
-    });
-    let (timings, counts, unreadable, audit) = match gathered {
-        Ok(x) => x,
-        Err(e) => return (StatusCode::INTERNAL_SERVER_ERROR, e).into_response(),
-    };
-    let pending = app.pending();
-    let latest = app.latest_read();
-    let solution = latest
-        .as_ref()
-        .and_then(|l| l.reduction.as_ref().map(|r| (r, l.ids.as_slice())));
-    let view = OrganiserView {
-        solution,
-        error: latest.as_ref().and_then(|l| l.error.as_deref()),
-        pending,
-        timings: &timings,
-        counts,
-        unreadable: &unreadable,
-        audit: &audit,
-        csrf: &visitor.token,
-    };
-    Html(organiser_page(&view)).into_response()
+    super::cached::organiser(&app, &q, &visitor.token)
 }
 
 /// Exclude (`exclude` true, with a reason) or restore a timing from the organiser's form.

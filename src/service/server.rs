@@ -1,14 +1,14 @@
 //! The HTTP server (axum on tokio): the routes of the stable interface, the participant's and
-//! the organiser's pages, and the background task that reduces the timings in force after
-//! each change (debounced), never in a request.
+//! the organiser's pages; the background reduction after each change is in `cache.rs`, never
+//! in a request.
 
+use super::cache::Cache;
 use super::feedback::{feedback, parallax_information};
 use super::forgery::{refused_form, Visitor};
 use super::intake::{from_form, from_json};
 use super::pages::{feedback_page, message_page, page, timing_form};
-use super::store::{export_csv, Store, TimingFields};
+use super::store::{Store, TimingFields};
 use crate::geometry::transit::TransitEvent;
-use crate::reduction::{reduce_for_event, ReduceOptions, Reduction};
 use axum::body::Bytes;
 use axum::extract::{Path, Query, State};
 use axum::http::{header, HeaderMap, StatusCode};
@@ -17,28 +17,11 @@ use axum::{Extension, Json};
 use serde_json::json;
 use std::collections::HashMap;
 use std::sync::atomic::{AtomicU64, Ordering};
-use std::sync::{Arc, Mutex, RwLock};
+use std::sync::{Arc, Mutex};
 use tokio::sync::Notify;
 
 /// Largest request body, bytes.
 pub const BODY_LIMIT: usize = super::limits::BODY_LIMIT_BYTES;
-
-/// How long the background task waits after a change before reducing, so that the
-/// submissions of a burst are reduced together.
-const DEBOUNCE_MS: u64 = 400;
-
-/// The latest solution.
-#[derive(Default)]
-pub struct Latest {
-    generation: u64,
-    /// The reduction of the timings in force.
-    pub reduction: Option<Reduction>,
-    /// The timing id of each data line of the file reduced.
-    pub ids: Vec<i64>,
-    /// Why there is no reduction.
-    pub error: Option<String>,
-    information: f64,
-}
 
 /// The server's state.
 pub struct App {
@@ -49,7 +32,8 @@ pub struct App {
     pub sessions: super::sign_in::Sessions,
     generation: AtomicU64,
     notify: Notify,
-    latest: RwLock<Latest>,
+    /// The artefacts of the newest version of the data.
+    pub cache: Cache,
 }
 
 /// A random string of letters and digits.
@@ -82,7 +66,7 @@ impl App {
             sessions: Default::default(),
             generation: AtomicU64::new(1),
             notify: Notify::new(),
-            latest: RwLock::new(Latest::default()),
+            cache: Cache::default(),
         })
     }
 
@@ -98,13 +82,28 @@ impl App {
 
     /// Whether timings changed since the latest solution.
     pub fn pending(&self) -> bool {
-        let latest = self.latest.read().map(|l| l.generation).unwrap_or(0);
-        latest != self.generation.load(Ordering::SeqCst)
+        self.pending_changes() > 0
     }
 
-    /// The latest solution, read-locked (`None` if the lock was poisoned).
-    pub fn latest_read(&self) -> Option<std::sync::RwLockReadGuard<'_, Latest>> {
-        self.latest.read().ok()
+    /// How many changes of the data the latest solution does not include yet.
+    pub fn pending_changes(&self) -> u64 {
+        self.generation()
+            .saturating_sub(self.cache.solved().version)
+    }
+
+    /// The version of the data: raised by every change of the timings in force.
+    pub fn generation(&self) -> u64 {
+        self.generation.load(Ordering::SeqCst)
+    }
+
+    /// Notified at each change of the timings in force.
+    pub(super) fn change_notify(&self) -> &Notify {
+        &self.notify
+    }
+
+    /// The transit.
+    pub fn event(&self) -> &TransitEvent {
+        &self.event
     }
 
     /// The organiser's token.
@@ -138,66 +137,9 @@ impl App {
     /// The station's expected share of the information on the parallax.
     fn share(&self, fields: &[TimingFields]) -> Option<f64> {
         let own = parallax_information(&self.event, fields);
-        let rest = self.latest.read().ok()?.information;
+        let rest = self.cache.solved().information;
         (own > 0.0).then(|| own / (own + rest))
     }
-}
-
-/// Reduce the timings in force whenever they change, after a short wait.
-pub async fn recompute_loop(app: Shared) {
-    loop {
-        let generation = app.generation.load(Ordering::SeqCst);
-        if app.latest.read().map(|l| l.generation).unwrap_or(0) == generation {
-            app.notify.notified().await;
-            tokio::time::sleep(std::time::Duration::from_millis(DEBOUNCE_MS)).await;
-            continue;
-        }
-        let worker = app.clone();
-        let done = tokio::task::spawn_blocking(move || solve_once(&worker, generation)).await;
-        if let Ok(latest) = done {
-            if let Ok(mut l) = app.latest.write() {
-                *l = latest;
-            }
-        }
-    }
-}
-
-/// One reduction of the timings in force, exactly as `reduce` of the export would do it.
-fn solve_once(app: &App, generation: u64) -> Latest {
-    let mut latest = Latest {
-        generation,
-        ..Latest::default()
-    };
-    let timings = match app.with_store(|s| s.timings_in_force()) {
-        Ok(t) => t,
-        Err(e) => {
-            latest.error = Some(e);
-            return latest;
-        }
-    };
-    let (text, ids) = export_csv(&timings);
-    let fields: Vec<TimingFields> = timings
-        .iter()
-        .filter(|t| t.excluded.is_none())
-        .map(|t| t.fields.clone())
-        .collect();
-    latest.information = parallax_information(&app.event, &fields);
-    let path = std::path::Path::new("<campaign>");
-    let result = crate::observations::csv_table::CsvTable::from_bytes(path, text.as_bytes())
-        .and_then(|table| crate::observations::timings::observations_from_table(&table, false))
-        .and_then(|set| {
-            let options = ReduceOptions {
-                event: Some((app.event.planet, app.event.date())),
-                ..ReduceOptions::default()
-            };
-            reduce_for_event(set, app.event.clone(), &options)
-        });
-    match result {
-        Ok(red) => latest.reduction = Some(red),
-        Err(e) => latest.error = Some(e.to_string()),
-    }
-    latest.ids = ids;
-    latest
 }
 
 /// Store, read and acknowledge one submission; (status, submission id, fields, feedback,

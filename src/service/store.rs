@@ -236,6 +236,16 @@ impl Store {
         Ok(Store { conn })
     }
 
+    /// The connection, for the read-only queries of other modules (the organiser's table).
+    pub(crate) fn connection(&self) -> &Connection {
+        &self.conn
+    }
+
+    /// The database's file, `None` for one in memory.
+    pub fn file(&self) -> Option<String> {
+        self.conn.path().filter(|p| !p.is_empty()).map(String::from)
+    }
+
     /// Store a submission's raw body before anything is parsed; returns its id and, where an
     /// identical body (same hash) is already in force, that submission's id.
     pub fn store_raw(&mut self, body: &[u8]) -> StoreResult<(i64, Option<i64>)> {

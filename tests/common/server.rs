@@ -207,6 +207,20 @@ pub fn settled_solution(server: &Server) -> serde_json::Value {
     panic!("the solution did not settle within a minute");
 }
 
+/// The organiser's report once the renderer has made it for the settled solution.
+#[allow(dead_code)]
+pub fn settled_report(server: &Server) -> Reply {
+    settled_solution(server);
+    for _ in 0..600 {
+        let r = get(server.port, "/organiser/report.html", Some(&server.token));
+        if r.status == 200 {
+            return r;
+        }
+        std::thread::sleep(Duration::from_millis(100));
+    }
+    panic!("the report was not rendered within a minute");
+}
+
 /// The organiser's export, reduced by the binary: the same figures as the service's own
 /// `solution` (the export is what the service reduces); returns the direct reduction.
 pub fn assert_export_reduces_to(
