@@ -15,7 +15,7 @@
 //! *Numerical Recipes*, 3rd ed. (2007), section 15.5.
 
 use super::black_drop::{lag_plan, LagPlan};
-use super::equations::{linearise, residual_s, Timing};
+use super::equations::{linearise, residual_s, Linearised, Timing};
 use super::identifiability::{
     describe_confusion, hold_fixed_what_cannot_be_separated, why_parallax_not_determined, Holding,
 };
@@ -25,6 +25,10 @@ use super::parameters::{
 };
 use crate::geometry::transit::TransitEvent;
 use nalgebra::{DMatrix, DVector};
+use rayon::prelude::*;
+
+/// Fewer rows than this are solved on one thread (a thread costs more than they do).
+const PARALLEL_MIN_ROWS: usize = 512;
 
 /// A campaign's condition equations linearised once at given values, to be solved for
 /// several choices of free parameters or right-hand sides (the error budget's linear
@@ -172,9 +176,16 @@ fn linearise_all(
     let mut residuals = Vec::with_capacity(used.len());
     let mut weights = Vec::with_capacity(used.len());
     let mut unsolvable = Vec::new();
-    for &i in used {
+    // Each timing's contact is solved on its own: in parallel, gathered in order, so that the
+    // system (and every figure from it) is the same on any number of cores.
+    let solved: Vec<Option<Linearised>> = used
+        .par_iter()
+        .with_min_len(PARALLEL_MIN_ROWS)
+        .map(|&i| linearise(event, &timings[i], params, theta, er))
+        .collect();
+    for (&i, lin) in used.iter().zip(solved) {
         let t = &timings[i];
-        match linearise(event, t, params, theta, er) {
+        match lin {
             Some(l) => {
                 rows.push((l.global, l.extra));
                 local.push(LocalPartials {
@@ -407,11 +418,16 @@ fn objective(
     (theta, free): (&[f64], &[bool]),
 ) -> f64 {
     let er = event.earth_radii_per_arcsec();
+    let residuals: Vec<Option<f64>> = used
+        .par_iter()
+        .with_min_len(PARALLEL_MIN_ROWS)
+        .map(|&i| residual_s(event, &timings[i], params, theta, er))
+        .collect();
+    // Summed in order: the same figure on any number of cores.
     let mut sum = params.prior_chi2(theta, free).0;
-    for &i in used {
-        let t = &timings[i];
-        match residual_s(event, t, params, theta, er) {
-            Some(r) => sum += (r / t.obs.sigma_s).powi(2),
+    for (&i, r) in used.iter().zip(residuals) {
+        match r {
+            Some(r) => sum += (r / timings[i].obs.sigma_s).powi(2),
             None => return f64::INFINITY,
         }
     }

@@ -14,9 +14,9 @@
 //! Requests clone the `Arc` of the newest artefacts and send their bytes; while a newer version
 //! is computed the previous one is served, with its version and the changes pending.
 
-use super::feedback::parallax_information;
+use super::feedback::information_of_set;
 use super::server::App;
-use super::store::{export_csv, Store, StoredTiming, TimingFields};
+use super::store::{export_csv, Store, StoredTiming};
 use crate::observations::csv_table::CsvTable;
 use crate::observations::timings::{observations_from_table, ObservationSet};
 use crate::reduction::{reduce_for_event, ReduceOptions, Reduction};
@@ -137,21 +137,69 @@ pub async fn recompute_loop(app: Arc<App>) {
     }
 }
 
-/// Render the report of the newest solved version, one at a time.
+/// Render the report of the newest solved version, one at a time, on a thread of its own at a
+/// lower priority; while the reducer has changes to reduce, the report waits (up to
+/// [`RENDER_DEFER_S`]), so that a new timing reaches the solution first.
 async fn render_loop(app: Arc<App>) {
+    let pool = render_pool();
+    let mut deferred_since: Option<std::time::Instant> = None;
     loop {
         let solved = app.cache.solved();
         if solved.version == 0 || app.cache.rendered().version == solved.version {
             app.cache.solved_changed.notified().await;
             continue;
         }
+        let waiting = deferred_since.get_or_insert_with(std::time::Instant::now);
+        if app.generation() > solved.version && waiting.elapsed().as_secs() < RENDER_DEFER_S {
+            // A newer version is being reduced: its report is the one worth making.
+            let _ = tokio::time::timeout(
+                std::time::Duration::from_millis(500),
+                app.cache.solved_changed.notified(),
+            )
+            .await;
+            continue;
+        }
+        deferred_since = None;
         let event = app.event().clone();
-        let done = tokio::task::spawn_blocking(move || render_once(&event, &solved)).await;
+        let pool = pool.clone();
+        let done = tokio::task::spawn_blocking(move || match pool.as_deref() {
+            Some(p) => p.install(|| render_once(&event, &solved)),
+            None => render_once(&event, &solved),
+        })
+        .await;
         if let Ok(rendered) = done {
             if let Ok(mut r) = app.cache.rendered.write() {
                 *r = Arc::new(rendered);
             }
         }
+    }
+}
+
+/// The longest the report waits for the reducer to catch up, seconds (so that a steady stream
+/// of submissions never leaves the report behind for good).
+const RENDER_DEFER_S: u64 = 20;
+
+/// The renderer's own thread: one, at a lower scheduling priority than the reducer and the
+/// requests (`nice` 10 on Linux, where a thread's nice value is its own: `setpriority(2)`),
+/// so that a report in progress takes the cores only when nothing else wants them. `None`
+/// (the reductions then run on the blocking pool's thread) if the thread cannot be made.
+fn render_pool() -> Option<Arc<rayon::ThreadPool>> {
+    rayon::ThreadPoolBuilder::new()
+        .num_threads(1)
+        .thread_name(|_| "report-renderer".into())
+        .start_handler(|_| lower_priority())
+        .build()
+        .ok()
+        .map(Arc::new)
+}
+
+/// Lower the calling thread's scheduling priority (Linux only; elsewhere nothing).
+fn lower_priority() {
+    #[cfg(target_os = "linux")]
+    // SAFETY: `setpriority` takes plain integers and touches no memory of ours; with
+    // `PRIO_PROCESS` and who = 0 it applies, on Linux, to the calling thread only.
+    unsafe {
+        let _ = libc::setpriority(libc::PRIO_PROCESS, 0, 10);
     }
 }
 
@@ -197,17 +245,12 @@ fn solve_once(app: &App, generation: u64) -> Solved {
     };
     solved.submissions = submissions;
     let (text, ids) = export_csv(&timings);
-    let fields: Vec<TimingFields> = timings
-        .iter()
-        .filter(|t| t.excluded.is_none())
-        .map(|t| t.fields.clone())
-        .collect();
-    solved.information = parallax_information(app.event(), &fields);
     let path = std::path::Path::new("<campaign>");
     let set = CsvTable::from_bytes(path, text.as_bytes())
         .and_then(|table| observations_from_table(&table, false));
     let event = app.event();
     let result = set.and_then(|set| {
+        solved.information = information_of_set(event, &set);
         solved.observations = Some(set.clone());
         reduce_for_event(set, event.clone(), &options(event, false))
     });

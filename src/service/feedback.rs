@@ -185,17 +185,31 @@ pub fn feedback(event: &TransitEvent, fields: &[TimingFields]) -> Vec<TimingFeed
 /// (arcsec^-2), before the planet's place and the radii are fitted: the numerator of a
 /// station's expected share.
 pub fn parallax_information(event: &TransitEvent, fields: &[TimingFields]) -> f64 {
-    let Some(set) = read(fields) else {
-        return 0.0;
-    };
-    set.valid
-        .iter()
-        .filter_map(|o| {
+    read(fields).map_or(0.0, |set| information_of_set(event, &set))
+}
+
+/// [`parallax_information`] of timings already read: each row's prediction on its own (in
+/// parallel), summed in order so that the figure is the same on any number of cores.
+pub fn information_of_set(
+    event: &TransitEvent,
+    set: &crate::observations::timings::ObservationSet,
+) -> f64 {
+    use rayon::prelude::*;
+    let terms: Vec<f64> = set
+        .valid
+        .par_iter()
+        .with_min_len(256)
+        .map(|o| {
             let p = event.predict(&o.station);
-            let c = p.contacts[o.contact.index()]?;
+            let Some(c) = p.contacts[o.contact.index()] else {
+                return 0.0;
+            };
             // An interval's sensitivity is the difference of its two contacts'.
             let first = match o.duration {
-                Some(d) => Some(p.contacts[d.first.index()]?),
+                Some(d) => match p.contacts[d.first.index()] {
+                    Some(f) => Some(f),
+                    None => return 0.0,
+                },
                 None => None,
             };
             let sensitivity =
@@ -204,7 +218,12 @@ pub fn parallax_information(event: &TransitEvent, fields: &[TimingFields]) -> f6
                 .sun_altitude_deg
                 .min(first.map_or(90.0, |f| f.sun_altitude_deg))
                 > -0.5;
-            up.then(|| (sensitivity / o.sigma_s).powi(2))
+            if up {
+                (sensitivity / o.sigma_s).powi(2)
+            } else {
+                0.0
+            }
         })
-        .sum()
+        .collect();
+    terms.iter().sum()
 }
