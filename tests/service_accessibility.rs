@@ -102,11 +102,22 @@ enum Check<'a> {
     Width(u32),
 }
 
-/// Check the page in view; the problems found are added to `problems`.
+/// Check the page in view; the problems found are added to `problems`. On the phone a
+/// screenshot of each page is written under target/ for review (`a11y-phone-PAGE.png`).
 async fn check(c: &Client, page: &str, how: &Check<'_>, problems: &mut Vec<String>) {
     match how {
         Check::Axe(axe) => problems.extend(axe_violations(c, page, axe).await),
-        Check::Width(width) => problems.extend(sideways_overflow(c, page, *width).await),
+        Check::Width(width) => {
+            problems.extend(sideways_overflow(c, page, *width).await);
+            let png = c.screenshot().await.expect("a screenshot");
+            let dir = Path::new(env!("CARGO_MANIFEST_DIR")).join("target");
+            std::fs::create_dir_all(&dir).ok();
+            let name: String = page
+                .chars()
+                .map(|ch| if ch.is_ascii_alphanumeric() { ch } else { '-' })
+                .collect();
+            std::fs::write(dir.join(format!("a11y-phone-{name}.png")), png).expect("written");
+        }
     }
 }
 

@@ -327,7 +327,7 @@ pub const REPORT_STYLE: &str = concat!(
     "table{border-collapse:collapse;margin:1em 0;font-size:0.85em}\n",
     "th,td{border:1px solid #d1d5db;padding:3px 6px;text-align:left;vertical-align:top}\n",
     "th{background:#f3f4f6}\n",
-    "p,li,td,th,figcaption{overflow-wrap:anywhere}\n",
+    "p,li,figcaption,.headline td{overflow-wrap:anywhere}\n",
     ".caution{border:2px solid #b91c1c;background:#fef2f2;padding:0.6em 1em;font-weight:bold}\n",
     ".headline th{background:none;font-weight:bold}\n",
     ".scroll{overflow-x:auto;max-width:100%}\n",

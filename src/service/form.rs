@@ -70,14 +70,14 @@ const CONTACTS: [(&str, &str); 5] = [
 ];
 
 const LOCAL_TIMES: [(&str, &str); 3] = [
-    ("", "none: the time above is UTC"),
-    ("apparent", "apparent solar time (sundial time)"),
-    ("mean", "mean solar time (local mean time)"),
+    ("", "none (the time is UTC)"),
+    ("apparent", "apparent (sundial time)"),
+    ("mean", "mean (local mean time)"),
 ];
 
 const DAY_RECKONINGS: [(&str, &str); 2] = [
-    ("", "civil: the day begins at midnight"),
-    ("astronomical", "astronomical: the day begins at noon"),
+    ("", "civil (from midnight)"),
+    ("astronomical", "astronomical (from noon)"),
 ];
 
 /// The hidden fields every form posts: the anti-forgery token, and the edit key of a
@@ -110,14 +110,21 @@ fn station_fields(first: &TimingFields) -> String {
     )
 }
 
-/// One timing's fieldset (`k` from 0).
+/// One timing's fieldset (`k` from 0): the contact, the time in UTC and its uncertainty; and,
+/// folded away unless one of them holds something, the fields of a local solar time.
 fn timing_fields(k: usize, f: &TimingFields) -> String {
+    let local = [&f.time_local, &f.local_time, &f.day_reckoning];
+    let open = if local.iter().any(|v| !v.is_empty()) {
+        " open"
+    } else {
+        ""
+    };
     format!(
-        "<fieldset class=\"timing\"><legend>Timing {n}</legend>\n{}\n{}\n{}\n<div class=\"row\">{}{}{}</div>\n</fieldset>\n",
+        "<fieldset class=\"timing\"><legend>Timing {n}</legend>\n{}\n{}\n{}\n<details class=\"local\"{open}><summary>Timed by local solar time (an old record)?</summary>\n{}\n<div class=\"row\">{}{}</div>\n</details>\n</fieldset>\n",
         select_field(&format!("contact{k}"), "Contact", &CONTACTS, &f.contact),
         text_field(&format!("time_utc{k}"), "Time (UTC)", "date and time with Z: 2012-06-05T22:25:41.3Z", &f.time_utc, ""),
         text_field(&format!("sigma_s{k}"), "Uncertainty (seconds)", "how sure you are of the time; empty: the usual for that contact", &f.sigma_s, " inputmode=\"decimal\""),
-        text_field(&format!("time_local{k}"), "Or local solar time", "for an old record, no zone: 1769-06-03T21:25:03.5", &f.time_local, ""),
+        text_field(&format!("time_local{k}"), "Local solar time", "instead of UTC, no zone: 1769-06-03T21:25:03.5", &f.time_local, ""),
         select_field(&format!("local_time{k}"), "Kind of local time", &LOCAL_TIMES, &f.local_time),
         select_field(&format!("day_reckoning{k}"), "Day reckoning", &DAY_RECKONINGS, &f.day_reckoning),
         n = k + 1,
@@ -135,14 +142,14 @@ pub fn timing_form(action: &str, csrf: &str, key: Option<&str>, fields: &[Timing
         hidden(csrf, key)
     );
     s.push_str(&station_fields(&first));
-    s.push_str("<fieldset><legend>Your timings</legend>\n<p class=\"note\">One block per contact you timed; leave the others on \"not timed\".</p>\n<div class=\"timings\">\n");
+    s.push_str("<h2>Your timings</h2>\n<p class=\"note\">One block per contact you timed; leave the others on \"not timed\".</p>\n<div class=\"timings\">\n");
     for k in 0..4 {
         s.push_str(&timing_fields(
             k,
             &fields.get(k).cloned().unwrap_or_default(),
         ));
     }
-    s.push_str("</div>\n</fieldset>\n<p class=\"actions\"><button type=\"submit\" id=\"send\">Send these timings</button></p>\n</form>\n");
+    s.push_str("</div>\n<p class=\"actions\"><button type=\"submit\" id=\"send\">Send these timings</button></p>\n</form>\n");
     let _ = writeln!(
         s,
         "<form method=\"post\" action=\"{}\" id=\"paste-form\">\n{}<fieldset><legend>Or paste an observations file</legend>\n<div class=\"field\"><label for=\"csv\">Observations (CSV) <span class=\"hint\">with the columns station,latitude,longitude,elevation_m,contact,time_utc,sigma_s</span></label><textarea name=\"csv\" id=\"csv\" rows=\"6\" spellcheck=\"false\" required></textarea></div>\n<p class=\"actions\"><button type=\"submit\" id=\"send-paste\">Send the pasted file</button></p>\n</fieldset>\n</form>",
@@ -187,6 +194,7 @@ mod tests {
         assert!(html.contains("<option value=\"apparent\" selected>"));
         assert!(html.contains("<option value=\"\" selected>not timed</option>"));
         assert_eq!(html.matches("<fieldset class=\"timing\">").count(), 4);
+        assert_eq!(html.matches("<details class=\"local\" open>").count(), 1);
         assert!(upload_form("t").contains("<label for=\"file\">"));
     }
 }

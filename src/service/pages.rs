@@ -20,7 +20,7 @@ pub use super::form::{timing_form, upload_form};
 /// first on every page), the page's own content in `<main id="main">`, a footer.
 pub fn page(title: &str, body: &str) -> String {
     format!(
-        "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\"/>\n<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\"/>\n<title>{t}</title>\n<style>{STYLE}</style>\n</head>\n<body>\n<a class=\"skip\" href=\"#main\">Skip to the content</a>\n<header class=\"masthead\"><div class=\"frame\">\n<p class=\"site\"><a href=\"/\">transit-parallax</a> · pooled timings of a transit</p>\n<h1>{t}</h1>\n<p class=\"caution\" role=\"note\">{c}</p>\n</div></header>\n<main id=\"main\" class=\"frame\" tabindex=\"-1\">\n{body}</main>\n<footer class=\"frame\"><p>transit-parallax {v}: contact timings pooled for the solar parallax. These pages load nothing from elsewhere and run no script.</p></footer>\n</body>\n</html>\n",
+        "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\"/>\n<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\"/>\n<title>{t}</title>\n<style>{STYLE}</style>\n</head>\n<body>\n<a class=\"skip\" href=\"#main\">Skip to the content</a>\n<header class=\"masthead\"><div class=\"frame\">\n<p class=\"site\"><a href=\"/\">transit-parallax</a> · pooled timings</p>\n<h1>{t}</h1>\n<p class=\"caution\" role=\"note\">{c}</p>\n</div></header>\n<main id=\"main\" class=\"frame\" tabindex=\"-1\">\n{body}</main>\n<footer class=\"frame\"><p>transit-parallax {v}: contact timings pooled for the solar parallax. These pages load nothing from elsewhere and run no script.</p></footer>\n</body>\n</html>\n",
         t = esc(title),
         c = esc(SAFETY_CAUTION),
         v = env!("CARGO_PKG_VERSION"),
