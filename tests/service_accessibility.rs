@@ -77,6 +77,9 @@ fn seed(server: &Server) {
             201
         );
     }
+    // One that cannot be read, for the organiser's table of those.
+    let unreadable = post_json(server.port, "/api/submissions", r#"{"station":""}"#);
+    assert_eq!(unreadable.status, 400);
 }
 
 /// An observer's sheet written by `predict --sheets`; its path.
@@ -102,23 +105,27 @@ enum Check<'a> {
     Width(u32),
 }
 
-/// Check the page in view; the problems found are added to `problems`. On the phone a
-/// screenshot of each page is written under target/ for review (`a11y-phone-PAGE.png`).
+/// Check the page in view; the problems found are added to `problems`. A screenshot of each
+/// page is written under target/ for review (`a11y-desktop-PAGE.png`, `a11y-phone-PAGE.png`).
 async fn check(c: &Client, page: &str, how: &Check<'_>, problems: &mut Vec<String>) {
-    match how {
-        Check::Axe(axe) => problems.extend(axe_violations(c, page, axe).await),
+    let screen = match how {
+        Check::Axe(axe) => {
+            problems.extend(axe_violations(c, page, axe).await);
+            "desktop"
+        }
         Check::Width(width) => {
             problems.extend(sideways_overflow(c, page, *width).await);
-            let png = c.screenshot().await.expect("a screenshot");
-            let dir = Path::new(env!("CARGO_MANIFEST_DIR")).join("target");
-            std::fs::create_dir_all(&dir).ok();
-            let name: String = page
-                .chars()
-                .map(|ch| if ch.is_ascii_alphanumeric() { ch } else { '-' })
-                .collect();
-            std::fs::write(dir.join(format!("a11y-phone-{name}.png")), png).expect("written");
+            "phone"
         }
-    }
+    };
+    let png = c.screenshot().await.expect("a screenshot");
+    let dir = Path::new(env!("CARGO_MANIFEST_DIR")).join("target");
+    std::fs::create_dir_all(&dir).ok();
+    let name: String = page
+        .chars()
+        .map(|ch| if ch.is_ascii_alphanumeric() { ch } else { '-' })
+        .collect();
+    std::fs::write(dir.join(format!("a11y-{screen}-{name}.png")), png).expect("written");
 }
 
 async fn goto(c: &Client, url: &str) {
@@ -182,6 +189,32 @@ async fn send_too_much(c: &Client, base: &str) {
         .unwrap_or_else(|e| panic!("no 413 page: {e}"));
 }
 
+/// Exclude the first timing of the organiser's table with a reason, so that the page shows a
+/// restore form and the audit trail a row.
+async fn exclude_first(c: &Client) {
+    let form = c
+        .find(Locator::Css("#rows form[action='/organiser/exclude']"))
+        .await
+        .expect("an exclude form");
+    form.find(Locator::Css("input[name='reason']"))
+        .await
+        .expect("a reason")
+        .send_keys("clock not set")
+        .await
+        .expect("typed");
+    form.find(Locator::Css("button"))
+        .await
+        .expect("a button")
+        .click()
+        .await
+        .expect("excluded");
+    c.wait()
+        .at_most(Duration::from_secs(20))
+        .for_element(Locator::Css("#rows form[action='/organiser/restore']"))
+        .await
+        .unwrap_or_else(|e| panic!("no restore form after excluding: {e}"));
+}
+
 /// Visit every page for people and check each; the problems found.
 async fn every_page(c: &Client, server: &Server, sheet: &Path, how: Check<'_>) -> Vec<String> {
     let base = format!("http://127.0.0.1:{}", server.port);
@@ -205,8 +238,10 @@ async fn every_page(c: &Client, server: &Server, sheet: &Path, how: Check<'_>) -
         goto(c, &format!("{base}{path}")).await;
         check(c, path, &how, &mut problems).await;
     }
-    settled_report(server);
     goto(c, &format!("{base}/organiser?token={TOKEN}")).await;
+    exclude_first(c).await;
+    settled_report(server);
+    goto(c, &format!("{base}/organiser")).await;
     c.find(Locator::Id("n-timings")).await.expect("signed in");
     check(c, "organiser's page", &how, &mut problems).await;
     goto(c, &format!("{base}/organiser/report.html")).await;

@@ -101,7 +101,7 @@ fn hidden(csrf: &str, key: Option<&str>) -> String {
 fn station_fields(first: &TimingFields) -> String {
     const DECIMAL: &str = " inputmode=\"decimal\"";
     format!(
-        "<fieldset><legend>Your station</legend>\n{}\n<div class=\"row\">{}{}</div>\n<div class=\"row\">{}{}</div>\n</fieldset>\n",
+        "<h2>Your station</h2>\n<fieldset><legend class=\"vh\">Your station</legend>\n{}\n<div class=\"row\">{}{}</div>\n<div class=\"row\">{}{}</div>\n</fieldset>\n",
         text_field("station", "Station's name", "as you want it listed", &first.station, " required"),
         text_field("latitude", "Latitude (degrees)", "north positive, south negative: -33.87", &first.latitude, " required"),
         text_field("longitude", "Longitude (degrees)", "east positive, west negative: -157.86", &first.longitude, " required"),
