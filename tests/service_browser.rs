@@ -91,7 +91,12 @@ async fn send_form(c: &Client, base: &str, station: (&str, &str, &str), time: &s
     fill(c, "station", station.0).await;
     fill(c, "latitude", station.1).await;
     fill(c, "longitude", station.2).await;
-    fill(c, "contact0", "II").await;
+    c.find(Locator::Id("contact0"))
+        .await
+        .expect("contact0")
+        .select_by_value("2")
+        .await
+        .expect("contact II");
     fill(c, "time_utc0", time).await;
     fill(c, "sigma_s0", "8").await;
     c.find(Locator::Id("send"))

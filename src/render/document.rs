@@ -222,10 +222,15 @@ const REJECTED_HEADERS: [&str; 7] = [
     "diagnosis",
 ];
 
-pub(crate) fn html_table(headers: &[&str], rows: &[Vec<String>]) -> String {
-    let mut s = String::from("<table>\n<thead><tr>");
+/// A table in a box that scrolls sideways on its own on a narrow screen (the page never
+/// does), reachable from the keyboard and named `label` for screen readers.
+pub(crate) fn html_table(label: &str, headers: &[&str], rows: &[Vec<String>]) -> String {
+    let mut s = format!(
+        "<div class=\"scroll\" tabindex=\"0\" role=\"region\" aria-label=\"{}\">\n<table>\n<thead><tr>",
+        esc(label)
+    );
     for h in headers {
-        let _ = write!(s, "<th>{}</th>", esc(h));
+        let _ = write!(s, "<th scope=\"col\">{}</th>", esc(h));
     }
     s.push_str("</tr></thead>\n<tbody>\n");
     for r in rows {
@@ -235,7 +240,7 @@ pub(crate) fn html_table(headers: &[&str], rows: &[Vec<String>]) -> String {
         }
         s.push_str("</tr>\n");
     }
-    s.push_str("</tbody>\n</table>\n");
+    s.push_str("</tbody>\n</table>\n</div>\n");
     s
 }
 
@@ -316,20 +321,48 @@ pub(crate) fn plus_minus_rows(rows: Vec<Vec<String>>) -> Vec<Vec<String>> {
 
 /// The report's style sheet, the exact text of its `<style>` element (the service's
 /// content-security policy allows it by its SHA-256 hash; W3C CSP Level 3, section 8.3).
-pub const REPORT_STYLE: &str = "\nbody{font-family:sans-serif;max-width:1000px;margin:2em auto;padding:0 1em;color:#111827;line-height:1.45}\ntable{border-collapse:collapse;margin:1em 0;font-size:0.85em}\nth,td{border:1px solid #d1d5db;padding:3px 6px;text-align:left;vertical-align:top}\nth{background:#f3f4f6}\n.caution{border:2px solid #b91c1c;background:#fef2f2;padding:0.6em 1em;font-weight:bold}\n.headline td:first-child{font-weight:bold}\nfigure{margin:1.5em 0}\nfigcaption{font-size:0.9em;color:#374151}\n@media print{figure,table{page-break-inside:avoid}}\n";
+pub const REPORT_STYLE: &str = concat!(
+    "\n*{box-sizing:border-box}\n",
+    "body{font-family:sans-serif;max-width:1000px;margin:2em auto;padding:0 1em;color:#111827;line-height:1.45;-webkit-text-size-adjust:100%}\n",
+    "table{border-collapse:collapse;margin:1em 0;font-size:0.85em}\n",
+    "th,td{border:1px solid #d1d5db;padding:3px 6px;text-align:left;vertical-align:top}\n",
+    "th{background:#f3f4f6}\n",
+    "p,li,figcaption,.headline td{overflow-wrap:anywhere}\n",
+    ".caution{border:2px solid #b91c1c;background:#fef2f2;padding:0.6em 1em;font-weight:bold}\n",
+    ".headline th{background:none;font-weight:bold}\n",
+    ".scroll{overflow-x:auto;max-width:100%}\n",
+    ".scroll>table{margin:0.5em 0}\n",
+    ".skip{position:absolute;left:0.5em;top:-10em;background:#111827;color:#fff;padding:0.5em 1em}\n",
+    ".skip:focus{top:0.5em}\n",
+    ":focus-visible{outline:3px solid #b45309;outline-offset:2px}\n",
+    "svg{max-width:100%;height:auto}\n",
+    "figure{margin:1.5em 0}\n",
+    "figcaption{font-size:0.9em;color:#374151}\n",
+    "footer{border-top:1px solid #d1d5db;margin-top:2em;color:#374151}\n",
+    "@media print{figure,table{page-break-inside:avoid}.skip{display:none}.scroll{overflow:visible}}\n",
+);
 
 /// The self-contained HTML report (well-formed XHTML syntax, inline SVG, no script).
 pub fn html_report(red: &Reduction) -> String {
     let sum = summary(red);
     let mut s = String::new();
-    s.push_str("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\"/>\n");
+    s.push_str("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\"/>\n<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\"/>\n");
     let _ = writeln!(s, "<title>{}</title>", esc(&title(red)));
-    let _ = write!(s, "<style>{REPORT_STYLE}</style>\n</head>\n<body>\n");
+    let _ = write!(s, "<style>{REPORT_STYLE}</style>\n</head>\n<body>\n<a class=\"skip\" href=\"#main\">Skip to the result</a>\n<header>\n");
     let _ = writeln!(s, "<h1>{}</h1>", esc(&title(red)));
-    let _ = writeln!(s, "<p class=\"caution\">{}</p>", esc(SAFETY_CAUTION));
+    let _ = writeln!(
+        s,
+        "<p class=\"caution\" role=\"note\">{}</p>\n</header>\n<main id=\"main\">",
+        esc(SAFETY_CAUTION)
+    );
     s.push_str("<h2>Result</h2>\n<table class=\"headline\">\n");
     for (k, v) in &sum.headline {
-        let _ = writeln!(s, "<tr><td>{}</td><td>{}</td></tr>", esc(k), esc(v));
+        let _ = writeln!(
+            s,
+            "<tr><th scope=\"row\">{}</th><td>{}</td></tr>",
+            esc(k),
+            esc(v)
+        );
     }
     s.push_str("</table>\n");
     let _ = writeln!(s, "<p>{}</p>", esc(&chi2_sentence(red)));
@@ -360,7 +393,7 @@ pub fn html_report(red: &Reduction) -> String {
     s.push_str("<h2>Parameters</h2>\n");
     let ph = param_headers(red.correlation.len());
     let ph_ref: Vec<&str> = ph.iter().map(String::as_str).collect();
-    s.push_str(&html_table(&ph_ref, &parameters_rows(red)));
+    s.push_str(&html_table("Parameters", &ph_ref, &parameters_rows(red)));
     for note in correlation_notes(red)
         .into_iter()
         .chain(black_drop_sentences(red))
@@ -374,7 +407,11 @@ pub fn html_report(red: &Reduction) -> String {
     if let Some(n) = &station_note {
         let _ = writeln!(s, "<p>{}</p>", esc(n));
     }
-    s.push_str(&html_table(&STATION_HEADERS, &station_rows(red)));
+    s.push_str(&html_table(
+        "Stations",
+        &STATION_HEADERS,
+        &station_rows(red),
+    ));
     s.push_str("<h2>Rows not used</h2>\n");
     if red.rejected.is_empty() {
         s.push_str("<p>Every row was used.</p>\n");
@@ -382,11 +419,15 @@ pub fn html_report(red: &Reduction) -> String {
         if let Some(n) = &rows_note {
             let _ = writeln!(s, "<p>{}</p>", esc(n));
         }
-        s.push_str(&html_table(&REJECTED_HEADERS, &rejected_rows(red)));
+        s.push_str(&html_table(
+            "Rows not used",
+            &REJECTED_HEADERS,
+            &rejected_rows(red),
+        ));
     }
     let _ = writeln!(
         s,
-        "<p><small>Made by transit-parallax {}. Event: greatest transit {} (Delta T {:.1} s). Times are UTC (UT1 before 1972).</small></p>",
+        "</main>\n<footer>\n<p><small>Made by transit-parallax {}. Event: greatest transit {} (Delta T {:.1} s). Times are UTC (UT1 before 1972).</small></p>\n</footer>",
         env!("CARGO_PKG_VERSION"),
         esc(&red.event.greatest_utc()),
         red.event.elements.delta_t_s

@@ -54,7 +54,11 @@ svg.limb { width: 42mm; height: auto; display: block; margin: 0 auto; }
 .fill { display: flex; gap: 12px; margin-top: 5px; }
 .fill span { flex: 1; border-bottom: 1px solid #000; padding-top: 6px; font-size: 9pt; }
 footer { margin-top: 4px; border-top: 1px solid #777; font-size: 7.5pt; }
-@media print { body { margin: 0 auto; max-width: none; } }";
+@media print { body { margin: 0 auto; max-width: none; } }
+@media screen { .scroll { overflow-x: auto; max-width: 100%; } svg { max-width: 100%; height: auto; } }
+@media screen and (max-width: 600px) { body { margin: 8px; } .drawings { flex-wrap: wrap; } \
+figure { width: 46%; } .drawings .note { width: 100%; margin-top: 0; } .fill { flex-direction: column; } \
+.scroll > table { min-width: 34rem; } }";
 
 /// A contact's UTC label rounded to the second, `2032-11-13T06:41:21Z`.
 fn utc_iso(event: &TransitEvent, hours: f64) -> String {
@@ -95,10 +99,14 @@ fn both_clocks_html(event: &TransitEvent, hours: f64, zone: Option<&CivilZone>) 
 fn push_heading(s: &mut String, event: &TransitEvent, st: &SheetStation) {
     let station = &st.prediction.station;
     let planet = event.planet.title();
-    let _ = writeln!(s, "<div class=\"caution\">{}</div>", esc(SAFETY_CAUTION));
     let _ = writeln!(
         s,
-        "<h1>Transit of {planet}, {}: {}</h1>",
+        "<header>\n<div class=\"caution\" role=\"note\">{}</div>",
+        esc(SAFETY_CAUTION)
+    );
+    let _ = writeln!(
+        s,
+        "<h1>Transit of {planet}, {}: {}</h1>\n</header>\n<main>",
         event.date(),
         esc(&station.name)
     );
@@ -128,6 +136,15 @@ fn push_heading(s: &mut String, event: &TransitEvent, st: &SheetStation) {
             .to_string(),
     };
     let _ = writeln!(s, "<p>{zone_text}</p>");
+}
+
+/// The opening of a box that lets a wide table scroll sideways on a phone's screen (never in
+/// print), reachable from the keyboard and named for screen readers.
+fn scroll_open(label: &str) -> String {
+    format!(
+        "<div class=\"scroll\" tabindex=\"0\" role=\"region\" aria-label=\"{}\">\n",
+        esc(label)
+    )
 }
 
 /// One row of the contacts table.
@@ -169,19 +186,22 @@ fn push_contact_row(
 
 /// The table of the four contacts and its note on accuracy.
 fn push_contacts(s: &mut String, event: &TransitEvent, st: &SheetStation) {
-    s.push_str("<h2>The four contacts</h2>\n<table>\n<tr><th>Contact</th>");
+    s.push_str("<h2>The four contacts</h2>\n");
+    s.push_str(&scroll_open("The four contacts"));
+    s.push_str("<table>\n<tr><th scope=\"col\">Contact</th>");
     if st.zone.is_some() {
-        s.push_str("<th>Your clock</th>");
+        s.push_str("<th scope=\"col\">Your clock</th>");
     }
     s.push_str(
-        "<th>UTC</th><th>Sun altitude</th><th>Sun azimuth</th><th>Position angle</th>\
-         <th>Vertex angle</th><th>Seen?</th></tr>\n",
+        "<th scope=\"col\">UTC</th><th scope=\"col\">Sun altitude</th>\
+         <th scope=\"col\">Sun azimuth</th><th scope=\"col\">Position angle</th>\
+         <th scope=\"col\">Vertex angle</th><th scope=\"col\">Seen?</th></tr>\n",
     );
     for c in Contact::ALL {
         let cc = st.prediction.contacts[c.index()];
         push_contact_row(s, event, st, c, cc.as_ref());
     }
-    s.push_str("</table>\n");
+    s.push_str("</table>\n</div>\n");
     let _ = writeln!(
         s,
         "<p class=\"note\">Times are rounded to the second. They are the ideal geometric contacts \
@@ -271,10 +291,13 @@ fn push_drawings(s: &mut String, st: &SheetStation) {
 
 /// The blank table for the timings, with the lines for observer, instrument and clock.
 fn push_blank_table(s: &mut String) {
+    s.push_str("<h2>Your timings</h2>\n");
+    s.push_str(&scroll_open("Your timings"));
     s.push_str(
-        "<h2>Your timings</h2>\n<table class=\"blank\">\n<tr><th>Contact</th>\
-         <th>Clock time (hh:mm:ss.s)</th><th>Zone or offset</th>\
-         <th>Sure to&nbsp;±&nbsp;s</th><th>Observer</th><th>What you saw (black drop, cloud)</th></tr>\n",
+        "<table class=\"blank\">\n<tr><th scope=\"col\">Contact</th>\
+         <th scope=\"col\">Clock time (hh:mm:ss.s)</th><th scope=\"col\">Zone or offset</th>\
+         <th scope=\"col\">Sure to&nbsp;±&nbsp;s</th><th scope=\"col\">Observer</th>\
+         <th scope=\"col\">What you saw (black drop, cloud)</th></tr>\n",
     );
     for _ in 0..5 {
         s.push_str(
@@ -283,7 +306,7 @@ fn push_blank_table(s: &mut String) {
         );
     }
     s.push_str(
-        "</table>\n<div class=\"fill\"><span>Observer(s):</span><span>Instrument, aperture (mm), \
+        "</table>\n</div>\n<div class=\"fill\"><span>Observer(s):</span><span>Instrument, aperture (mm), \
          filter or projection:</span><span>Clock set by (GPS, radio, phone), its error:</span></div>\n<p class=\"note\">For \
          <code>reduce</code>, copy each row into an observations file (<code>transit-parallax \
          template observations</code>): contact, time_utc (or the clock time with its offset, \
@@ -343,6 +366,7 @@ pub fn observer_sheet_html(event: &TransitEvent, st: &SheetStation) -> String {
     push_sun_during(&mut s, event, st);
     push_drawings(&mut s, st);
     push_blank_table(&mut s);
+    s.push_str("</main>\n");
     push_footer(&mut s, event, st, contacts_seen_up(st.prediction));
     s.push_str("</body></html>\n");
     s

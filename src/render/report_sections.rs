@@ -23,6 +23,7 @@ pub(crate) fn html_methods(red: &Reduction, s: &mut String) {
     if !red.methods.is_empty() {
         let _ = writeln!(s, "<h2>{METHODS_TITLE}</h2>");
         s.push_str(&html_table(
+            METHODS_TITLE,
             &METHOD_HEADERS,
             &plus_minus_rows(methods_rows(red)),
         ));
@@ -33,6 +34,7 @@ pub(crate) fn html_methods(red: &Reduction, s: &mut String) {
     if let Some(b) = &red.error_budget {
         let _ = writeln!(s, "<h2>{BUDGET_TITLE}</h2>");
         s.push_str(&html_table(
+            BUDGET_TITLE,
             &BUDGET_HEADERS,
             &plus_minus_rows(budget_rows(b)),
         ));
@@ -63,6 +65,7 @@ pub(crate) fn html_what_else(red: &Reduction, s: &mut String) {
     );
     if !w.scale.is_empty() {
         s.push_str(&html_table(
+            "The planets' distances",
             &SCALE_HEADERS,
             &plus_minus_rows(scale_rows(&w)),
         ));
@@ -72,6 +75,7 @@ pub(crate) fn html_what_else(red: &Reduction, s: &mut String) {
     }
     if !w.sizes.stations.is_empty() {
         s.push_str(&html_table(
+            "Each station's sizes",
             &SIZE_HEADERS,
             &plus_minus_rows(size_rows(&w, 300)),
         ));

@@ -182,6 +182,7 @@ pub fn from_form(form: &[(String, String)]) -> Result<Vec<TimingFields>, String>
             time_utc: get(&format!("time_utc{k}")),
             time_local: get(&format!("time_local{k}")),
             local_time: get(&format!("local_time{k}")),
+            day_reckoning: get(&format!("day_reckoning{k}")),
             sigma_s: get(&format!("sigma_s{k}")),
             ..common.clone()
         })
@@ -226,6 +227,7 @@ mod tests {
             ("station", "B"),
             ("contact0", "ii"),
             ("time_utc0", "2012-06-05T22:30:00Z"),
+            ("day_reckoning0", "astronomical"),
             ("contact1", ""),
             ("time_utc1", ""),
         ]
@@ -235,6 +237,7 @@ mod tests {
         let t = from_form(&form).unwrap();
         assert_eq!(t.len(), 1);
         assert_eq!(t[0].contact, "2");
+        assert_eq!(t[0].day_reckoning, "astronomical");
         assert!(from_form(&[]).is_err());
     }
 }

@@ -8,7 +8,9 @@
 //! - `store.rs`: the SQLite database (raw submissions, timings as sent, the audit trail).
 //! - `intake.rs`: a submission's JSON body or form into timings.
 //! - `feedback.rs`: each timing against its prediction at once, and the station's share.
-//! - `pages.rs`: the participant's pages.
+//! - `pages.rs`: the pages' frame (header, caution, landmarks) and the participant's pages.
+//! - `form.rs`: the participant's forms, one labelled field each.
+//! - `style.rs`: the pages' style sheet, phone first.
 //! - `organiser.rs`: the organiser's page.
 //! - `server.rs`: the state, the participant's routes, the background reduction.
 //! - `routes.rs`: the organiser's and the interface's routes, the router, the start.
@@ -20,6 +22,7 @@ pub mod cache;
 pub mod cached;
 pub mod feedback;
 pub mod forgery;
+pub mod form;
 pub mod intake;
 pub mod limits;
 pub mod organiser;
@@ -29,4 +32,5 @@ pub mod security;
 pub mod server;
 pub mod sign_in;
 pub mod store;
+pub mod style;
 pub mod timing_table;

@@ -3,7 +3,7 @@
 //! (used, rejected and why, excluded by the organiser and why) and the buttons that exclude or
 //! restore it, the unreadable submissions, the audit trail and the downloads.
 
-use super::pages::page;
+use super::pages::{page, scroll_box};
 use crate::reduction::Reduction;
 use crate::render::charts::{convergence_svg, residuals_svg, solar_disc_svg, station_map_svg};
 use crate::render::svg::esc;
@@ -41,7 +41,7 @@ fn summary(v: &OrganiserView, s: &mut String) {
     match (v.solution, v.error) {
         (Some(red), _) => match red.headline() {
             Some(h) => {
-                let _ = writeln!(s, "<table class=\"headline\"><tr><td>solar parallax</td><td id=\"parallax\">{:.4}\" ± {:.4}\"</td></tr><tr><td>astronomical unit</td><td id=\"au\">{}</td></tr><tr><td>timings used</td><td id=\"n-used\">{} of {}</td></tr><tr><td>chi-square</td><td>{}</td></tr></table>", h.parallax_arcsec, h.parallax_sigma_arcsec, esc(&au_text(&h, "±")), red.timings_used, red.timings_total, esc(&red.statistics.describe()));
+                let _ = writeln!(s, "<table class=\"headline\"><tr><th scope=\"row\">solar parallax</th><td id=\"parallax\">{:.4}\" ± {:.4}\"</td></tr><tr><th scope=\"row\">astronomical unit</th><td id=\"au\">{}</td></tr><tr><th scope=\"row\">timings used</th><td id=\"n-used\">{} of {}</td></tr><tr><th scope=\"row\">chi-square</th><td>{}</td></tr></table>", h.parallax_arcsec, h.parallax_sigma_arcsec, esc(&au_text(&h, "±")), red.timings_used, red.timings_total, esc(&red.statistics.describe()));
             }
             None => {
                 let why = red.warnings.last().map_or("", String::as_str);
@@ -63,15 +63,17 @@ fn methods(red: &Reduction, s: &mut String) {
     if red.methods.is_empty() {
         return;
     }
-    s.push_str("<h2>The methods side by side</h2>\n<table><tr><th>method</th><th>solar parallax (arcsec)</th><th>AU (millions of km)</th><th>timings (stations)</th><th>note</th></tr>\n");
+    let mut t = String::from("<table><tr><th scope=\"col\">method</th><th scope=\"col\">solar parallax (arcsec)</th><th scope=\"col\">AU (millions of km)</th><th scope=\"col\">timings (stations)</th><th scope=\"col\">note</th></tr>\n");
     for row in crate::render::methods::methods_rows(red) {
         let cells: Vec<String> = row
             .iter()
             .map(|c| format!("<td>{}</td>", esc(&c.replace(" +- ", " ± "))))
             .collect();
-        let _ = writeln!(s, "<tr>{}</tr>", cells.concat());
+        let _ = writeln!(t, "<tr>{}</tr>", cells.concat());
     }
-    s.push_str("</table>\n");
+    t.push_str("</table>\n");
+    s.push_str("<h2>The methods side by side</h2>\n");
+    s.push_str(&scroll_box("The methods side by side", &t));
 }
 
 /// The form that excludes (with a reason) or restores one timing.
@@ -79,7 +81,7 @@ pub(super) fn action_form(csrf: &str, id: i64, excluded: bool) -> String {
     if excluded {
         format!("<form method=\"post\" action=\"/organiser/restore\"><input type=\"hidden\" name=\"csrf\" value=\"{}\"/><input type=\"hidden\" name=\"timing\" value=\"{}\"/><button type=\"submit\">restore</button></form>", esc(csrf), id)
     } else {
-        format!("<form method=\"post\" action=\"/organiser/exclude\"><input type=\"hidden\" name=\"csrf\" value=\"{}\"/><input type=\"hidden\" name=\"timing\" value=\"{}\"/><input name=\"reason\" placeholder=\"reason\" aria-label=\"reason for excluding timing {}\" size=\"14\"/><button type=\"submit\">exclude</button></form>", esc(csrf), id, id)
+        format!("<form method=\"post\" action=\"/organiser/exclude\" class=\"inline\"><input type=\"hidden\" name=\"csrf\" value=\"{}\"/><input type=\"hidden\" name=\"timing\" value=\"{id}\"/><label class=\"vh\" for=\"reason-{id}\">reason for excluding timing {id}</label><input id=\"reason-{id}\" name=\"reason\" placeholder=\"reason\" size=\"14\"/><button type=\"submit\">exclude</button></form>", esc(csrf))
     }
 }
 
@@ -98,21 +100,23 @@ fn trails(v: &OrganiserView, s: &mut String) {
     if v.unreadable.is_empty() {
         s.push_str("<p>None.</p>\n");
     } else {
-        s.push_str("<table><tr><th>submission</th><th>arrived</th><th>why</th></tr>\n");
+        let mut t = String::from("<table><tr><th scope=\"col\">submission</th><th scope=\"col\">arrived</th><th scope=\"col\">why</th></tr>\n");
         for (id, at, why) in v.unreadable {
             let _ = writeln!(
-                s,
+                t,
                 "<tr><td>{id}</td><td>{}</td><td>{}</td></tr>",
                 esc(at),
                 esc(why)
             );
         }
-        s.push_str("</table>\n");
+        t.push_str("</table>\n");
+        s.push_str(&scroll_box("Submissions that could not be read", &t));
     }
-    s.push_str("<h2>Audit trail</h2>\n<table><tr><th>when (UTC)</th><th>action</th><th>timing</th><th>reason</th></tr>\n");
+    s.push_str("<h2>Audit trail</h2>\n");
+    let mut t = String::from("<table><tr><th scope=\"col\">when (UTC)</th><th scope=\"col\">action</th><th scope=\"col\">timing</th><th scope=\"col\">reason</th></tr>\n");
     for (at, action, id, reason) in v.audit {
         let _ = writeln!(
-            s,
+            t,
             "<tr><td>{}</td><td>{}</td><td>{}</td><td>{}</td></tr>",
             esc(at),
             esc(action),
@@ -120,7 +124,8 @@ fn trails(v: &OrganiserView, s: &mut String) {
             esc(reason.as_deref().unwrap_or(""))
         );
     }
-    s.push_str("</table>\n");
+    t.push_str("</table>\n");
+    s.push_str(&scroll_box("Audit trail", &t));
 }
 
 /// The organiser's page.

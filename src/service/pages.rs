@@ -9,84 +9,36 @@ use crate::render::svg::esc;
 use crate::render::text::SAFETY_CAUTION;
 use std::fmt::Write;
 
-/// The pages' style sheet, the exact text of their `<style>` element (allowed by its SHA-256
-/// hash in the content-security policy).
-pub const STYLE: &str = "body{font-family:sans-serif;max-width:1000px;margin:1.5em auto;padding:0 1em;color:#111827;line-height:1.45}table{border-collapse:collapse;margin:1em 0;font-size:0.9em}th,td{border:1px solid #d1d5db;padding:3px 6px;text-align:left;vertical-align:top}th{background:#f3f4f6}.caution{border:2px solid #b91c1c;background:#fef2f2;padding:0.6em 1em;font-weight:bold}.fits{color:#166534}.doubtful{color:#92400e}.rejected{color:#b91c1c}fieldset{margin:1em 0}label{display:inline-block;margin:0.2em 0.8em 0.2em 0}";
+/// The pages' style sheet (`style.rs`), the exact text of their `<style>` element (allowed by
+/// its SHA-256 hash in the content-security policy).
+pub use super::style::STYLE;
 
-/// The page's frame: title, style, the solar caution first.
+/// The participant's forms (`form.rs`).
+pub use super::form::{timing_form, upload_form};
+
+/// The page's frame: a skip link, the header (the site's line, the title, the solar caution,
+/// first on every page), the page's own content in `<main id="main">`, a footer.
 pub fn page(title: &str, body: &str) -> String {
     format!(
-        "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\"/>\n<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\"/>\n<title>{t}</title>\n<style>{STYLE}</style>\n</head>\n<body>\n<h1>{t}</h1>\n<p class=\"caution\">{c}</p>\n{body}</body>\n</html>\n",
+        "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\"/>\n<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\"/>\n<title>{t}</title>\n<style>{STYLE}</style>\n</head>\n<body>\n<a class=\"skip\" href=\"#main\">Skip to the content</a>\n<header class=\"masthead\"><div class=\"frame\">\n<p class=\"site\"><a href=\"/\">transit-parallax</a> · pooled timings</p>\n<h1>{t}</h1>\n<p class=\"caution\" role=\"note\">{c}</p>\n</div></header>\n<main id=\"main\" class=\"frame\" tabindex=\"-1\">\n{body}</main>\n<footer class=\"frame\"><p>transit-parallax {v}: contact timings pooled for the solar parallax. These pages load nothing from elsewhere and run no script.</p></footer>\n</body>\n</html>\n",
         t = esc(title),
-        c = esc(SAFETY_CAUTION)
+        c = esc(SAFETY_CAUTION),
+        v = env!("CARGO_PKG_VERSION"),
     )
 }
 
-fn input(name: &str, label: &str, value: &str, size: usize) -> String {
+/// A wide table in a box that scrolls sideways on its own (so that the page never does),
+/// reachable from the keyboard and named for screen readers.
+pub fn scroll_box(label: &str, table: &str) -> String {
     format!(
-        "<label>{} <input name=\"{}\" id=\"{}\" value=\"{}\" size=\"{size}\"/></label>",
-        esc(label),
-        esc(name),
-        esc(name),
-        esc(value)
-    )
-}
-
-/// The form for a station and its timings, pre-filled with `fields` (empty for a new
-/// submission), posting to `action` with the anti-forgery token (and the edit key, for a
-/// correction).
-pub fn timing_form(action: &str, csrf: &str, key: Option<&str>, fields: &[TimingFields]) -> String {
-    let first = fields.first().cloned().unwrap_or_default();
-    let mut s = format!("<form method=\"post\" action=\"{}\">\n<input type=\"hidden\" name=\"csrf\" value=\"{}\"/>\n", esc(action), esc(csrf));
-    if let Some(k) = key {
-        let _ = writeln!(
-            s,
-            "<input type=\"hidden\" name=\"key\" value=\"{}\"/>",
-            esc(k)
-        );
-    }
-    let _ = writeln!(
-        s,
-        "<fieldset><legend>Station</legend>{}{}{}{}{}</fieldset>",
-        input("station", "name", &first.station, 28),
-        input("latitude", "latitude (deg, north +)", &first.latitude, 9),
-        input("longitude", "longitude (deg, east +)", &first.longitude, 10),
-        input("elevation_m", "elevation (m)", &first.elevation_m, 6),
-        input(
-            "longitude_sigma_deg",
-            "longitude uncertainty (deg, or unknown; empty: exact)",
-            &first.longitude_sigma_deg,
-            8
-        )
-    );
-    s.push_str("<fieldset><legend>Timings (leave a row empty if you did not time that contact)</legend>\n<table><tr><th>contact</th><th>time UTC (2012-06-05T22:25:41.3Z)</th><th>or local solar time (no zone)</th><th>apparent or mean</th><th>uncertainty (s)</th></tr>\n");
-    for k in 0..4 {
-        let f = fields.get(k).cloned().unwrap_or_default();
-        let _ = writeln!(
-            s,
-            "<tr><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td></tr>",
-            input(&format!("contact{k}"), "", &f.contact, 4),
-            input(&format!("time_utc{k}"), "", &f.time_utc, 26),
-            input(&format!("time_local{k}"), "", &f.time_local, 22),
-            input(&format!("local_time{k}"), "", &f.local_time, 9),
-            input(&format!("sigma_s{k}"), "", &f.sigma_s, 5)
-        );
-    }
-    s.push_str("</table></fieldset>\n<fieldset><legend>Or paste an observations file (CSV with the columns station,latitude,longitude,elevation_m,contact,time_utc,sigma_s)</legend>\n<textarea name=\"csv\" id=\"csv\" rows=\"6\" cols=\"100\"></textarea></fieldset>\n<p><button type=\"submit\" id=\"send\">Send</button></p>\n</form>\n");
-    s
-}
-
-/// The form that uploads an observations file (multipart), with the anti-forgery token.
-pub fn upload_form(csrf: &str) -> String {
-    format!(
-        "<form method=\"post\" action=\"/upload\" enctype=\"multipart/form-data\">\n<input type=\"hidden\" name=\"csrf\" value=\"{}\"/>\n<fieldset><legend>Or send an observations file (CSV with the columns above, or an .xlsx or .ods spreadsheet)</legend>\n<input type=\"file\" name=\"file\" id=\"file\" accept=\".csv,.tsv,.txt,.xlsx,.ods,text/csv\"/> <button type=\"submit\" id=\"upload\">Send the file</button></fieldset>\n</form>\n",
-        esc(csrf)
+        "<div class=\"scroll\" tabindex=\"0\" role=\"region\" aria-label=\"{}\">\n{table}</div>\n",
+        esc(label)
     )
 }
 
 /// The feedback table for a submission's timings.
 pub fn feedback_table(fields: &[TimingFields], fb: &[TimingFeedback]) -> String {
-    let mut s = String::from("<table id=\"feedback\"><tr><th>station</th><th>contact</th><th>your time</th><th>predicted</th><th>O - C (s)</th><th>Sun's altitude</th><th>verdict</th><th>what it means</th></tr>\n");
+    let mut s = String::from("<table id=\"feedback\"><tr><th scope=\"col\">station</th><th scope=\"col\">contact</th><th scope=\"col\">your time</th><th scope=\"col\">predicted</th><th scope=\"col\">O - C (s)</th><th scope=\"col\">Sun's altitude</th><th scope=\"col\">verdict</th><th scope=\"col\">what it means</th></tr>\n");
     for (f, b) in fields.iter().zip(fb) {
         let time = if f.time_utc.is_empty() {
             &f.time_local
@@ -128,7 +80,10 @@ pub fn feedback_page(
         body,
         "<p id=\"received\">Received and stored as submission {id}.</p>"
     );
-    body.push_str(&feedback_table(fields, fb));
+    body.push_str(&scroll_box(
+        "Your timings against their predictions",
+        &feedback_table(fields, fb),
+    ));
     if let Some(x) = share {
         let _ = writeln!(body, "<p>This station's expected share of the information on the solar parallax so far: {:.1} % (before the planet's place and the radii are fitted).</p>", 100.0 * x);
     }

@@ -361,7 +361,10 @@ pub async fn review_route(
     match app.with_store(|s| s.submission(id)) {
         Ok(Some((k, in_force, fields))) if k == key => {
             let fb = feedback(&app.event, &fields);
-            let mut body = super::pages::feedback_table(&fields, &fb);
+            let mut body = super::pages::scroll_box(
+                "Your timings against their predictions",
+                &super::pages::feedback_table(&fields, &fb),
+            );
             if in_force {
                 body.push_str("<h2>Correct it</h2>\n<p>Sending this form stores a new version; the old one is kept.</p>\n");
                 body.push_str(&timing_form(

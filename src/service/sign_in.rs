@@ -79,7 +79,7 @@ fn guarded(path: &str) -> bool {
 fn sign_in_page(visitor: Option<&Visitor>, why: &str) -> Response {
     let csrf = visitor.map_or("", |v| v.token.as_str());
     let body = format!(
-        "<p>{}</p>\n<form method=\"post\" action=\"/organiser/sign-in\">\n<input type=\"hidden\" name=\"csrf\" value=\"{}\"/>\n<p><label>Organiser's token <input type=\"password\" name=\"token\" id=\"token\" autocomplete=\"current-password\" required=\"required\"/></label> <button type=\"submit\" id=\"sign-in\">Sign in</button></p>\n</form>\n<p>The token was printed when the service started (or given with <code>--token</code>). After signing in, this browser is held by a cookie until you sign out; scripts send the header <code>Authorization: Bearer TOKEN</code> instead.</p>\n",
+        "<p>{}</p>\n<form method=\"post\" action=\"/organiser/sign-in\">\n<input type=\"hidden\" name=\"csrf\" value=\"{}\"/>\n<div class=\"field\"><label for=\"token\">Organiser's token</label><input type=\"password\" name=\"token\" id=\"token\" autocomplete=\"current-password\" required=\"required\"/></div>\n<p class=\"actions\"><button type=\"submit\" id=\"sign-in\">Sign in</button></p>\n</form>\n<p>The token was printed when the service started (or given with <code>--token</code>). After signing in, this browser is held by a cookie until you sign out; scripts send the header <code>Authorization: Bearer TOKEN</code> instead.</p>\n",
         crate::render::svg::esc(why),
         crate::render::svg::esc(csrf)
     );

@@ -150,7 +150,7 @@ fn filters(q: &TableQuery, s: &mut String) {
         let selected = if q.state == f { " selected" } else { "" };
         format!("<option value=\"{}\"{selected}>{label}</option>", f.name())
     };
-    let _ = writeln!(s, "<form method=\"get\" action=\"/organiser\" id=\"filters\"><label>Timings <select name=\"state\">{}{}{}</select></label> <label>station <input name=\"station\" value=\"{}\" size=\"16\"/></label> <button type=\"submit\">show</button></form>", option(StateFilter::All, "all"), option(StateFilter::InForce, "in force"), option(StateFilter::Excluded, "excluded by you"), esc(&q.station));
+    let _ = writeln!(s, "<form method=\"get\" action=\"/organiser\" id=\"filters\"><div class=\"row\"><div class=\"field\"><label for=\"filter-state\">Timings</label><select id=\"filter-state\" name=\"state\">{}{}{}</select></div><div class=\"field\"><label for=\"filter-station\">Station <span class=\"hint\">a part of its name</span></label><input id=\"filter-station\" name=\"station\" value=\"{}\" size=\"16\"/></div></div><p class=\"actions\"><button type=\"submit\">show</button></p></form>", option(StateFilter::All, "all"), option(StateFilter::InForce, "in force"), option(StateFilter::Excluded, "excluded by you"), esc(&q.station));
 }
 
 /// The page's links: first, previous, next, last.
@@ -201,7 +201,7 @@ pub fn table_html(
         )
     };
     let _ = writeln!(s, "<p id=\"shown\">{shown}</p>");
-    s.push_str("<table id=\"rows\"><tr><th>id</th><th>station</th><th>contact</th><th>time</th><th>state</th><th>why</th><th>action</th></tr>\n");
+    let mut t = String::from("<table id=\"rows\"><tr><th scope=\"col\">id</th><th scope=\"col\">station</th><th scope=\"col\">contact</th><th scope=\"col\">time</th><th scope=\"col\">state</th><th scope=\"col\">why</th><th scope=\"col\">action</th></tr>\n");
     for (id, station, contact, time, excluded) in rows {
         let (state, why) = match (excluded, solved.states.get(id)) {
             (Some(r), _) => ("excluded".to_string(), format!("by the organiser: {r}")),
@@ -212,9 +212,10 @@ pub fn table_html(
             ),
         };
         let action = super::organiser::action_form(csrf, *id, excluded.is_some());
-        let _ = writeln!(s, "<tr><td>{id}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{action}</td></tr>", esc(station), esc(contact), esc(time), esc(&state), esc(&why));
+        let _ = writeln!(t, "<tr><td>{id}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{action}</td></tr>", esc(station), esc(contact), esc(time), esc(&state), esc(&why));
     }
-    s.push_str("</table>\n");
+    t.push_str("</table>\n");
+    s.push_str(&super::pages::scroll_box("Every timing", &t));
     page_links(q, total, &mut s);
     s
 }

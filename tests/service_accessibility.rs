@@ -1,0 +1,314 @@
+//! Every page for people, in a real browser, checked for accessibility and for phones: the
+//! service is started and fed timings of the transit of Venus of 2012, then Debian's chromium
+//! (through chromium-driver) visits the participant's form, the feedback after a real form
+//! post, the review page of the private link, a message page, the `413` page, the organiser's
+//! sign-in page, the organiser's page, the report and an observer's sheet of `predict
+//! --sheets` (as a file). On a desktop window axe-core (from the npm registry; `.ci/run`
+//! installs it) audits each page and the test fails on any violation, listing each with its
+//! rule, impact and elements; on a phone 360 px wide each page must fit without scrolling
+//! sideways (a wide table scrolls inside its own box, never the page).
+//!
+//! Without chromium and chromedriver, or without axe-core outside CI, the tests say SKIPPED.
+
+mod common;
+#[path = "common/webdriver.rs"]
+mod webdriver;
+
+use common::server::{post_json, settled_report, settled_solution, start, Server};
+use fantoccini::{Client, Locator};
+use std::path::{Path, PathBuf};
+use std::sync::Mutex;
+use std::time::Duration;
+use webdriver::{axe_violations, session, sideways_overflow, start_driver, which, Screen};
+
+/// Public pages (no sign-in) beyond the participant's, to be checked like the others: add
+/// `/results` here once the service has a public results page.
+const PUBLIC_PAGES: &[&str] = &[];
+
+/// The phone's width, CSS pixels.
+const PHONE_WIDTH_PX: u32 = 360;
+
+/// The organiser's token of these tests.
+const TOKEN: &str = "organiser11y";
+
+/// One browser at a time: the two tests each start a server and a browser.
+static ONE_BROWSER: Mutex<()> = Mutex::new(());
+
+/// The predicted time of a contact (1-4) of 2012 at a station, shifted by `shift_s`.
+fn predicted(lat: f64, lon: f64, contact: usize, shift_s: f64) -> String {
+    let event = transit_parallax::transit_on_date(
+        transit_parallax::Planet::Venus,
+        transit_parallax::time::iso::parse_date("2012-06-06").unwrap(),
+        &transit_parallax::TimeModel::default(),
+    )
+    .unwrap();
+    let st = transit_parallax::Station {
+        name: "s".into(),
+        latitude_deg: lat,
+        longitude_deg: lon,
+        elevation_m: 0.0,
+    };
+    let c = event.predict(&st).contacts[contact - 1].unwrap();
+    let t = event.label(c.hours) + chrono::TimeDelta::milliseconds((shift_s * 1000.0) as i64);
+    transit_parallax::time::iso::format_utc(t, 1)
+}
+
+/// Five invented stations' contacts II and III through the API, so that a solution, its
+/// charts and the report exist; one of them a zone-time blunder, so that the tables show a
+/// rejected row too.
+fn seed(server: &Server) {
+    let stations = [
+        ("Kestrel Point", 64.84, -147.72, 0.0),
+        ("Driftwood Bay", 21.31, -157.86, 0.0),
+        ("Cedar Valley", 35.01, 135.77, 9.0 * 3600.0),
+        ("Harbour Hill", -33.87, 151.21, 0.0),
+        ("Coral Reach", 13.44, 144.79, 0.0),
+    ];
+    for (k, (name, lat, lon, blunder_s)) in stations.into_iter().enumerate() {
+        let e = 4.0 * (k as f64 - 2.0);
+        let (t2, t3) = (
+            predicted(lat, lon, 2, e + blunder_s),
+            predicted(lat, lon, 3, -e),
+        );
+        let body = serde_json::json!({ "station": name, "latitude": lat, "longitude": lon,
+            "timings": [{ "contact": 2, "time_utc": t2, "sigma_s": 8 }, { "contact": 3, "time_utc": t3, "sigma_s": 8 }] });
+        assert_eq!(
+            post_json(server.port, "/api/submissions", &body.to_string()).status,
+            201
+        );
+    }
+    // One that cannot be read, for the organiser's table of those.
+    let unreadable = post_json(server.port, "/api/submissions", r#"{"station":""}"#);
+    assert_eq!(unreadable.status, 400);
+}
+
+/// An observer's sheet written by `predict --sheets`; its path.
+fn sheet(dir: &Path) -> PathBuf {
+    let stations = common::temp(
+        "a11y-stations.csv",
+        b"station,latitude,longitude,elevation_m,time_zone\nJade Terrace School,22.28,114.16,40,Asia/Hong_Kong\n",
+    );
+    let out = dir.join("sheets");
+    let o = common::run_words(
+        "predict --planet venus --date 2012-06-06 --format json --stations",
+        &[&stations, "--sheets", out.to_str().unwrap()],
+    );
+    assert!(o.status.success(), "{}", common::err(&o));
+    out.join("Jade_Terrace_School.html")
+}
+
+/// What each page is checked for.
+enum Check<'a> {
+    /// axe-core's audit (its source).
+    Axe(&'a str),
+    /// No sideways scrolling at the phone's width (CSS pixels).
+    Width(u32),
+}
+
+/// Check the page in view; the problems found are added to `problems`. A screenshot of each
+/// page is written under target/ for review (`a11y-desktop-PAGE.png`, `a11y-phone-PAGE.png`).
+async fn check(c: &Client, page: &str, how: &Check<'_>, problems: &mut Vec<String>) {
+    let screen = match how {
+        Check::Axe(axe) => {
+            problems.extend(axe_violations(c, page, axe).await);
+            "desktop"
+        }
+        Check::Width(width) => {
+            problems.extend(sideways_overflow(c, page, *width).await);
+            "phone"
+        }
+    };
+    let png = c.screenshot().await.expect("a screenshot");
+    let dir = Path::new(env!("CARGO_MANIFEST_DIR")).join("target");
+    std::fs::create_dir_all(&dir).ok();
+    let name: String = page
+        .chars()
+        .map(|ch| if ch.is_ascii_alphanumeric() { ch } else { '-' })
+        .collect();
+    std::fs::write(dir.join(format!("a11y-{screen}-{name}.png")), png).expect("written");
+}
+
+async fn goto(c: &Client, url: &str) {
+    c.goto(url).await.unwrap_or_else(|e| panic!("{url}: {e}"));
+}
+
+/// Fill the participant's form (one timing of contact II) and send it: the feedback page.
+async fn send_form(c: &Client, base: &str) -> String {
+    goto(c, &format!("{base}/")).await;
+    for (id, text) in [
+        ("station", "Lantern Hill School"),
+        ("latitude", "35.68"),
+        ("longitude", "139.69"),
+        ("time_utc0", &predicted(35.68, 139.69, 2, -6.0)),
+        ("sigma_s0", "8"),
+    ] {
+        let e = c.find(Locator::Id(id)).await.expect(id);
+        e.send_keys(text).await.expect(id);
+    }
+    let contact = c.find(Locator::Id("contact0")).await.expect("contact0");
+    contact.select_by_value("2").await.expect("contact II");
+    c.find(Locator::Id("send"))
+        .await
+        .expect("send")
+        .click()
+        .await
+        .expect("sent");
+    let private = c
+        .wait()
+        .at_most(Duration::from_secs(20))
+        .for_element(Locator::Id("private"))
+        .await
+        .unwrap_or_else(|e| panic!("no feedback page: {e}"));
+    private
+        .attr("href")
+        .await
+        .expect("a link")
+        .expect("a private link")
+}
+
+/// A pasted file over the limit: the `413` page (the paste is set through WebDriver, typing
+/// 300 KB would take minutes).
+async fn send_too_much(c: &Client, base: &str) {
+    goto(c, &format!("{base}/")).await;
+    c.execute(
+        "document.getElementById('csv').value = 'station\\n' + 'x'.repeat(300 * 1024);",
+        vec![],
+    )
+    .await
+    .expect("the paste");
+    c.find(Locator::Id("send-paste"))
+        .await
+        .expect("send")
+        .click()
+        .await
+        .expect("sent");
+    c.wait()
+        .at_most(Duration::from_secs(20))
+        .for_element(Locator::Id("limit"))
+        .await
+        .unwrap_or_else(|e| panic!("no 413 page: {e}"));
+}
+
+/// Exclude the first timing of the organiser's table with a reason, so that the page shows a
+/// restore form and the audit trail a row.
+async fn exclude_first(c: &Client) {
+    let form = c
+        .find(Locator::Css("#rows form[action='/organiser/exclude']"))
+        .await
+        .expect("an exclude form");
+    form.find(Locator::Css("input[name='reason']"))
+        .await
+        .expect("a reason")
+        .send_keys("clock not set")
+        .await
+        .expect("typed");
+    form.find(Locator::Css("button"))
+        .await
+        .expect("a button")
+        .click()
+        .await
+        .expect("excluded");
+    c.wait()
+        .at_most(Duration::from_secs(20))
+        .for_element(Locator::Css("#rows form[action='/organiser/restore']"))
+        .await
+        .unwrap_or_else(|e| panic!("no restore form after excluding: {e}"));
+}
+
+/// Visit every page for people and check each; the problems found.
+async fn every_page(c: &Client, server: &Server, sheet: &Path, how: Check<'_>) -> Vec<String> {
+    let base = format!("http://127.0.0.1:{}", server.port);
+    let mut problems = Vec::new();
+    goto(c, &format!("{base}/organiser")).await;
+    c.find(Locator::Id("token"))
+        .await
+        .expect("the sign-in form");
+    check(c, "sign-in page", &how, &mut problems).await;
+    goto(c, &format!("{base}/")).await;
+    check(c, "the form", &how, &mut problems).await;
+    let private = send_form(c, &base).await;
+    check(c, "feedback page", &how, &mut problems).await;
+    goto(c, &format!("{base}{private}")).await;
+    check(c, "review page", &how, &mut problems).await;
+    goto(c, &format!("{base}/submission/999999?key=none")).await;
+    check(c, "message page", &how, &mut problems).await;
+    send_too_much(c, &base).await;
+    check(c, "413 page", &how, &mut problems).await;
+    for path in PUBLIC_PAGES {
+        goto(c, &format!("{base}{path}")).await;
+        check(c, path, &how, &mut problems).await;
+    }
+    goto(c, &format!("{base}/organiser?token={TOKEN}")).await;
+    exclude_first(c).await;
+    settled_report(server);
+    goto(c, &format!("{base}/organiser")).await;
+    c.find(Locator::Id("n-timings")).await.expect("signed in");
+    check(c, "organiser's page", &how, &mut problems).await;
+    goto(c, &format!("{base}/organiser/report.html")).await;
+    check(c, "report", &how, &mut problems).await;
+    goto(c, &format!("file://{}", sheet.display())).await;
+    check(c, "observer's sheet", &how, &mut problems).await;
+    problems
+}
+
+/// Start everything and visit every page on `screen`; the problems found, or `None` when the
+/// test is skipped.
+fn run(name: &str, screen: Screen, axe: Option<&str>) -> Option<Vec<String>> {
+    let (Some(chromium), Some(driver_path)) = (which("chromium"), which("chromedriver")) else {
+        eprintln!("SKIPPED: chromium and chromedriver are not installed (CI installs Debian's chromium and chromium-driver and runs this test)");
+        return None;
+    };
+    let _one = ONE_BROWSER.lock().unwrap_or_else(|e| e.into_inner());
+    let dir = std::env::temp_dir().join(format!("tp-a11y-{}-{name}", std::process::id()));
+    let _ = std::fs::remove_dir_all(&dir);
+    std::fs::create_dir_all(&dir).unwrap();
+    let server = start(&dir.join("campaign.sqlite"), &["--token", TOKEN]);
+    seed(&server);
+    settled_solution(&server);
+    let sheet = sheet(&dir);
+    let driver = start_driver(&driver_path);
+    let runtime = tokio::runtime::Builder::new_current_thread()
+        .enable_all()
+        .build()
+        .unwrap();
+    Some(runtime.block_on(async {
+        let c = session(&driver, &chromium, &dir.join("profile"), screen).await;
+        let how = match (axe, screen) {
+            (Some(source), _) => Check::Axe(source),
+            (None, Screen::Phone { width }) => Check::Width(width),
+            (None, Screen::Desktop) => panic!("a width is checked on a phone"),
+        };
+        let problems = every_page(&c, &server, &sheet, how).await;
+        c.close().await.ok();
+        problems
+    }))
+}
+
+#[test]
+fn axe_finds_no_violation_on_any_page() {
+    let Some(axe) = webdriver::axe_source_or_skip() else {
+        return;
+    };
+    if let Some(problems) = run("axe", Screen::Desktop, Some(&axe)) {
+        assert!(
+            problems.is_empty(),
+            "{} accessibility violations:\n{}",
+            problems.len(),
+            problems.join("\n")
+        );
+    }
+}
+
+#[test]
+fn every_page_fits_a_phone_360_px_wide() {
+    let phone = Screen::Phone {
+        width: PHONE_WIDTH_PX,
+    };
+    if let Some(problems) = run("phone", phone, None) {
+        assert!(
+            problems.is_empty(),
+            "pages wider than the phone:\n{}",
+            problems.join("\n")
+        );
+    }
+}
