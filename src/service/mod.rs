@@ -9,6 +9,7 @@
 //! - `intake.rs`: a submission's JSON body or form into timings.
 //! - `feedback.rs`: each timing against its prediction at once, and the station's share.
 //! - `pages.rs`: the participant's pages.
+//! - `feedback_page.rs`: the reply to a submission: one card per timing, the path drawn.
 //! - `organiser.rs`: the organiser's page.
 //! - `server.rs`: the state, the participant's routes, the background reduction.
 //! - `routes.rs`: the organiser's and the interface's routes, the router, the start.
@@ -19,6 +20,7 @@
 pub mod cache;
 pub mod cached;
 pub mod feedback;
+pub mod feedback_page;
 pub mod forgery;
 pub mod intake;
 pub mod limits;

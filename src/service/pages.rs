@@ -3,7 +3,6 @@
 //! (the file upload too), nothing fetched from elsewhere, every string from a participant
 //! escaped.
 
-use super::feedback::TimingFeedback;
 use super::store::TimingFields;
 use crate::render::svg::esc;
 use crate::render::text::SAFETY_CAUTION;
@@ -11,7 +10,7 @@ use std::fmt::Write;
 
 /// The pages' style sheet, the exact text of their `<style>` element (allowed by its SHA-256
 /// hash in the content-security policy).
-pub const STYLE: &str = "body{font-family:sans-serif;max-width:1000px;margin:1.5em auto;padding:0 1em;color:#111827;line-height:1.45}table{border-collapse:collapse;margin:1em 0;font-size:0.9em}th,td{border:1px solid #d1d5db;padding:3px 6px;text-align:left;vertical-align:top}th{background:#f3f4f6}.caution{border:2px solid #b91c1c;background:#fef2f2;padding:0.6em 1em;font-weight:bold}.fits{color:#166534}.doubtful{color:#92400e}.rejected{color:#b91c1c}fieldset{margin:1em 0}label{display:inline-block;margin:0.2em 0.8em 0.2em 0}";
+pub const STYLE: &str = "body{font-family:sans-serif;max-width:1000px;margin:1.5em auto;padding:0 1em;color:#111827;line-height:1.45}table{border-collapse:collapse;margin:1em 0;font-size:0.9em}th,td{border:1px solid #d1d5db;padding:3px 6px;text-align:left;vertical-align:top}th{background:#f3f4f6}.caution{border:2px solid #b91c1c;background:#fef2f2;padding:0.6em 1em;font-weight:bold}.fits{color:#166534}.doubtful{color:#92400e}.rejected{color:#b91c1c}fieldset{margin:1em 0}label{display:inline-block;margin:0.2em 0.8em 0.2em 0}.cards{list-style:none;padding:0}.card{border:1px solid #d1d5db;border-radius:6px;padding:0.5em 0.8em;margin:0.8em 0;max-width:40em}.card h3{margin:0.2em 0}.card dt{font-weight:bold;margin-top:0.3em}.card dd{margin:0 0 0 1em;overflow-wrap:anywhere}.station-advice{border-left:4px solid #92400e;padding:0.2em 0.8em}figure.path{margin:1em 0;max-width:360px}svg.limb{width:100%;height:auto}";
 
 /// The page's frame: title, style, the solar caution first.
 pub fn page(title: &str, body: &str) -> String {
@@ -82,58 +81,6 @@ pub fn upload_form(csrf: &str) -> String {
         "<form method=\"post\" action=\"/upload\" enctype=\"multipart/form-data\">\n<input type=\"hidden\" name=\"csrf\" value=\"{}\"/>\n<fieldset><legend>Or send an observations file (CSV with the columns above, or an .xlsx or .ods spreadsheet)</legend>\n<input type=\"file\" name=\"file\" id=\"file\" accept=\".csv,.tsv,.txt,.xlsx,.ods,text/csv\"/> <button type=\"submit\" id=\"upload\">Send the file</button></fieldset>\n</form>\n",
         esc(csrf)
     )
-}
-
-/// The feedback table for a submission's timings.
-pub fn feedback_table(fields: &[TimingFields], fb: &[TimingFeedback]) -> String {
-    let mut s = String::from("<table id=\"feedback\"><tr><th>station</th><th>contact</th><th>your time</th><th>predicted</th><th>O - C (s)</th><th>Sun's altitude</th><th>verdict</th><th>what it means</th></tr>\n");
-    for (f, b) in fields.iter().zip(fb) {
-        let time = if f.time_utc.is_empty() {
-            &f.time_local
-        } else {
-            &f.time_utc
-        };
-        let _ = writeln!(
-            s,
-            "<tr><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td class=\"{v}\">{v}</td><td>{}</td></tr>",
-            esc(&f.station),
-            esc(&f.contact),
-            esc(time),
-            esc(b.predicted_utc.as_deref().unwrap_or("-")),
-            b.o_c_s.map_or("-".into(), |x| format!("{x:+.1}")),
-            b.sun_altitude_deg.map_or("-".into(), |x| format!("{x:.1} deg")),
-            esc(b.diagnosis.as_deref().unwrap_or("")),
-            v = b.verdict,
-        );
-    }
-    s.push_str("</table>\n");
-    s
-}
-
-/// The reply page after a submission.
-pub fn feedback_page(
-    id: i64,
-    link: &str,
-    (fields, fb): (&[TimingFields], &[TimingFeedback]),
-    share: Option<f64>,
-    duplicate: bool,
-) -> String {
-    let mut body = String::new();
-    if duplicate {
-        body.push_str(
-            "<p>This is the same as a submission already received; it was not counted twice.</p>\n",
-        );
-    }
-    let _ = writeln!(
-        body,
-        "<p id=\"received\">Received and stored as submission {id}.</p>"
-    );
-    body.push_str(&feedback_table(fields, fb));
-    if let Some(x) = share {
-        let _ = writeln!(body, "<p>This station's expected share of the information on the solar parallax so far: {:.1} % (before the planet's place and the radii are fitted).</p>", 100.0 * x);
-    }
-    let _ = writeln!(body, "<p>To review or correct your submission later, keep this private link: <a id=\"private\" href=\"{l}\">{l}</a>. A correction is stored as a new version; the old one is kept.</p>\n<p><a href=\"/\">Send another</a></p>", l = esc(link));
-    page("Thank you: your timings", &body)
 }
 
 /// A page with one message (errors, refusals).
