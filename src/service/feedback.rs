@@ -284,9 +284,14 @@ fn judge_interval(
 /// A reason of the reader in plain words: no "ISO 8601", an example of the form expected
 /// (`example`, a time of this event).
 fn plain_reason(reason: &str, example: &str) -> (String, String) {
-    if let Some(rest) = reason.split(" is not an ISO 8601").next().filter(|_| reason.contains("ISO 8601")) {
+    if reason.contains("ISO 8601") {
+        let quoted = reason.split('\'').nth(1).filter(|q| !q.is_empty());
+        let what = match quoted {
+            Some(q) => format!("the time '{q}' could not be read as a date and time"),
+            None => "a time could not be read as a date and time".to_string(),
+        };
         return (
-            format!("the time {} could not be read as a date and time", rest.trim()),
+            what,
             format!("write the date and the time of day in UTC, like {example}"),
         );
     }
@@ -303,6 +308,15 @@ pub fn example_time(event: &TransitEvent) -> String {
     event.label(h).format("%Y-%m-%d %H:%M:%S UTC").to_string()
 }
 
+/// The contact as the participant wrote it (as stored where that is not known).
+fn as_written(f: &TimingFields) -> &str {
+    if f.contact_as_written.is_empty() {
+        &f.contact
+    } else {
+        &f.contact_as_written
+    }
+}
+
 /// Feedback for each timing of a submission, in order, and the offsets its stations share.
 pub fn feedback(event: &TransitEvent, fields: &[TimingFields]) -> SubmissionFeedback {
     let example = example_time(event);
@@ -311,7 +325,7 @@ pub fn feedback(event: &TransitEvent, fields: &[TimingFields]) -> SubmissionFeed
             .iter()
             .map(|f| {
                 let (why, what) = plain_reason("the submission could not be read as timings", &example);
-                TimingFeedback::unread(&f.contact, None, why, what)
+                TimingFeedback::unread(as_written(f), None, why, what)
             })
             .collect();
         return SubmissionFeedback { timings, stations: Vec::new() };
@@ -321,13 +335,14 @@ pub fn feedback(event: &TransitEvent, fields: &[TimingFields]) -> SubmissionFeed
         .enumerate()
         .map(|(k, f)| {
             let line = k as u64 + 2;
+            let written = as_written(f);
             if let Some(obs) = set.valid.iter().find(|o| o.line == line) {
-                return judge(event, obs, &f.contact);
+                return judge(event, obs, written);
             }
             let r = set.rejected.iter().find(|r| r.line == line);
             let reason = r.and_then(|r| r.diagnosis.clone()).unwrap_or_else(|| "the row cannot be read".into());
             let (why, what) = plain_reason(&reason, &example);
-            TimingFeedback::unread(&f.contact, r.and_then(|r| r.contact), why, what)
+            TimingFeedback::unread(written, r.and_then(|r| r.contact), why, what)
         })
         .collect();
     let stations = station_offsets(&mut timings);
@@ -454,4 +469,106 @@ pub fn parallax_information(event: &TransitEvent, fields: &[TimingFields]) -> f6
             up.then(|| (sensitivity / o.sigma_s).powi(2))
         })
         .sum()
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::{transit_on_date, Planet, TimeModel};
+
+    fn event_2012() -> TransitEvent {
+        let date = chrono::NaiveDate::from_ymd_opt(2012, 6, 6).unwrap();
+        transit_on_date(Planet::Venus, date, &TimeModel::default()).unwrap()
+    }
+
+    /// Rows of an invented station, each contact at its prediction plus `offsets_s`.
+    fn rows(event: &TransitEvent, contacts: &[(&str, f64)], sigma_s: &str) -> Vec<TimingFields> {
+        let st = Station::new("Quayside Club", 22.28, 114.16, 40.0).unwrap();
+        let p = event.predict(&st);
+        contacts
+            .iter()
+            .map(|(written, offset_s)| {
+                let c = crate::geometry::contacts::Contact::parse(written).unwrap();
+                let h = p.contacts[c.index()].unwrap().hours + offset_s / 3600.0;
+                TimingFields {
+                    station: st.name.clone(),
+                    latitude: "22.28".into(),
+                    longitude: "114.16".into(),
+                    elevation_m: "40".into(),
+                    contact: c.number().to_string(),
+                    contact_as_written: written.to_string(),
+                    time_utc: crate::time::iso::format_utc(event.label(h), 1),
+                    sigma_s: sigma_s.into(),
+                    ..TimingFields::default()
+                }
+            })
+            .collect()
+    }
+
+    #[test]
+    fn contacts_are_echoed_as_written() {
+        let event = event_2012();
+        let fb = feedback(&event, &rows(&event, &[("II", 3.0), ("c3", -2.0)], "8"));
+        assert_eq!(fb.timings[0].contact_as_written, "II");
+        assert_eq!(fb.timings[0].contact, Some(2));
+        assert_eq!(fb.timings[1].contact_as_written, "c3");
+        for t in &fb.timings {
+            assert_eq!(t.verdict, "fits", "{t:?}");
+            assert!(t.diagnosis.as_deref().unwrap().contains("than predicted"));
+        }
+        assert!(fb.stations.is_empty());
+    }
+
+    #[test]
+    fn a_station_wide_offset_is_named_once() {
+        // A clock about a minute off: four different advices before (issue 20).
+        let event = event_2012();
+        let contacts = [("I", 62.0), ("II", 58.0), ("III", 66.0), ("IV", 61.0)];
+        let fb = feedback(&event, &rows(&event, &contacts, "20"));
+        assert_eq!(fb.stations.len(), 1, "{:?}", fb.stations);
+        let advice = &fb.stations[0].advice;
+        assert!(advice.starts_with("all four of your timings are about 62 s late"), "{advice}");
+        assert!(advice.contains("check the clock"), "{advice}");
+        for t in &fb.timings {
+            assert!(t.station_offset);
+            assert_ne!(t.verdict, "fits", "{t:?}");
+            assert_eq!(t.advice.as_deref(), Some("see what to change for the whole station, above"));
+        }
+        // A zone left in is named as such.
+        let zone = [("II", 8.0 * 3600.0 + 2.0), ("III", 8.0 * 3600.0 - 3.0)];
+        let fb = feedback(&event, &rows(&event, &zone, "8"));
+        assert!(fb.stations[0].advice.contains("both of your timings are about 8 h late"));
+        assert!(fb.stations[0].advice.contains("subtract 8 h"));
+        assert_eq!(fb.timings[0].verdict, "rejected");
+        assert_eq!(fb.timings[0].verdict_words, "probably a slip you can fix");
+        // Timings that disagree among themselves get their own words.
+        let mixed = [("II", 60.0), ("III", -60.0)];
+        assert!(feedback(&event, &rows(&event, &mixed, "8")).stations.is_empty());
+    }
+
+    #[test]
+    fn an_unreadable_time_is_said_plainly_with_an_example() {
+        let event = event_2012();
+        let mut r = rows(&event, &[("II", 0.0)], "8");
+        r[0].time_utc = "half past ten".into();
+        let fb = feedback(&event, &r);
+        assert_eq!(fb.rows_read(), 0);
+        let t = &fb.timings[0];
+        assert_eq!(t.verdict, "rejected");
+        assert_eq!(t.verdict_words, "could not be read");
+        let all = format!("{} {}", t.diagnosis.as_deref().unwrap(), t.advice.as_deref().unwrap());
+        assert!(!all.contains("ISO"), "{all}");
+        assert!(all.contains("like 2012-06-05 22:"), "{all}");
+        // The example shown is a form the reader takes.
+        let ex = example_time(&event);
+        assert!(crate::time::iso::parse_utc(&ex).is_ok(), "{ex}");
+    }
+
+    #[test]
+    fn the_difference_in_words() {
+        assert_eq!(difference_words(12.04), "12.0 s later than predicted");
+        assert_eq!(difference_words(-3.0), "3.0 s earlier than predicted");
+        assert_eq!(difference_words(983.0), "16 min 23 s later than predicted");
+        assert_eq!(difference_words(-28_803.0), "8 h 0 min earlier than predicted");
+    }
 }

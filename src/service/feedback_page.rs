@@ -143,6 +143,22 @@ pub fn drawings(event: &TransitEvent, fb: &SubmissionFeedback) -> String {
     s
 }
 
+/// A station's expected share of the information on the parallax, `own / (own + rest)`
+/// (arcsec^-2 each), once `stations` (the network with this one) reaches
+/// [`MIN_STATIONS_FOR_SHARE`]; else the sentence that says when it will show.
+pub fn share_of(own: f64, rest: f64, stations: usize) -> Result<f64, String> {
+    if stations < MIN_STATIONS_FOR_SHARE {
+        return Err(format!(
+            "your share of the campaign's information on the solar parallax will show once at least {MIN_STATIONS_FOR_SHARE} stations have sent timings ({stations} so far): the parallax is measured by comparing stations"
+        ));
+    }
+    if own > 0.0 && (own + rest).is_finite() {
+        Ok(own / (own + rest))
+    } else {
+        Err("these timings carry no information on the parallax yet (none of them could be used)".into())
+    }
+}
+
 /// What the page says of the station's share: the share once the network has
 /// [`MIN_STATIONS_FOR_SHARE`] stations, else when it will show.
 pub fn share_sentence(share: &Result<f64, String>) -> String {
@@ -187,4 +203,22 @@ pub fn feedback_page(
     }
     let _ = writeln!(body, "<p>To review or correct your submission later, keep this private link: <a id=\"private\" href=\"{l}\">{l}</a>. A correction is stored as a new version; the old one is kept.</p>\n<p><a href=\"/\">Send another</a></p>", l = esc(link));
     page(title, &body)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn no_share_before_the_network() {
+        // The first station alone would hold "100.0 %" (issue 20).
+        let first = share_of(3.0, 0.0, 1);
+        assert!(first.as_ref().is_err_and(|s| s.contains("at least 3 stations")), "{first:?}");
+        assert!(!share_sentence(&first).contains('%'));
+        assert!(share_of(3.0, 5.0, 2).is_err());
+        let third = share_of(3.0, 9.0, 3).unwrap();
+        assert!((third - 0.25).abs() < 1e-12);
+        assert!(share_sentence(&Ok(third)).contains("25.0 %"));
+        assert!(share_of(0.0, 9.0, 4).is_err(), "no zero share of nothing");
+    }
 }

@@ -6,7 +6,7 @@ use super::cache::Cache;
 use super::feedback::{feedback, parallax_information};
 use super::forgery::{refused_form, Visitor};
 use super::intake::{from_form, from_json};
-use super::feedback_page::{feedback_cards, feedback_page, MIN_STATIONS_FOR_SHARE};
+use super::feedback_page::{feedback_cards, feedback_page, share_of};
 use super::pages::{message_page, page, timing_form};
 use super::store::{Store, TimingFields};
 use crate::geometry::transit::TransitEvent;
@@ -136,7 +136,8 @@ impl App {
     }
 
     /// The station's expected share of the information on the parallax, once the network
-    /// (the latest solution's stations and these) has [`MIN_STATIONS_FOR_SHARE`] stations;
+    /// (the latest solution's stations and these) has
+    /// [`super::feedback_page::MIN_STATIONS_FOR_SHARE`] stations;
     /// else the sentence that says when it will show.
     fn share(&self, fields: &[TimingFields]) -> Result<f64, String> {
         let solved = self.cache.solved();
@@ -150,20 +151,8 @@ impl App {
                 names.push(&f.station);
             }
         }
-        let waiting = format!(
-            "your share of the campaign's information on the solar parallax will show once at least {MIN_STATIONS_FOR_SHARE} stations have sent timings ({} so far): the parallax is measured by comparing stations",
-            names.len()
-        );
-        if names.len() < MIN_STATIONS_FOR_SHARE {
-            return Err(waiting);
-        }
         let own = parallax_information(&self.event, fields);
-        let rest = solved.information;
-        if own > 0.0 && own + rest > 0.0 {
-            Ok(own / (own + rest))
-        } else {
-            Err("these timings carry no information on the parallax (none could be used)".into())
-        }
+        share_of(own, solved.information, names.len())
     }
 }
 

@@ -24,8 +24,13 @@ impl Drop for Server {
 /// Start `serve` for the transit of Venus of 2012 on `db`, with `extra` arguments; waits for
 /// its start-up lines.
 pub fn start(db: &std::path::Path, extra: &[&str]) -> Server {
+    start_event(db, ("venus", "2012-06-06"), extra)
+}
+
+/// Start `serve` for the transit (planet, date) on `db`, with `extra` arguments.
+pub fn start_event(db: &std::path::Path, (planet, date): (&str, &str), extra: &[&str]) -> Server {
     let mut child = Command::new(env!("CARGO_BIN_EXE_transit-parallax"))
-        .args(["serve", "--planet", "venus", "--date", "2012-06-06", "--db"])
+        .args(["serve", "--planet", planet, "--date", date, "--db"])
         .arg(db)
         .args(["--listen", "127.0.0.1:0", "--stop-after", "300"])
         .args(extra)
