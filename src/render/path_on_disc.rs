@@ -47,7 +47,13 @@ pub fn contact_places(event: &TransitEvent, station: &Station) -> Vec<(Contact, 
         .contacts
         .iter()
         .flatten()
-        .map(|c| (c.contact, c.hours, disc_place(&event.elements, Some(&geo), c.hours)))
+        .map(|c| {
+            (
+                c.contact,
+                c.hours,
+                disc_place(&event.elements, Some(&geo), c.hours),
+            )
+        })
         .collect()
 }
 
@@ -129,7 +135,10 @@ pub fn path_on_disc_svg(
     let last_h = contacts.last()?.1;
     let (points, radius_px) = track(event, station, first_h, last_h);
     let (w, h) = VIEW_PX;
-    let title = format!("The planet's path across the Sun seen from {}", station.name);
+    let title = format!(
+        "The planet's path across the Sun seen from {}",
+        station.name
+    );
     let text = text_alternative(event, station, &contacts, marks);
     let mut s = format!(
         "<svg xmlns=\"http://www.w3.org/2000/svg\" viewBox=\"0 0 {w} {h}\" role=\"img\" aria-labelledby=\"{id}-title {id}-desc\" class=\"limb path\">\n<title id=\"{id}-title\">{}</title>\n<desc id=\"{id}-desc\">{}</desc>\n",
@@ -138,7 +147,10 @@ pub fn path_on_disc_svg(
     );
     s.push_str(&disc_with_frame(LimbFrame::North));
     let _ = writeln!(s, "<polyline points=\"{points}\" fill=\"none\" stroke=\"#9ca3af\" stroke-width=\"{:.1}\" stroke-linecap=\"round\" stroke-opacity=\"0.6\"/>", (2.0 * radius_px).max(2.0));
-    let _ = writeln!(s, "<polyline points=\"{points}\" fill=\"none\" stroke=\"#111827\" stroke-width=\"0.8\"/>");
+    let _ = writeln!(
+        s,
+        "<polyline points=\"{points}\" fill=\"none\" stroke=\"#111827\" stroke-width=\"0.8\"/>"
+    );
     let limb: Vec<LimbMark> = contacts
         .iter()
         .map(|(c, _, p)| LimbMark {
@@ -249,6 +261,9 @@ mod tests {
         assert!(svg.contains(">II fits</text>"), "{svg}");
         assert!(!svg.contains("style="));
         assert!(text.contains("Your contact II: fits, marked"), "{text}");
-        assert!(text.contains("Your contact III: rejected, too far"), "{text}");
+        assert!(
+            text.contains("Your contact III: rejected, too far"),
+            "{text}"
+        );
     }
 }

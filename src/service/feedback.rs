@@ -163,7 +163,11 @@ pub fn difference_words(o_c_s: f64) -> String {
     } else if a < 3600.0 {
         format!("{:.0} min {:.0} s", (a / 60.0).floor(), a % 60.0)
     } else {
-        format!("{:.0} h {:.0} min", (a / 3600.0).floor(), ((a % 3600.0) / 60.0).floor())
+        format!(
+            "{:.0} h {:.0} min",
+            (a / 3600.0).floor(),
+            ((a % 3600.0) / 60.0).floor()
+        )
     };
     format!("{size} {side} than predicted")
 }
@@ -205,8 +209,13 @@ fn judge(event: &TransitEvent, obs: &Observation, written: &str) -> TimingFeedba
     fb.o_c_s = Some(o_c);
     fb.sun_altitude_deg = Some(c.sun_altitude_deg);
     if c.sun_altitude_deg < MIN_VISIBLE_ALTITUDE_DEG {
-        fb.diagnosis = Some(format!("the Sun was {:.1} degrees below the horizon at your station at this contact", -c.sun_altitude_deg));
-        fb.advice = Some("check your station's coordinates (west longitudes are negative) and the date".into());
+        fb.diagnosis = Some(format!(
+            "the Sun was {:.1} degrees below the horizon at your station at this contact",
+            -c.sun_altitude_deg
+        ));
+        fb.advice = Some(
+            "check your station's coordinates (west longitudes are negative) and the date".into(),
+        );
         return fb;
     }
     let tolerance_s = FIT_SIGMAS * tolerance_sigma_s(obs.sigma_s);
@@ -218,13 +227,23 @@ fn judge(event: &TransitEvent, obs: &Observation, written: &str) -> TimingFeedba
         &Perturbation::NOMINAL,
         tolerance_s,
     );
-    set_verdict(&mut fb, agreement(o_c, obs.sigma_s), (o_c, obs.sigma_s), far);
+    set_verdict(
+        &mut fb,
+        agreement(o_c, obs.sigma_s),
+        (o_c, obs.sigma_s),
+        far,
+    );
     fb
 }
 
 /// The verdict and its words for an instant `o_c_s` from its prediction, of uncertainty
 /// `sigma_s`; `far` the blunder that explains it, if any.
-fn set_verdict(fb: &mut TimingFeedback, verdict: Agreement, (o_c_s, sigma_s): (f64, f64), far: Option<String>) {
+fn set_verdict(
+    fb: &mut TimingFeedback,
+    verdict: Agreement,
+    (o_c_s, sigma_s): (f64, f64),
+    far: Option<String>,
+) {
     let diff = difference_words(o_c_s);
     fb.verdict = verdict.as_str();
     (fb.verdict_words, fb.diagnosis, fb.advice) = match (verdict, far) {
@@ -274,7 +293,12 @@ fn judge_interval(
     let o_c = (observed_h - (b.hours - a.hours)) * 3600.0;
     fb.o_c_s = Some(o_c);
     fb.sun_altitude_deg = Some(a.sun_altitude_deg.min(b.sun_altitude_deg));
-    set_verdict(&mut fb, agreement(o_c, obs.sigma_s), (o_c, obs.sigma_s), None);
+    set_verdict(
+        &mut fb,
+        agreement(o_c, obs.sigma_s),
+        (o_c, obs.sigma_s),
+        None,
+    );
     if let Some(text) = &mut fb.diagnosis {
         *text = text.replace("than predicted", "than the predicted interval");
     }
@@ -324,11 +348,15 @@ pub fn feedback(event: &TransitEvent, fields: &[TimingFields]) -> SubmissionFeed
         let timings = fields
             .iter()
             .map(|f| {
-                let (why, what) = plain_reason("the submission could not be read as timings", &example);
+                let (why, what) =
+                    plain_reason("the submission could not be read as timings", &example);
                 TimingFeedback::unread(as_written(f), None, why, what)
             })
             .collect();
-        return SubmissionFeedback { timings, stations: Vec::new() };
+        return SubmissionFeedback {
+            timings,
+            stations: Vec::new(),
+        };
     };
     let mut timings: Vec<TimingFeedback> = fields
         .iter()
@@ -340,7 +368,9 @@ pub fn feedback(event: &TransitEvent, fields: &[TimingFields]) -> SubmissionFeed
                 return judge(event, obs, written);
             }
             let r = set.rejected.iter().find(|r| r.line == line);
-            let reason = r.and_then(|r| r.diagnosis.clone()).unwrap_or_else(|| "the row cannot be read".into());
+            let reason = r
+                .and_then(|r| r.diagnosis.clone())
+                .unwrap_or_else(|| "the row cannot be read".into());
             let (why, what) = plain_reason(&reason, &example);
             TimingFeedback::unread(written, r.and_then(|r| r.contact), why, what)
         })
@@ -412,25 +442,49 @@ fn refer_to_station(t: &mut TimingFeedback, offset_s: f64) {
     };
     t.station_offset = true;
     t.diagnosis = Some(format!(
-        "{}: the offset that all your timings share (said once, above); without it this timing is {:+.1} s from its prediction",
+        "{}: part of the offset that all your timings share, probably {} (said once, above); without it this timing is {:+.1} s from its prediction",
         difference_words(o_c),
+        offset_cause(offset_s),
         o_c - offset_s
     ));
     t.advice = Some("see what to change for the whole station, above".into());
+}
+
+/// What an offset common to a station's timings probably is, in a few words (the
+/// classification of [`station_advice`]).
+fn offset_cause(offset_s: f64) -> String {
+    let days = (offset_s / 86_400.0).round();
+    let halves = (offset_s / 1800.0).round();
+    if days != 0.0 && (offset_s - 86_400.0 * days).abs() < 120.0 {
+        format!(
+            "a date off by {}",
+            crate::words::count(days.abs() as usize, "day", "days")
+        )
+    } else if halves != 0.0 && halves.abs() <= 28.0 && (offset_s - 1800.0 * halves).abs() < 120.0 {
+        format!("a time zone of {} h left in", halves.abs() / 2.0)
+    } else {
+        format!("a clock off by about {:.0} s", offset_s.abs())
+    }
 }
 
 /// What an offset common to all `n` timings of a station probably is, and what to change:
 /// a whole day (the date), whole or half hours (a time zone left in), or else the clock.
 /// Common practice, no single source (the blunders of docs/reduction.md).
 pub fn station_advice(offset_s: f64, n: usize) -> String {
-    const WORDS: [&str; 9] = ["", "one", "two", "three", "four", "five", "six", "seven", "eight"];
+    const WORDS: [&str; 9] = [
+        "", "one", "two", "three", "four", "five", "six", "seven", "eight",
+    ];
     let all = match n {
         2 => "both of your timings".to_string(),
         3..=8 => format!("all {} of your timings", WORDS[n]),
         _ => format!("all {n} of your timings"),
     };
     let side = if offset_s > 0.0 { "late" } else { "early" };
-    let (fix, back) = if offset_s > 0.0 { ("subtract", "from") } else { ("add", "to") };
+    let (fix, back) = if offset_s > 0.0 {
+        ("subtract", "from")
+    } else {
+        ("add", "to")
+    };
     let days = (offset_s / 86_400.0).round();
     if days != 0.0 && (offset_s - 86_400.0 * days).abs() < 120.0 {
         return format!("{all} are about {} {side}: the date is probably wrong; check the date you wrote and send them again", crate::words::count(days.abs() as usize, "day", "days"));
@@ -527,23 +581,33 @@ mod tests {
         let fb = feedback(&event, &rows(&event, &contacts, "20"));
         assert_eq!(fb.stations.len(), 1, "{:?}", fb.stations);
         let advice = &fb.stations[0].advice;
-        assert!(advice.starts_with("all four of your timings are about 62 s late"), "{advice}");
+        assert!(
+            advice.starts_with("all four of your timings are about 62 s late"),
+            "{advice}"
+        );
         assert!(advice.contains("check the clock"), "{advice}");
         for t in &fb.timings {
             assert!(t.station_offset);
             assert_ne!(t.verdict, "fits", "{t:?}");
-            assert_eq!(t.advice.as_deref(), Some("see what to change for the whole station, above"));
+            assert_eq!(
+                t.advice.as_deref(),
+                Some("see what to change for the whole station, above")
+            );
         }
         // A zone left in is named as such.
         let zone = [("II", 8.0 * 3600.0 + 2.0), ("III", 8.0 * 3600.0 - 3.0)];
         let fb = feedback(&event, &rows(&event, &zone, "8"));
-        assert!(fb.stations[0].advice.contains("both of your timings are about 8 h late"));
+        assert!(fb.stations[0]
+            .advice
+            .contains("both of your timings are about 8 h late"));
         assert!(fb.stations[0].advice.contains("subtract 8 h"));
         assert_eq!(fb.timings[0].verdict, "rejected");
         assert_eq!(fb.timings[0].verdict_words, "probably a slip you can fix");
         // Timings that disagree among themselves get their own words.
         let mixed = [("II", 60.0), ("III", -60.0)];
-        assert!(feedback(&event, &rows(&event, &mixed, "8")).stations.is_empty());
+        assert!(feedback(&event, &rows(&event, &mixed, "8"))
+            .stations
+            .is_empty());
     }
 
     #[test]
@@ -556,7 +620,11 @@ mod tests {
         let t = &fb.timings[0];
         assert_eq!(t.verdict, "rejected");
         assert_eq!(t.verdict_words, "could not be read");
-        let all = format!("{} {}", t.diagnosis.as_deref().unwrap(), t.advice.as_deref().unwrap());
+        let all = format!(
+            "{} {}",
+            t.diagnosis.as_deref().unwrap(),
+            t.advice.as_deref().unwrap()
+        );
         assert!(!all.contains("ISO"), "{all}");
         assert!(all.contains("like 2012-06-05 22:"), "{all}");
         // The example shown is a form the reader takes.
@@ -569,6 +637,9 @@ mod tests {
         assert_eq!(difference_words(12.04), "12.0 s later than predicted");
         assert_eq!(difference_words(-3.0), "3.0 s earlier than predicted");
         assert_eq!(difference_words(983.0), "16 min 23 s later than predicted");
-        assert_eq!(difference_words(-28_803.0), "8 h 0 min earlier than predicted");
+        assert_eq!(
+            difference_words(-28_803.0),
+            "8 h 0 min earlier than predicted"
+        );
     }
 }

@@ -155,7 +155,10 @@ pub fn share_of(own: f64, rest: f64, stations: usize) -> Result<f64, String> {
     if own > 0.0 && (own + rest).is_finite() {
         Ok(own / (own + rest))
     } else {
-        Err("these timings carry no information on the parallax yet (none of them could be used)".into())
+        Err(
+            "these timings carry no information on the parallax yet (none of them could be used)"
+                .into(),
+        )
     }
 }
 
@@ -189,11 +192,18 @@ pub fn feedback_page(
         "Your timings could not be read"
     } else {
         let unread = if read < total {
-            format!(" {} could not be read: see below.", crate::words::count(total - read, "row", "rows"))
+            format!(
+                " {} could not be read: see below.",
+                crate::words::count(total - read, "row", "rows")
+            )
         } else {
             String::new()
         };
-        let _ = writeln!(body, "<p id=\"received\">Received and stored as submission {id}: {} read.{unread}</p>", crate::words::count(read, "timing", "timings"));
+        let _ = writeln!(
+            body,
+            "<p id=\"received\">Received and stored as submission {id}: {} read.{unread}</p>",
+            crate::words::count(read, "timing", "timings")
+        );
         "Thank you: your timings"
     };
     body.push_str(&drawings(event, fb));
@@ -213,7 +223,12 @@ mod tests {
     fn no_share_before_the_network() {
         // The first station alone would hold "100.0 %" (issue 20).
         let first = share_of(3.0, 0.0, 1);
-        assert!(first.as_ref().is_err_and(|s| s.contains("at least 3 stations")), "{first:?}");
+        assert!(
+            first
+                .as_ref()
+                .is_err_and(|s| s.contains("at least 3 stations")),
+            "{first:?}"
+        );
         assert!(!share_sentence(&first).contains('%'));
         assert!(share_of(3.0, 5.0, 2).is_err());
         let third = share_of(3.0, 9.0, 3).unwrap();

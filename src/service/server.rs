@@ -4,9 +4,9 @@
 
 use super::cache::Cache;
 use super::feedback::{feedback, parallax_information};
+use super::feedback_page::{feedback_cards, feedback_page, share_of};
 use super::forgery::{refused_form, Visitor};
 use super::intake::{from_form, from_json};
-use super::feedback_page::{feedback_cards, feedback_page, share_of};
 use super::pages::{message_page, page, timing_form};
 use super::store::{Store, TimingFields};
 use crate::geometry::transit::TransitEvent;
@@ -144,7 +144,13 @@ impl App {
         let mut names: Vec<&str> = solved
             .reduction
             .as_ref()
-            .map(|r| r.stations.iter().filter(|s| s.timings > 0).map(|s| s.station.as_str()).collect())
+            .map(|r| {
+                r.stations
+                    .iter()
+                    .filter(|s| s.timings > 0)
+                    .map(|s| s.station.as_str())
+                    .collect()
+            })
             .unwrap_or_default();
         for f in fields {
             if !names.contains(&f.station.as_str()) {

@@ -23,7 +23,11 @@ fn split_zone(text: &str) -> std::result::Result<(&str, Zone), String> {
     }
     // "2012-06-05 22:25:41 UTC", as people write it.
     let utc_at = text.len().saturating_sub(3);
-    if utc_at > 10 && text.get(utc_at..).is_some_and(|z| z.eq_ignore_ascii_case("utc")) {
+    if utc_at > 10
+        && text
+            .get(utc_at..)
+            .is_some_and(|z| z.eq_ignore_ascii_case("utc"))
+    {
         return Ok((text[..utc_at].trim_end(), Zone::Utc));
     }
     // A sign after the date part (position 10 on) starts an offset.
