@@ -5,8 +5,9 @@
 
 mod common;
 
-use common::server::{get, post_json, request, settled_solution, start, start_event, visitor};
-use common::{out, run, temp};
+use common::server::{
+    get, post_json, predicted_utc, request, settled_solution, start, start_event, visitor,
+};
 use serde_json::{json, Value};
 
 fn db(name: &str) -> std::path::PathBuf {
@@ -16,33 +17,8 @@ fn db(name: &str) -> std::path::PathBuf {
     dir.join("campaign.sqlite")
 }
 
-/// The tool's own predicted times (UTC labels) of contacts I-IV at a station, for 2012.
 fn predicted(name: &str, lat: f64, lon: f64) -> Vec<Option<String>> {
-    let stations = temp(
-        &format!("fb-st-{name}.csv"),
-        format!("station,latitude,longitude,elevation_m\n{name},{lat},{lon},0\n").as_bytes(),
-    );
-    let o = run(&[
-        "predict",
-        "--planet",
-        "venus",
-        "--date",
-        "2012-06-06",
-        "--stations",
-        &stations,
-        "--format",
-        "json",
-    ]);
-    let v: Value = serde_json::from_str(&out(&o)).unwrap();
-    (1..=4)
-        .map(|c| {
-            v.as_array()
-                .unwrap()
-                .iter()
-                .find(|r| r["contact"] == c)
-                .and_then(|r| r["time_utc"].as_str().map(String::from))
-        })
-        .collect()
+    predicted_utc(name, lat, lon)
 }
 
 fn shifted(time_utc: &str, by_s: f64) -> String {

@@ -104,7 +104,7 @@ fn capitalised(text: &str) -> String {
     }
 }
 
-/// The path across the disc for each station of the submission (up to [`MAX_DRAWINGS`]),
+/// The path across the disc for each station of the submission (up to three),
 /// with its timings on it, each in a figure with its text alternative.
 pub fn drawings(event: &TransitEvent, fb: &SubmissionFeedback) -> String {
     let mut names: Vec<&str> = Vec::new();

@@ -261,3 +261,25 @@ pub fn assert_export_reduces_to(
     }
     direct
 }
+
+/// The tool's own predicted times (UTC labels, as `predict --format json` writes them) of
+/// contacts I-IV of 2012 at a station, `None` where a contact does not occur.
+pub fn predicted_utc(name: &str, lat: f64, lon: f64) -> Vec<Option<String>> {
+    let stations = super::temp(
+        &format!("st-{name}-{lat}-{lon}.csv"),
+        format!("station,latitude,longitude,elevation_m\n{name},{lat},{lon},0\n").as_bytes(),
+    );
+    let o = super::run_words(
+        "predict --planet venus --date 2012-06-06 --format json --stations",
+        &[&stations],
+    );
+    let v: serde_json::Value = serde_json::from_str(&super::out(&o)).expect("JSON");
+    (1..=4)
+        .map(|c| {
+            v.as_array()?
+                .iter()
+                .find(|r| r["contact"] == c)
+                .and_then(|r| r["time_utc"].as_str().map(String::from))
+        })
+        .collect()
+}
