@@ -54,7 +54,11 @@ fn card(f: &TimingFields, b: &TimingFeedback) -> String {
         pair(&mut s, "Predicted", p);
     }
     if let Some(x) = b.o_c_s {
-        pair(&mut s, "Difference", &super::feedback::difference_words(x));
+        pair(
+            &mut s,
+            "Difference",
+            &super::feedback_words::difference_words(x),
+        );
     }
     if let Some(a) = b.sun_altitude_deg {
         pair(&mut s, "Sun's altitude", &format!("{a:.1} degrees"));

@@ -9,6 +9,7 @@
 //! - `intake.rs`: a submission's JSON body or form into timings.
 //! - `feedback.rs`: each timing against its prediction at once, and the station's share.
 //! - `pages.rs`: the participant's pages.
+//! - `feedback_words.rs`: the feedback's plain words (differences, reasons, station offsets).
 //! - `feedback_page.rs`: the reply to a submission: one card per timing, the path drawn.
 //! - `organiser.rs`: the organiser's page.
 //! - `server.rs`: the state, the participant's routes, the background reduction.
@@ -21,6 +22,7 @@ pub mod cache;
 pub mod cached;
 pub mod feedback;
 pub mod feedback_page;
+pub mod feedback_words;
 pub mod forgery;
 pub mod intake;
 pub mod limits;
