@@ -191,6 +191,24 @@ fn feedback_that_fits_is_not_contradicted_by_the_solution() {
     let rejected = solution["rejected"]
         .as_array()
         .unwrap_or_else(|| panic!("no solution: {solution}"));
+    // The blunders do not drag the solution: the clock a minute off is named for its station
+    // (it pulled the parallax to 6.5 arcsec before), and the parallax is the nominal one
+    // within its uncertainty (the timings are the prediction plus a few seconds).
+    let pi = solution["parallax_arcsec"].as_f64().unwrap();
+    let sigma = solution["parallax_sigma_arcsec"].as_f64().unwrap();
+    assert!(
+        (pi - 8.794).abs() < 3.0 * sigma && sigma < 2.0,
+        "{pi} +- {sigma}"
+    );
+    let driftwood: Vec<&Value> = rejected
+        .iter()
+        .filter(|r| r["station"] == "Driftwood Bay School")
+        .collect();
+    assert_eq!(driftwood.len(), 4, "{rejected:?}");
+    assert!(driftwood[0]["diagnosis"]
+        .as_str()
+        .unwrap()
+        .contains("clock"));
     for (station, contact) in &fits {
         let against = rejected
             .iter()

@@ -19,6 +19,8 @@
 use crate::geometry::contacts::{Contact, Perturbation};
 use crate::geometry::station::GeocentricStation;
 use crate::geometry::transit::TransitEvent;
+use crate::observations::longitude::LongitudeKnowledge;
+use crate::observations::timings::Observation;
 
 /// The allowance for what the prediction does not know (the parallax to a few tenths of a
 /// per cent, the black drop), seconds; a round figure of ours.
@@ -98,6 +100,22 @@ pub fn nominal_contact_hours(
     contact: Contact,
 ) -> Option<f64> {
     event.contact_hours_perturbed(geo, contact, &Perturbation::NOMINAL)
+}
+
+/// A timing's O - C against the nominal prediction, seconds, where the shared rule applies:
+/// an instant in UTC (or UT1) at a station whose longitude is taken as exact. `None` for an
+/// interval, a local solar time or a longitude to be solved for (their offset from the
+/// nominal prediction is partly what the fit is to find), or where the contact does not
+/// occur.
+///
+/// Arguments: `event`; `obs`, the timing as read; `observed_h`, its instant in hours from the
+/// elements' epoch (TT).
+pub fn nominal_o_c_s(event: &TransitEvent, obs: &Observation, observed_h: f64) -> Option<f64> {
+    if obs.duration.is_some() || obs.local.is_some() || obs.longitude != LongitudeKnowledge::Exact {
+        return None;
+    }
+    let h = nominal_contact_hours(event, &obs.station.geocentric(), obs.contact)?;
+    Some((observed_h - h) * 3600.0)
 }
 
 #[cfg(test)]

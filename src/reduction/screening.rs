@@ -12,14 +12,13 @@
 //! References: F. R. Hampel, JASA 69, 383 (1974) (the median absolute deviation as a robust
 //! scale); sigma clipping against a robust scale is common practice (no single source).
 
-use super::agreement::{agreement, nominal_contact_hours, Agreement};
+use super::agreement::{agreement, nominal_contact_hours, nominal_o_c_s, Agreement};
 use super::equations::{nominal_theta, perturbation, residual_s, Timing};
 use super::fit::{fit, FitOutcome};
 use super::parameters::ParameterSet;
 use super::statistics::{median, robust_sigma};
 use crate::geometry::contacts::{sun_alt_az_parallactic, Contact};
 use crate::geometry::transit::TransitEvent;
-use crate::observations::longitude::LongitudeKnowledge;
 use crate::observations::timings::{Interval, Observation, RejectReason, Rejected};
 use crate::sky::solar_time::{equation_of_time_s, LocalTime};
 use crate::time::calendar::{julian_lag_days, Calendar};
@@ -239,15 +238,8 @@ fn screen_at_nominal(
     candidates: Vec<usize>,
 ) -> (Vec<usize>, Vec<usize>) {
     let gross = |t: &Timing| {
-        if t.obs.duration.is_some()
-            || t.obs.local.is_some()
-            || t.obs.longitude != LongitudeKnowledge::Exact
-        {
-            return false;
-        }
-        nominal_contact_hours(event, &t.geo, t.obs.contact).is_some_and(|h| {
-            agreement((t.observed_h - h) * 3600.0, t.obs.sigma_s) == Agreement::Rejected
-        })
+        nominal_o_c_s(event, &t.obs, t.observed_h)
+            .is_some_and(|r| agreement(r, t.obs.sigma_s) == Agreement::Rejected)
     };
     candidates.into_iter().partition(|&i| !gross(&timings[i]))
 }

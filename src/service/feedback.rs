@@ -27,6 +27,7 @@ use crate::reduction::agreement::{
     agreement, nominal_contact_hours, tolerance_sigma_s, Agreement, FIT_SIGMAS,
 };
 use crate::reduction::diagnosis::{clock_offset_s, explain_row};
+use crate::reduction::rejection::NOMINAL_CLOCK_SIGMAS;
 use crate::reduction::screening::MIN_VISIBLE_ALTITUDE_DEG;
 use serde::Serialize;
 
@@ -359,7 +360,7 @@ fn station_offsets(timings: &mut [TimingFeedback]) -> Vec<StationAdvice> {
             .iter()
             .map(|&k| tolerance_sigma_s(timings[k].sigma_s.unwrap_or(0.0)))
             .collect();
-        let Some(offset_s) = clock_offset_s(&res, &sig, 1.0, 3.0) else {
+        let Some(offset_s) = clock_offset_s(&res, &sig, 1.0, NOMINAL_CLOCK_SIGMAS) else {
             continue;
         };
         for &k in &instants {
