@@ -6,9 +6,10 @@
 mod common;
 
 use common::server::{
-    assert_export_reduces_to, get, post_json, request, settled_solution, sign_in, start, visitor,
+    assert_export_reduces_to, get, post_json, predicted_utc, request, settled_solution, sign_in,
+    start, visitor,
 };
-use common::{err, out, run, temp};
+use common::{err, run};
 
 fn db(name: &str) -> std::path::PathBuf {
     let dir = std::env::temp_dir().join(format!("tp-service-{}-{name}", std::process::id()));
@@ -20,31 +21,11 @@ fn db(name: &str) -> std::path::PathBuf {
 /// A station's timings as the simulator would give them: contacts II and III of a station
 /// in Hong Kong, from the tool's own prediction plus `error_s`.
 fn submission(name: &str, lat: f64, lon: f64, error_s: [f64; 2]) -> String {
-    let stations = temp(
-        &format!("st-{name}.csv"),
-        format!("station,latitude,longitude,elevation_m\n{name},{lat},{lon},0\n").as_bytes(),
-    );
-    let o = run(&[
-        "predict",
-        "--planet",
-        "venus",
-        "--date",
-        "2012-06-06",
-        "--stations",
-        &stations,
-        "--format",
-        "json",
-    ]);
-    let v: serde_json::Value = serde_json::from_str(&out(&o)).unwrap();
+    let p = predicted_utc(name, lat, lon);
     let mut timings = Vec::new();
     for (k, c) in [2, 3].iter().enumerate() {
-        let row = v
-            .as_array()
-            .unwrap()
-            .iter()
-            .find(|r| r["contact"] == *c)
-            .unwrap();
-        let t = transit_parallax::time::iso::parse_utc(row["time_utc"].as_str().unwrap()).unwrap();
+        let row = p[c - 1].as_deref().unwrap();
+        let t = transit_parallax::time::iso::parse_utc(row).unwrap();
         let t = t + chrono::TimeDelta::milliseconds((error_s[k] * 1000.0) as i64);
         timings.push(serde_json::json!({ "contact": c, "time_utc": transit_parallax::time::iso::format_utc(t, 1), "sigma_s": 8 }));
     }

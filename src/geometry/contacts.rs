@@ -459,6 +459,37 @@ fn sky_at(
     }
 }
 
+/// Where the planet's centre stands on the Sun's disc as seen from a station at one instant,
+/// at nominal parameters.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct DiscPlace {
+    /// Position angle of the planet's centre from the Sun's north point through east, degrees.
+    pub position_angle_deg: f64,
+    /// Distance of the planet's centre from the Sun's centre, in the Sun's apparent radius.
+    pub separation_sun_radii: f64,
+    /// The planet's apparent radius, in the Sun's.
+    pub planet_radius_sun_radii: f64,
+}
+
+/// The planet's place on the Sun's disc seen from a station (or the Earth's centre) at
+/// `hours`: the offset (u, v) on the fundamental plane against the radii of the exterior and
+/// interior cones there (their mean is the Sun's radius, their half difference the planet's),
+/// and the position angle as in [`ContactCircumstances::position_angle_deg`].
+///
+/// References: Chauvenet (1863), vol. I, the chapter on transits (the cones of contact);
+/// the sky-plane form of docs/method.md.
+pub fn disc_place(el: &Elements, st: Option<&GeocentricStation>, hours: f64) -> DiscPlace {
+    let exterior = local_geometry(el, st, Contact::I, hours, &Perturbation::NOMINAL);
+    let interior = local_geometry(el, st, Contact::II, hours, &Perturbation::NOMINAL);
+    let sun_radius = 0.5 * (exterior.radius + interior.radius);
+    let sky = sky_at(el, st, hours, exterior.mu, exterior.u.atan2(exterior.v));
+    DiscPlace {
+        position_angle_deg: sky.position_angle_deg,
+        separation_sun_radii: exterior.u.hypot(exterior.v) / sun_radius,
+        planet_radius_sun_radii: 0.5 * (exterior.radius - interior.radius) / sun_radius,
+    }
+}
+
 /// The Sun's true altitude and azimuth (degrees) and parallactic angle (degrees) at a station.
 ///
 /// Notes: the topocentric vector of the Sun (solar parallax included) against the geodetic

@@ -17,6 +17,8 @@
 //!   separate parameters.
 //! - `fit.rs`: Gauss-Newton iteration.
 //! - `statistics.rs`: chi-square, p-value, Birge ratio, coverage factors, robust scale.
+//! - `agreement.rs`: the one rule, shared with the service's feedback, for whether a contact
+//!   occurs at a station (the ephemeris at nominal parameters) and whether a timing fits.
 //! - `screening.rs`: timings of the event, visibility, pre-screening, sigma clipping.
 //! - `undated.rs`: times written without a date take the date nearest their predicted contact.
 //! - `diagnosis.rs`: the blunder rules (zone time, date, contacts exchanged, coordinates,
@@ -34,6 +36,7 @@
 //! - `planet_place.rs`: the planet's place free, held or with a prior, and the bias that
 //!   holding it risks.
 //! - `pipeline.rs`: [`reduce`] and [`reduce_for_event`].
+pub mod agreement;
 pub mod black_drop;
 pub mod classic_methods;
 pub mod contributions;

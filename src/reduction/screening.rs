@@ -1,8 +1,10 @@
 //! Screening and rejection: which timings go into the solution.
 //!
 //! In order: timings far from the event are invalid; timings made with the Sun set, or of a
-//! contact that does not occur at the station, wait for diagnosis; gross blunders are
-//! screened at the a-priori values (per contact, distance from the median O - C against a
+//! contact that does not occur at the station by the ephemeris at nominal parameters (the
+//! rule of `agreement.rs`, shared with the service's feedback), wait for diagnosis; gross
+//! blunders by that shared rule are screened against the nominal prediction (instants in UTC
+//! at stations of exact longitude), then at the a-priori values (per contact, distance from the median O - C against a
 //! robust scale, with a floor of 10 minutes); then the fit rejects, round by round, every
 //! timing beyond the threshold in robust standard deviations (1.4826 x the median absolute
 //! deviation of the normalised residuals), at most 30 % of the timings in all.
@@ -10,6 +12,7 @@
 //! References: F. R. Hampel, JASA 69, 383 (1974) (the median absolute deviation as a robust
 //! scale); sigma clipping against a robust scale is common practice (no single source).
 
+use super::agreement::{agreement, nominal_contact_hours, nominal_o_c_s, Agreement};
 use super::equations::{nominal_theta, perturbation, residual_s, Timing};
 use super::fit::{fit, FitOutcome};
 use super::parameters::ParameterSet;
@@ -139,12 +142,34 @@ fn far_sentence(obs: &Observation, days: f64, event: &TransitEvent) -> String {
     )
 }
 
-/// Candidates, timings with the Sun set (and its altitude), timings of no such contact, and
-/// every timing's O - C at the a-priori values (s).
-type Sorted = (Vec<usize>, Vec<(usize, f64)>, Vec<usize>, Vec<f64>);
+/// The timings sorted at the a-priori values.
+struct Sorted {
+    /// Computable and visible: they go forward.
+    candidates: Vec<usize>,
+    /// Made with the Sun set, with its altitude (degrees).
+    not_visible: Vec<(usize, f64)>,
+    /// Of a contact that the ephemeris at nominal parameters does not give at the station.
+    no_contact: Vec<usize>,
+    /// Of a contact that occurs at nominal parameters but not at the prior values (a prior
+    /// parallax far off at a grazing station): outliers, never "does not occur".
+    unsolvable: Vec<usize>,
+    /// Every timing's O - C at the a-priori values (s; 0 where not computed).
+    prior_residual_s: Vec<f64>,
+}
+
+/// Whether a timing's contact (both contacts of an interval) occurs at its station by the
+/// shared rule ([`nominal_contact_hours`]: the ephemeris at nominal parameters).
+fn occurs_at_nominal(event: &TransitEvent, t: &Timing) -> bool {
+    let (first, last) = t.obs.contacts();
+    first
+        .into_iter()
+        .chain([last])
+        .all(|c| nominal_contact_hours(event, &t.geo, c).is_some())
+}
 
 /// Sort the timings at the a-priori values: computable and visible ones go forward (with
-/// their O - C); the rest wait for diagnosis.
+/// their O - C); the rest wait for diagnosis. Whether a contact occurs is decided by the
+/// shared rule, at nominal parameters.
 fn sort_by_visibility(
     event: &TransitEvent,
     timings: &[Timing],
@@ -152,8 +177,13 @@ fn sort_by_visibility(
     theta_prior: &[f64],
 ) -> Sorted {
     let er = event.earth_radii_per_arcsec();
-    let (mut candidates, mut not_visible, mut no_contact) = (Vec::new(), Vec::new(), Vec::new());
-    let mut prior_residual_s = vec![0.0; timings.len()];
+    let mut out = Sorted {
+        candidates: Vec::new(),
+        not_visible: Vec::new(),
+        no_contact: Vec::new(),
+        unsolvable: Vec::new(),
+        prior_residual_s: vec![0.0; timings.len()],
+    };
     let p = perturbation(theta_prior, event.earth_radii_per_arcsec());
     let altitude = |geo, h: f64| {
         if event.elements.covers(h) {
@@ -163,6 +193,10 @@ fn sort_by_visibility(
         }
     };
     for (i, t) in timings.iter().enumerate() {
+        if !occurs_at_nominal(event, t) {
+            out.no_contact.push(i);
+            continue;
+        }
         let alt = match t.obs.duration {
             // An interval: the Sun must be up at both of its (predicted) contacts.
             Some(d) => [d.first, t.obs.contact]
@@ -173,18 +207,38 @@ fn sort_by_visibility(
             None => altitude(&t.geo, t.observed_h),
         };
         match residual_s(event, t, params, theta_prior, er) {
-            None => no_contact.push(i),
+            None => out.unsolvable.push(i),
             Some(r) => {
-                prior_residual_s[i] = r;
+                out.prior_residual_s[i] = r;
                 if alt.is_finite() && alt < MIN_VISIBLE_ALTITUDE_DEG {
-                    not_visible.push((i, alt));
+                    out.not_visible.push((i, alt));
                 } else {
-                    candidates.push(i);
+                    out.candidates.push(i);
                 }
             }
         }
     }
-    (candidates, not_visible, no_contact, prior_residual_s)
+    out
+}
+
+/// Screen gross blunders against the nominal prediction, before any fit, by the shared rule
+/// ([`agreement`]: beyond the larger of ten tolerance sigmas and two minutes), so that a few
+/// stations with many blunders cannot drag the first solution. Only instants in UTC at
+/// stations whose longitude is taken as exact are screened so: a local solar time or a
+/// longitude to be solved for moves a timing from its nominal prediction by what the fit is
+/// to find.
+///
+/// Returns: (kept, screened out).
+fn screen_at_nominal(
+    event: &TransitEvent,
+    timings: &[Timing],
+    candidates: Vec<usize>,
+) -> (Vec<usize>, Vec<usize>) {
+    let gross = |t: &Timing| {
+        nominal_o_c_s(event, &t.obs, t.observed_h)
+            .is_some_and(|r| agreement(r, t.obs.sigma_s) == Agreement::Rejected)
+    };
+    candidates.into_iter().partition(|&i| !gross(&timings[i]))
 }
 
 /// Screen gross blunders at the prior: per contact, distance from the median O - C against a
@@ -255,15 +309,20 @@ pub fn screen(
     threshold: f64,
 ) -> Screened {
     let theta_prior = params.start_values();
-    let (candidates, not_visible, mut no_contact, prior_r) =
-        sort_by_visibility(event, timings, params, &theta_prior);
-    let (mut used, mut outliers) = prescreen(timings, candidates, &prior_r);
+    let sorted = sort_by_visibility(event, timings, params, &theta_prior);
+    let (not_visible, no_contact) = (sorted.not_visible, sorted.no_contact);
+    let (candidates, mut outliers) = screen_at_nominal(event, timings, sorted.candidates);
+    outliers.extend(sorted.unsolvable);
+    let (mut used, more) = prescreen(timings, candidates, &sorted.prior_residual_s);
+    outliers.extend(more);
     let max_rejections = (used.len() as f64 * 0.3).floor() as usize;
     let mut rejected_by_fit = 0;
     let mut outcome = fit(event, timings, &used, params, &theta_prior);
     loop {
         if !outcome.unsolvable.is_empty() {
-            no_contact.extend(outcome.unsolvable.iter().copied());
+            // The contact occurs at nominal parameters (sorted above) but not at these trial
+            // values: the timing is off, never "does not occur".
+            outliers.extend(outcome.unsolvable.iter().copied());
             used.retain(|i| !outcome.unsolvable.contains(i));
             outcome = fit(event, timings, &used, params, &theta_prior);
             continue;

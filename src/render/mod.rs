@@ -23,6 +23,8 @@
 //! - `what_else.rs`: the scale of the Solar System, the sizes and the transit's depth.
 //! - `observer_sheet.rs`: one printable page per station for its observers.
 //! - `sheet_limb.rs`: the solar disc with each contact's place on the limb, for the sheet.
+//! - `path_on_disc.rs`: the planet's path across the disc seen from a station, with a
+//!   participant's timings placed on it (the service's feedback page).
 //! - `sheet_calendar.rs`: each station's contacts as an RFC 5545 calendar.
 //! - `sheet_files.rs`: the sheets and calendars written to a folder, names made safe.
 //! - `document.rs`: the HTML and Markdown reports.
@@ -35,6 +37,7 @@ pub mod labels;
 pub mod light_curve_chart;
 pub mod methods;
 pub mod observer_sheet;
+pub mod path_on_disc;
 pub mod planning;
 pub mod planning_charts;
 pub mod prediction;

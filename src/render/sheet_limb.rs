@@ -36,11 +36,11 @@ pub struct LimbMark {
 }
 
 /// Width and height of the drawing's view box, px.
-const VIEW_PX: (f64, f64) = (260.0, 240.0);
+pub const VIEW_PX: (f64, f64) = (260.0, 240.0);
 /// Centre of the disc in the view box, px.
-const CENTRE_PX: (f64, f64) = (130.0, 130.0);
+pub const CENTRE_PX: (f64, f64) = (130.0, 130.0);
 /// Radius of the disc, px.
-const DISC_RADIUS_PX: f64 = 78.0;
+pub const DISC_RADIUS_PX: f64 = 78.0;
 /// Radius of the circle the contact numerals are centred on, px.
 const LABEL_RADIUS_PX: f64 = 98.0;
 /// Least angle between two numerals on the label circle, degrees (an arc of 27 px, more than
@@ -107,7 +107,7 @@ pub fn label_angles_deg(angles_deg: &[f64], reserved_deg: &[f64], min_gap_deg: f
 
 /// Where a frame's own labels and arrow stand on the label circle, degrees: the top (the up
 /// arrow and its label), and for the north-up frame the east point.
-fn reserved_deg(frame: LimbFrame) -> &'static [f64] {
+pub fn reserved_deg(frame: LimbFrame) -> &'static [f64] {
     match frame {
         LimbFrame::Zenith => &[0.0],
         LimbFrame::North => &[0.0, 90.0],
@@ -138,11 +138,22 @@ pub fn limb_svg(frame: LimbFrame, marks: &[LimbMark]) -> String {
         LimbFrame::North => "Solar disc north up, east left",
     };
     let (w, h) = VIEW_PX;
-    let (cx, cy) = CENTRE_PX;
     let mut s = format!(
         "<svg xmlns=\"http://www.w3.org/2000/svg\" viewBox=\"0 0 {w} {h}\" role=\"img\" \
          aria-label=\"{label}\" class=\"limb\">\n"
     );
+    s.push_str(&disc_with_frame(frame));
+    push_marks(&mut s, marks, reserved_deg(frame));
+    s.push_str("</svg>");
+    s
+}
+
+/// The disc, the arrow towards the up direction and the frame's labels (the inside of an SVG
+/// element of view box [`VIEW_PX`]): shared by the observers' sheets and the service's
+/// drawing of the planet's path.
+pub fn disc_with_frame(frame: LimbFrame) -> String {
+    let (cx, cy) = CENTRE_PX;
+    let mut s = String::new();
     let _ = writeln!(
         s,
         "<circle cx=\"{cx}\" cy=\"{cy}\" r=\"{DISC_RADIUS_PX}\" fill=\"#fff7d6\" stroke=\"#000\" stroke-width=\"1.5\"/>"
@@ -167,13 +178,12 @@ pub fn limb_svg(frame: LimbFrame, marks: &[LimbMark]) -> String {
             "<text x=\"{x}\" y=\"{y}\" text-anchor=\"{anchor}\" font-size=\"15\" font-weight=\"bold\">{text}</text>"
         );
     }
-    push_marks(&mut s, marks, reserved_deg(frame));
-    s.push_str("</svg>");
     s
 }
 
-/// Each contact's dot, tick and numeral.
-fn push_marks(s: &mut String, marks: &[LimbMark], reserved_deg: &[f64]) {
+/// Each contact's dot, tick and numeral (the angles of the marks, the frame's reserved angles
+/// kept clear).
+pub fn push_marks(s: &mut String, marks: &[LimbMark], reserved_deg: &[f64]) {
     let angles: Vec<f64> = marks.iter().map(|m| m.angle_deg).collect();
     let label_deg = label_angles_deg(&angles, reserved_deg, MIN_LABEL_GAP_DEG);
     for (m, &at_deg) in marks.iter().zip(&label_deg) {

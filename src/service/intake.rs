@@ -69,8 +69,10 @@ pub fn from_json(body: &[u8]) -> Result<Vec<TimingFields>, String> {
                 let v = text_of(t.get(key), key)?;
                 Ok(if v.is_empty() { common.to_string() } else { v })
             };
+            let written = text_of(t.get("contact"), "contact")?;
             Ok(TimingFields {
-                contact: contact_number(text_of(t.get("contact"), "contact")?),
+                contact: contact_number(written.clone()),
+                contact_as_written: written,
                 time_utc: text_of(t.get("time_utc"), "time_utc")?,
                 sigma_s: text_of(t.get("sigma_s"), "sigma_s")?,
                 time_local: text_of(t.get("time_local"), "time_local")?,
@@ -129,6 +131,7 @@ fn fields_of_table(table: &CsvTable) -> Result<Vec<TimingFields>, String> {
             longitude: get("longitude"),
             elevation_m: get("elevation_m"),
             contact: contact_number(get("contact")),
+            contact_as_written: get("contact"),
             time_utc: get("time_utc"),
             sigma_s: get("sigma_s"),
             time_local: get("time_local"),
@@ -179,6 +182,7 @@ pub fn from_form(form: &[(String, String)]) -> Result<Vec<TimingFields>, String>
     let rows: Vec<TimingFields> = (0..4)
         .map(|k| TimingFields {
             contact: contact_number(get(&format!("contact{k}"))),
+            contact_as_written: get(&format!("contact{k}")),
             time_utc: get(&format!("time_utc{k}")),
             time_local: get(&format!("time_local{k}")),
             local_time: get(&format!("local_time{k}")),

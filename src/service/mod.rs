@@ -11,6 +11,8 @@
 //! - `pages.rs`: the pages' frame (header, caution, landmarks) and the participant's pages.
 //! - `form.rs`: the participant's forms, one labelled field each.
 //! - `style.rs`: the pages' style sheet, phone first.
+//! - `feedback_words.rs`: the feedback's plain words (differences, reasons, station offsets).
+//! - `feedback_page.rs`: the reply to a submission: one card per timing, the path drawn.
 //! - `organiser.rs`: the organiser's page.
 //! - `server.rs`: the state, the participant's routes, the background reduction.
 //! - `routes.rs`: the organiser's and the interface's routes, the router, the start.
@@ -21,6 +23,8 @@
 pub mod cache;
 pub mod cached;
 pub mod feedback;
+pub mod feedback_page;
+pub mod feedback_words;
 pub mod forgery;
 pub mod form;
 pub mod intake;

@@ -4,9 +4,10 @@
 
 use super::cache::Cache;
 use super::feedback::{feedback, parallax_information};
+use super::feedback_page::{feedback_cards, feedback_page, share_of};
 use super::forgery::{refused_form, Visitor};
 use super::intake::{from_form, from_json};
-use super::pages::{feedback_page, message_page, page, timing_form};
+use super::pages::{message_page, page, timing_form};
 use super::store::{Store, TimingFields};
 use crate::geometry::transit::TransitEvent;
 use axum::body::Bytes;
@@ -134,11 +135,30 @@ impl App {
             || self.sessions.holds(headers)
     }
 
-    /// The station's expected share of the information on the parallax.
-    fn share(&self, fields: &[TimingFields]) -> Option<f64> {
+    /// The station's expected share of the information on the parallax, once the network
+    /// (the latest solution's stations and these) has
+    /// [`super::feedback_page::MIN_STATIONS_FOR_SHARE`] stations;
+    /// else the sentence that says when it will show.
+    fn share(&self, fields: &[TimingFields]) -> Result<f64, String> {
+        let solved = self.cache.solved();
+        let mut names: Vec<&str> = solved
+            .reduction
+            .as_ref()
+            .map(|r| {
+                r.stations
+                    .iter()
+                    .filter(|s| s.timings > 0)
+                    .map(|s| s.station.as_str())
+                    .collect()
+            })
+            .unwrap_or_default();
+        for f in fields {
+            if !names.contains(&f.station.as_str()) {
+                names.push(&f.station);
+            }
+        }
         let own = parallax_information(&self.event, fields);
-        let rest = self.cache.solved().information;
-        (own > 0.0).then(|| own / (own + rest))
+        share_of(own, solved.information, names.len())
     }
 }
 
@@ -192,11 +212,15 @@ pub async fn api_submit_route(State(app): State<Shared>, body: Bytes) -> Respons
             } else {
                 StatusCode::CREATED
             };
+            let share = app.share(&fields);
             let reply = json!({
                 "submission_id": id,
                 "duplicate_of": duplicate,
-                "timings": fb,
-                "information_share": app.share(&fields),
+                "timings": fb.timings,
+                "station_advice": fb.stations,
+                "timings_read": fb.rows_read(),
+                "information_share": share.as_ref().ok(),
+                "information_share_note": share.as_ref().err(),
                 "review": format!("/submission/{id}?key={key}"),
             });
             (status, Json(reply)).into_response()
@@ -293,10 +317,10 @@ fn feedback_reply(
             let fb = feedback(&app.event, &fields);
             let link = format!("/submission/{id}?key={key}");
             let page = feedback_page(
-                id,
-                &link,
+                &app.event,
+                (id, &link),
                 (&fields, &fb),
-                app.share(&fields),
+                &app.share(&fields),
                 duplicate.is_some(),
             );
             let status = if duplicate.is_some() {
@@ -361,10 +385,8 @@ pub async fn review_route(
     match app.with_store(|s| s.submission(id)) {
         Ok(Some((k, in_force, fields))) if k == key => {
             let fb = feedback(&app.event, &fields);
-            let mut body = super::pages::scroll_box(
-                "Your timings against their predictions",
-                &super::pages::feedback_table(&fields, &fb),
-            );
+            let mut body = super::feedback_page::drawings(&app.event, &fb);
+            body.push_str(&feedback_cards(&fields, &fb));
             if in_force {
                 body.push_str("<h2>Correct it</h2>\n<p>Sending this form stores a new version; the old one is kept.</p>\n");
                 body.push_str(&timing_form(

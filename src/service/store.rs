@@ -55,6 +55,9 @@ pub struct TimingFields {
     pub duration: String,
     /// `geometric`, `thread` or `touch`.
     pub contact_judged: String,
+    /// The contact exactly as the participant wrote it (`II`, `c2`), for the feedback to echo;
+    /// neither stored nor exported (empty for a timing read back from the store).
+    pub contact_as_written: String,
 }
 
 /// The columns of the observations file the store exports, in order (the timings table has
@@ -125,6 +128,7 @@ impl TimingFields {
             time_meridian: next(),
             duration: next(),
             contact_judged: next(),
+            contact_as_written: String::new(),
         }
     }
 }

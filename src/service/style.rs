@@ -47,6 +47,12 @@ pub const STYLE: &str = concat!(
     "figure{margin:1.5rem 0}",
     // Cards: a block per timing, per result; the verdicts as words and colours together.
     ".card{background:#fff;border:1px solid #d8cfbd;border-radius:8px;padding:0.75rem 1rem;margin:1rem 0}",
+    ".cards{list-style:none;padding:0}",
+    ".card dt{font-weight:bold;margin-top:0.3em}",
+    ".card dd{margin:0 0 0 1em;overflow-wrap:anywhere}",
+    ".station-advice{border-left:4px solid #92400e;padding:0.2em 0.8em}",
+    "figure.path{margin:1em 0;max-width:360px}",
+    "svg.limb{width:100%;height:auto}",
     ".card>h3:first-child,.card>h2:first-child{margin-top:0}",
     ".timing-block{border-left:6px solid #8a94a3}",
     ".timing-block.fits{border-left-color:#15803d}",

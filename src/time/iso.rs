@@ -21,6 +21,15 @@ fn split_zone(text: &str) -> std::result::Result<(&str, Zone), String> {
     if let Some(body) = text.strip_suffix('Z').or_else(|| text.strip_suffix('z')) {
         return Ok((body, Zone::Utc));
     }
+    // "2012-06-05 22:25:41 UTC", as people write it.
+    let utc_at = text.len().saturating_sub(3);
+    if utc_at > 10
+        && text
+            .get(utc_at..)
+            .is_some_and(|z| z.eq_ignore_ascii_case("utc"))
+    {
+        return Ok((text[..utc_at].trim_end(), Zone::Utc));
+    }
     // A sign after the date part (position 10 on) starts an offset.
     let Some(pos) = text
         .char_indices()
@@ -171,6 +180,12 @@ mod tests {
     fn parse_and_format() {
         assert!(parse_utc("2012-06-05T22:25:41.3").is_ok());
         assert!(parse_utc("2012-06-05 22:25:41Z").is_ok());
+        // As the service's feedback shows the form (regression: issue 20).
+        assert_eq!(
+            parse_utc_zoned("2012-06-05 22:25:41 UTC").unwrap(),
+            (label("2012-06-05T22:25:41Z"), Zone::Utc)
+        );
+        assert!(parse_utc("2012-06-05 22:25:41 utc").is_ok());
         // Offsets are converted to UTC (regression: they used to be refused).
         assert_eq!(
             label("2012-06-06T06:25:41+08:00"),

@@ -24,8 +24,13 @@ impl Drop for Server {
 /// Start `serve` for the transit of Venus of 2012 on `db`, with `extra` arguments; waits for
 /// its start-up lines.
 pub fn start(db: &std::path::Path, extra: &[&str]) -> Server {
+    start_event(db, ("venus", "2012-06-06"), extra)
+}
+
+/// Start `serve` for the transit (planet, date) on `db`, with `extra` arguments.
+pub fn start_event(db: &std::path::Path, (planet, date): (&str, &str), extra: &[&str]) -> Server {
     let mut child = Command::new(env!("CARGO_BIN_EXE_transit-parallax"))
-        .args(["serve", "--planet", "venus", "--date", "2012-06-06", "--db"])
+        .args(["serve", "--planet", planet, "--date", date, "--db"])
         .arg(db)
         .args(["--listen", "127.0.0.1:0", "--stop-after", "300"])
         .args(extra)
@@ -255,4 +260,26 @@ pub fn assert_export_reduces_to(
         assert_eq!(direct[key], solution[key], "{key}");
     }
     direct
+}
+
+/// The tool's own predicted times (UTC labels, as `predict --format json` writes them) of
+/// contacts I-IV of 2012 at a station, `None` where a contact does not occur.
+pub fn predicted_utc(name: &str, lat: f64, lon: f64) -> Vec<Option<String>> {
+    let stations = super::temp(
+        &format!("st-{name}-{lat}-{lon}.csv"),
+        format!("station,latitude,longitude,elevation_m\n{name},{lat},{lon},0\n").as_bytes(),
+    );
+    let o = super::run_words(
+        "predict --planet venus --date 2012-06-06 --format json --stations",
+        &[&stations],
+    );
+    let v: serde_json::Value = serde_json::from_str(&super::out(&o)).expect("JSON");
+    (1..=4)
+        .map(|c| {
+            v.as_array()?
+                .iter()
+                .find(|r| r["contact"] == c)
+                .and_then(|r| r["time_utc"].as_str().map(String::from))
+        })
+        .collect()
 }
