@@ -92,7 +92,7 @@ pub fn feedback_cards(fields: &[TimingFields], fb: &SubmissionFeedback) -> Strin
             esc(&capitalised(&st.advice))
         );
     }
-    s.push_str("<ol class=\"cards\" id=\"feedback\">\n");
+    s.push_str("<h2>Each timing</h2>\n<ol class=\"cards\" id=\"feedback\">\n");
     for (f, b) in fields.iter().zip(&fb.timings) {
         s.push_str(&card(f, b));
     }
