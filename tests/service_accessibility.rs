@@ -14,7 +14,9 @@ mod common;
 #[path = "common/webdriver.rs"]
 mod webdriver;
 
-use common::server::{post_json, settled_report, settled_solution, start, Server};
+use common::server::{
+    post_json, predicted_at, seed_five_stations, settled_report, settled_solution, start, Server,
+};
 use fantoccini::{Client, Locator};
 use std::path::{Path, PathBuf};
 use std::sync::Mutex;
@@ -34,49 +36,10 @@ const TOKEN: &str = "organiser11y";
 /// One browser at a time: the two tests each start a server and a browser.
 static ONE_BROWSER: Mutex<()> = Mutex::new(());
 
-/// The predicted time of a contact (1-4) of 2012 at a station, shifted by `shift_s`.
-fn predicted(lat: f64, lon: f64, contact: usize, shift_s: f64) -> String {
-    let event = transit_parallax::transit_on_date(
-        transit_parallax::Planet::Venus,
-        transit_parallax::time::iso::parse_date("2012-06-06").unwrap(),
-        &transit_parallax::TimeModel::default(),
-    )
-    .unwrap();
-    let st = transit_parallax::Station {
-        name: "s".into(),
-        latitude_deg: lat,
-        longitude_deg: lon,
-        elevation_m: 0.0,
-    };
-    let c = event.predict(&st).contacts[contact - 1].unwrap();
-    let t = event.label(c.hours) + chrono::TimeDelta::milliseconds((shift_s * 1000.0) as i64);
-    transit_parallax::time::iso::format_utc(t, 1)
-}
-
-/// Five invented stations' contacts II and III through the API, so that a solution, its
-/// charts and the report exist; one of them a zone-time blunder, so that the tables show a
-/// rejected row too.
+/// The five stations of `seed_five_stations` (one a zone-time blunder), and one submission
+/// that cannot be read, for the organiser's table of those.
 fn seed(server: &Server) {
-    let stations = [
-        ("Kestrel Point", 64.84, -147.72, 0.0),
-        ("Driftwood Bay", 21.31, -157.86, 0.0),
-        ("Cedar Valley", 35.01, 135.77, 9.0 * 3600.0),
-        ("Harbour Hill", -33.87, 151.21, 0.0),
-        ("Coral Reach", 13.44, 144.79, 0.0),
-    ];
-    for (k, (name, lat, lon, blunder_s)) in stations.into_iter().enumerate() {
-        let e = 4.0 * (k as f64 - 2.0);
-        let (t2, t3) = (
-            predicted(lat, lon, 2, e + blunder_s),
-            predicted(lat, lon, 3, -e),
-        );
-        let body = serde_json::json!({ "station": name, "latitude": lat, "longitude": lon,
-            "timings": [{ "contact": 2, "time_utc": t2, "sigma_s": 8 }, { "contact": 3, "time_utc": t3, "sigma_s": 8 }] });
-        assert_eq!(
-            post_json(server.port, "/api/submissions", &body.to_string()).status,
-            201
-        );
-    }
+    seed_five_stations(server, true);
     // One that cannot be read, for the organiser's table of those.
     let unreadable = post_json(server.port, "/api/submissions", r#"{"station":""}"#);
     assert_eq!(unreadable.status, 400);
@@ -139,7 +102,7 @@ async fn send_form(c: &Client, base: &str) -> String {
         ("station", "Lantern Hill School"),
         ("latitude", "35.68"),
         ("longitude", "139.69"),
-        ("time_utc0", &predicted(35.68, 139.69, 2, -6.0)),
+        ("time_utc0", &predicted_at(35.68, 139.69, 2, -6.0)),
         ("sigma_s0", "8"),
     ] {
         let e = c.find(Locator::Id(id)).await.expect(id);

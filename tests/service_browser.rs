@@ -7,68 +7,14 @@
 
 mod common;
 
-use common::server::{post_json, settled_solution, start, Server};
-use fantoccini::{Client, ClientBuilder, Locator};
-use std::path::{Path, PathBuf};
-use std::process::{Child, Command, Stdio};
+#[path = "common/webdriver.rs"]
+mod webdriver;
+
+use common::server::{predicted_at, seed_five_stations, settled_solution, start};
+use fantoccini::{Client, Locator};
+use std::path::Path;
 use std::time::Duration;
-
-fn which(name: &str) -> Option<PathBuf> {
-    ["/usr/bin", "/usr/local/bin", "/usr/lib/chromium"]
-        .iter()
-        .map(|d| Path::new(d).join(name))
-        .find(|p| p.exists())
-}
-
-/// chromedriver on a free loopback port, killed when dropped.
-struct Driver(Child, u16);
-
-impl Drop for Driver {
-    fn drop(&mut self) {
-        let _ = self.0.kill();
-        let _ = self.0.wait();
-    }
-}
-
-fn start_driver(path: &Path) -> Driver {
-    let port = std::net::TcpListener::bind("127.0.0.1:0")
-        .and_then(|l| l.local_addr())
-        .unwrap()
-        .port();
-    let child = Command::new(path)
-        .args([format!("--port={port}"), "--allowed-ips=127.0.0.1".into()])
-        .stdout(Stdio::null())
-        .stderr(Stdio::null())
-        .spawn()
-        .expect("chromedriver starts");
-    for _ in 0..100 {
-        if std::net::TcpStream::connect(("127.0.0.1", port)).is_ok() {
-            break;
-        }
-        std::thread::sleep(Duration::from_millis(100));
-    }
-    Driver(child, port)
-}
-
-async fn browser(driver: &Driver, chromium: &Path, profile: &Path) -> Client {
-    let mut caps = serde_json::Map::new();
-    caps.insert(
-        "goog:chromeOptions".into(),
-        serde_json::json!({
-            "binary": chromium,
-            "args": ["--headless", "--no-sandbox", "--disable-gpu", "--disable-dev-shm-usage",
-                "--disable-quic", "--no-first-run", "--disable-background-networking",
-                "--disable-component-update", "--disable-sync", "--window-size=1100,1400",
-                format!("--user-data-dir={}", profile.display())]
-        }),
-    );
-    let connector = hyper_util::client::legacy::connect::HttpConnector::new();
-    ClientBuilder::new(connector)
-        .capabilities(caps)
-        .connect(&format!("http://127.0.0.1:{}", driver.1))
-        .await
-        .expect("a WebDriver session")
-}
+use webdriver::{session, start_driver, which, Screen};
 
 async fn fill(c: &Client, id: &str, text: &str) {
     let e = c.find(Locator::Id(id)).await.expect(id);
@@ -161,46 +107,6 @@ async fn organiser_counts(c: &Client, base: &str, token: &str) -> (String, Strin
     (n, p)
 }
 
-/// The predicted time of a contact (1-4) of 2012 at a station, shifted by `shift_s`.
-fn predicted(lat: f64, lon: f64, contact: usize, shift_s: f64) -> String {
-    let event = transit_parallax::transit_on_date(
-        transit_parallax::Planet::Venus,
-        transit_parallax::time::iso::parse_date("2012-06-06").unwrap(),
-        &transit_parallax::TimeModel::default(),
-    )
-    .unwrap();
-    let st = transit_parallax::Station {
-        name: "s".into(),
-        latitude_deg: lat,
-        longitude_deg: lon,
-        elevation_m: 0.0,
-    };
-    let c = event.predict(&st).contacts[contact - 1].unwrap();
-    let t = event.label(c.hours) + chrono::TimeDelta::milliseconds((shift_s * 1000.0) as i64);
-    transit_parallax::time::iso::format_utc(t, 1)
-}
-
-/// Five stations' contacts II and III through the API, so that a solution exists.
-fn seed(server: &Server) {
-    let stations = [
-        ("Kestrel Point", 64.84, -147.72),
-        ("Driftwood Bay", 21.31, -157.86),
-        ("Cedar Valley", 35.01, 135.77),
-        ("Harbour Hill", -33.87, 151.21),
-        ("Coral Reach", 13.44, 144.79),
-    ];
-    for (k, (name, lat, lon)) in stations.into_iter().enumerate() {
-        let e = 4.0 * (k as f64 - 2.0);
-        let (t2, t3) = (predicted(lat, lon, 2, e), predicted(lat, lon, 3, -e));
-        let body = serde_json::json!({ "station": name, "latitude": lat, "longitude": lon,
-            "timings": [{ "contact": 2, "time_utc": t2, "sigma_s": 8 }, { "contact": 3, "time_utc": t3, "sigma_s": 8 }] });
-        assert_eq!(
-            post_json(server.port, "/api/submissions", &body.to_string()).status,
-            201
-        );
-    }
-}
-
 #[test]
 fn a_participant_and_the_organiser_in_a_real_browser() {
     let (Some(chromium), Some(driver_path)) = (which("chromium"), which("chromedriver")) else {
@@ -211,7 +117,7 @@ fn a_participant_and_the_organiser_in_a_real_browser() {
     let _ = std::fs::remove_dir_all(&dir);
     std::fs::create_dir_all(&dir).unwrap();
     let server = start(&dir.join("campaign.sqlite"), &["--token", "organiser7"]);
-    seed(&server);
+    seed_five_stations(&server, false);
     let driver = start_driver(&driver_path);
     let base = format!("http://127.0.0.1:{}", server.port);
     let runtime = tokio::runtime::Builder::new_current_thread()
@@ -219,12 +125,12 @@ fn a_participant_and_the_organiser_in_a_real_browser() {
         .build()
         .unwrap();
     runtime.block_on(async {
-        let c = browser(&driver, &chromium, &dir.join("profile")).await;
+        let c = session(&driver, &chromium, &dir.join("profile"), Screen::Desktop).await;
         let good = send_form(
             &c,
             &base,
             ("Jade Harbour School", "22.28", "114.16"),
-            &predicted(22.28, 114.16, 2, 5.0),
+            &predicted_at(22.28, 114.16, 2, 5.0),
         )
         .await;
         screenshot(&c, "service-participant-good.png").await;
@@ -234,7 +140,7 @@ fn a_participant_and_the_organiser_in_a_real_browser() {
             &base,
             ("Pearl Shore Club", "22.30", "114.20"),
             // Hong Kong's zone time (+8 h) left in.
-            &predicted(22.3, 114.2, 2, 8.0 * 3600.0),
+            &predicted_at(22.3, 114.2, 2, 8.0 * 3600.0),
         )
         .await;
         screenshot(&c, "service-participant-blunder.png").await;
@@ -252,7 +158,7 @@ fn a_participant_and_the_organiser_in_a_real_browser() {
             &c,
             &base,
             ("Lantern Hill", "35.68", "139.69"),
-            &predicted(35.68, 139.69, 2, -6.0),
+            &predicted_at(35.68, 139.69, 2, -6.0),
         )
         .await;
         settled_solution(&server);

@@ -17,10 +17,6 @@ fn db(name: &str) -> std::path::PathBuf {
     dir.join("campaign.sqlite")
 }
 
-fn predicted(name: &str, lat: f64, lon: f64) -> Vec<Option<String>> {
-    predicted_utc(name, lat, lon)
-}
-
 fn shifted(time_utc: &str, by_s: f64) -> String {
     let t = transit_parallax::time::iso::parse_utc(time_utc).unwrap();
     let t = t + chrono::TimeDelta::milliseconds((by_s * 1000.0) as i64);
@@ -34,7 +30,7 @@ fn body(
     sigma_s: f64,
     times_from: (f64, f64),
 ) -> String {
-    let p = predicted(name, times_from.0, times_from.1);
+    let p = predicted_utc(name, times_from.0, times_from.1);
     let timings: Vec<Value> = rows
         .iter()
         .map(|(written, c, by_s)| {
@@ -239,7 +235,7 @@ fn feedback_that_fits_is_not_contradicted_by_the_solution() {
         );
         let c = r["contact"].as_u64().unwrap() as usize;
         let name = r["station"].as_str().unwrap();
-        assert!(predicted(name, lat, lon)[c - 1].is_none(), "{r}");
+        assert!(predicted_utc(name, lat, lon)[c - 1].is_none(), "{r}");
     }
 }
 
@@ -276,7 +272,7 @@ fn a_station_a_minute_off_is_told_once() {
     }
     // The page says it once, above the cards, and its contacts as written.
     let (cookie, csrf) = visitor(server.port);
-    let p = predicted("Driftwood Bay School", 21.31, -157.86);
+    let p = predicted_utc("Driftwood Bay School", 21.31, -157.86);
     let mut form =
         format!("csrf={csrf}&station=Driftwood+Bay+School&latitude=21.31&longitude=-157.86");
     for (k, (written, c, by_s)) in rows.iter().enumerate() {
@@ -400,7 +396,7 @@ fn the_readme_examples_fit() {
 fn the_page_draws_the_path_and_gives_one_card_per_timing() {
     let server = start(&db("page"), &[]);
     let (cookie, csrf) = visitor(server.port);
-    let p = predicted("Jade Harbour School", 22.28, 114.16);
+    let p = predicted_utc("Jade Harbour School", 22.28, 114.16);
     let t2 = shifted(p[1].as_deref().unwrap(), 12.0).replace(':', "%3A");
     let t3 = shifted(p[2].as_deref().unwrap(), 8.0 * 3600.0).replace(':', "%3A");
     let form = format!("csrf={csrf}&station=Jade+Harbour+School&latitude=22.28&longitude=114.16&contact0=II&time_utc0={t2}&sigma_s0=8&contact1=III&time_utc1={t3}&sigma_s1=8");

@@ -102,16 +102,21 @@ pub fn nominal_contact_hours(
     event.contact_hours_perturbed(geo, contact, &Perturbation::NOMINAL)
 }
 
-/// A timing's O - C against the nominal prediction, seconds, where the shared rule applies:
-/// an instant in UTC (or UT1) at a station whose longitude is taken as exact. `None` for an
-/// interval, a local solar time or a longitude to be solved for (their offset from the
-/// nominal prediction is partly what the fit is to find), or where the contact does not
-/// occur.
+/// Whether the shared rule compares a timing with its nominal prediction: an instant in UTC
+/// (or UT1) at a station whose longitude is taken as exact. Not an interval, a local solar time
+/// or a longitude to be solved for (their offset from the nominal prediction is partly what
+/// the fit is to find).
+pub fn compared_at_nominal(obs: &Observation) -> bool {
+    obs.duration.is_none() && obs.local.is_none() && obs.longitude == LongitudeKnowledge::Exact
+}
+
+/// A timing's O - C against the nominal prediction, seconds, where the shared rule applies
+/// ([`compared_at_nominal`]); `None` otherwise, or where the contact does not occur.
 ///
 /// Arguments: `event`; `obs`, the timing as read; `observed_h`, its instant in hours from the
 /// elements' epoch (TT).
 pub fn nominal_o_c_s(event: &TransitEvent, obs: &Observation, observed_h: f64) -> Option<f64> {
-    if obs.duration.is_some() || obs.local.is_some() || obs.longitude != LongitudeKnowledge::Exact {
+    if !compared_at_nominal(obs) {
         return None;
     }
     let h = nominal_contact_hours(event, &obs.station.geocentric(), obs.contact)?;

@@ -9,7 +9,7 @@
 //! References: the blunders of pooled public timings and their signatures are common
 //! practice (no single source); see docs/reduction.md.
 
-use super::agreement::{nominal_o_c_s, tolerance_sigma_s};
+use super::agreement::tolerance_sigma_s;
 use super::diagnosis::{
     clock_offset_s, explain_interval, explain_row, explain_station, station_offset_sentence,
     StationTiming,
@@ -60,13 +60,13 @@ fn clock_verdict(
 /// issue 20: a station a minute off among five dragged the parallax from 8.8 to 6.5 arcsec).
 /// Only where every row is an instant the shared rule applies to.
 fn nominal_clock_verdict(
-    event: &TransitEvent,
     timings: &[Timing],
+    s: &Screened,
     (rows, name): (&[usize], &str),
 ) -> Option<StationVerdict> {
     let res: Vec<f64> = rows
         .iter()
-        .map(|&i| nominal_o_c_s(event, &timings[i].obs, timings[i].observed_h))
+        .map(|&i| s.nominal_o_c_s[i])
         .collect::<Option<_>>()?;
     let sig: Vec<f64> = rows
         .iter()
@@ -122,7 +122,7 @@ pub fn station_wide(
             if rows.len() >= 2 {
                 verdicts.extend(
                     clock_verdict(event, timings, params, s, (&rows, name, threshold))
-                        .or_else(|| nominal_clock_verdict(event, timings, (&rows, name))),
+                        .or_else(|| nominal_clock_verdict(timings, s, (&rows, name))),
                 );
             }
             continue;

@@ -12,7 +12,7 @@
 //! References: F. R. Hampel, JASA 69, 383 (1974) (the median absolute deviation as a robust
 //! scale); sigma clipping against a robust scale is common practice (no single source).
 
-use super::agreement::{agreement, nominal_contact_hours, nominal_o_c_s, Agreement};
+use super::agreement::{agreement, compared_at_nominal, nominal_contact_hours, Agreement};
 use super::equations::{nominal_theta, perturbation, residual_s, Timing};
 use super::fit::{fit, FitOutcome};
 use super::parameters::ParameterSet;
@@ -47,6 +47,9 @@ pub struct Screened {
     pub outcome: FitOutcome,
     /// Robust scale of the normalised residuals of `used` (at least 0.5).
     pub scatter: f64,
+    /// Every timing's O - C against the nominal prediction (s), where the shared rule of
+    /// `agreement.rs` compares it so ([`compared_at_nominal`]).
+    pub nominal_o_c_s: Vec<Option<f64>>,
 }
 
 /// Turn valid rows into timings of the event: a time more than [`EVENT_WINDOW_H`] from
@@ -155,16 +158,18 @@ struct Sorted {
     unsolvable: Vec<usize>,
     /// Every timing's O - C at the a-priori values (s; 0 where not computed).
     prior_residual_s: Vec<f64>,
+    /// Every timing's O - C against the nominal prediction (s), where the shared rule applies.
+    nominal_o_c_s: Vec<Option<f64>>,
 }
 
-/// Whether a timing's contact (both contacts of an interval) occurs at its station by the
-/// shared rule ([`nominal_contact_hours`]: the ephemeris at nominal parameters).
-fn occurs_at_nominal(event: &TransitEvent, t: &Timing) -> bool {
-    let (first, last) = t.obs.contacts();
-    first
-        .into_iter()
-        .chain([last])
-        .all(|c| nominal_contact_hours(event, &t.geo, c).is_some())
+/// The nominal time of a timing's contact (hours from the elements' epoch), if it (and the
+/// first contact of an interval) occurs at its station by the shared rule
+/// ([`nominal_contact_hours`]: the ephemeris at nominal parameters).
+fn nominal_hours(event: &TransitEvent, t: &Timing) -> Option<f64> {
+    if let Some(d) = t.obs.duration {
+        nominal_contact_hours(event, &t.geo, d.first)?;
+    }
+    nominal_contact_hours(event, &t.geo, t.obs.contact)
 }
 
 /// Sort the timings at the a-priori values: computable and visible ones go forward (with
@@ -183,6 +188,7 @@ fn sort_by_visibility(
         no_contact: Vec::new(),
         unsolvable: Vec::new(),
         prior_residual_s: vec![0.0; timings.len()],
+        nominal_o_c_s: vec![None; timings.len()],
     };
     let p = perturbation(theta_prior, event.earth_radii_per_arcsec());
     let altitude = |geo, h: f64| {
@@ -193,9 +199,12 @@ fn sort_by_visibility(
         }
     };
     for (i, t) in timings.iter().enumerate() {
-        if !occurs_at_nominal(event, t) {
+        let Some(nominal_h) = nominal_hours(event, t) else {
             out.no_contact.push(i);
             continue;
+        };
+        if compared_at_nominal(&t.obs) {
+            out.nominal_o_c_s[i] = Some((t.observed_h - nominal_h) * 3600.0);
         }
         let alt = match t.obs.duration {
             // An interval: the Sun must be up at both of its (predicted) contacts.
@@ -230,15 +239,15 @@ fn sort_by_visibility(
 ///
 /// Returns: (kept, screened out).
 fn screen_at_nominal(
-    event: &TransitEvent,
     timings: &[Timing],
     candidates: Vec<usize>,
+    nominal_o_c_s: &[Option<f64>],
 ) -> (Vec<usize>, Vec<usize>) {
-    let gross = |t: &Timing| {
-        nominal_o_c_s(event, &t.obs, t.observed_h)
-            .is_some_and(|r| agreement(r, t.obs.sigma_s) == Agreement::Rejected)
+    let gross = |i: usize| {
+        nominal_o_c_s[i]
+            .is_some_and(|r| agreement(r, timings[i].obs.sigma_s) == Agreement::Rejected)
     };
-    candidates.into_iter().partition(|&i| !gross(&timings[i]))
+    candidates.into_iter().partition(|&i| !gross(i))
 }
 
 /// Screen gross blunders at the prior: per contact, distance from the median O - C against a
@@ -311,7 +320,8 @@ pub fn screen(
     let theta_prior = params.start_values();
     let sorted = sort_by_visibility(event, timings, params, &theta_prior);
     let (not_visible, no_contact) = (sorted.not_visible, sorted.no_contact);
-    let (candidates, mut outliers) = screen_at_nominal(event, timings, sorted.candidates);
+    let nominal_o_c_s = sorted.nominal_o_c_s;
+    let (candidates, mut outliers) = screen_at_nominal(timings, sorted.candidates, &nominal_o_c_s);
     outliers.extend(sorted.unsolvable);
     let (mut used, more) = prescreen(timings, candidates, &sorted.prior_residual_s);
     outliers.extend(more);
@@ -349,6 +359,7 @@ pub fn screen(
                 no_contact,
                 outcome,
                 scatter,
+                nominal_o_c_s,
             };
         }
         beyond.sort_by(|&a, &b| z[b].abs().total_cmp(&z[a].abs()));

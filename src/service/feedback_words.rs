@@ -9,16 +9,15 @@ use crate::geometry::transit::TransitEvent;
 pub fn difference_words(o_c_s: f64) -> String {
     let side = if o_c_s >= 0.0 { "later" } else { "earlier" };
     let a = o_c_s.abs();
+    // Rounded to the second before it is split, so that 119.7 s reads "2 min 0 s", never
+    // "1 min 60 s".
+    let whole_s = a.round() as u64;
     let size = if a < 100.0 {
         format!("{a:.1} s")
-    } else if a < 3600.0 {
-        format!("{:.0} min {:.0} s", (a / 60.0).floor(), a % 60.0)
+    } else if whole_s < 3600 {
+        format!("{} min {} s", whole_s / 60, whole_s % 60)
     } else {
-        format!(
-            "{:.0} h {:.0} min",
-            (a / 3600.0).floor(),
-            ((a % 3600.0) / 60.0).floor()
-        )
+        format!("{} h {} min", whole_s / 3600, (whole_s % 3600) / 60)
     };
     format!("{size} {side} than predicted")
 }
@@ -117,6 +116,9 @@ mod tests {
             difference_words(-28_803.0),
             "8 h 0 min earlier than predicted"
         );
+        // Rounded before it is split: never "1 min 60 s".
+        assert_eq!(difference_words(119.7), "2 min 0 s later than predicted");
+        assert_eq!(difference_words(3599.6), "1 h 0 min later than predicted");
     }
 
     #[test]

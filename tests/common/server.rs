@@ -283,3 +283,56 @@ pub fn predicted_utc(name: &str, lat: f64, lon: f64) -> Vec<Option<String>> {
         })
         .collect()
 }
+
+/// The library's predicted time of contact `contact` (1-4) of the transit of Venus of 2012 at
+/// a station, shifted by `shift_s` (UTC, one decimal).
+#[allow(dead_code)]
+pub fn predicted_at(lat: f64, lon: f64, contact: usize, shift_s: f64) -> String {
+    let event = transit_parallax::transit_on_date(
+        transit_parallax::Planet::Venus,
+        transit_parallax::time::iso::parse_date("2012-06-06").unwrap(),
+        &transit_parallax::TimeModel::default(),
+    )
+    .unwrap();
+    let st = transit_parallax::Station {
+        name: "s".into(),
+        latitude_deg: lat,
+        longitude_deg: lon,
+        elevation_m: 0.0,
+    };
+    let c = event.predict(&st).contacts[contact - 1].unwrap();
+    let t = event.label(c.hours) + chrono::TimeDelta::milliseconds((shift_s * 1000.0) as i64);
+    transit_parallax::time::iso::format_utc(t, 1)
+}
+
+/// Five invented stations' contacts II and III through the API (a few seconds either side of
+/// their predictions), so that a solution, its charts and the report exist; with `zone_slip`
+/// the third station's contact II is 9 h late (a zone-time blunder, a rejected row).
+#[allow(dead_code)]
+pub fn seed_five_stations(server: &Server, zone_slip: bool) {
+    let stations = [
+        ("Kestrel Point", 64.84, -147.72),
+        ("Driftwood Bay", 21.31, -157.86),
+        ("Cedar Valley", 35.01, 135.77),
+        ("Harbour Hill", -33.87, 151.21),
+        ("Coral Reach", 13.44, 144.79),
+    ];
+    for (k, (name, lat, lon)) in stations.into_iter().enumerate() {
+        let e = 4.0 * (k as f64 - 2.0);
+        let slip_s = if zone_slip && k == 2 {
+            9.0 * 3600.0
+        } else {
+            0.0
+        };
+        let (t2, t3) = (
+            predicted_at(lat, lon, 2, e + slip_s),
+            predicted_at(lat, lon, 3, -e),
+        );
+        let body = serde_json::json!({ "station": name, "latitude": lat, "longitude": lon,
+            "timings": [{ "contact": 2, "time_utc": t2, "sigma_s": 8 }, { "contact": 3, "time_utc": t3, "sigma_s": 8 }] });
+        assert_eq!(
+            post_json(server.port, "/api/submissions", &body.to_string()).status,
+            201
+        );
+    }
+}

@@ -1,10 +1,11 @@
 //! Chromium driven through chromium-driver (WebDriver, the `fantoccini` crate) for the
-//! accessibility test: starting the driver, a desktop or a phone-sized session, and two checks
+//! service's browser tests: starting the driver, a desktop or a phone-sized session, and two checks
 //! of the page in view: axe-core's audit (every violation, with its rule, impact and the
 //! elements' selectors) and whether the page scrolls sideways.
 //!
 //! Included by `#[path]` from the tests that drive a browser, not from `common/mod.rs`, so that
-//! the other test crates do not compile the WebDriver client.
+//! the other test crates do not compile the WebDriver client; each test uses only part of it.
+#![allow(dead_code)]
 
 use fantoccini::{Client, ClientBuilder};
 use std::path::{Path, PathBuf};
