@@ -79,10 +79,18 @@ fn organiser_get(port: u16, path: &str, etag: Option<&str>) -> Reply {
     request(port, "GET", path, &headers, "")
 }
 
-/// The number of timings in the solution (`timings_total`), if the reply is one.
+/// The number of timings in the solution (`timings_total`), if the reply is one. The key is
+/// found by a scan rather than by parsing the whole object: a 20 MB parse is the client's
+/// cost, not the time the solution takes to count a timing.
 fn timings_total(reply: &Reply) -> Option<u64> {
-    let v: serde_json::Value = serde_json::from_slice(&reply.body).ok()?;
-    v["timings_total"].as_u64()
+    let key = b"\"timings_total\":";
+    let at = reply.body.windows(key.len()).rposition(|w| w == key)? + key.len();
+    let digits: String = reply.body[at..]
+        .iter()
+        .take_while(|b| b.is_ascii_digit())
+        .map(|&b| char::from(b))
+        .collect();
+    digits.parse().ok()
 }
 
 /// Wait until the solution counts `n` timings (polling with the last ETag, so that an
@@ -151,6 +159,7 @@ fn organiser_load(port: u16, stop: Arc<AtomicBool>) -> std::thread::JoinHandle<(
             .map(|&path| {
                 let stop = stop.clone();
                 std::thread::spawn(move || {
+                    stand_in_for_another_machine();
                     let mut n = 0;
                     while !stop.load(Ordering::Relaxed) {
                         let _ = organiser_get(port, path, None);
@@ -163,6 +172,18 @@ fn organiser_load(port: u16, stop: Arc<AtomicBool>) -> std::thread::JoinHandle<(
         let counts: Vec<usize> = handles.into_iter().map(|h| h.join().unwrap_or(0)).collect();
         (counts[..4].iter().sum(), counts[4..].iter().sum())
     })
+}
+
+/// Lower the calling client thread's priority to the least (`nice` 19, Linux): the organiser's
+/// downloaders stand in for browsers on other machines, so their own reading and parsing should
+/// not take the server's cores; the server's work for them (its request handling and sending)
+/// keeps its normal priority.
+fn stand_in_for_another_machine() {
+    #[cfg(target_os = "linux")]
+    // SAFETY: plain integers; with PRIO_PROCESS and who = 0 it applies to this thread only.
+    unsafe {
+        let _ = libc::setpriority(libc::PRIO_PROCESS, 0, 19);
+    }
 }
 
 /// The participants' page every 20 ms for `seconds`; its latencies, milliseconds, sorted.

@@ -139,6 +139,13 @@ impl TransitEvent {
         out
     }
 
+    /// One contact's circumstances at a station (the work of [`Self::predict`] for that
+    /// contact alone), or `None` where it does not occur there.
+    pub fn predict_contact(&self, station: &Station, c: Contact) -> Option<ContactCircumstances> {
+        let geo = station.geocentric();
+        solve_with_circumstances(&self.elements, Some(&geo), c, self.start_hours(c))
+    }
+
     /// A first guess for a contact: the geocentric contact, or for a contact that does not
     /// occur geocentrically, greatest transit.
     pub fn start_hours(&self, c: Contact) -> f64 {

@@ -274,9 +274,20 @@ pub fn observations_from_table(table: &CsvTable, strict: bool) -> Result<Observa
     // (station, observer, contact or pair, judgement).
     let mut first_coords: FirstCoordinates = HashMap::new();
     let mut first_contact: HashMap<TimingKey, (u64, f64)> = HashMap::new();
-    for (line, rec) in &table.records {
+    // Each row reads on its own (in parallel on a large file); what rows say about each
+    // other (moved stations, duplicates) is decided in file order below.
+    let parsed: Vec<_> = {
+        use rayon::prelude::*;
+        table
+            .records
+            .par_iter()
+            .with_min_len(1024)
+            .map(|(line, rec)| parse_row(table, *line, rec, &cols))
+            .collect()
+    };
+    for ((line, rec), row) in table.records.iter().zip(parsed) {
         let name = table.text(rec, cols.station).to_string();
-        match parse_row(table, *line, rec, &cols) {
+        match row {
             Ok((mut obs, zone)) => {
                 if zone == Zone::Missing {
                     set.lines_without_zone.push(*line);

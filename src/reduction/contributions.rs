@@ -272,8 +272,12 @@ pub fn contributions(
     };
     let total_info: f64 = info.iter().sum();
     let p = perturbation(&outcome.theta, er);
+    // Stations on their own, in parallel, gathered in order (the sort below is stable, so
+    // the list does not depend on the cores).
+    use rayon::prelude::*;
     let mut out: Vec<StationContribution> = rows_by_station(timings, used)
-        .into_iter()
+        .into_par_iter()
+        .with_min_len(64)
         .map(|(name, rows)| {
             let own: Vec<&Timing> = rows.iter().map(|&k| &timings[used[k]]).collect();
             let first = own[0];

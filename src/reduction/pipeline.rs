@@ -125,7 +125,7 @@ pub fn reduce_for_event(
     let mut screened = screen(&event, &timings, &params, threshold);
     let verdicts = station_wide(&event, &timings, &params, &screened, threshold);
     if !verdicts.is_empty() {
-        let all: Vec<usize> = verdicts
+        let all: std::collections::HashSet<usize> = verdicts
             .iter()
             .flat_map(|(r, _)| r.iter().copied())
             .collect();
@@ -490,24 +490,24 @@ fn side_by_side(red: &mut Reduction, c: &Campaign, s: &Screened, sigma_scale: f6
         (outcome, sigma_scale),
         why_not,
     );
-    red.methods = methods(
-        &red.event,
-        (c.timings, used),
-        c.params,
-        &outcome.theta,
-        full,
+    // The classic methods and the error budget read the same solution and nothing of each
+    // other: they run side by side (the figures do not depend on the order).
+    let event = &red.event;
+    let budget_input = figure.map(|(_, sigma)| Solved {
+        event,
+        timings: c.timings,
+        used,
+        params: c.params,
+        theta: &outcome.theta,
+        free: &outcome.free,
+        parallax_sigma_arcsec: sigma,
+        sigma_scale,
+        place_shift_arcsec: red.place_bias_arcsec,
+    });
+    let (side, budget) = rayon::join(
+        || methods(event, (c.timings, used), c.params, &outcome.theta, full),
+        || budget_input.as_ref().map(error_budget),
     );
-    if let Some((_, sigma)) = figure {
-        red.error_budget = Some(error_budget(&Solved {
-            event: &red.event,
-            timings: c.timings,
-            used,
-            params: c.params,
-            theta: &outcome.theta,
-            free: &outcome.free,
-            parallax_sigma_arcsec: sigma,
-            sigma_scale,
-            place_shift_arcsec: red.place_bias_arcsec,
-        }));
-    }
+    red.methods = side;
+    red.error_budget = budget;
 }

@@ -9,6 +9,7 @@
 //! - `station_predictions.rs`: `predict` table, CSV and JSON, with local solar and civil time.
 //! - `planning.rs`: `plan` and `simulate` tables, CSV and JSON; sensitivity grids.
 //! - `reduction.rs`: `reduce` table and JSON.
+//! - `reduction_json.rs`: the JSON's per-station and per-row arrays written straight from the reduction (the service's solution at 100,000 timings).
 //! - `svg.rs`: what every chart shares: escaping, the SVG opening, ticks, land outlines and
 //!   graticule labels.
 //! - `labels.rs`: labels placed beside their marks where they fit, captions wrapped to a
@@ -42,6 +43,7 @@ pub mod planning;
 pub mod planning_charts;
 pub mod prediction;
 pub mod reduction;
+pub mod reduction_json;
 pub mod report_sections;
 pub mod sheet_calendar;
 pub mod sheet_files;

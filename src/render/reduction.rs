@@ -6,7 +6,7 @@ use crate::reduction::error_budget::ErrorBudget;
 use crate::reduction::Reduction;
 use crate::render::text::{au_text, csv_field, name_cell, round as r, SAFETY_CAUTION};
 use crate::words::count;
-use serde_json::{json, Value};
+use serde_json::{json, Map, Value};
 use std::collections::HashMap;
 
 /// A number rounded for JSON, or null when absent or not finite.
@@ -42,56 +42,6 @@ pub fn longitude_corrections(red: &Reduction) -> HashMap<&str, (f64, Option<f64>
         .collect()
 }
 
-fn stations_json(red: &Reduction) -> Vec<Value> {
-    let corrections = longitude_corrections(red);
-    red.stations
-        .iter()
-        .map(|s| {
-            let correction = corrections.get(s.station.as_str()).copied();
-            json!({
-                "longitude_correction_deg": correction.map(|c| r(c.0, 6)),
-                "longitude_correction_sigma_deg": correction.and_then(|c| c.1).map(|x| r(x, 6)),
-                "station": s.station,
-                "latitude": s.latitude_deg,
-                "longitude": s.longitude_deg,
-                "timings": s.timings,
-                "information_share": r(s.information_share, 6),
-                "influence_arcsec": opt(s.influence_arcsec, 6),
-                "residuals_s": s.residuals_s.iter().map(|x| r(*x, 2)).collect::<Vec<f64>>(),
-                "contacts": s.contacts,
-                "contact_labels": s.contact_labels,
-                "observers": s.observers,
-                "mean_normalised_residual": r(s.mean_normalised_residual, 3),
-                "not_used": s.not_used,
-                "chord": s.chord.as_ref().map(|c| json!({
-                    "pair": c.pair,
-                    "observed_arcsec": r(c.observed_arcsec, 3),
-                    "predicted_arcsec": r(c.predicted_arcsec, 3),
-                    "duration_o_c_s": r(c.duration_o_c_s, 2),
-                    "parallax_displacement_arcsec": r(c.parallax_displacement_arcsec, 3),
-                })),
-            })
-        })
-        .collect()
-}
-
-fn rejected_json(red: &Reduction) -> Vec<Value> {
-    red.rejected
-        .iter()
-        .map(|x| {
-            json!({
-                "line": x.line,
-                "station": x.station,
-                "contact": x.contact,
-                "contact_label": x.contact_label,
-                "reason": x.reason.as_str(),
-                "diagnosis": x.diagnosis,
-                "o_c_s": opt(x.o_c_s, 2),
-            })
-        })
-        .collect()
-}
-
 fn parameters_json(red: &Reduction) -> Vec<Value> {
     red.parameters
         .iter()
@@ -109,6 +59,21 @@ fn parameters_json(red: &Reduction) -> Vec<Value> {
 
 /// The JSON object of `reduce --format json` (keys of shared/interface.md, and more).
 pub fn reduction_json(red: &Reduction) -> Value {
+    let mut map = reduction_json_head(red);
+    map.insert(
+        "rejected".into(),
+        crate::render::reduction_json::rejected_value(red),
+    );
+    map.insert(
+        "stations".into(),
+        crate::render::reduction_json::stations_value(red),
+    );
+    Value::Object(map)
+}
+
+/// Every key of [`reduction_json`] but the two that grow with the campaign (`stations`,
+/// `rejected`: see [`crate::render::reduction_json`]).
+pub(crate) fn reduction_json_head(red: &Reduction) -> Map<String, Value> {
     let st = &red.statistics;
     let mut v = json!({
         "planet": red.event.planet.name(),
@@ -123,8 +88,6 @@ pub fn reduction_json(red: &Reduction) -> Value {
         "au_interval_95_km": red.au_interval_95_km.map(|(a, b)| json!([r(a, 0), b.map(|b| r(b, 0))])),
         "timings_total": red.timings_total,
         "timings_used": red.timings_used,
-        "rejected": rejected_json(red),
-        "stations": stations_json(red),
         "parameters": parameters_json(red),
         "correlation": red.correlation.iter().map(|row| row.iter().map(|x| r(*x, 4)).collect::<Vec<f64>>()).collect::<Vec<_>>(),
         "chi2": r(st.chi2, 3),
@@ -158,13 +121,15 @@ pub fn reduction_json(red: &Reduction) -> Value {
         "methods": methods_json(red),
         "error_budget": red.error_budget.as_ref().map(budget_json),
     });
-    if let Value::Object(map) = &mut v {
-        let w = crate::scale::summary::what_else(red);
-        for (k, x) in crate::render::what_else::what_else_json(&w) {
-            map.insert(k.to_string(), x);
-        }
+    let mut map = match v.take() {
+        Value::Object(map) => map,
+        _ => Map::new(),
+    };
+    let w = crate::scale::summary::what_else(red);
+    for (k, x) in crate::render::what_else::what_else_json(&w) {
+        map.insert(k.to_string(), x);
     }
-    v
+    map
 }
 
 /// The uncertainty of the Delta T used (null where it was fixed with --delta-t and counts as

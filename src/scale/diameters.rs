@@ -203,53 +203,70 @@ fn station_sizes(red: &Reduction, nominal_km: f64) -> Vec<StationSize> {
             .or_default()
             .push(u);
     }
+    // Stations on their own, in parallel, gathered in order.
+    use rayon::prelude::*;
+    red.stations
+        .par_iter()
+        .filter(|s| s.timings > 0)
+        .flat_map_iter(|st| {
+            let correction_deg = corrections.get(st.station.as_str()).map_or(0.0, |c| c.0);
+            let rows: &[_] = used_by_station
+                .get(st.station.as_str())
+                .map_or(&[], Vec::as_slice);
+            station_pairs(red, (st, correction_deg), rows, (&fitted, nominal_km))
+        })
+        .collect()
+}
+
+/// One station's ingress and egress estimates (none where a pair is not timed or its
+/// durations are not positive).
+fn station_pairs(
+    red: &Reduction,
+    (st, correction_deg): (&crate::reduction::result::StationContribution, f64),
+    rows: &[&crate::reduction::result::UsedTiming],
+    (fitted, nominal_km): (&Perturbation, f64),
+) -> Vec<StationSize> {
+    let station = crate::geometry::station::Station {
+        name: st.station.clone(),
+        latitude_deg: st.latitude_deg,
+        longitude_deg: st.longitude_deg + correction_deg,
+        elevation_m: st.elevation_m,
+    };
+    let geo = station.geocentric();
     let mut out = Vec::new();
-    for st in red.stations.iter().filter(|s| s.timings > 0) {
-        let correction_deg = corrections.get(st.station.as_str()).map_or(0.0, |c| c.0);
-        let station = crate::geometry::station::Station {
-            name: st.station.clone(),
-            latitude_deg: st.latitude_deg,
-            longitude_deg: st.longitude_deg + correction_deg,
-            elevation_m: st.elevation_m,
+    for (pair, a, b) in [
+        ("ingress", Contact::I, Contact::II),
+        ("egress", Contact::III, Contact::IV),
+    ] {
+        let label = |c: Contact| c.number().to_string();
+        let find = |c: Contact| rows.iter().find(|u| u.contact_label == label(c));
+        let (Some(ra), Some(rb)) = (find(a), find(b)) else {
+            continue;
         };
-        let geo = station.geocentric();
-        let rows: &[_] = used_by_station
-            .get(st.station.as_str())
-            .map_or(&[], Vec::as_slice);
-        for (pair, a, b) in [
-            ("ingress", Contact::I, Contact::II),
-            ("egress", Contact::III, Contact::IV),
-        ] {
-            let label = |c: Contact| c.number().to_string();
-            let find = |c: Contact| rows.iter().find(|u| u.contact_label == label(c));
-            let (Some(ra), Some(rb)) = (find(a), find(b)) else {
-                continue;
-            };
-            let at = |p: &Perturbation, c: Contact| red.event.contact_hours_perturbed(&geo, c, p);
-            let (Some(fa), Some(fb), Some(na), Some(nb)) = (
-                at(&fitted, a),
-                at(&fitted, b),
-                at(&Perturbation::NOMINAL, a),
-                at(&Perturbation::NOMINAL, b),
-            ) else {
-                continue;
-            };
-            let observed_s = (fb - fa) * 3600.0 + rb.o_c_s - ra.o_c_s;
-            let predicted_s = (nb - na) * 3600.0;
-            if !(observed_s > 0.0 && predicted_s > 0.0) {
-                continue;
-            }
-            let diameter_km = nominal_km * observed_s / predicted_s;
-            let sigma_km = diameter_km * ra.sigma_s.hypot(rb.sigma_s) / observed_s;
-            out.push(StationSize {
-                station: st.station.clone(),
-                pair,
-                observed_s,
-                predicted_s,
-                diameter_km,
-                sigma_km,
-            });
+        let at = |p: &Perturbation, c: Contact| red.event.contact_hours_perturbed(&geo, c, p);
+        let (Some(fa), Some(fb), Some(na), Some(nb)) = (
+            at(fitted, a),
+            at(fitted, b),
+            at(&Perturbation::NOMINAL, a),
+            at(&Perturbation::NOMINAL, b),
+        ) else {
+            continue;
+        };
+        let observed_s = (fb - fa) * 3600.0 + rb.o_c_s - ra.o_c_s;
+        let predicted_s = (nb - na) * 3600.0;
+        if !(observed_s > 0.0 && predicted_s > 0.0) {
+            continue;
         }
+        let diameter_km = nominal_km * observed_s / predicted_s;
+        let sigma_km = diameter_km * ra.sigma_s.hypot(rb.sigma_s) / observed_s;
+        out.push(StationSize {
+            station: st.station.clone(),
+            pair,
+            observed_s,
+            predicted_s,
+            diameter_km,
+            sigma_km,
+        });
     }
     out
 }

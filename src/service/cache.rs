@@ -27,7 +27,7 @@ use tokio::sync::Notify;
 
 /// How long the reducer waits after a change, milliseconds, so that a burst of submissions is
 /// reduced together.
-const DEBOUNCE_MS: u64 = 400;
+const DEBOUNCE_MS: u64 = 100;
 
 /// One version's solution and the artefacts made with it.
 #[derive(Default)]
@@ -270,17 +270,24 @@ fn solve_once(app: &App, generation: u64) -> Solved {
 /// The solution's JSON object (the reduction's, or `{ "error" }`) with `submissions` and
 /// `version`, without its closing brace.
 fn solution_prefix(solved: &Solved) -> Bytes {
-    let mut v = match &solved.reduction {
-        Some(red) => crate::render::reduction::reduction_json(red),
-        None => serde_json::json!({
-            "error": solved.error.clone().unwrap_or_else(|| "no solution yet".into())
-        }),
+    let extra = [
+        ("submissions", serde_json::Value::from(solved.submissions)),
+        ("version", serde_json::Value::from(solved.version)),
+    ];
+    let mut bytes = match &solved.reduction {
+        Some(red) => crate::render::reduction_json::reduction_json_bytes(red, &extra),
+        None => {
+            let mut v = serde_json::json!({
+                "error": solved.error.clone().unwrap_or_else(|| "no solution yet".into())
+            });
+            if let Some(map) = v.as_object_mut() {
+                for (k, x) in extra {
+                    map.insert(k.into(), x);
+                }
+            }
+            serde_json::to_vec(&v).unwrap_or_else(|_| b"{}".to_vec())
+        }
     };
-    if let Some(map) = v.as_object_mut() {
-        map.insert("submissions".into(), solved.submissions.into());
-        map.insert("version".into(), solved.version.into());
-    }
-    let mut bytes = serde_json::to_vec(&v).unwrap_or_else(|_| b"{}".to_vec());
     bytes.pop();
     Bytes::from(bytes)
 }

@@ -408,7 +408,7 @@ pub fn parallax_information(event: &TransitEvent, fields: &[TimingFields]) -> f6
     read(fields).map_or(0.0, |set| information_of_set(event, &set))
 }
 
-/// [`parallax_information`] of timings already read: each row's prediction on its own (in
+/// [`parallax_information`] of timings already read: each row's contacts predicted on their own (in
 /// parallel), summed in order so that the figure is the same on any number of cores.
 pub fn information_of_set(
     event: &TransitEvent,
@@ -420,13 +420,12 @@ pub fn information_of_set(
         .par_iter()
         .with_min_len(256)
         .map(|o| {
-            let p = event.predict(&o.station);
-            let Some(c) = p.contacts[o.contact.index()] else {
+            let Some(c) = event.predict_contact(&o.station, o.contact) else {
                 return 0.0;
             };
             // An interval's sensitivity is the difference of its two contacts'.
             let first = match o.duration {
-                Some(d) => match p.contacts[d.first.index()] {
+                Some(d) => match event.predict_contact(&o.station, d.first) {
                     Some(f) => Some(f),
                     None => return 0.0,
                 },
