@@ -5,9 +5,11 @@
 //! verdict in words and what to do). Cards, not a wide table: the page reads at 360 px.
 
 use super::feedback::{SubmissionFeedback, TimingFeedback};
-use super::pages::page;
+use super::pages::page_in;
 use super::store::TimingFields;
 use crate::geometry::transit::TransitEvent;
+use crate::language::numbers::decimal;
+use crate::language::{text, Args, Language};
 use crate::reduction::agreement::Agreement;
 use crate::render::path_on_disc::{path_on_disc_svg, ObservedMark};
 use crate::render::svg::esc;
@@ -22,6 +24,37 @@ pub const MIN_STATIONS_FOR_SHARE: usize = 3;
 
 /// Drawings on one page at most (a large file gets cards only beyond these).
 const MAX_DRAWINGS: usize = 3;
+
+/// A message without values in the visitor's language.
+fn t(l: Language, id: &str) -> String {
+    text(l, id, &Args::new())
+}
+
+/// The verdict in the visitor's words (the feedback's words are English; this is their
+/// closed set, set in `feedback.rs`).
+fn verdict_words(l: Language, b: &TimingFeedback) -> String {
+    let id = match b.verdict_words {
+        "fits" => "verdict-fits",
+        "doubtful" => "verdict-doubtful",
+        "does not fit" => "verdict-does-not-fit",
+        "could not be read" => "verdict-unread",
+        "probably a slip you can fix" => "verdict-slip",
+        other => return other.to_string(),
+    };
+    t(l, id)
+}
+
+/// A difference from the prediction in the visitor's words ("12.0 s later than
+/// predicted", "3,0 s früher als vorhergesagt").
+pub fn difference_in(l: Language, o_c_s: f64) -> String {
+    let size = super::feedback_words::difference_size(o_c_s, |a| decimal(l, a, 1));
+    let id = if o_c_s >= 0.0 {
+        "later-than-predicted"
+    } else {
+        "earlier-than-predicted"
+    };
+    text(l, id, &Args::new().text("size", size))
+}
 
 /// The time as the participant sent it (UTC, or local solar time).
 fn sent_time(f: &TimingFields) -> &str {
@@ -38,63 +71,73 @@ fn pair(s: &mut String, term: &str, value: &str) {
 }
 
 /// One timing's card.
-fn card(f: &TimingFields, b: &TimingFeedback) -> String {
+fn card(l: Language, f: &TimingFields, b: &TimingFeedback) -> String {
     let written = if b.contact_as_written.is_empty() {
-        "(none given)"
+        t(l, "card-contact-none")
     } else {
-        &b.contact_as_written
+        b.contact_as_written.clone()
     };
-    let mut s = format!(
-        "<li class=\"card\"><h3>Contact {}</h3>\n<dl>\n",
-        esc(written)
-    );
-    pair(&mut s, "Station", &f.station);
-    pair(&mut s, "Your time", sent_time(f));
+    let heading = text(l, "card-contact", &Args::new().text("contact", written));
+    let mut s = format!("<li class=\"card\"><h3>{}</h3>\n<dl>\n", esc(&heading));
+    pair(&mut s, &t(l, "card-station"), &f.station);
+    pair(&mut s, &t(l, "card-your-time"), sent_time(f));
     if let Some(p) = &b.predicted_utc {
-        pair(&mut s, "Predicted", p);
+        pair(&mut s, &t(l, "card-predicted"), p);
     }
     if let Some(x) = b.o_c_s {
-        pair(
-            &mut s,
-            "Difference",
-            &super::feedback_words::difference_words(x),
-        );
+        pair(&mut s, &t(l, "card-difference"), &difference_in(l, x));
     }
     if let Some(a) = b.sun_altitude_deg {
-        pair(&mut s, "Sun's altitude", &format!("{a:.1} degrees"));
+        let degrees = Args::new().text("degrees", decimal(l, a, 1));
+        pair(
+            &mut s,
+            &t(l, "card-sun-altitude"),
+            &text(l, "card-sun-altitude-value", &degrees),
+        );
     }
     let _ = writeln!(
         s,
-        "<dt>Verdict</dt><dd class=\"{}\"><strong>{}</strong></dd>",
+        "<dt>{}</dt><dd class=\"{}\"><strong>{}</strong></dd>",
+        esc(&t(l, "card-verdict")),
         b.verdict,
-        esc(b.verdict_words)
+        esc(&verdict_words(l, b))
     );
     if let Some(d) = &b.diagnosis {
-        pair(&mut s, "What it means", d);
+        pair(&mut s, &t(l, "card-meaning"), d);
     }
+    let nothing = t(l, "card-nothing-to-do");
     pair(
         &mut s,
-        "What to do",
-        b.advice.as_deref().unwrap_or("nothing: thank you"),
+        &t(l, "card-what-to-do"),
+        b.advice.as_deref().unwrap_or(&nothing),
     );
     s.push_str("</dl></li>\n");
     s
 }
 
 /// The feedback as cards, with any station-wide offset said first, once.
-pub fn feedback_cards(fields: &[TimingFields], fb: &SubmissionFeedback) -> String {
+pub fn feedback_cards(l: Language, fields: &[TimingFields], fb: &SubmissionFeedback) -> String {
     let mut s = String::new();
     for st in &fb.stations {
+        let heading = text(
+            l,
+            "all-together",
+            &Args::new().text("station", &*st.station),
+        );
         let _ = writeln!(
             s,
-            "<section class=\"station-advice\"><h2>All your timings together: {}</h2>\n<p>{}.</p></section>",
-            esc(&st.station),
+            "<section class=\"station-advice\"><h2>{}</h2>\n<p>{}.</p></section>",
+            esc(&heading),
             esc(&capitalised(&st.advice))
         );
     }
-    s.push_str("<h2>Each timing</h2>\n<ol class=\"cards\" id=\"feedback\">\n");
+    let _ = writeln!(
+        s,
+        "<h2>{}</h2>\n<ol class=\"cards\" id=\"feedback\">",
+        esc(&t(l, "each-timing"))
+    );
     for (f, b) in fields.iter().zip(&fb.timings) {
-        s.push_str(&card(f, b));
+        s.push_str(&card(l, f, b));
     }
     s.push_str("</ol>\n");
     s
@@ -147,76 +190,105 @@ pub fn drawings(event: &TransitEvent, fb: &SubmissionFeedback) -> String {
     s
 }
 
+/// Why a station's share is not shown.
+#[derive(Clone, Debug, PartialEq)]
+pub enum NoShare {
+    /// The network has fewer than [`MIN_STATIONS_FOR_SHARE`] stations (so far, this many).
+    NetworkTooSmall(usize),
+    /// None of the timings could be used.
+    NothingUsable,
+}
+
 /// A station's expected share of the information on the parallax, `own / (own + rest)`
 /// (arcsec^-2 each), once `stations` (the network with this one) reaches
-/// [`MIN_STATIONS_FOR_SHARE`]; else the sentence that says when it will show.
-pub fn share_of(own: f64, rest: f64, stations: usize) -> Result<f64, String> {
+/// [`MIN_STATIONS_FOR_SHARE`]; else why it does not show.
+pub fn share_of(own: f64, rest: f64, stations: usize) -> Result<f64, NoShare> {
     if stations < MIN_STATIONS_FOR_SHARE {
-        return Err(format!(
-            "your share of the campaign's information on the solar parallax will show once at least {MIN_STATIONS_FOR_SHARE} stations have sent timings ({stations} so far): the parallax is measured by comparing stations"
-        ));
+        return Err(NoShare::NetworkTooSmall(stations));
     }
     if own > 0.0 && (own + rest).is_finite() {
         Ok(own / (own + rest))
     } else {
-        Err(
-            "these timings carry no information on the parallax yet (none of them could be used)"
-                .into(),
-        )
+        Err(NoShare::NothingUsable)
     }
 }
 
-/// What the page says of the station's share: the share once the network has
-/// [`MIN_STATIONS_FOR_SHARE`] stations, else when it will show.
-pub fn share_sentence(share: &Result<f64, String>) -> String {
+/// What the page says of the station's share in the visitor's language: the share once the
+/// network has [`MIN_STATIONS_FOR_SHARE`] stations, else when it will show.
+pub fn share_sentence(l: Language, share: &Result<f64, NoShare>) -> String {
     match share {
-        Ok(x) => format!("Your station's expected share of the campaign's information on the solar parallax so far: {:.1} % (before the planet's place and the radii are fitted).", 100.0 * x),
-        Err(why) => capitalised(why),
+        Ok(x) => text(
+            l,
+            "share-value",
+            &Args::new().text("percent", decimal(l, 100.0 * x, 1)),
+        ),
+        Err(NoShare::NetworkTooSmall(so_far)) => text(
+            l,
+            "share-later",
+            &Args::new()
+                .text("min", MIN_STATIONS_FOR_SHARE.to_string())
+                .text("so_far", so_far.to_string()),
+        ),
+        Err(NoShare::NothingUsable) => t(l, "share-none"),
     }
 }
 
-/// The reply page after a submission: "Received and stored" only when at least one row was
-/// read; otherwise a heading that says none could be, and what to change.
+/// The reply page after a submission, in the visitor's language: "Received and stored" only
+/// when at least one row was read; otherwise a heading that says none could be, and what to
+/// change.
 pub fn feedback_page(
+    l: Language,
     event: &TransitEvent,
     (id, link): (i64, &str),
     (fields, fb): (&[TimingFields], &SubmissionFeedback),
-    share: &Result<f64, String>,
+    share: &Result<f64, NoShare>,
     duplicate: bool,
 ) -> String {
     let mut body = String::new();
     if duplicate {
-        body.push_str(
-            "<p>This is the same as a submission already received; it was not counted twice.</p>\n",
-        );
+        let _ = writeln!(body, "<p>{}</p>", esc(&t(l, "feedback-duplicate")));
     }
     let (read, total) = (fb.rows_read(), fb.timings.len());
     let title = if read == 0 {
-        let _ = writeln!(body, "<p id=\"received\">We kept what you sent (as submission {id}) so that the organiser can see it, but none of its {} could be read as a timing. Below, under each row: what could not be read and what to change. Then send the timings again.</p>", crate::words::count(total, "row", "rows"));
-        "Your timings could not be read"
-    } else {
-        let unread = if read < total {
-            format!(
-                " {} could not be read: see below.",
-                crate::words::count(total - read, "row", "rows")
-            )
-        } else {
-            String::new()
-        };
+        let args = Args::new().text("id", id.to_string()).count("n", total);
         let _ = writeln!(
             body,
-            "<p id=\"received\">Received and stored as submission {id}: {} read.{unread}</p>",
-            crate::words::count(read, "timing", "timings")
+            "<p id=\"received\">{}</p>",
+            esc(&text(l, "feedback-none-read", &args))
         );
-        "Thank you: your timings"
+        t(l, "feedback-title-unread")
+    } else {
+        let args = Args::new().text("id", id.to_string()).count("n", read);
+        let mut received = text(l, "feedback-received", &args);
+        if read < total {
+            received.push(' ');
+            received.push_str(&text(
+                l,
+                "feedback-some-unread",
+                &Args::new().count("n", total - read),
+            ));
+        }
+        let _ = writeln!(body, "<p id=\"received\">{}</p>", esc(&received));
+        t(l, "feedback-title")
     };
     body.push_str(&drawings(event, fb));
-    body.push_str(&feedback_cards(fields, fb));
+    body.push_str(&feedback_cards(l, fields, fb));
     if read > 0 {
-        let _ = writeln!(body, "<p id=\"share\">{}</p>", esc(&share_sentence(share)));
+        let _ = writeln!(
+            body,
+            "<p id=\"share\">{}</p>",
+            esc(&share_sentence(l, share))
+        );
     }
-    let _ = writeln!(body, "<p>To review or correct your submission later, keep this private link: <a id=\"private\" href=\"{l}\">{l}</a>. A correction is stored as a new version; the old one is kept.</p>\n<p><a href=\"/\">Send another</a></p>", l = esc(link));
-    page(title, &body)
+    let _ = writeln!(
+        body,
+        "<p>{} <a id=\"private\" href=\"{link}\">{link}</a>. {}</p>\n<p><a href=\"/\">{}</a></p>",
+        esc(&t(l, "feedback-private-link")),
+        esc(&t(l, "feedback-versions")),
+        esc(&t(l, "send-another")),
+        link = esc(link),
+    );
+    page_in(l, Some(link), &title, &body)
 }
 
 #[cfg(test)]
@@ -227,17 +299,35 @@ mod tests {
     fn no_share_before_the_network() {
         // The first station alone would hold "100.0 %" (issue 20).
         let first = share_of(3.0, 0.0, 1);
-        assert!(
-            first
-                .as_ref()
-                .is_err_and(|s| s.contains("at least 3 stations")),
-            "{first:?}"
-        );
-        assert!(!share_sentence(&first).contains('%'));
+        assert_eq!(first, Err(NoShare::NetworkTooSmall(1)));
+        let words = share_sentence(Language::English, &first);
+        assert!(words.contains("at least 3 stations"), "{words}");
+        assert!(!words.contains('%'));
         assert!(share_of(3.0, 5.0, 2).is_err());
         let third = share_of(3.0, 9.0, 3).unwrap();
         assert!((third - 0.25).abs() < 1e-12);
-        assert!(share_sentence(&Ok(third)).contains("25.0 %"));
-        assert!(share_of(0.0, 9.0, 4).is_err(), "no zero share of nothing");
+        assert!(share_sentence(Language::English, &Ok(third)).contains("25.0 %"));
+        assert!(share_sentence(Language::French, &Ok(third)).contains("25,0 %"));
+        assert_eq!(
+            share_of(0.0, 9.0, 4),
+            Err(NoShare::NothingUsable),
+            "no zero share of nothing"
+        );
+    }
+
+    #[test]
+    fn differences_in_the_visitors_words() {
+        assert_eq!(
+            difference_in(Language::English, 12.04),
+            "12.0 s later than predicted"
+        );
+        assert_eq!(
+            difference_in(Language::German, -3.0),
+            "3,0 s früher als vorhergesagt"
+        );
+        assert_eq!(
+            difference_in(Language::Spanish, 983.0),
+            "16 min 23 s más tarde de lo predicho"
+        );
     }
 }

@@ -8,18 +8,24 @@ use crate::geometry::transit::TransitEvent;
 /// earlier than predicted".
 pub fn difference_words(o_c_s: f64) -> String {
     let side = if o_c_s >= 0.0 { "later" } else { "earlier" };
+    let size = difference_size(o_c_s, |a| format!("{a:.1}"));
+    format!("{size} {side} than predicted")
+}
+
+/// The size of a difference, without its side: "12.0 s", "16 min 23 s", "8 h 0 min"
+/// (`one_decimal` writes a number of seconds with one decimal, in the reader's language).
+pub fn difference_size(o_c_s: f64, one_decimal: impl Fn(f64) -> String) -> String {
     let a = o_c_s.abs();
     // Rounded to the second before it is split, so that 119.7 s reads "2 min 0 s", never
     // "1 min 60 s".
     let whole_s = a.round() as u64;
-    let size = if a < 100.0 {
-        format!("{a:.1} s")
+    if a < 100.0 {
+        format!("{} s", one_decimal(a))
     } else if whole_s < 3600 {
         format!("{} min {} s", whole_s / 60, whole_s % 60)
     } else {
         format!("{} h {} min", whole_s / 3600, (whole_s % 3600) / 60)
-    };
-    format!("{size} {side} than predicted")
+    }
 }
 
 /// The reduction's wording of a blunder, for people: "O - C" said in words.

@@ -10,8 +10,19 @@
 //! and uncertainties, which are positive, get the decimal pad.
 
 use super::store::TimingFields;
+use crate::language::{text, Args, Language};
 use crate::render::svg::esc;
 use std::fmt::Write;
+
+/// A message of the form in the visitor's language.
+fn t(language: Language, id: &str) -> String {
+    text(language, id, &Args::new())
+}
+
+/// A message with one text value.
+fn t1(language: Language, id: &str, name: &'static str, value: &str) -> String {
+    text(language, id, &Args::new().text(name, value))
+}
 
 /// A text field with its label (and a hint inside the label, read with it).
 fn text_field(name: &str, label: &str, hint: &str, value: &str, attrs: &str) -> String {
@@ -30,7 +41,12 @@ fn text_field(name: &str, label: &str, hint: &str, value: &str, attrs: &str) -> 
 
 /// A choice list with its label; `value` is selected, and kept as an option of its own when it
 /// is none of `options` (a correction then sends back what was sent).
-fn select_field(name: &str, label: &str, options: &[(&str, &str)], value: &str) -> String {
+fn select_field(
+    language: Language,
+    (name, label): (&str, &str),
+    options: &[(&str, String)],
+    value: &str,
+) -> String {
     let mut s = format!(
         "<div class=\"field\"><label for=\"{n}\">{}</label><select id=\"{n}\" name=\"{n}\">",
         esc(label),
@@ -40,8 +56,9 @@ fn select_field(name: &str, label: &str, options: &[(&str, &str)], value: &str) 
     if !known {
         let _ = write!(
             s,
-            "<option value=\"{v}\" selected>as sent: {v}</option>",
-            v = esc(value)
+            "<option value=\"{}\" selected>{}</option>",
+            esc(value),
+            esc(&t1(language, "as-sent", "value", value))
         );
     }
     for (v, text) in options {
@@ -61,24 +78,33 @@ fn select_field(name: &str, label: &str, options: &[(&str, &str)], value: &str) 
     s
 }
 
-const CONTACTS: [(&str, &str); 5] = [
-    ("", "not timed"),
-    ("1", "I: exterior ingress (first touch)"),
-    ("2", "II: interior ingress (fully on the Sun)"),
-    ("3", "III: interior egress (begins to leave)"),
-    ("4", "IV: exterior egress (last touch)"),
-];
+/// The choices of contact, as the list shows them.
+fn contacts(l: Language) -> [(&'static str, String); 5] {
+    [
+        ("", t(l, "contact-none")),
+        ("1", t(l, "contact-1")),
+        ("2", t(l, "contact-2")),
+        ("3", t(l, "contact-3")),
+        ("4", t(l, "contact-4")),
+    ]
+}
 
-const LOCAL_TIMES: [(&str, &str); 3] = [
-    ("", "none (the time is UTC)"),
-    ("apparent", "apparent (sundial time)"),
-    ("mean", "mean (local mean time)"),
-];
+/// The kinds of local time.
+fn local_times(l: Language) -> [(&'static str, String); 3] {
+    [
+        ("", t(l, "local-kind-none")),
+        ("apparent", t(l, "local-kind-apparent")),
+        ("mean", t(l, "local-kind-mean")),
+    ]
+}
 
-const DAY_RECKONINGS: [(&str, &str); 2] = [
-    ("", "civil (from midnight)"),
-    ("astronomical", "astronomical (from noon)"),
-];
+/// The day reckonings.
+fn day_reckonings(l: Language) -> [(&'static str, String); 2] {
+    [
+        ("", t(l, "day-civil")),
+        ("astronomical", t(l, "day-astronomical")),
+    ]
+}
 
 /// The hidden fields every form posts: the anti-forgery token, and the edit key of a
 /// correction.
@@ -98,72 +124,101 @@ fn hidden(csrf: &str, key: Option<&str>) -> String {
 }
 
 /// The station's fieldset.
-fn station_fields(first: &TimingFields) -> String {
+fn station_fields(l: Language, first: &TimingFields) -> String {
     const DECIMAL: &str = " inputmode=\"decimal\"";
+    let heading = t(l, "station-heading");
     format!(
-        "<h2>Your station</h2>\n<fieldset><legend class=\"vh\">Your station</legend>\n{}\n<div class=\"row\">{}{}</div>\n<div class=\"row\">{}{}</div>\n</fieldset>\n",
-        text_field("station", "Station's name", "as you want it listed", &first.station, " required"),
-        text_field("latitude", "Latitude (degrees)", "north positive, south negative: -33.87", &first.latitude, " required"),
-        text_field("longitude", "Longitude (degrees)", "east positive, west negative: -157.86", &first.longitude, " required"),
-        text_field("elevation_m", "Elevation (metres)", "above sea level", &first.elevation_m, DECIMAL),
-        text_field("longitude_sigma_deg", "Longitude's uncertainty (degrees)", "or the word unknown; leave empty when the longitude is exact", &first.longitude_sigma_deg, ""),
+        "<h2>{h}</h2>\n<fieldset><legend class=\"vh\">{h}</legend>\n{}\n<div class=\"row\">{}{}</div>\n<div class=\"row\">{}{}</div>\n</fieldset>\n",
+        text_field("station", &t(l, "station-name"), &t(l, "station-name-hint"), &first.station, " required"),
+        text_field("latitude", &t(l, "latitude"), &t1(l, "latitude-hint", "example", "-33.87"), &first.latitude, " required"),
+        text_field("longitude", &t(l, "longitude"), &t1(l, "longitude-hint", "example", "-157.86"), &first.longitude, " required"),
+        text_field("elevation_m", &t(l, "elevation"), &t(l, "elevation-hint"), &first.elevation_m, DECIMAL),
+        text_field("longitude_sigma_deg", &t(l, "longitude-sigma"), &t(l, "longitude-sigma-hint"), &first.longitude_sigma_deg, ""),
+        h = esc(&heading),
     )
 }
 
 /// One timing's fieldset (`k` from 0): the contact, the time in UTC and its uncertainty; and,
 /// folded away unless one of them holds something, the fields of a local solar time.
-fn timing_fields(k: usize, f: &TimingFields) -> String {
+fn timing_fields(l: Language, k: usize, f: &TimingFields) -> String {
     let local = [&f.time_local, &f.local_time, &f.day_reckoning];
     let open = if local.iter().any(|v| !v.is_empty()) {
         " open"
     } else {
         ""
     };
+    let legend = t1(l, "timing-legend", "number", &(k + 1).to_string());
     format!(
-        "<fieldset class=\"timing\"><legend>Timing {n}</legend>\n{}\n{}\n{}\n<details class=\"local\"{open}><summary>Timed by local solar time (an old record)?</summary>\n{}\n<div class=\"row\">{}{}</div>\n</details>\n</fieldset>\n",
-        select_field(&format!("contact{k}"), "Contact", &CONTACTS, &f.contact),
-        text_field(&format!("time_utc{k}"), "Time (UTC)", "date and time with Z: 2012-06-05T22:25:41.3Z", &f.time_utc, ""),
-        text_field(&format!("sigma_s{k}"), "Uncertainty (seconds)", "how sure you are of the time; empty: the usual for that contact", &f.sigma_s, " inputmode=\"decimal\""),
-        text_field(&format!("time_local{k}"), "Local solar time", "instead of UTC, no zone: 1769-06-03T21:25:03.5", &f.time_local, ""),
-        select_field(&format!("local_time{k}"), "Kind of local time", &LOCAL_TIMES, &f.local_time),
-        select_field(&format!("day_reckoning{k}"), "Day reckoning", &DAY_RECKONINGS, &f.day_reckoning),
-        n = k + 1,
+        "<fieldset class=\"timing\"><legend>{}</legend>\n{}\n{}\n{}\n<details class=\"local\"{open}><summary>{}</summary>\n{}\n<div class=\"row\">{}{}</div>\n</details>\n</fieldset>\n",
+        esc(&legend),
+        select_field(l, (&format!("contact{k}"), &t(l, "contact")), &contacts(l), &f.contact),
+        text_field(&format!("time_utc{k}"), &t(l, "time-utc"), &t1(l, "time-utc-hint", "example", "2012-06-05T22:25:41.3Z"), &f.time_utc, ""),
+        text_field(&format!("sigma_s{k}"), &t(l, "sigma"), &t(l, "sigma-hint"), &f.sigma_s, " inputmode=\"decimal\""),
+        esc(&t(l, "local-summary")),
+        text_field(&format!("time_local{k}"), &t(l, "time-local"), &t1(l, "time-local-hint", "example", "1769-06-03T21:25:03.5"), &f.time_local, ""),
+        select_field(l, (&format!("local_time{k}"), &t(l, "local-kind")), &local_times(l), &f.local_time),
+        select_field(l, (&format!("day_reckoning{k}"), &t(l, "day-reckoning")), &day_reckonings(l), &f.day_reckoning),
     )
 }
 
-/// The form for a station and its timings, pre-filled with `fields` (empty for a new
-/// submission), posting to `action` with the anti-forgery token (and the edit key, for a
-/// correction); then the form that posts a pasted observations file to the same address.
-pub fn timing_form(action: &str, csrf: &str, key: Option<&str>, fields: &[TimingFields]) -> String {
+/// The form for a station and its timings in the visitor's language, pre-filled with
+/// `fields` (empty for a new submission), posting to `action` with the anti-forgery token
+/// (and the edit key, for a correction); then the form that posts a pasted observations file
+/// to the same address.
+pub fn timing_form(
+    l: Language,
+    action: &str,
+    (csrf, key): (&str, Option<&str>),
+    fields: &[TimingFields],
+) -> String {
     let first = fields.first().cloned().unwrap_or_default();
     let mut s = format!(
         "<form method=\"post\" action=\"{}\" id=\"timings-form\">\n{}",
         esc(action),
         hidden(csrf, key)
     );
-    s.push_str(&station_fields(&first));
-    s.push_str("<h2>Your timings</h2>\n<p class=\"note\">One block per contact you timed; leave the others on \"not timed\".</p>\n<div class=\"timings\">\n");
+    s.push_str(&station_fields(l, &first));
+    let _ = writeln!(
+        s,
+        "<h2>{}</h2>\n<p class=\"note\">{}</p>\n<div class=\"timings\">",
+        esc(&t(l, "timings-heading")),
+        esc(&t(l, "timings-note"))
+    );
     for k in 0..4 {
         s.push_str(&timing_fields(
+            l,
             k,
             &fields.get(k).cloned().unwrap_or_default(),
         ));
     }
-    s.push_str("</div>\n<p class=\"actions\"><button type=\"submit\" id=\"send\">Send these timings</button></p>\n</form>\n");
     let _ = writeln!(
         s,
-        "<form method=\"post\" action=\"{}\" id=\"paste-form\">\n{}<fieldset><legend>Or paste an observations file</legend>\n<div class=\"field\"><label for=\"csv\">Observations (CSV) <span class=\"hint\">with the columns station,latitude,longitude,elevation_m,contact,time_utc,sigma_s</span></label><textarea name=\"csv\" id=\"csv\" rows=\"6\" spellcheck=\"false\" required></textarea></div>\n<p class=\"actions\"><button type=\"submit\" id=\"send-paste\">Send the pasted file</button></p>\n</fieldset>\n</form>",
+        "</div>\n<p class=\"actions\"><button type=\"submit\" id=\"send\">{}</button></p>\n</form>",
+        esc(&t(l, "send-timings"))
+    );
+    let columns = "station,latitude,longitude,elevation_m,contact,time_utc,sigma_s";
+    let _ = writeln!(
+        s,
+        "<form method=\"post\" action=\"{}\" id=\"paste-form\">\n{}<fieldset><legend>{}</legend>\n<div class=\"field\"><label for=\"csv\">{} <span class=\"hint\">{}</span></label><textarea name=\"csv\" id=\"csv\" rows=\"6\" spellcheck=\"false\" required></textarea></div>\n<p class=\"actions\"><button type=\"submit\" id=\"send-paste\">{}</button></p>\n</fieldset>\n</form>",
         esc(action),
-        hidden(csrf, key)
+        hidden(csrf, key),
+        esc(&t(l, "paste-legend")),
+        esc(&t(l, "paste-label")),
+        esc(&t1(l, "paste-hint", "columns", columns)),
+        esc(&t(l, "send-paste")),
     );
     s
 }
 
 /// The form that uploads an observations file (multipart), with the anti-forgery token.
-pub fn upload_form(csrf: &str) -> String {
+pub fn upload_form(l: Language, csrf: &str) -> String {
     format!(
-        "<form method=\"post\" action=\"/upload\" enctype=\"multipart/form-data\" id=\"upload-form\">\n<input type=\"hidden\" name=\"csrf\" value=\"{}\"/>\n<fieldset><legend>Or send an observations file</legend>\n<div class=\"field\"><label for=\"file\">File <span class=\"hint\">CSV with the columns above, or an .xlsx or .ods spreadsheet</span></label><input type=\"file\" name=\"file\" id=\"file\" accept=\".csv,.tsv,.txt,.xlsx,.ods,text/csv\" required/></div>\n<p class=\"actions\"><button type=\"submit\" id=\"upload\">Send the file</button></p>\n</fieldset>\n</form>\n",
-        esc(csrf)
+        "<form method=\"post\" action=\"/upload\" enctype=\"multipart/form-data\" id=\"upload-form\">\n<input type=\"hidden\" name=\"csrf\" value=\"{}\"/>\n<fieldset><legend>{}</legend>\n<div class=\"field\"><label for=\"file\">{} <span class=\"hint\">{}</span></label><input type=\"file\" name=\"file\" id=\"file\" accept=\".csv,.tsv,.txt,.xlsx,.ods,text/csv\" required/></div>\n<p class=\"actions\"><button type=\"submit\" id=\"upload\">{}</button></p>\n</fieldset>\n</form>\n",
+        esc(csrf),
+        esc(&t(l, "upload-legend")),
+        esc(&t(l, "upload-label")),
+        esc(&t(l, "upload-hint")),
+        esc(&t(l, "send-file")),
     )
 }
 
@@ -181,7 +236,7 @@ mod tests {
             local_time: "Apparent".into(),
             ..TimingFields::default()
         };
-        let html = timing_form("/submit", "t", Some("k"), &[f]);
+        let html = timing_form(Language::English, "/submit", ("t", Some("k")), &[f]);
         for name in html.split(" name=\"").skip(1) {
             let name = &name[..name.find('"').unwrap()];
             if ["csrf", "key"].contains(&name) {
@@ -195,6 +250,10 @@ mod tests {
         assert!(html.contains("<option value=\"\" selected>not timed</option>"));
         assert_eq!(html.matches("<fieldset class=\"timing\">").count(), 4);
         assert_eq!(html.matches("<details class=\"local\" open>").count(), 1);
-        assert!(upload_form("t").contains("<label for=\"file\">"));
+        assert!(upload_form(Language::English, "t").contains("<label for=\"file\">"));
+        // The same form in German: the labels in German, the posted names unchanged.
+        let de = timing_form(Language::German, "/submit", ("t", None), &[]);
+        assert!(de.contains(">Breite (Grad)"), "German labels");
+        assert!(de.contains("name=\"latitude\"") && de.contains("name=\"contact3\""));
     }
 }

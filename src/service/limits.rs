@@ -26,25 +26,16 @@ pub const BODY_LIMIT_BYTES: usize = 256 * 1024;
 /// bytes a row: station, coordinates, contact, an ISO 8601 time, its uncertainty).
 pub const ROWS_WITHIN_LIMIT: usize = 3_000;
 
-/// The limits as the participant's form states them.
-pub fn limits_sentence() -> String {
+/// The limits as the participant's form states them, in the visitor's language.
+pub fn limits_sentence(l: crate::language::Language) -> String {
+    use crate::language::{numbers::decimal, text, Args};
+    let args = Args::new()
+        .text("kb", decimal(l, (BODY_LIMIT_BYTES / 1024) as f64, 0))
+        .text("rows", decimal(l, ROWS_WITHIN_LIMIT as f64, 0));
     format!(
-        "<p id=\"limits\">Limits: a pasted or uploaded file may be up to {} KB (about {} rows); split a longer file into parts and send each. Each part is a submission of its own; the timings of one station in several parts are pooled.</p>\n",
-        BODY_LIMIT_BYTES / 1024,
-        fmt_thousands(ROWS_WITHIN_LIMIT)
+        "<p id=\"limits\">{}</p>\n",
+        crate::render::svg::esc(&text(l, "limits", &args))
     )
-}
-
-fn fmt_thousands(n: usize) -> String {
-    let s = n.to_string();
-    let mut out = String::new();
-    for (k, c) in s.chars().enumerate() {
-        if k > 0 && (s.len() - k) % 3 == 0 {
-            out.push(',');
-        }
-        out.push(c);
-    }
-    out
 }
 
 /// The `413` answer: a page in the site's layout (the caution, the limit, how to split the
@@ -61,7 +52,7 @@ pub fn too_large(api: bool) -> Response {
     }
     let body = format!(
         "<p id=\"limit\">What you sent is larger than the limit of {kb} KB (about {} rows of timings), so nothing was stored.</p>\n<p>Split the file into parts under {kb} KB each: keep the header line (the column names) at the top of every part, and keep each station's rows together if you can. Send each part on its own; the timings of one station sent in several parts are pooled.</p>\n<p><a id=\"back\" href=\"/\">Back to the form</a></p>\n",
-        fmt_thousands(ROWS_WITHIN_LIMIT)
+        crate::language::numbers::decimal(crate::language::Language::English, ROWS_WITHIN_LIMIT as f64, 0)
     );
     (
         StatusCode::PAYLOAD_TOO_LARGE,
@@ -250,7 +241,7 @@ mod tests {
                 StatusCode::OK
             );
         });
-        assert_eq!(fmt_thousands(3000), "3,000");
-        assert!(limits_sentence().contains("256 KB"));
+        assert!(limits_sentence(crate::language::Language::German).contains("3.000 Zeilen"));
+        assert!(limits_sentence(crate::language::Language::English).contains("256 KB"));
     }
 }

@@ -8,7 +8,8 @@
 //! - `store.rs`: the SQLite database (raw submissions, timings as sent, the audit trail).
 //! - `intake.rs`: a submission's JSON body or form into timings.
 //! - `feedback.rs`: each timing against its prediction at once, and the station's share.
-//! - `pages.rs`: the pages' frame (header, caution, landmarks) and the participant's pages.
+//! - `pages.rs`: the pages' frame (header, caution, landmarks, language switch) and the participant's pages.
+//! - `language_choice.rs`: the visitor's language (switch, cookie, `Accept-Language`) and the switch.
 //! - `form.rs`: the participant's forms, one labelled field each.
 //! - `style.rs`: the pages' style sheet, phone first.
 //! - `feedback_words.rs`: the feedback's plain words (differences, reasons, station offsets).
@@ -28,6 +29,7 @@ pub mod feedback_words;
 pub mod forgery;
 pub mod form;
 pub mod intake;
+pub mod language_choice;
 pub mod limits;
 pub mod organiser;
 pub mod pages;

@@ -84,7 +84,7 @@ async fn add_headers(State(csp): State<Arc<HeaderValue>>, req: Request, next: Ne
 
 /// Wrap the service's router in its protective layers, outermost first: the security headers
 /// (so that every refusal carries them too), the per-address rate limit (`rate`, with
-/// `--public`), 413 answers explained, the visitor's anti-forgery cookie, the origin and
+/// `--public`), the visitor's language, 413 answers explained, the visitor's anti-forgery cookie, the origin and
 /// content-type checks of posts, and the organiser's sign-in (with its routes added).
 pub fn harden(router: Router, app: Arc<App>, rate: Option<super::limits::RateLimit>) -> Router {
     let csp = HeaderValue::from_str(&content_security_policy())
@@ -95,7 +95,8 @@ pub fn harden(router: Router, app: Arc<App>, rate: Option<super::limits::RateLim
         .layer(from_fn_with_state(app, super::sign_in::gate))
         .layer(from_fn(super::forgery::check_posts))
         .layer(from_fn_with_state(forgery, super::forgery::visitor))
-        .layer(from_fn(super::limits::explain_too_large));
+        .layer(from_fn(super::limits::explain_too_large))
+        .layer(from_fn(super::language_choice::choose_language));
     if let Some(rate) = rate {
         r = r.layer(from_fn_with_state(
             rate.limiter(),

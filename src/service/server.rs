@@ -4,12 +4,13 @@
 
 use super::cache::Cache;
 use super::feedback::{feedback, parallax_information};
-use super::feedback_page::{feedback_cards, feedback_page, share_of};
+use super::feedback_page::{feedback_cards, feedback_page, share_of, NoShare};
 use super::forgery::{refused_form, Visitor};
 use super::intake::{from_form, from_json};
-use super::pages::{message_page, page, timing_form};
+use super::pages::{message_page_in, page_in, timing_form};
 use super::store::{Store, TimingFields};
 use crate::geometry::transit::TransitEvent;
+use crate::language::Language;
 use axum::body::Bytes;
 use axum::extract::{Path, Query, State};
 use axum::http::{header, HeaderMap, StatusCode};
@@ -138,8 +139,8 @@ impl App {
     /// The station's expected share of the information on the parallax, once the network
     /// (the latest solution's stations and these) has
     /// [`super::feedback_page::MIN_STATIONS_FOR_SHARE`] stations;
-    /// else the sentence that says when it will show.
-    fn share(&self, fields: &[TimingFields]) -> Result<f64, String> {
+    /// else why it does not show.
+    fn share(&self, fields: &[TimingFields]) -> Result<f64, NoShare> {
         let solved = self.cache.solved();
         let mut names: Vec<&str> = solved
             .reduction
@@ -220,7 +221,9 @@ pub async fn api_submit_route(State(app): State<Shared>, body: Bytes) -> Respons
                 "station_advice": fb.stations,
                 "timings_read": fb.rows_read(),
                 "information_share": share.as_ref().ok(),
-                "information_share_note": share.as_ref().err(),
+                "information_share_note": share.as_ref().err().map(|_| {
+                    super::feedback_page::share_sentence(Language::English, &share)
+                }),
                 "review": format!("/submission/{id}?key={key}"),
             });
             (status, Json(reply)).into_response()
@@ -245,7 +248,7 @@ fn field<'a>(form: &'a [(String, String)], name: &str) -> Option<&'a str> {
 }
 
 async fn form_submit(
-    app: Shared,
+    (app, l): (Shared, Language),
     visitor: Visitor,
     body: Bytes,
     supersedes: Option<(i64, String)>,
@@ -255,7 +258,7 @@ async fn form_submit(
         Err(why) => {
             return (
                 StatusCode::BAD_REQUEST,
-                Html(message_page("Not received", &why)),
+                Html(message_page_in(l, &t(l, "not-received"), &why)),
             )
                 .into_response()
         }
@@ -269,9 +272,10 @@ async fn form_submit(
             _ => {
                 return (
                     StatusCode::FORBIDDEN,
-                    Html(message_page(
-                        "Refused",
-                        "this link does not open a submission in force",
+                    Html(message_page_in(
+                        l,
+                        &t(l, "refused"),
+                        &t(l, "refused-not-in-force"),
                     )),
                 )
                     .into_response()
@@ -282,34 +286,56 @@ async fn form_submit(
     let worker = app.clone();
     let read = move |_: &[u8]| from_form(&form);
     let done = tokio::task::spawn_blocking(move || take_in(&worker, &body, read, old)).await;
-    feedback_reply(&app, done)
+    feedback_reply(&app, l, done)
+}
+
+/// A message of the participants' pages in the visitor's language.
+fn t(l: Language, id: &str) -> String {
+    crate::language::text(l, id, &crate::language::Args::new())
 }
 
 /// `GET /`.
 pub async fn participant_route(
     State(app): State<Shared>,
     Extension(visitor): Extension<Visitor>,
+    Extension(l): Extension<Language>,
 ) -> Html<String> {
-    let intro = format!("<p>Send the contact times you observed of the transit of {} of {}. You will see at once how each compares with its prediction at your station.</p>\n", app.event.planet, app.event.date());
-    let forms = timing_form("/submit", &visitor.token, None, &[])
-        + &super::pages::upload_form(&visitor.token)
-        + &super::limits::limits_sentence();
-    Html(page("Send your timings", &(intro + &forms)))
+    let args = crate::language::Args::new()
+        .text("planet", app.event.planet.to_string())
+        .text(
+            "date",
+            crate::language::numbers::date_long(l, app.event.date()),
+        );
+    let intro = format!(
+        "<p>{}</p>\n",
+        crate::render::svg::esc(&crate::language::text(l, "form-intro", &args))
+    );
+    let forms = timing_form(l, "/submit", (&visitor.token, None), &[])
+        + &super::pages::upload_form(l, &visitor.token)
+        + &super::limits::limits_sentence(l);
+    Html(page_in(
+        l,
+        Some("/"),
+        &t(l, "form-title"),
+        &(intro + &forms),
+    ))
 }
 
 /// `POST /submit`.
 pub async fn submit_route(
     State(app): State<Shared>,
     Extension(visitor): Extension<Visitor>,
+    Extension(l): Extension<Language>,
     body: Bytes,
 ) -> Response {
-    form_submit(app, visitor, body, None).await
+    form_submit((app, l), visitor, body, None).await
 }
 
 /// The reply page for a stored submission: its feedback (`201`; `200` for an identical one),
 /// or why it could not be read (`400`; stored all the same).
 fn feedback_reply(
     app: &App,
+    l: Language,
     done: Result<Result<Result<Accepted, String>, String>, tokio::task::JoinError>,
 ) -> Response {
     match done {
@@ -317,6 +343,7 @@ fn feedback_reply(
             let fb = feedback(&app.event, &fields);
             let link = format!("/submission/{id}?key={key}");
             let page = feedback_page(
+                l,
                 &app.event,
                 (id, &link),
                 (&fields, &fb),
@@ -332,11 +359,10 @@ fn feedback_reply(
         }
         Ok(Ok(Err(why))) => (
             StatusCode::BAD_REQUEST,
-            Html(message_page(
-                "Not read",
-                &format!(
-                    "{why}. What you sent was stored as it came, and the organiser can see it."
-                ),
+            Html(message_page_in(
+                l,
+                &t(l, "not-read"),
+                &format!("{why}. {}", t(l, "stored-as-it-came")),
             )),
         )
             .into_response(),
@@ -350,6 +376,7 @@ fn feedback_reply(
 pub async fn upload_route(
     State(app): State<Shared>,
     Extension(visitor): Extension<Visitor>,
+    Extension(l): Extension<Language>,
     form: axum::extract::Multipart,
 ) -> Response {
     let (csrf, file) = match super::limits::read_upload(form).await {
@@ -362,7 +389,11 @@ pub async fn upload_route(
     let Some(bytes) = file.filter(|b| !b.is_empty()) else {
         return (
             StatusCode::BAD_REQUEST,
-            Html(message_page("Not received", "choose a file to send")),
+            Html(message_page_in(
+                l,
+                &t(l, "not-received"),
+                &t(l, "choose-a-file"),
+            )),
         )
             .into_response();
     };
@@ -371,13 +402,14 @@ pub async fn upload_route(
         take_in(&worker, &bytes, super::intake::from_csv_bytes, None)
     })
     .await;
-    feedback_reply(&app, done)
+    feedback_reply(&app, l, done)
 }
 
 /// `GET /submission/{id}?key=`.
 pub async fn review_route(
     State(app): State<Shared>,
     Extension(visitor): Extension<Visitor>,
+    Extension(l): Extension<Language>,
     Path(id): Path<i64>,
     Query(q): Query<HashMap<String, String>>,
 ) -> Response {
@@ -386,25 +418,37 @@ pub async fn review_route(
         Ok(Some((k, in_force, fields))) if k == key => {
             let fb = feedback(&app.event, &fields);
             let mut body = super::feedback_page::drawings(&app.event, &fb);
-            body.push_str(&feedback_cards(&fields, &fb));
+            body.push_str(&feedback_cards(l, &fields, &fb));
+            let esc = crate::render::svg::esc;
             if in_force {
-                body.push_str("<h2>Correct it</h2>\n<p>Sending this form stores a new version; the old one is kept.</p>\n");
+                body.push_str(&format!(
+                    "<h2>{}</h2>\n<p>{}</p>\n",
+                    esc(&t(l, "review-correct-heading")),
+                    esc(&t(l, "review-correct-note"))
+                ));
                 body.push_str(&timing_form(
+                    l,
                     &format!("/submission/{id}"),
-                    &visitor.token,
-                    Some(&key),
+                    (&visitor.token, Some(&key)),
                     &fields,
                 ));
             } else {
-                body.push_str("<p>This version has been corrected by a later one.</p>\n");
+                body.push_str(&format!("<p>{}</p>\n", esc(&t(l, "review-superseded"))));
             }
-            Html(page(&format!("Your submission {id}"), &body)).into_response()
+            let here = format!("/submission/{id}?key={key}");
+            let title = crate::language::text(
+                l,
+                "review-title",
+                &crate::language::Args::new().text("id", id.to_string()),
+            );
+            Html(page_in(l, Some(&here), &title, &body)).into_response()
         }
         Ok(_) => (
             StatusCode::NOT_FOUND,
-            Html(message_page(
-                "Not found",
-                "no submission answers to this link",
+            Html(message_page_in(
+                l,
+                &t(l, "not-found"),
+                &t(l, "not-found-submission"),
             )),
         )
             .into_response(),
@@ -416,6 +460,7 @@ pub async fn review_route(
 pub async fn correct_route(
     State(app): State<Shared>,
     Extension(visitor): Extension<Visitor>,
+    Extension(l): Extension<Language>,
     Path(id): Path<i64>,
     body: Bytes,
 ) -> Response {
@@ -423,5 +468,5 @@ pub async fn correct_route(
         .ok()
         .and_then(|f| field(&f, "key").map(String::from))
         .unwrap_or_default();
-    form_submit(app, visitor, body, Some((id, key))).await
+    form_submit((app, l), visitor, body, Some((id, key))).await
 }

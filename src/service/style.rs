@@ -27,6 +27,10 @@ pub const STYLE: &str = concat!(
     ".masthead{background:#fff;border-bottom:4px solid #e0a526}",
     ".site{margin:0;padding-top:0.75rem;font-size:0.85rem;letter-spacing:0.06em;text-transform:uppercase;color:#4a5563}",
     ".site a{color:inherit;text-decoration:none}",
+    // The language switch: each language named in itself, the current one underlined.
+    ".languages ul{list-style:none;margin:0.25rem 0 0;padding:0;display:flex;flex-wrap:wrap;gap:0.25rem 0.9rem;font-size:0.9rem}",
+    ".languages a{color:#1d4ed8;display:inline-block;padding:0.2rem 0}",
+    ".languages a[aria-current]{color:#111827;font-weight:bold;text-decoration-thickness:2px}",
     "h1{margin:0.25rem 0 0.75rem;font:normal 1.6rem/1.2 Georgia,'DejaVu Serif',serif;color:#14202b}",
     "h2{margin:2rem 0 0.5rem;font:normal 1.3rem/1.25 Georgia,'DejaVu Serif',serif;color:#14202b}",
     "h3{margin:1.25rem 0 0.4rem;font-size:1.05rem}",

@@ -35,7 +35,13 @@ pub fn temp(name: &str, bytes: &[u8]) -> String {
     let dir = std::env::temp_dir().join(format!("tp-tests-{}", std::process::id()));
     std::fs::create_dir_all(&dir).unwrap();
     let p = dir.join(name);
-    std::fs::write(&p, bytes).unwrap();
+    // Written beside and renamed into place, so that two tests writing the same name at once
+    // never let a reader see a half-written (or empty) file.
+    static WRITES: std::sync::atomic::AtomicUsize = std::sync::atomic::AtomicUsize::new(0);
+    let k = WRITES.fetch_add(1, std::sync::atomic::Ordering::Relaxed);
+    let part = dir.join(format!(".{name}.{k}.part"));
+    std::fs::write(&part, bytes).unwrap();
+    std::fs::rename(&part, &p).unwrap();
     p.to_string_lossy().into_owned()
 }
 pub mod chromium;

@@ -1,0 +1,219 @@
+//! The words of the participants' pages in each language: Project Fluent files
+//! (`locales/<code>.ftl`, embedded in the binary), read once into one `fluent-bundle` per
+//! language. A message missing from a language (the test below forbids it) or failing to
+//! format falls back to English, never to an empty string.
+//!
+//! Reference: Project Fluent, the syntax guide (projectfluent.org/fluent/guide), and the
+//! `fluent-bundle` crate's documentation.
+
+use super::Language;
+use fluent_bundle::concurrent::FluentBundle;
+use fluent_bundle::{FluentArgs, FluentResource, FluentValue};
+use std::sync::OnceLock;
+
+/// The Fluent source of a language.
+pub fn source(language: Language) -> &'static str {
+    match language {
+        Language::English => include_str!("../../locales/en.ftl"),
+        Language::Spanish => include_str!("../../locales/es.ftl"),
+        Language::French => include_str!("../../locales/fr.ftl"),
+        Language::German => include_str!("../../locales/de.ftl"),
+        Language::Portuguese => include_str!("../../locales/pt.ftl"),
+    }
+}
+
+type Bundle = FluentBundle<FluentResource>;
+
+/// Every language's bundle, made on first use.
+fn bundles() -> &'static [Bundle; 5] {
+    static BUNDLES: OnceLock<[Bundle; 5]> = OnceLock::new();
+    BUNDLES.get_or_init(|| Language::ALL.map(bundle_of))
+}
+
+fn bundle_of(language: Language) -> Bundle {
+    let id = language.code().parse().unwrap_or_default();
+    let mut bundle = FluentBundle::new_concurrent(vec![id]);
+    // The pages are left to right in every language here: no isolation marks around the
+    // values (they would reach the HTML as invisible characters).
+    bundle.set_use_isolating(false);
+    // A resource with a syntax error keeps the messages it could read; the test below fails
+    // on any error, so a shipped file has none.
+    let resource = match FluentResource::try_new(source(language).to_string()) {
+        Ok(r) | Err((r, _)) => r,
+    };
+    let _ = bundle.add_resource(resource);
+    bundle
+}
+
+/// The values a message takes: numbers already written for the language (see
+/// [`super::numbers`]) go in as text; counts that choose a plural form go in as numbers.
+#[derive(Default)]
+pub struct Args<'a>(FluentArgs<'a>);
+
+impl<'a> Args<'a> {
+    /// No values.
+    pub fn new() -> Self {
+        Args(FluentArgs::new())
+    }
+
+    /// A text value.
+    pub fn text(mut self, name: &'a str, value: impl Into<String>) -> Self {
+        self.0.set(name, FluentValue::from(value.into()));
+        self
+    }
+
+    /// A count (chooses the plural form; written as an integer).
+    pub fn count(mut self, name: &'a str, value: usize) -> Self {
+        self.0.set(name, FluentValue::from(value as f64));
+        self
+    }
+}
+
+/// The message `id` in `language` with `args`; English when the language lacks it or it
+/// fails to format; the id itself (never an empty string) if English lacks it too.
+pub fn text(language: Language, id: &str, args: &Args) -> String {
+    formatted(language, id, args)
+        .or_else(|| formatted(Language::English, id, args))
+        .unwrap_or_else(|| id.to_string())
+}
+
+/// The message formatted without fallback, `None` on any error.
+fn formatted(language: Language, id: &str, args: &Args) -> Option<String> {
+    let bundle = &bundles()[Language::ALL.iter().position(|l| *l == language)?];
+    let pattern = bundle.get_message(id)?.value()?;
+    let mut errors = Vec::new();
+    let out = bundle.format_pattern(pattern, Some(&args.0), &mut errors);
+    errors.is_empty().then(|| out.into_owned())
+}
+
+/// The ids of a language's messages, in file order (for the completeness test and tools).
+pub fn message_ids(language: Language) -> Vec<String> {
+    let resource = match FluentResource::try_new(source(language).to_string()) {
+        Ok(r) | Err((r, _)) => r,
+    };
+    resource
+        .entries()
+        .filter_map(|e| match e {
+            fluent_syntax::ast::Entry::Message(m) => Some(m.id.name.to_string()),
+            _ => None,
+        })
+        .collect()
+}
+
+/// The names of the variables a message uses (`{ $name }`), sorted, for the test that every
+/// translation takes the same values as the English.
+pub fn variables(language: Language, id: &str) -> Vec<String> {
+    let text = source(language);
+    let Some(start) = message_start(text, id) else {
+        return Vec::new();
+    };
+    let body: String = text[start..]
+        .lines()
+        .enumerate()
+        .take_while(|(k, l)| *k == 0 || l.starts_with(' ') || l.is_empty())
+        .map(|(_, l)| l)
+        .collect::<Vec<_>>()
+        .join("\n");
+    let mut names: Vec<String> = body
+        .split("$")
+        .skip(1)
+        .map(|rest| {
+            rest.chars()
+                .take_while(|c| c.is_ascii_alphanumeric() || *c == '_' || *c == '-')
+                .collect()
+        })
+        .collect();
+    names.sort();
+    names.dedup();
+    names
+}
+
+/// Where message `id` begins in a Fluent source (its line `id =`).
+fn message_start(text: &str, id: &str) -> Option<usize> {
+    let mut offset = 0;
+    for line in text.split_inclusive('\n') {
+        if line
+            .strip_prefix(id)
+            .is_some_and(|rest| rest.trim_start().starts_with('='))
+        {
+            return Some(offset);
+        }
+        offset += line.len();
+    }
+    None
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    /// Every file parses without an error, and every message of the English file exists in
+    /// every language with the same variables (and no language has a message English lacks).
+    #[test]
+    fn every_message_exists_in_every_language() {
+        for language in Language::ALL {
+            let errors = FluentResource::try_new(source(language).to_string())
+                .err()
+                .map(|(_, e)| e.len())
+                .unwrap_or(0);
+            assert_eq!(errors, 0, "{}: syntax errors", language.code());
+        }
+        let english = message_ids(Language::English);
+        assert!(english.len() > 50, "{} messages", english.len());
+        for language in Language::ALL {
+            let ids = message_ids(language);
+            for id in &english {
+                assert!(ids.contains(id), "{} lacks {id}", language.code());
+                assert_eq!(
+                    variables(language, id),
+                    variables(Language::English, id),
+                    "{}: the variables of {id}",
+                    language.code()
+                );
+            }
+            for id in &ids {
+                assert!(
+                    english.contains(id),
+                    "{} has {id}, English not",
+                    language.code()
+                );
+            }
+        }
+    }
+
+    /// Every message formats in every language with its variables given, with no error and
+    /// no text left untranslated by accident (a non-English message equal to the English is
+    /// allowed only where it is a symbol or a name).
+    #[test]
+    fn every_message_formats_in_every_language() {
+        for language in Language::ALL {
+            for id in message_ids(Language::English) {
+                let mut args = Args::new();
+                for v in variables(Language::English, &id) {
+                    let name: &'static str = Box::leak(v.into_boxed_str());
+                    args = if name == "n" {
+                        args.count(name, 2)
+                    } else {
+                        args.text(name, "X")
+                    };
+                }
+                let out = formatted(language, &id, &args);
+                assert!(
+                    out.as_deref().is_some_and(|s| !s.trim().is_empty()),
+                    "{}: {id} does not format",
+                    language.code()
+                );
+            }
+        }
+    }
+
+    #[test]
+    fn a_missing_message_falls_back() {
+        assert_eq!(
+            text(Language::French, "no-such-message", &Args::new()),
+            "no-such-message"
+        );
+        let fr = text(Language::French, "skip-link", &Args::new());
+        assert!(!fr.is_empty() && fr != text(Language::English, "skip-link", &Args::new()));
+    }
+}
