@@ -202,6 +202,113 @@ fn box_near_circle(b: &TextBox, (cx, cy, r): (f64, f64, f64), margin: f64) -> bo
     (nx - cx).hypot(ny - cy) < r + margin
 }
 
+/// The band the paths make across the Sun: the chord's first and last sample on the Sun,
+/// the unit normal to the chord, and the band's half-width about the chord (px).
+struct Band {
+    k0: usize,
+    k1: usize,
+    origin: Px,
+    normal: Px,
+    half_width: f64,
+}
+
+impl Band {
+    fn new(geo: &[Px], paths: &[(usize, Vec<Px>)], inside: &dyn Fn(Px) -> bool) -> Option<Band> {
+        let on_sun: Vec<usize> = (0..geo.len()).filter(|&k| inside(geo[k])).collect();
+        let (k0, k1) = match (on_sun.first(), on_sun.last()) {
+            (Some(&a), Some(&b)) if b > a => (a, b),
+            _ => (0, geo.len().checked_sub(1)?),
+        };
+        if k1 == 0 {
+            return None;
+        }
+        let (dx, dy) = (geo[k1].0 - geo[k0].0, geo[k1].1 - geo[k0].1);
+        let len = dx.hypot(dy).max(1e-9);
+        let mut band = Band {
+            k0,
+            k1,
+            origin: geo[k0],
+            normal: (-dy / len, dx / len),
+            half_width: 0.0,
+        };
+        band.half_width = paths
+            .iter()
+            .flat_map(|(_, pts)| pts[k0..=k1].iter())
+            .chain(&geo[k0..=k1])
+            .map(|&p| band.across(p).abs())
+            .fold(0.0, f64::max)
+            + 2.0;
+        Some(band)
+    }
+
+    /// Signed distance of a point from the chord, px.
+    fn across(&self, p: Px) -> f64 {
+        (p.0 - self.origin.0) * self.normal.0 + (p.1 - self.origin.1) * self.normal.1
+    }
+
+    /// The side of the band a path lies on (+1 or -1).
+    fn side_of(&self, pts: &[Px]) -> f64 {
+        let mean: f64 = pts[self.k0..=self.k1].iter().map(|&p| self.across(p)).sum();
+        if mean >= 0.0 {
+            1.0
+        } else {
+            -1.0
+        }
+    }
+
+    /// Candidate (anchor on the path, label centre) pairs: the label `reach` px from the
+    /// chord on `side`, straight across from points near the fraction `frac` of the chord.
+    fn candidates(
+        &self,
+        pts: &[Px],
+        frac: f64,
+        spread: f64,
+        side: f64,
+        reach: f64,
+    ) -> Vec<(Px, Px)> {
+        [0.0, 1.0, -1.0, 2.0, -2.0]
+            .iter()
+            .map(|step| {
+                let f = (frac + step * spread).clamp(0.03, 0.97);
+                let k = self.k0 + (f * (self.k1 - self.k0) as f64).round() as usize;
+                let a = pts[k];
+                let shift = side * reach - self.across(a);
+                (
+                    a,
+                    (a.0 + shift * self.normal.0, a.1 + shift * self.normal.1),
+                )
+            })
+            .collect()
+    }
+}
+
+/// Whether a number's box at `b` with its leader from `anchor` to `centre` keeps off the
+/// planet, off the leaders drawn before, and its leader off every label placed before.
+fn clear_spot(
+    placer: &LabelPlacer,
+    b: &TextBox,
+    (anchor, centre): (Px, Px),
+    planet: (f64, f64, f64),
+    leaders: &[(Px, Px)],
+) -> bool {
+    let grown = TextBox {
+        x0: b.x0 - 2.0,
+        y0: b.y0 - 2.0,
+        x1: b.x1 + 2.0,
+        y1: b.y1 + 2.0,
+    };
+    !box_near_circle(b, planet, 3.0)
+        && (anchor.0 - planet.0).hypot(anchor.1 - planet.1) > planet.2 + 3.0
+        && distance_to_segment((planet.0, planet.1), anchor, centre) > planet.2 + 1.0
+        && leaders
+            .iter()
+            .all(|&(p, q)| segment_entry(p, q, &grown).is_none())
+        && placer
+            .taken()
+            .iter()
+            .all(|t| segment_entry(anchor, centre, t).map_or(true, |t| t >= 1.0))
+}
+
 /// Number each path: beside the band of paths, at a point along it spread evenly among the
 /// paths on that side, joined to the path by a leader perpendicular to the band. `geo` and
 /// each path are in px, sampled at the same times; `inside` says which of those points lie
@@ -214,39 +321,14 @@ pub fn place_path_numbers(
     planet: (f64, f64, f64),
     placer: &mut LabelPlacer,
 ) -> Vec<PathLabel> {
-    let on_sun: Vec<usize> = (0..geo.len()).filter(|&k| inside(geo[k])).collect();
-    let (k0, k1) = match (on_sun.first(), on_sun.last()) {
-        (Some(&a), Some(&b)) if b > a => (a, b),
-        _ => (0, geo.len().saturating_sub(1)),
-    };
-    if geo.is_empty() || k1 == 0 {
+    let Some(band) = Band::new(geo, paths, inside) else {
         return Vec::new();
-    }
-    let (dx, dy) = (geo[k1].0 - geo[k0].0, geo[k1].1 - geo[k0].1);
-    let len = dx.hypot(dy).max(1e-9);
-    let nrm = (-dy / len, dx / len);
-    let across = |p: Px| (p.0 - geo[k0].0) * nrm.0 + (p.1 - geo[k0].1) * nrm.1;
-    let band = paths
-        .iter()
-        .flat_map(|(_, pts)| pts[k0..=k1].iter())
-        .chain(&geo[k0..=k1])
-        .map(|&p| across(p).abs())
-        .fold(0.0, f64::max)
-        + 2.0;
-    // Each path goes to the side of the band it lies on; along each side, the paths share
-    // out the chord in the order of their numbers.
-    let side_of = |pts: &[Px]| {
-        let mean = pts[k0..=k1].iter().map(|&p| across(p)).sum::<f64>();
-        if mean >= 0.0 {
-            1.0
-        } else {
-            -1.0
-        }
     };
-    let sides: Vec<f64> = paths.iter().map(|(_, pts)| side_of(pts)).collect();
+    let sides: Vec<f64> = paths.iter().map(|(_, pts)| band.side_of(pts)).collect();
     let mut leaders: Vec<(Px, Px)> = Vec::new();
     let mut out = Vec::new();
     for (i, (number, pts)) in paths.iter().enumerate() {
+        // Along each side, the paths share out the chord in the order of their numbers.
         let same: Vec<usize> = (0..paths.len()).filter(|&j| sides[j] == sides[i]).collect();
         let m = same.len() as f64;
         let slot = same.iter().position(|&j| j == i).unwrap_or(0) as f64;
@@ -256,34 +338,10 @@ pub fn place_path_numbers(
         'search: for (spread, far) in [(0.4 / m, 16), (0.05, 40)] {
             for side in [sides[i], -sides[i]] {
                 for q in 0..far {
-                    let reach = band + 12.0 + 14.0 * q as f64;
-                    let mut cands = Vec::new();
-                    for step in [0.0, 1.0, -1.0, 2.0, -2.0] {
-                        let f = (frac + step * spread).clamp(0.03, 0.97);
-                        let k = k0 + (f * (k1 - k0) as f64).round() as usize;
-                        let a = pts[k];
-                        let shift = side * reach - across(a);
-                        cands.push((a, (a.0 + shift * nrm.0, a.1 + shift * nrm.1)));
-                    }
-                    for (anchor, centre) in cands {
+                    let reach = band.half_width + 12.0 + 14.0 * q as f64;
+                    for (anchor, centre) in band.candidates(pts, frac, spread, side, reach) {
                         let accept = |pl: &LabelPlacer, b: &TextBox, c: Px| {
-                            let grown = TextBox {
-                                x0: b.x0 - 2.0,
-                                y0: b.y0 - 2.0,
-                                x1: b.x1 + 2.0,
-                                y1: b.y1 + 2.0,
-                            };
-                            !box_near_circle(b, planet, 3.0)
-                                && (anchor.0 - planet.0).hypot(anchor.1 - planet.1) > planet.2 + 3.0
-                                && distance_to_segment((planet.0, planet.1), anchor, c)
-                                    > planet.2 + 1.0
-                                && leaders
-                                    .iter()
-                                    .all(|&(p, q)| segment_entry(p, q, &grown).is_none())
-                                && pl
-                                    .taken()
-                                    .iter()
-                                    .all(|t| segment_entry(anchor, c, t).map_or(true, |t| t >= 1.0))
+                            clear_spot(pl, b, (anchor, c), planet, &leaders)
                         };
                         if let Some((baseline, c)) =
                             placer.place_centred_where(&text, NUMBER_PX, &[centre], accept)
