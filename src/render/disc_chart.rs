@@ -203,13 +203,14 @@ fn box_near_circle(b: &TextBox, (cx, cy, r): (f64, f64, f64), margin: f64) -> bo
 }
 
 /// The band the paths make across the Sun: the chord's first and last sample on the Sun,
-/// the unit normal to the chord, and the band's half-width about the chord (px).
+/// the unit normal to the chord, and the band's extent across the chord (px, least and
+/// greatest signed distance of any path from it).
 struct Band {
     k0: usize,
     k1: usize,
     origin: Px,
     normal: Px,
-    half_width: f64,
+    extent: (f64, f64),
 }
 
 impl Band {
@@ -229,15 +230,14 @@ impl Band {
             k1,
             origin: geo[k0],
             normal: (-dy / len, dx / len),
-            half_width: 0.0,
+            extent: (0.0, 0.0),
         };
-        band.half_width = paths
+        band.extent = paths
             .iter()
             .flat_map(|(_, pts)| pts[k0..=k1].iter())
             .chain(&geo[k0..=k1])
-            .map(|&p| band.across(p).abs())
-            .fold(0.0, f64::max)
-            + 2.0;
+            .map(|&p| band.across(p))
+            .fold((f64::MAX, f64::MIN), |(lo, hi), a| (lo.min(a), hi.max(a)));
         Some(band)
     }
 
@@ -246,33 +246,40 @@ impl Band {
         (p.0 - self.origin.0) * self.normal.0 + (p.1 - self.origin.1) * self.normal.1
     }
 
-    /// The side of the band a path lies on (+1 or -1).
-    fn side_of(&self, pts: &[Px]) -> f64 {
-        let mean: f64 = pts[self.k0..=self.k1].iter().map(|&p| self.across(p)).sum();
-        if mean >= 0.0 {
-            1.0
+    /// The side of the band each path's number goes to (+1 or -1): the half of the paths
+    /// lying further to one side than the other half goes to that side, so that a leader
+    /// crosses at most half the band.
+    fn sides(&self, paths: &[(usize, Vec<Px>)]) -> Vec<f64> {
+        let mean =
+            |pts: &[Px]| -> f64 { pts[self.k0..=self.k1].iter().map(|&p| self.across(p)).sum() };
+        let mut order: Vec<usize> = (0..paths.len()).collect();
+        order.sort_by(|&a, &b| mean(&paths[a].1).total_cmp(&mean(&paths[b].1)));
+        let mut sides = vec![1.0; paths.len()];
+        for &k in &order[..paths.len() / 2] {
+            sides[k] = -1.0;
+        }
+        sides
+    }
+
+    /// Signed distance from the chord of a label `gap` px beyond the band on `side`.
+    fn beyond(&self, side: f64, gap: f64) -> f64 {
+        if side > 0.0 {
+            self.extent.1 + 2.0 + gap
         } else {
-            -1.0
+            self.extent.0 - 2.0 - gap
         }
     }
 
-    /// Candidate (anchor on the path, label centre) pairs: the label `reach` px from the
-    /// chord on `side`, straight across from points near the fraction `frac` of the chord.
-    fn candidates(
-        &self,
-        pts: &[Px],
-        frac: f64,
-        spread: f64,
-        side: f64,
-        reach: f64,
-    ) -> Vec<(Px, Px)> {
+    /// Candidate (anchor on the path, label centre) pairs: the label `gap` px beyond the band
+    /// on `side`, straight across from points near the fraction `frac` of the chord.
+    fn candidates(&self, pts: &[Px], frac: f64, spread: f64, side: f64, gap: f64) -> Vec<(Px, Px)> {
         [0.0, 1.0, -1.0, 2.0, -2.0]
             .iter()
             .map(|step| {
                 let f = (frac + step * spread).clamp(0.03, 0.97);
                 let k = self.k0 + (f * (self.k1 - self.k0) as f64).round() as usize;
                 let a = pts[k];
-                let shift = side * reach - self.across(a);
+                let shift = self.beyond(side, gap) - self.across(a);
                 (
                     a,
                     (a.0 + shift * self.normal.0, a.1 + shift * self.normal.1),
@@ -324,7 +331,7 @@ pub fn place_path_numbers(
     let Some(band) = Band::new(geo, paths, inside) else {
         return Vec::new();
     };
-    let sides: Vec<f64> = paths.iter().map(|(_, pts)| band.side_of(pts)).collect();
+    let sides = band.sides(paths);
     let mut leaders: Vec<(Px, Px)> = Vec::new();
     let mut out = Vec::new();
     for (i, (number, pts)) in paths.iter().enumerate() {
@@ -338,8 +345,8 @@ pub fn place_path_numbers(
         'search: for (spread, far) in [(0.4 / m, 16), (0.05, 40)] {
             for side in [sides[i], -sides[i]] {
                 for q in 0..far {
-                    let reach = band.half_width + 12.0 + 14.0 * q as f64;
-                    for (anchor, centre) in band.candidates(pts, frac, spread, side, reach) {
+                    let gap = 12.0 + 14.0 * q as f64;
+                    for (anchor, centre) in band.candidates(pts, frac, spread, side, gap) {
                         let accept = |pl: &LabelPlacer, b: &TextBox, c: Px| {
                             clear_spot(pl, b, (anchor, c), planet, &leaders)
                         };
