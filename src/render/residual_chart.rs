@@ -142,7 +142,7 @@ fn draw_column(
     // Values of the arrows before the crosses' numbers: an arrow says little without it.
     pending.sort_by_key(|p| !p.2);
     for (text, at, off) in pending {
-        let gap = if off { 3.0 } else { 4.5 };
+        let gap = if off { 5.0 } else { 4.5 };
         if let Some((lx, ly)) = placer.place(&text, SMALL_TEXT_PX, at, gap) {
             let _ = writeln!(labels, "<text x=\"{lx:.1}\" y=\"{ly:.1}\" font-size=\"{SMALL_TEXT_PX}\" fill=\"#b91c1c\">{}</text>", esc(&text));
             if off {
