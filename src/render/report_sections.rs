@@ -110,7 +110,8 @@ pub(crate) fn md_what_else(red: &Reduction, s: &mut String, chart: Option<&str>)
     if let Some(file) = chart {
         let _ = write!(
             s,
-            "\n![The Sun's brightness seen from the Earth's centre through the transit]({file})\n"
+            "\n![The Sun's brightness seen from the Earth's centre through the transit]({file})\n\n{}\n",
+            md_cell(&crate::render::figures::light_curve_caption())
         );
     }
     for line in distant_sentences(red, &w) {
