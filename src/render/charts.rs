@@ -86,7 +86,7 @@ pub fn station_map_svg(red: &Reduction) -> String {
     let (w, h) = (720.0, 360.0);
     let px = |lon: f64, lat: f64| ((lon + 180.0) * 2.0, (90.0 - lat) * 2.0);
     let mut s = svg_open_text(w, h + 100.0, "World map of the stations", TEXT_PX);
-    let _ = writeln!(s, "<rect width=\"{w}\" height=\"{h}\" fill=\"#dbeafe\"/>");
+    let _ = writeln!(s, "<rect width=\"100%\" height=\"100%\" fill=\"#ffffff\"/><rect width=\"{w}\" height=\"{h}\" fill=\"#dbeafe\"/>");
     s.push_str(&land_svg("#e7e2d3", "#9c9581", 0.4));
     let _ = writeln!(s, "<g stroke=\"#94a3b8\" stroke-width=\"0.3\">");
     for lat in [-60.0, -30.0, 0.0, 30.0, 60.0] {
