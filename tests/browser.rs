@@ -7,7 +7,9 @@
 
 mod common;
 
-use common::chromium::{browser_or_skip, chromium, measure, screenshot_pixels, temp_dir};
+use common::chromium::{
+    browser_or_skip, chromium, measure, measure_with, screenshot_pixels, temp_dir,
+};
 use common::{data, run, temp};
 use std::path::Path;
 
@@ -66,9 +68,11 @@ fn a_browser_renders_the_demo_report() {
     );
 }
 
-/// The reports of campaigns large and small, as the binary writes them.
+/// The reports of campaigns large and small, as the binary writes them: the demo, one
+/// station, a Mercury transit, 1,500 stations, and 100,000 timings.
 fn reports(dir: &Path) -> Vec<(String, String)> {
     let big = temp("browser-big.csv", &big_campaign());
+    let huge = temp("browser-huge.csv", &huge_campaign());
     let mut pages = Vec::new();
     for (name, args) in [
         ("demo", vec!["demo", "--report"]),
@@ -81,6 +85,7 @@ fn reports(dir: &Path) -> Vec<(String, String)> {
             vec!["reduce", &data("two_stations_mercury.csv"), "--report"],
         ),
         ("big", vec!["reduce", &big, "--report"]),
+        ("huge", vec!["reduce", &huge, "--report"]),
     ] {
         let file = dir.join(format!("{name}-report.html"));
         let mut a = args.clone();
@@ -119,6 +124,46 @@ fn big_campaign() -> Vec<u8> {
     campaign_csv(&camp.observations).into_bytes()
 }
 
+/// A campaign of 100,000 timings: 1 % blunders over 50,100 simulated stations (the service's
+/// isolation benchmark's campaign), its first 100,000 rows. The real reduction takes a few
+/// seconds, so the chart is of a real result, not a synthetic one.
+fn huge_campaign() -> Vec<u8> {
+    use rand::SeedableRng;
+    use transit_parallax::planning::simulation::{
+        campaign_csv, global_stations, simulate_campaign, SimulationSettings,
+    };
+    let settings = SimulationSettings {
+        sigma_s: [20.0, 10.0, 10.0, 20.0],
+        black_drop_bias_s: 5.0,
+        blunder_rate: 0.01,
+        min_altitude_deg: 0.0,
+        ..SimulationSettings::default()
+    };
+    let mut rng = rand_chacha::ChaCha8Rng::seed_from_u64(50_000);
+    let camp = simulate_campaign(
+        &venus_2012(),
+        &global_stations(50_100, "s"),
+        &settings,
+        &mut rng,
+    );
+    let csv = campaign_csv(&camp.observations);
+    let rows: Vec<&str> = csv.lines().take(100_001).collect();
+    assert_eq!(rows.len(), 100_001, "100,000 timings simulated");
+    (rows.join("\n") + "\n").into_bytes()
+}
+
+fn venus_2012() -> transit_parallax::TransitEvent {
+    transit_parallax::transit_on_date(
+        transit_parallax::Planet::Venus,
+        transit_parallax::time::iso::parse_date("2012-06-06").unwrap(),
+        &transit_parallax::time::scales::TimeModel::default(),
+    )
+    .unwrap()
+}
+
+/// The text of the reports' charts, in CSS pixels as laid out at the report's width.
+const MIN_TEXT_PX: f64 = 12.0;
+
 #[test]
 fn report_charts_are_laid_out_cleanly_in_a_browser() {
     let Some(browser) = browser_or_skip() else {
@@ -126,7 +171,12 @@ fn report_charts_are_laid_out_cleanly_in_a_browser() {
     };
     let dir = temp_dir("layout");
     for (name, html) in reports(&dir) {
-        let f = measure(&browser, &dir, &name, &html);
+        let f = measure_with(&browser, &dir, &name, &html, Some(MIN_TEXT_PX));
+        assert!(
+            (MIN_TEXT_PX..20.0).contains(&f.smallest_text_px),
+            "{name}: the smallest text is {} px",
+            f.smallest_text_px
+        );
         assert_eq!(
             f.svgs, 5,
             "{name}: the five charts (the light curve the fifth)"
@@ -212,5 +262,55 @@ fn the_visibility_map_is_laid_out_cleanly_in_a_browser() {
     let f = measure(&browser, &dir, "visibility", &page_of(&svgs));
     assert_eq!(f.svgs, 2);
     assert!(f.texts > 40, "{} texts", f.texts);
+    assert!(f.problems.is_empty(), "{}", f.problems.join("\n"));
+}
+
+/// The service's organiser page with the 1,500-station campaign's solution: its four charts
+/// (the same figures as the report's, with keys in place of the report's tables) laid out
+/// cleanly with no text under 12 px, each with a caption.
+#[test]
+fn the_organiser_pages_charts_are_laid_out_cleanly_in_a_browser() {
+    let Some(browser) = browser_or_skip() else {
+        return;
+    };
+    let bytes = big_campaign();
+    let table = transit_parallax::observations::csv_table::CsvTable::from_bytes(
+        Path::new("big.csv"),
+        &bytes,
+    )
+    .unwrap();
+    let set =
+        transit_parallax::observations::timings::observations_from_table(&table, false).unwrap();
+    let red = transit_parallax::reduction::reduce(set, &Default::default()).unwrap();
+    let charts = transit_parallax::service::organiser::charts_html(&red);
+    let view = transit_parallax::service::organiser::OrganiserView {
+        solution: Some(&red),
+        error: None,
+        pending: false,
+        timing_counts: (red.timings_total as i64, 0),
+        table_html: "",
+        charts_html: &charts,
+        counts: (1500, 1500, 0),
+        unreadable: &[],
+        audit: &[],
+        csrf: "test",
+    };
+    let html = transit_parallax::service::organiser::organiser_page(&view);
+    assert_eq!(
+        html.matches("<figcaption>").count(),
+        4,
+        "a caption per chart"
+    );
+    assert!(html.contains("Key: 1 "), "the disc's key on the page");
+    assert!(html.contains("numbered as in the key below the chart"));
+    let dir = temp_dir("organiser");
+    let f = measure_with(&browser, &dir, "organiser", &html, Some(MIN_TEXT_PX));
+    assert_eq!(f.svgs, 4, "the four charts");
+    assert!(f.texts > 40, "{} texts", f.texts);
+    assert!(
+        (MIN_TEXT_PX..20.0).contains(&f.smallest_text_px),
+        "the smallest text is {} px",
+        f.smallest_text_px
+    );
     assert!(f.problems.is_empty(), "{}", f.problems.join("\n"));
 }

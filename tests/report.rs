@@ -287,10 +287,13 @@ fn charts_carry_their_labels_inside_the_view_box() {
         (&hist, vec!["campaigns", "true value", "million km", "150"]),
         (
             &map,
-            vec!["60°N", "120°W", "Share of the information", "20 %"],
+            vec!["60°N", "120°W", "area: share of the information", "20 %"],
         ),
-        (&conv, vec!["solar parallax (arcsec)"]),
-        (&disc, vec!["100\"", "drawn to scale", "lie off the limb"]),
+        (
+            &conv,
+            vec!["Solar parallax (arcsec)", "logarithmic scale", "IAU 2009"],
+        ),
+        (&disc, vec!["100", "N", "E", "W"]),
         (
             &plan_map,
             vec!["30°N", "60°E", "Open triangles: the sites", "1 Ice Point"],
@@ -308,22 +311,119 @@ fn charts_carry_their_labels_inside_the_view_box() {
             assert!(!t.ends_with(".000"), "needless decimals: {t}");
         }
     }
-    // Station numbers on the disc never sit within 12 px of one another.
+    // Every path drawn on the disc is numbered, and no two numbers overprint (boxes as the
+    // label placer estimates them; tests/browser.rs measures them in Chromium).
+    let chart = transit_parallax::render::charts::solar_disc_chart(&red);
+    assert_eq!(chart.unnumbered, 0);
     let (_, texts) = text_positions(&disc);
     let numbers: Vec<&PlacedText> = texts
         .iter()
         .filter(|t| t.2.parse::<u32>().is_ok())
         .collect();
-    for (a, p) in numbers.iter().enumerate() {
-        for q in &numbers[a + 1..] {
-            assert!(
-                (p.0 - q.0).hypot(p.1 - q.1) > 12.0,
-                "{p:?} and {q:?} overprint"
-            );
+    assert_eq!(numbers.len(), chart.key.len(), "every station numbered");
+    let used = red.stations.iter().filter(|s| s.not_used.is_none()).count();
+    assert_eq!(chart.key.len(), used.min(40));
+    use transit_parallax::render::labels::TextBox;
+    let boxes: Vec<TextBox> = numbers
+        .iter()
+        .map(|t| TextBox::of_text(&t.2, 13.0, (t.0, t.1)))
+        .collect();
+    for (a, p) in boxes.iter().enumerate() {
+        for q in &boxes[a + 1..] {
+            assert!(!p.overlaps(q), "{p:?} and {q:?} overprint");
         }
     }
     // The true-value label sits above the plotting area, clear of the bars.
     let (_, texts) = text_positions(&hist);
     let label = texts.iter().find(|t| t.2 == "true value").unwrap();
     assert!(label.1 < 50.0, "{label:?}");
+}
+
+/// Residual chart: a timing off the scale is an arrow at the edge with its value (never a mark
+/// clipped to the edge), crosses are drawn beneath the used timings, no two labels overprint
+/// (as the placer estimates them), and the caption counts what it could not label or drew
+/// only as a sample. Built from the demo's result with rejected rows added (a synthetic
+/// result: the chart, not the reduction, is under test).
+#[test]
+fn residual_chart_draws_off_scale_timings_as_arrows_with_their_values() {
+    use transit_parallax::observations::timings::{RejectReason, Rejected};
+    use transit_parallax::render::figures::{residual_caption, Page};
+    use transit_parallax::render::labels::TextBox;
+    let mut red = demo();
+    let rejected = |line: u64, contact: u8, o_c_s: f64| Rejected {
+        line,
+        station: format!("Added {line}"),
+        contact: Some(contact),
+        contact_label: None,
+        reason: RejectReason::Outlier,
+        diagnosis: None,
+        o_c_s: Some(o_c_s),
+    };
+    red.rejected = vec![rejected(900, 2, 5000.0), rejected(901, 3, -3601.4)];
+    // Many crosses crowded near zero in contact I: not every number finds room.
+    red.rejected
+        .extend((0..60).map(|k| rejected(1000 + k, 1, 30.0 + f64::from(k as u32) * 0.1)));
+    let chart = transit_parallax::render::charts::residuals_chart(&red);
+    assert_eq!(chart.off_scale, (2, 2), "both arrows carry their values");
+    assert!(chart.svg.contains(">+5000 s<") && chart.svg.contains(">-3601 s<"));
+    assert!(chart.limit_s < 3601.0);
+    let (inside, numbered) = chart.numbered;
+    assert_eq!(inside, 60);
+    assert!(numbered > 0 && numbered < inside, "{numbered} of {inside}");
+    let caption = residual_caption(&chart, Page::Report);
+    assert!(
+        caption.contains(&format!("{numbered} of {inside} are numbered")),
+        "{caption}"
+    );
+    assert!(caption.contains("off the scale") && caption.contains("seconds"));
+    // Crosses first, used timings after them, labels last.
+    let first_used = chart.svg.find("fill=\"#1d4ed8\"").unwrap();
+    let last_cross = chart.svg.rfind("stroke=\"#dc2626\"").unwrap();
+    assert!(
+        last_cross < first_used,
+        "rejected marks drawn beneath the used ones"
+    );
+    let ((w, h), texts) = text_positions(&chart.svg);
+    let labels: Vec<TextBox> = texts
+        .iter()
+        // The marks' labels, not the scale's ticks (written left of the plot, x < 64).
+        .filter(|t| t.0 > 64.0 && (t.2.parse::<u32>().is_ok() || t.2.ends_with(" s")))
+        .map(|t| TextBox::of_text(&t.2, 12.0, (t.0, t.1)))
+        .collect();
+    assert_eq!(labels.len(), numbered + 2);
+    for (i, a) in labels.iter().enumerate() {
+        assert!(
+            a.x0 >= 0.0 && a.x1 <= w && a.y0 >= 0.0 && a.y1 <= h,
+            "{a:?}"
+        );
+        for b in &labels[i + 1..] {
+            assert!(!a.overlaps(b), "{a:?} overprints {b:?}");
+        }
+    }
+}
+
+/// Every chart of the report has a caption that names what is plotted and its units.
+#[test]
+fn every_chart_of_the_report_has_a_caption() {
+    let html = html_report(&demo());
+    let captions: Vec<&str> = html
+        .split("<figcaption>")
+        .skip(1)
+        .map(|c| &c[..c.find("</figcaption>").unwrap()])
+        .collect();
+    assert_eq!(
+        captions.len(),
+        5,
+        "disc, map, residuals, convergence, light curve"
+    );
+    for (caption, unit) in captions.iter().zip([
+        "arcseconds",
+        "degrees",
+        "seconds",
+        "arcseconds",
+        "parts per million",
+    ]) {
+        assert!(caption.contains(unit), "{unit}: {caption}");
+    }
+    assert!(captions[0].contains("Key: 1 "), "the disc's key");
 }

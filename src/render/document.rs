@@ -4,8 +4,11 @@
 use crate::error::{Error, Result};
 use crate::reduction::Reduction;
 use crate::render::charts::{
-    convergence_svg, disc_exaggeration, residuals_svg, sampling_note, solar_disc_svg,
-    station_map_svg,
+    convergence_svg, residuals_chart, sampling_note, solar_disc_chart, station_map_svg,
+};
+use crate::render::figures::{
+    convergence_caption, convergence_figure, disc_caption, disc_figure, disc_key, map_caption,
+    map_figure, residual_caption, residual_figure, Page,
 };
 use crate::render::reduction::chi2_sentence;
 use crate::render::reduction::{black_drop_sentences, correlation_notes};
@@ -383,13 +386,12 @@ pub fn html_report(red: &Reduction) -> String {
     }
     let _ = writeln!(
         s,
-        "<h2>The planet's path across the Sun</h2>\n<figure>\n{}<figcaption>North is up and east to the left, as the Sun appears in the sky. Each station's path is displaced from the geocentric one by parallax; the displacement is drawn {:.0} times larger than it is.</figcaption>\n</figure>",
-        solar_disc_svg(red),
-        disc_exaggeration(red)
+        "<h2>The planet's path across the Sun</h2>\n{}<h2>Where the stations were</h2>\n{}<h2>Residuals</h2>\n{}<h2>How the answer firmed up</h2>\n{}",
+        disc_figure(red, Page::Report),
+        map_figure(red),
+        residual_figure(red, Page::Report),
+        convergence_figure(red)
     );
-    let _ = writeln!(s, "<h2>Where the stations were</h2>\n<figure>\n{}<figcaption>Station markers: area by share of the information on the parallax, colour by mean normalised residual.</figcaption>\n</figure>", station_map_svg(red));
-    let _ = writeln!(s, "<h2>Residuals</h2>\n<figure>\n{}<figcaption>O - C of every timing with its standard uncertainty, by contact. Red marks: timings not used, numbered as in the table below where the number fits beside the mark (a triangle at the edge: off the scale).</figcaption>\n</figure>", residuals_svg(red));
-    let _ = writeln!(s, "<h2>How the answer firmed up</h2>\n<figure>\n{}<figcaption>The solar parallax (line) and its standard uncertainty (band) as timings are added in the order of the file.</figcaption>\n</figure>", convergence_svg(red));
     s.push_str("<h2>Parameters</h2>\n");
     let ph = param_headers(red.correlation.len());
     let ph_ref: Vec<&str> = ph.iter().map(String::as_str).collect();
@@ -441,9 +443,9 @@ pub fn html_report(red: &Reduction) -> String {
 pub fn markdown_report(red: &Reduction, stem: &str) -> (String, Vec<(String, String)>) {
     let sum = summary(red);
     let mut charts = vec![
-        (format!("{stem}-disc.svg"), solar_disc_svg(red)),
+        (format!("{stem}-disc.svg"), solar_disc_chart(red).svg),
         (format!("{stem}-map.svg"), station_map_svg(red)),
-        (format!("{stem}-residuals.svg"), residuals_svg(red)),
+        (format!("{stem}-residuals.svg"), residuals_chart(red).svg),
         (format!("{stem}-convergence.svg"), convergence_svg(red)),
     ];
     let light = report_light_curve(red).map(|svg| (format!("{stem}-light-curve.svg"), svg));
@@ -468,14 +470,26 @@ pub fn markdown_report(red: &Reduction, stem: &str) -> (String, Vec<(String, Str
         "\n## How the result was obtained\n\n{}\n\n",
         md_cell(METHOD)
     );
+    let disc = solar_disc_chart(red);
+    let residuals = residuals_chart(red);
     let captions = [
-        format!("The planet's path across the Sun (north up, east left; parallax displacement drawn {:.0} times larger)", disc_exaggeration(red)),
-        "Where the stations were (area: information share; colour: mean normalised residual)".to_string(),
-        "Residuals O - C by contact (red: timings not used)".to_string(),
-        "The solar parallax as timings are added in file order".to_string(),
+        (
+            "The planet's path across the Sun",
+            format!(
+                "{} Key: {}.",
+                disc_caption(red, &disc, Page::Report),
+                disc_key(&disc)
+            ),
+        ),
+        ("Where the stations were", map_caption(red)),
+        (
+            "Residuals O - C by contact",
+            residual_caption(&residuals, Page::Report),
+        ),
+        ("How the solar parallax firmed up", convergence_caption(red)),
     ];
-    for ((file, _), cap) in charts.iter().zip(&captions) {
-        let _ = write!(s, "![{}]({})\n\n", md_cell(cap), file);
+    for ((file, _), (alt, cap)) in charts.iter().zip(&captions) {
+        let _ = write!(s, "![{alt}]({file})\n\n{}\n\n", md_cell(cap));
     }
     if let Some(note) = sampling_note(red) {
         let _ = write!(s, "{}\n\n", md_cell(&note));

@@ -43,11 +43,13 @@ impl TextBox {
         }
     }
 
-    fn overlaps(&self, other: &TextBox) -> bool {
+    /// Whether the two boxes share any area.
+    pub fn overlaps(&self, other: &TextBox) -> bool {
         self.x0 < other.x1 && other.x0 < self.x1 && self.y0 < other.y1 && other.y0 < self.y1
     }
 
-    fn within(&self, outer: &TextBox) -> bool {
+    /// Whether this box lies wholly inside `outer`.
+    pub fn within(&self, outer: &TextBox) -> bool {
         self.x0 >= outer.x0 && self.x1 <= outer.x1 && self.y0 >= outer.y0 && self.y1 <= outer.y1
     }
 }
@@ -95,6 +97,38 @@ impl LabelPlacer {
         })?;
         self.taken.push(TextBox::of_text(text, font_px, spot));
         Some(spot)
+    }
+
+    /// Whether a box lies inside the area and clear of every label placed or reserved.
+    pub fn is_clear(&self, b: &TextBox) -> bool {
+        b.within(&self.area) && self.taken.iter().all(|t| !t.overlaps(b))
+    }
+
+    /// The labels placed and the boxes reserved so far.
+    pub fn taken(&self) -> &[TextBox] {
+        &self.taken
+    }
+
+    /// Like [`LabelPlacer::place_centred`], but a spot is taken only where `accept` also
+    /// allows its box (a leader line clear of other labels, a box off a drawn disc).
+    pub fn place_centred_where(
+        &mut self,
+        text: &str,
+        font_px: f64,
+        centres: &[(f64, f64)],
+        accept: impl Fn(&LabelPlacer, &TextBox, (f64, f64)) -> bool,
+    ) -> Option<((f64, f64), (f64, f64))> {
+        let probe = TextBox::of_text(text, font_px, (0.0, 0.0));
+        let (w, up, down) = (probe.x1, -probe.y0, probe.y1);
+        let (spot, centre) = centres
+            .iter()
+            .map(|&(x, y)| ((x - w / 2.0, y + (up - down) / 2.0), (x, y)))
+            .find(|&(at, centre)| {
+                let b = TextBox::of_text(text, font_px, at);
+                self.is_clear(&b) && accept(self, &b, centre)
+            })?;
+        self.taken.push(TextBox::of_text(text, font_px, spot));
+        Some((spot, centre))
     }
 
     /// Keep later labels off this box (a legend, another chart's labels).

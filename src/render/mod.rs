@@ -14,7 +14,15 @@
 //!   graticule labels.
 //! - `labels.rs`: labels placed beside their marks where they fit, captions wrapped to a
 //!   chart's width.
-//! - `charts.rs`: the reduction's charts (solar disc, station map, residuals, convergence).
+//! - `axes.rs`: what the reduction's charts share: text sizes, round clock-time and
+//!   logarithmic ticks, the arrow for a value off the scale.
+//! - `charts.rs`: the station map; re-exports the reduction's other charts.
+//! - `disc_chart.rs`: the solar disc with every station's path, numbered with leader lines.
+//! - `residual_chart.rs`: O - C by contact, rejected timings beneath, arrows off the scale.
+//! - `convergence_chart.rs`: the parallax zoomed on its final value, the uncertainty on a
+//!   logarithmic scale.
+//! - `figures.rs`: the charts as figures with captions and keys, for the report and the
+//!   service's organiser page.
 //! - `planning_charts.rs`: the sensitivity map and the histogram of simulated AU estimates.
 //! - `visibility_map.rs`: the visibility map of a transit and its grid as CSV.
 //! - `contours.rs`: contour lines of a gridded field (marching squares).
@@ -31,9 +39,13 @@
 //! - `document.rs`: the HTML and Markdown reports.
 //! - `report_sections.rs`: the reports' sections on the classic methods, the error budget and
 //!   what else the timings measure.
+pub mod axes;
 pub mod charts;
 pub mod contours;
+pub mod convergence_chart;
+pub mod disc_chart;
 pub mod document;
+pub mod figures;
 pub mod labels;
 pub mod light_curve_chart;
 pub mod methods;
@@ -45,6 +57,7 @@ pub mod prediction;
 pub mod reduction;
 pub mod reduction_json;
 pub mod report_sections;
+pub mod residual_chart;
 pub mod sheet_calendar;
 pub mod sheet_files;
 pub mod sheet_limb;

@@ -81,7 +81,7 @@ pub(crate) fn html_what_else(red: &Reduction, s: &mut String) {
         ));
     }
     if let Some(svg) = report_light_curve(red) {
-        let _ = writeln!(s, "<figure>\n{svg}<figcaption>The Sun's brightness seen from the Earth's centre through the transit, contacts I-IV dashed.</figcaption>\n</figure>");
+        s.push_str(&crate::render::figures::light_curve_figure(&svg));
     }
     for line in distant_sentences(red, &w) {
         let _ = writeln!(s, "<p>{}</p>", esc(&plus_minus(&line)));
@@ -110,7 +110,8 @@ pub(crate) fn md_what_else(red: &Reduction, s: &mut String, chart: Option<&str>)
     if let Some(file) = chart {
         let _ = write!(
             s,
-            "\n![The Sun's brightness seen from the Earth's centre through the transit]({file})\n"
+            "\n![The Sun's brightness seen from the Earth's centre through the transit]({file})\n\n{}\n",
+            md_cell(&crate::render::figures::light_curve_caption())
         );
     }
     for line in distant_sentences(red, &w) {

@@ -22,8 +22,13 @@ pub fn esc(text: &str) -> String {
 
 /// The opening tag of a self-contained SVG of that size, labelled for screen readers.
 pub fn svg_open(width: f64, height: f64, label: &str) -> String {
+    svg_open_text(width, height, label, 11.0)
+}
+
+/// [`svg_open`] with the text's size (px of the view box) for every text that sets none.
+pub fn svg_open_text(width: f64, height: f64, label: &str, font_px: f64) -> String {
     format!(
-        "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{width:.0}\" height=\"{height:.0}\" viewBox=\"0 0 {width:.0} {height:.0}\" role=\"img\" aria-label=\"{}\" font-family=\"sans-serif\" font-size=\"11\">\n",
+        "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{width:.0}\" height=\"{height:.0}\" viewBox=\"0 0 {width:.0} {height:.0}\" role=\"img\" aria-label=\"{}\" font-family=\"sans-serif\" font-size=\"{font_px}\">\n",
         esc(label)
     )
 }
@@ -187,7 +192,12 @@ pub fn trim_tick(t: f64) -> String {
 /// Latitude labels at the left edge and longitude labels along the bottom of the 2 px per
 /// degree equirectangular frame.
 pub fn graticule_labels(h: f64) -> String {
-    let mut s = String::from("<g font-size=\"9\" fill=\"#475569\">");
+    graticule_labels_sized(h, 9.0)
+}
+
+/// [`graticule_labels`] at `font_px`.
+pub fn graticule_labels_sized(h: f64, font_px: f64) -> String {
+    let mut s = format!("<g font-size=\"{font_px}\" fill=\"#475569\">");
     for lat in [-60i32, -30, 0, 30, 60] {
         let y = f64::from(90 - lat) * 2.0;
         let label = match lat.cmp(&0) {

@@ -5,7 +5,7 @@
 
 use super::pages::{page, scroll_box};
 use crate::reduction::Reduction;
-use crate::render::charts::{convergence_svg, residuals_svg, solar_disc_svg, station_map_svg};
+use crate::render::figures::{convergence_figure, disc_figure, map_figure, residual_figure, Page};
 use crate::render::svg::esc;
 use crate::render::text::au_text;
 use std::fmt::Write;
@@ -90,7 +90,15 @@ pub fn charts_html(red: &Reduction) -> String {
     let mut s = String::new();
     methods(red, &mut s);
     if red.parallax_arcsec.is_some() {
-        let _ = writeln!(s, "<h2>Charts</h2>\n<figure>{}</figure>\n<figure>{}</figure>\n<figure>{}</figure>\n<figure>{}</figure>", solar_disc_svg(red), station_map_svg(red), residuals_svg(red), convergence_svg(red));
+        let page = Page::Organiser;
+        let _ = writeln!(
+            s,
+            "<h2>Charts</h2>\n{}{}{}{}",
+            disc_figure(red, page),
+            map_figure(red),
+            residual_figure(red, page),
+            convergence_figure(red)
+        );
     }
     s
 }

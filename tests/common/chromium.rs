@@ -68,7 +68,7 @@ pub fn chromium(
 /// JSON in `<pre id="layout-findings">`.
 pub const MEASURE: &str = r#"<script>
 (function () {
-  var problems = [], texts = 0, shapes = 0;
+  var problems = [], texts = 0, shapes = 0, smallest = 1e9;
   var svgs = document.querySelectorAll('svg');
   svgs.forEach(function (svg, k) {
     var name = svg.getAttribute('aria-label') || ('chart ' + k);
@@ -82,10 +82,16 @@ pub const MEASURE: &str = r#"<script>
              r.top >= v.top - tol && r.bottom <= v.bottom + tol;
     };
     var boxes = [];
+    var scale = vb && vb.width > 0 ? v.width / vb.width : 1;
     svg.querySelectorAll('text').forEach(function (t) {
       var s = t.textContent.trim();
       if (!s) return;
       texts++;
+      var px = parseFloat(getComputedStyle(t).fontSize) * scale;
+      if (window.MIN_TEXT_PX && !(px >= window.MIN_TEXT_PX - 0.01)) {
+        problems.push(name + ': text ' + s + ' is ' + px.toFixed(1) + ' px');
+      }
+      smallest = Math.min(smallest, px);
       var r = t.getBoundingClientRect();
       if (r.width <= 0 || r.height <= 0) problems.push(name + ': text ' + s + ' has no box');
       if (!inside(r, 0.5)) problems.push(name + ': text ' + s + ' reaches outside the view box');
@@ -111,7 +117,7 @@ pub const MEASURE: &str = r#"<script>
   });
   var pre = document.createElement('pre');
   pre.id = 'layout-findings';
-  pre.textContent = JSON.stringify({ svgs: svgs.length, texts: texts, shapes: shapes, problems: problems });
+  pre.textContent = JSON.stringify({ svgs: svgs.length, texts: texts, shapes: shapes, smallest: smallest, problems: problems });
   document.body.appendChild(pre);
 })();
 </script>"#;
@@ -121,14 +127,35 @@ pub struct Findings {
     pub svgs: u64,
     pub texts: u64,
     pub shapes: u64,
+    /// The smallest text of any chart, CSS px as laid out.
+    pub smallest_text_px: f64,
     pub problems: Vec<String>,
 }
 
 /// Lay out this HTML page in Chromium and return what the measuring script found.
 pub fn measure(browser: &Path, dir: &Path, name: &str, html: &str) -> Findings {
+    measure_with(browser, dir, name, html, None)
+}
+
+/// [`measure`], also finding every chart text smaller than `min_text_px` CSS pixels as laid
+/// out (its font size times the chart's scale from its view box to the page).
+pub fn measure_with(
+    browser: &Path,
+    dir: &Path,
+    name: &str,
+    html: &str,
+    min_text_px: Option<f64>,
+) -> Findings {
     let page = dir.join(format!("{name}.html"));
     let body_end = html.rfind("</body>").unwrap_or(html.len());
-    let measured = format!("{}{MEASURE}\n{}", &html[..body_end], &html[body_end..]);
+    let limit = min_text_px.map_or(String::new(), |px| {
+        format!("<script>window.MIN_TEXT_PX = {px};</script>\n")
+    });
+    let measured = format!(
+        "{}{limit}{MEASURE}\n{}",
+        &html[..body_end],
+        &html[body_end..]
+    );
     std::fs::write(&page, measured).unwrap();
     let o = chromium(
         browser,
@@ -155,6 +182,7 @@ pub fn measure(browser: &Path, dir: &Path, name: &str, html: &str) -> Findings {
         svgs: v["svgs"].as_u64().unwrap(),
         texts: v["texts"].as_u64().unwrap(),
         shapes: v["shapes"].as_u64().unwrap(),
+        smallest_text_px: v["smallest"].as_f64().unwrap_or(0.0),
         problems: v["problems"]
             .as_array()
             .unwrap()
