@@ -163,6 +163,9 @@ pub fn reduction_json(red: &Reduction) -> Value {
         for (k, x) in crate::render::what_else::what_else_json(&w) {
             map.insert(k.to_string(), x);
         }
+        for (k, x) in crate::render::residual_groups::groups_json(red) {
+            map.insert(k.to_string(), x);
+        }
     }
     v
 }
@@ -468,6 +471,7 @@ pub fn reduction_table(red: &Reduction) -> String {
     headline_section(red, &mut s);
     parameters_section(red, &mut s);
     stations_section(red, &mut s);
+    s.push_str(&crate::render::residual_groups::groups_text(red));
     crate::render::methods::methods_section(red, &mut s);
     crate::render::what_else::what_else_section(red, &mut s);
     if !red.rejected.is_empty() {

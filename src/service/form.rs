@@ -3,7 +3,8 @@
 //! `<label for>`; choices (contact, kind of local time, day reckoning) are lists, so nothing
 //! has to be spelled; the station's name and coordinates are `required`. The posted names are
 //! the ones `intake::from_form` reads (`station`, `latitude`, ..., `contact0`, `time_utc0`,
-//! `time_local0`, `local_time0`, `day_reckoning0`, `sigma_s0`, ..., `csv`, `file`).
+//! `time_local0`, `local_time0`, `day_reckoning0`, `sigma_s0`, ..., `observer`,
+//! `clock_source`, `instrument`, `aperture_mm`, `viewing`, `notes`, `csv`, `file`).
 //!
 //! Latitude and longitude keep the ordinary keyboard: a phone's decimal pad (`inputmode=
 //! "decimal"`) has no minus sign on some systems, and south and west are negative; elevation
@@ -80,6 +81,35 @@ const DAY_RECKONINGS: [(&str, &str); 2] = [
     ("astronomical", "astronomical (from noon)"),
 ];
 
+const CLOCK_SOURCES: [(&str, &str); 6] = [
+    ("", "not said"),
+    ("gps", "GPS receiver"),
+    ("radio", "radio time signal"),
+    ("network", "computer on network time"),
+    ("phone", "mobile phone"),
+    ("other", "other (a watch set by hand)"),
+];
+
+const VIEWINGS: [(&str, &str); 3] = [
+    ("", "not said"),
+    ("filter", "certified solar filter over the front"),
+    ("projection", "projection onto a screen"),
+];
+
+/// The fieldset of how the timings were made: observer, clock, instrument, aperture, viewing,
+/// notes (the submission's; every timing takes them).
+fn how_fields(first: &TimingFields) -> String {
+    format!(
+        "<h2>How you timed</h2>\n<fieldset><legend class=\"vh\">How you timed</legend>\n<div class=\"row\">{}{}</div>\n<div class=\"row\">{}{}</div>\n{}\n<div class=\"field\"><label for=\"notes\">Notes <span class=\"hint\">seeing, clouds, anything the organiser should know</span></label><textarea id=\"notes\" name=\"notes\" rows=\"2\">{}</textarea></div>\n</fieldset>\n",
+        text_field("observer", "Observer", "your name or your group's; optional", &first.observer, ""),
+        select_field("clock_source", "Clock you read the time from", &CLOCK_SOURCES, &first.clock_source),
+        text_field("instrument", "Instrument", "e.g. 80 mm refractor", &first.instrument, ""),
+        text_field("aperture_mm", "Aperture (millimetres)", "the lens or mirror's diameter", &first.aperture_mm, " inputmode=\"numeric\""),
+        select_field("viewing", "How you viewed the Sun", &VIEWINGS, &first.viewing),
+        esc(&first.notes),
+    )
+}
+
 /// The hidden fields every form posts: the anti-forgery token, and the edit key of a
 /// correction.
 fn hidden(csrf: &str, key: Option<&str>) -> String {
@@ -142,6 +172,7 @@ pub fn timing_form(action: &str, csrf: &str, key: Option<&str>, fields: &[Timing
         hidden(csrf, key)
     );
     s.push_str(&station_fields(&first));
+    s.push_str(&how_fields(&first));
     s.push_str("<h2>Your timings</h2>\n<p class=\"note\">One block per contact you timed; leave the others on \"not timed\".</p>\n<div class=\"timings\">\n");
     for k in 0..4 {
         s.push_str(&timing_fields(
@@ -196,5 +227,16 @@ mod tests {
         assert_eq!(html.matches("<fieldset class=\"timing\">").count(), 4);
         assert_eq!(html.matches("<details class=\"local\" open>").count(), 1);
         assert!(upload_form("t").contains("<label for=\"file\">"));
+        for name in [
+            "clock_source",
+            "viewing",
+            "aperture_mm",
+            "notes",
+            "observer",
+            "instrument",
+        ] {
+            assert!(html.contains(&format!("<label for=\"{name}\"")), "{name}");
+        }
+        assert!(html.contains("id=\"aperture_mm\" name=\"aperture_mm\" value=\"\" autocomplete=\"off\" spellcheck=\"false\" inputmode=\"numeric\""));
     }
 }
