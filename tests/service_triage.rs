@@ -130,7 +130,7 @@ fn metadata_is_stored_exported_and_read_back_by_reduce() {
     );
     assert!(export
         .body
-        .contains(",phone,refractor,200,projection,steady air"));
+        .contains(",phone,refractor,200.0,projection,steady air"));
     // The timing's own clock source wins over the submission's.
     let coral: Vec<&str> = export
         .body
@@ -214,7 +214,7 @@ fn metadata_is_stored_exported_and_read_back_by_reduce() {
     assert_eq!(o.status.code(), Some(2));
     let e = err(&o);
     assert!(
-        e.contains("triage-bad.csv") && e.contains(&format!("line {line}")),
+        e.contains(&format!("triage-bad.csv:{line}:")) && e.contains("column 'clock_source'"),
         "{e}"
     );
     assert!(
