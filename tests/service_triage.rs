@@ -270,6 +270,10 @@ fn the_organiser_filters_excludes_in_bulk_restores_with_a_reason_and_writes_a_no
     assert!(at("7.5 s</td>") < at("4.5 s</td>") && at("4.5 s</td>") < at("1.5 s</td>"));
     let page_all = page(port, "/organiser", &cookies);
     assert!(page_all.contains("id=\"attention\"") && page_all.contains("id=\"bulk\""));
+    assert!(
+        page_all.contains("Residuals by clock source")
+            && page_all.contains("Residuals by aperture class")
+    );
     // Without the anti-forgery token nothing changes.
     let ids: Vec<i64> = phones.clone();
     let ticked: String = ids.iter().map(|i| format!("&timing={i}")).collect();
@@ -438,5 +442,66 @@ fn the_form_sends_how_the_timings_were_made() {
     assert!(
         export.contains(",radio,reflector,150,projection,'+sun low"),
         "{export}"
+    );
+}
+
+/// The worked example's 82 timings with a clock source each (in turn gps, radio, network,
+/// phone, other) and an aperture; the phones' times 25 s late: the phone group departs from
+/// the rest and the reduction says so, the others do not.
+#[test]
+fn a_group_of_bad_clocks_stands_out_in_the_residuals() {
+    let path = [
+        env!("CARGO_MANIFEST_DIR"),
+        "worked-examples",
+        "venus-2012-school-network",
+        "timings.csv",
+    ]
+    .iter()
+    .collect::<std::path::PathBuf>();
+    let text = std::fs::read_to_string(path).unwrap();
+    let clocks = ["gps", "radio", "network", "phone", "other"];
+    let mut file_text = String::new();
+    for (k, line) in text.lines().enumerate() {
+        if k == 0 {
+            file_text.push_str(&format!("{line},clock_source,aperture_mm\n"));
+            continue;
+        }
+        let mut cells: Vec<String> = line.split(',').map(String::from).collect();
+        let clock = clocks[(k - 1) % 5];
+        if clock == "phone" {
+            if let Ok(t) = transit_parallax::time::iso::parse_utc(&cells[5]) {
+                cells[5] =
+                    transit_parallax::time::iso::format_utc(t + chrono::TimeDelta::seconds(25), 1);
+            }
+        }
+        file_text.push_str(&format!(
+            "{},{clock},{}\n",
+            cells.join(","),
+            [50, 80, 120, 200][(k - 1) % 4]
+        ));
+    }
+    let file = temp("triage-phones.csv", file_text.as_bytes());
+    let o = run(&["reduce", &file, "--format", "json"]);
+    assert!(o.status.success(), "{}", err(&o));
+    let v: serde_json::Value = serde_json::from_str(&out(&o)).unwrap();
+    let groups = v["residuals_by_clock_source"].as_array().unwrap();
+    for g in groups {
+        let z = g["departure_sigmas"].as_f64().unwrap();
+        if g["group"] == "phone" {
+            assert!(z > 3.0, "{g}");
+            let note = g["note"].as_str().unwrap();
+            assert!(note.starts_with("Timings read from phone clocks"), "{note}");
+            assert!(g["mean_o_c_s"].as_f64().unwrap() > 10.0, "{g}");
+        } else {
+            assert!(z.abs() < 3.0, "{g}");
+            assert!(g["note"].is_null(), "{g}");
+        }
+        assert!(g["scatter_s"].as_f64().unwrap() > 0.0);
+    }
+    let table = out(&run(&["reduce", &file]));
+    assert!(
+        table.contains("Residuals by clock source")
+            && table.contains("Timings read from phone clocks"),
+        "{table}"
     );
 }

@@ -218,6 +218,51 @@ mod tests {
         );
     }
 
+    /// A database made before the triage existed gains its columns and table: its timings
+    /// read as "not recorded" and the filters, exclusions and notes work on it.
+    #[test]
+    fn an_older_database_is_read_by_the_triage() {
+        let dir = std::env::temp_dir().join(format!("tp-triage-store-{}", std::process::id()));
+        let _ = std::fs::remove_dir_all(&dir);
+        std::fs::create_dir_all(&dir).unwrap();
+        let path = dir.join("old.sqlite");
+        {
+            let conn = Connection::open(&path).unwrap();
+            conn.execute_batch(
+                "CREATE TABLE submissions (id INTEGER PRIMARY KEY, received_utc TEXT NOT NULL, content_hash TEXT NOT NULL, body BLOB NOT NULL, status TEXT NOT NULL, error TEXT, edit_key TEXT, supersedes INTEGER, superseded_by INTEGER);
+                 CREATE TABLE timings (id INTEGER PRIMARY KEY, submission_id INTEGER NOT NULL, station TEXT NOT NULL, latitude TEXT NOT NULL, longitude TEXT NOT NULL, elevation_m TEXT NOT NULL, contact TEXT NOT NULL, time_utc TEXT NOT NULL, sigma_s TEXT NOT NULL, time_local TEXT NOT NULL, local_time TEXT NOT NULL, day_reckoning TEXT NOT NULL, longitude_sigma_deg TEXT NOT NULL, excluded_reason TEXT);
+                 CREATE TABLE audit (id INTEGER PRIMARY KEY, at_utc TEXT NOT NULL, action TEXT NOT NULL, timing_id INTEGER, reason TEXT);
+                 INSERT INTO submissions VALUES (1, 'x', 'h', x'00', 'accepted', NULL, 'k', NULL, NULL);
+                 INSERT INTO timings VALUES (1, 1, 'a', '10', '20', '0', '2', '2012-06-05T22:30:00Z', '5', '', '', '', '', NULL);",
+            )
+            .unwrap();
+        }
+        let mut store = Store::open(&path).unwrap();
+        assert!(store.verdicts_in_force().unwrap().is_empty());
+        let q = |pairs: &[(&str, &str)]| {
+            super::super::table_query::TableQuery::from_query(
+                &pairs
+                    .iter()
+                    .map(|(k, v)| (k.to_string(), v.to_string()))
+                    .collect(),
+            )
+        };
+        let (rows, total) = super::super::timing_table::page_of(
+            &store,
+            &q(&[("verdict", "none"), ("clock", "none")]),
+        )
+        .unwrap();
+        assert_eq!((rows.len(), total, rows[0].verdict.clone()), (1, 1, None));
+        assert_eq!(
+            super::super::timing_table::page_of(&store, &q(&[("verdict", "fits")]))
+                .unwrap()
+                .1,
+            0
+        );
+        assert_eq!(store.exclude_many(&[1], "old").unwrap(), 1);
+        assert!(store.add_note(1, "hello").unwrap());
+    }
+
     #[test]
     fn notes_go_to_accepted_submissions_only() {
         let (mut store, _) = store_with_two();
