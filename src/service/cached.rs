@@ -138,8 +138,8 @@ pub fn report(app: &App, headers: &HeaderMap) -> Response {
     )
 }
 
-/// `GET /organiser?page=N&state=..&q=..&clock=..&viewing=..&verdict=..&sort=..`: the solution of the cache, a page of the
-/// table read in SQL.
+/// `GET /organiser?page=N&state=..&q=..&clock=..&viewing=..&verdict=..&sort=..`: the
+/// solution of the cache, the timings that need attention, a page of the table read in SQL.
 pub fn organiser(app: &App, q: &HashMap<String, String>, csrf: &str) -> Response {
     let query = TableQuery::from_query(q);
     let gathered = app.cache.with_page_reader(app, |s| {
