@@ -166,15 +166,14 @@ impl Store {
         Ok(true)
     }
 
-    /// The organiser's notes to a submission's participant: (time UTC, note), oldest first.
+    /// The organiser's notes to a submission's participant, and to the versions it corrects
+    /// (a note follows the submission through corrections): (time UTC, note), oldest first.
     ///
     /// Errors: the database's.
     pub fn notes(&self, submission_id: i64) -> StoreResult<Vec<(String, String)>> {
         let mut stmt = self
             .connection()
-            .prepare(
-                "SELECT at_utc, note FROM participant_notes WHERE submission_id = ?1 ORDER BY id",
-            )
+            .prepare("WITH RECURSIVE chain(id) AS (SELECT ?1 UNION SELECT s.supersedes FROM submissions s JOIN chain c ON s.id = c.id WHERE s.supersedes IS NOT NULL) SELECT at_utc, note FROM participant_notes WHERE submission_id IN (SELECT id FROM chain) ORDER BY id")
             .map_err(db_err)?;
         let rows = stmt
             .query_map(params![submission_id], |r| Ok((r.get(0)?, r.get(1)?)))
@@ -271,5 +270,19 @@ mod tests {
         assert_eq!(store.notes(1).unwrap()[0].1, "check your clock");
         assert!(store.notes(42).unwrap().is_empty());
         assert_eq!(store.audit(1).unwrap()[0].1, "note to submission 1");
+        // A correction's private link shows the notes to the versions it corrects.
+        let (second, _) = store.store_raw(b"y").unwrap();
+        store
+            .accept(second, "k2", &[TimingFields::default()], Some(1))
+            .unwrap();
+        assert!(store.add_note(second, "thank you").unwrap());
+        let notes: Vec<String> = store
+            .notes(second)
+            .unwrap()
+            .into_iter()
+            .map(|n| n.1)
+            .collect();
+        assert_eq!(notes, ["check your clock", "thank you"]);
+        assert_eq!(store.notes(1).unwrap().len(), 1);
     }
 }
