@@ -122,3 +122,25 @@ choose-a-file = Wählen Sie eine Datei zum Senden.
 not-read = Nicht gelesen
 stored-as-it-came = Ihre Sendung wurde so gespeichert, wie sie ankam, und die Organisation kann sie sehen.
 verdict-slip = wahrscheinlich ein Versehen, das Sie berichtigen können
+
+## Wie die Zeiten gemessen wurden
+
+how-heading = Wie Sie gemessen haben
+observer = Beobachter
+observer-hint = Ihr Name oder der Ihrer Gruppe; freiwillig
+clock-source = Uhr, von der Sie die Zeit abgelesen haben
+instrument = Instrument
+instrument-hint = z. B. 80-mm-Refraktor
+aperture = Öffnung (Millimeter)
+aperture-hint = der Durchmesser von Linse oder Spiegel
+viewing = Wie Sie die Sonne betrachtet haben
+notes = Bemerkungen
+notes-hint = Luftunruhe, Wolken, alles, was die Organisation wissen sollte
+not-said = nicht angegeben
+clock-gps = GPS-Empfänger
+clock-radio = Funkzeitsignal
+clock-network = Computer mit Netzwerkzeit
+clock-phone = Mobiltelefon
+clock-other = andere (eine von Hand gestellte Uhr)
+viewing-filter = zertifizierter Sonnenfilter vorn
+viewing-projection = Projektion auf einen Schirm

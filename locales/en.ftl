@@ -121,3 +121,25 @@ choose-a-file = Choose a file to send.
 not-read = Not read
 stored-as-it-came = What you sent was stored as it came, and the organiser can see it.
 verdict-slip = probably a slip you can fix
+
+## How the timings were made
+
+how-heading = How you timed
+observer = Observer
+observer-hint = your name or your group's; optional
+clock-source = Clock you read the time from
+instrument = Instrument
+instrument-hint = e.g. 80 mm refractor
+aperture = Aperture (millimetres)
+aperture-hint = the lens or mirror's diameter
+viewing = How you viewed the Sun
+notes = Notes
+notes-hint = seeing, clouds, anything the organiser should know
+not-said = not said
+clock-gps = GPS receiver
+clock-radio = radio time signal
+clock-network = computer on network time
+clock-phone = mobile phone
+clock-other = other (a watch set by hand)
+viewing-filter = certified solar filter over the front
+viewing-projection = projection onto a screen

@@ -122,3 +122,25 @@ choose-a-file = Elija un archivo para enviar.
 not-read = No leído
 stored-as-it-came = Lo que envió se guardó tal como llegó, y el organizador puede verlo.
 verdict-slip = probablemente un descuido que puede corregir
+
+## Cómo se hicieron los tiempos
+
+how-heading = Cómo cronometró
+observer = Observador
+observer-hint = su nombre o el de su grupo; opcional
+clock-source = Reloj del que leyó la hora
+instrument = Instrumento
+instrument-hint = p. ej. refractor de 80 mm
+aperture = Abertura (milímetros)
+aperture-hint = el diámetro de la lente o del espejo
+viewing = Cómo vio el Sol
+notes = Notas
+notes-hint = seeing, nubes, cualquier cosa que el organizador deba saber
+not-said = sin indicar
+clock-gps = receptor GPS
+clock-radio = señal horaria por radio
+clock-network = ordenador con hora de red
+clock-phone = teléfono móvil
+clock-other = otro (un reloj puesto a mano)
+viewing-filter = filtro solar certificado delante
+viewing-projection = proyección sobre una pantalla

@@ -122,3 +122,25 @@ choose-a-file = Choisissez un fichier à envoyer.
 not-read = Non lu
 stored-as-it-came = Ce que vous avez envoyé a été enregistré tel quel, et l'organisateur peut le voir.
 verdict-slip = probablement une erreur que vous pouvez corriger
+
+## Comment les chronométrages ont été faits
+
+how-heading = Comment vous avez chronométré
+observer = Observateur
+observer-hint = votre nom ou celui de votre groupe ; facultatif
+clock-source = Horloge sur laquelle vous avez lu l'heure
+instrument = Instrument
+instrument-hint = p. ex. lunette de 80 mm
+aperture = Ouverture (millimètres)
+aperture-hint = le diamètre de l'objectif ou du miroir
+viewing = Comment vous avez regardé le Soleil
+notes = Remarques
+notes-hint = turbulence, nuages, tout ce que l'organisateur devrait savoir
+not-said = non précisé
+clock-gps = récepteur GPS
+clock-radio = signal horaire radio
+clock-network = ordinateur à l'heure du réseau
+clock-phone = téléphone portable
+clock-other = autre (une montre réglée à la main)
+viewing-filter = filtre solaire certifié à l'avant
+viewing-projection = projection sur un écran

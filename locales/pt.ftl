@@ -122,3 +122,25 @@ choose-a-file = Escolha um ficheiro para enviar.
 not-read = Não lido
 stored-as-it-came = O que enviou foi guardado tal como chegou, e a organização pode vê-lo.
 verdict-slip = provavelmente um lapso que pode corrigir
+
+## Como os tempos foram feitos
+
+how-heading = Como cronometrou
+observer = Observador
+observer-hint = o seu nome ou o do seu grupo; opcional
+clock-source = Relógio de onde leu a hora
+instrument = Instrumento
+instrument-hint = p. ex. refrator de 80 mm
+aperture = Abertura (milímetros)
+aperture-hint = o diâmetro da lente ou do espelho
+viewing = Como viu o Sol
+notes = Notas
+notes-hint = turbulência, nuvens, tudo o que a organização deva saber
+not-said = não indicado
+clock-gps = recetor GPS
+clock-radio = sinal horário por rádio
+clock-network = computador com hora da rede
+clock-phone = telemóvel
+clock-other = outro (um relógio acertado à mão)
+viewing-filter = filtro solar certificado à frente
+viewing-projection = projeção num ecrã

@@ -219,7 +219,7 @@ fn the_organiser_excludes_and_restores_and_participants_correct() {
     );
     let page = request(port, "GET", "/organiser", &[cookies.as_str()], b"").body;
     assert!(page.contains("clock doubtful") && page.contains("excluded"));
-    let form = format!("csrf={csrf}&timing=1");
+    let form = format!("csrf={csrf}&timing=1&reason=clock+checked");
     assert_eq!(
         request(
             port,

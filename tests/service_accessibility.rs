@@ -15,7 +15,8 @@ mod common;
 mod webdriver;
 
 use common::server::{
-    post_json, predicted_at, seed_five_stations, settled_report, settled_solution, start, Server,
+    post_json, predicted_at, request, seed_five_stations, settled_report, settled_solution,
+    sign_in, start, visitor, Server,
 };
 use fantoccini::{Client, Locator};
 use std::path::{Path, PathBuf};
@@ -36,13 +37,35 @@ const TOKEN: &str = "organiser11y";
 /// One browser at a time: the two tests each start a server and a browser.
 static ONE_BROWSER: Mutex<()> = Mutex::new(());
 
-/// The five stations of `seed_five_stations` (one a zone-time blunder), and one submission
-/// that cannot be read, for the organiser's table of those.
-fn seed(server: &Server) {
+/// The five stations of `seed_five_stations` (one a zone-time blunder), one submission that
+/// cannot be read, for the organiser's table of those, and one that says how it was timed and
+/// has a note from the organiser; returns that one's private link.
+fn seed(server: &Server) -> String {
     seed_five_stations(server, true);
     // One that cannot be read, for the organiser's table of those.
     let unreadable = post_json(server.port, "/api/submissions", r#"{"station":""}"#);
     assert_eq!(unreadable.status, 400);
+    let body = serde_json::json!({ "station": "Lantern Hill", "latitude": 35.68, "longitude": 139.69,
+        "clock_source": "phone", "aperture_mm": 60, "viewing": "projection", "notes": "haze",
+        "timings": [{ "contact": 2, "time_utc": predicted_at(35.68, 139.69, 2, 3.0), "sigma_s": 8 }] });
+    let r = post_json(server.port, "/api/submissions", &body.to_string());
+    assert_eq!(r.status, 201, "{}", r.body);
+    let v = r.json();
+    let (cookie, csrf) = visitor(server.port);
+    let cookies = format!("Cookie: {cookie}; {}", sign_in(server.port, TOKEN));
+    let note = format!(
+        "csrf={csrf}&submission={}&note=Your+clock+seems+3+s+fast%3B+please+say+how+you+set+it",
+        v["submission_id"]
+    );
+    let r = request(
+        server.port,
+        "POST",
+        "/organiser/note",
+        &["Content-Type: application/x-www-form-urlencoded", &cookies],
+        note.as_bytes(),
+    );
+    assert_eq!(r.status, 303, "{}", r.body);
+    v["review"].as_str().unwrap().to_string()
 }
 
 /// An observer's sheet written by `predict --sheets`; its path.
@@ -179,7 +202,12 @@ async fn exclude_first(c: &Client) {
 }
 
 /// Visit every page for people and check each; the problems found.
-async fn every_page(c: &Client, server: &Server, sheet: &Path, how: Check<'_>) -> Vec<String> {
+async fn every_page(
+    c: &Client,
+    (server, noted): (&Server, &str),
+    sheet: &Path,
+    how: Check<'_>,
+) -> Vec<String> {
     let base = format!("http://127.0.0.1:{}", server.port);
     let mut problems = Vec::new();
     goto(c, &format!("{base}/organiser")).await;
@@ -193,6 +221,11 @@ async fn every_page(c: &Client, server: &Server, sheet: &Path, how: Check<'_>) -
     check(c, "feedback page", &how, &mut problems).await;
     goto(c, &format!("{base}{private}")).await;
     check(c, "review page", &how, &mut problems).await;
+    goto(c, &format!("{base}{noted}")).await;
+    c.find(Locator::Id("organiser-notes"))
+        .await
+        .expect("the note");
+    check(c, "review page with a note", &how, &mut problems).await;
     goto(c, &format!("{base}/submission/999999?key=none")).await;
     check(c, "message page", &how, &mut problems).await;
     send_too_much(c, &base).await;
@@ -207,6 +240,15 @@ async fn every_page(c: &Client, server: &Server, sheet: &Path, how: Check<'_>) -
     goto(c, &format!("{base}/organiser")).await;
     c.find(Locator::Id("n-timings")).await.expect("signed in");
     check(c, "organiser's page", &how, &mut problems).await;
+    goto(
+        c,
+        &format!("{base}/organiser?state=excluded&clock=&verdict=rejected&sort=o_c"),
+    )
+    .await;
+    c.find(Locator::Id("bulk"))
+        .await
+        .expect("the filtered table");
+    check(c, "organiser's page, filtered", &how, &mut problems).await;
     goto(c, &format!("{base}/organiser/report.html")).await;
     check(c, "report", &how, &mut problems).await;
     goto(c, &format!("file://{}", sheet.display())).await;
@@ -226,7 +268,7 @@ fn run(name: &str, screen: Screen, axe: Option<&str>) -> Option<Vec<String>> {
     let _ = std::fs::remove_dir_all(&dir);
     std::fs::create_dir_all(&dir).unwrap();
     let server = start(&dir.join("campaign.sqlite"), &["--token", TOKEN]);
-    seed(&server);
+    let noted = seed(&server);
     settled_solution(&server);
     let sheet = sheet(&dir);
     let driver = start_driver(&driver_path);
@@ -241,7 +283,7 @@ fn run(name: &str, screen: Screen, axe: Option<&str>) -> Option<Vec<String>> {
             (None, Screen::Phone { width }) => Check::Width(width),
             (None, Screen::Desktop) => panic!("a width is checked on a phone"),
         };
-        let problems = every_page(&c, &server, &sheet, how).await;
+        let problems = every_page(&c, (&server, &noted), &sheet, how).await;
         c.close().await.ok();
         problems
     }))

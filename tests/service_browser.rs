@@ -107,6 +107,97 @@ async fn organiser_counts(c: &Client, base: &str, token: &str) -> (String, Strin
     (n, p)
 }
 
+/// The rows of the organiser's table, as text.
+async fn table_text(c: &Client) -> String {
+    c.find(Locator::Id("rows"))
+        .await
+        .expect("the table")
+        .text()
+        .await
+        .unwrap()
+}
+
+/// The organiser filters the table by the verdict at arrival, ticks the blunder, excludes it
+/// with a reason through the bulk form, then restores it with a reason that the audit trail
+/// shows.
+async fn triage(c: &Client, base: &str) {
+    c.goto(&format!("{base}/organiser"))
+        .await
+        .expect("the page");
+    c.find(Locator::Id("filter-verdict"))
+        .await
+        .expect("the verdict filter")
+        .select_by_value("rejected")
+        .await
+        .expect("chosen");
+    c.find(Locator::Id("show"))
+        .await
+        .expect("show")
+        .click()
+        .await
+        .expect("shown");
+    c.wait()
+        .at_most(Duration::from_secs(20))
+        .for_element(Locator::Css(
+            "#filter-verdict option[value='rejected'][selected]",
+        ))
+        .await
+        .expect("the filtered table");
+    let rows = table_text(c).await;
+    assert!(
+        rows.contains("Pearl Shore Club") && !rows.contains("Jade Harbour School"),
+        "{rows}"
+    );
+    c.find(Locator::Css("#rows input[type='checkbox']"))
+        .await
+        .expect("a box to tick")
+        .click()
+        .await
+        .expect("ticked");
+    fill(c, "bulk-reason", "zone time left in").await;
+    c.find(Locator::Id("bulk-exclude"))
+        .await
+        .expect("exclude")
+        .click()
+        .await
+        .expect("sent");
+    let restore = c
+        .wait()
+        .at_most(Duration::from_secs(20))
+        .for_element(Locator::Css("#rows form[action='/organiser/restore']"))
+        .await
+        .expect("the excluded row's restore form");
+    assert!(table_text(c)
+        .await
+        .contains("by the organiser: zone time left in"));
+    screenshot(c, "service-organiser-triage.png").await;
+    restore
+        .find(Locator::Css("input[name='reason']"))
+        .await
+        .expect("a reason")
+        .send_keys("the observer confirmed the zone")
+        .await
+        .expect("typed");
+    restore
+        .find(Locator::Css("button"))
+        .await
+        .expect("restore")
+        .click()
+        .await
+        .expect("sent");
+    c.wait()
+        .at_most(Duration::from_secs(20))
+        .for_element(Locator::Css("#rows form[action='/organiser/exclude']"))
+        .await
+        .expect("restored");
+    let page = c.source().await.expect("the page");
+    let trail = &page[page.find("Audit trail").expect("the audit trail")..];
+    assert!(
+        trail.contains("<td>restored</td>") && trail.contains("the observer confirmed the zone"),
+        "{trail}"
+    );
+}
+
 #[test]
 fn a_participant_and_the_organiser_in_a_real_browser() {
     let (Some(chromium), Some(driver_path)) = (which("chromium"), which("chromedriver")) else {
@@ -172,6 +263,7 @@ fn a_participant_and_the_organiser_in_a_real_browser() {
         assert_styled(&c, "the report").await;
         let source = c.source().await.expect("the report's source");
         assert!(!source.contains("organiser7"), "the token on the report");
+        triage(&c, &base).await;
         c.close().await.ok();
     });
 }

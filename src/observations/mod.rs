@@ -13,6 +13,8 @@
 //! - `templates.rs`: blank stations and observations files with one commented example row.
 //! - `readings.rs`: times and durations as written: Julian dates, ranges, times to the minute.
 //! - `longitude.rs`: how well a station's longitude is known (`longitude_sigma_deg`).
+//! - `timing_metadata.rs`: how a timing was made (clock source, instrument, aperture, viewing,
+//!   notes), validated.
 //! - `timings.rs`: reading and validating timings; rejected rows and their reasons.
 pub mod angles;
 pub mod contact_forms;
@@ -25,4 +27,5 @@ pub mod sheet_extent;
 pub mod spreadsheet;
 pub mod spreadsheet_cells;
 pub mod templates;
+pub mod timing_metadata;
 pub mod timings;

@@ -13,6 +13,7 @@ use super::csv_table::CsvTable;
 use super::local_time::{parse_local, LocalColumns, LocalReading};
 use super::longitude::LongitudeKnowledge;
 use super::readings::{parse_duration, parse_time_reading, TimeReading};
+use super::timing_metadata::{parse_metadata, MetadataColumns};
 use super::timings::{AsWritten, Interval, Observation, DEFAULT_SIGMA_S};
 use crate::geometry::contacts::Contact;
 use crate::geometry::station::{
@@ -58,6 +59,9 @@ pub struct Columns {
     pub duration: Option<usize>,
     /// `contact_judged`.
     pub judged: Option<usize>,
+    /// How the timing was made (`clock_source`, `instrument`, `aperture_mm`, `viewing`,
+    /// `notes`).
+    pub metadata: MetadataColumns,
 }
 
 impl Columns {
@@ -85,6 +89,7 @@ impl Columns {
             time_meridian: table.optional("time_meridian"),
             duration: table.optional("duration"),
             judged: table.optional("contact_judged"),
+            metadata: MetadataColumns::find(table),
         };
         if cols.time.is_none() && cols.local.time_local.is_none() && cols.duration.is_none() {
             // The message names the column every modern file has.
@@ -232,6 +237,7 @@ pub fn parse_row(
         None => LongitudeKnowledge::Exact,
     };
     let (sigma_s, sigma_given) = row_sigma(table, rec, cols, contact, interval.as_ref())?;
+    let metadata = parse_metadata(table, rec, &cols.metadata)?;
     let observation = Observation {
         line,
         station: Station {
@@ -250,6 +256,7 @@ pub fn parse_row(
         judged,
         duration: interval,
         written,
+        metadata,
     };
     Ok((observation, zone))
 }

@@ -7,6 +7,7 @@
 use super::angles::Meridian;
 use super::contact_forms::ContactJudged;
 use super::rows::{parse_row, Columns};
+use super::timing_metadata::TimingMetadata;
 use crate::error::{Error, Result};
 use crate::geometry::contacts::Contact;
 use crate::geometry::station::{normalise_longitude_deg, Station};
@@ -137,6 +138,8 @@ pub struct Observation {
     pub duration: Option<Interval>,
     /// How the row was written.
     pub written: AsWritten,
+    /// How the timing was made (clock, instrument, viewing, notes).
+    pub metadata: TimingMetadata,
 }
 
 impl Observation {
@@ -161,6 +164,7 @@ impl Observation {
             judged: ContactJudged::Geometric,
             duration: None,
             written: AsWritten::default(),
+            metadata: TimingMetadata::default(),
         }
     }
 

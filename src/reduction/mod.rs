@@ -27,6 +27,7 @@
 //!   and mean time, prime meridians, times to the minute).
 //! - `rejection.rs`: station-wide tests and the record of every row not used.
 //! - `contributions.rs`: information shares, influence, Halley chords, convergence.
+//! - `residual_groups.rs`: the residuals grouped by clock source and by aperture class.
 //! - `result.rs`: the settings and the result types.
 //! - `classic_methods.rs`: Halley's and Delisle's methods beside the full solution (shared
 //!   types, the comparison by the covariance of the estimates); `halley.rs`, `delisle.rs`:
@@ -53,6 +54,7 @@ pub mod parameters;
 pub mod pipeline;
 pub mod planet_place;
 pub mod rejection;
+pub mod residual_groups;
 pub mod result;
 pub mod screening;
 pub mod statistics;

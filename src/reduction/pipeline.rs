@@ -304,6 +304,7 @@ fn used_rows(timings: &[Timing], used: &[usize], outcome: &FitOutcome) -> Vec<Us
             observer: timings[i].obs.observer.clone(),
             o_c_s: *r,
             sigma_s: timings[i].obs.sigma_s,
+            metadata: timings[i].obs.metadata.clone(),
         })
         .collect()
 }

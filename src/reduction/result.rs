@@ -281,4 +281,6 @@ pub struct UsedTiming {
     pub o_c_s: f64,
     /// Standard uncertainty used, seconds.
     pub sigma_s: f64,
+    /// How the timing was made.
+    pub metadata: crate::observations::timing_metadata::TimingMetadata,
 }

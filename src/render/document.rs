@@ -414,6 +414,7 @@ pub fn html_report(red: &Reduction) -> String {
         &STATION_HEADERS,
         &station_rows(red),
     ));
+    s.push_str(&crate::render::residual_groups::groups_html(red));
     s.push_str("<h2>Rows not used</h2>\n");
     if red.rejected.is_empty() {
         s.push_str("<p>Every row was used.</p>\n");
@@ -512,6 +513,7 @@ pub fn markdown_report(red: &Reduction, stem: &str) -> (String, Vec<(String, Str
         let _ = write!(s, "{}\n\n", md_cell(n));
     }
     s.push_str(&md_table(&STATION_HEADERS, &station_rows(red)));
+    s.push_str(&crate::render::residual_groups::groups_markdown(red));
     s.push_str("\n## Rows not used\n\n");
     if red.rejected.is_empty() {
         s.push_str("Every row was used.\n");

@@ -37,6 +37,8 @@
 //! - `sheet_calendar.rs`: each station's contacts as an RFC 5545 calendar.
 //! - `sheet_files.rs`: the sheets and calendars written to a folder, names made safe.
 //! - `document.rs`: the HTML and Markdown reports.
+//! - `residual_groups.rs`: the residuals by clock source and aperture class, for the JSON,
+//!   the reports and the organiser's page.
 //! - `report_sections.rs`: the reports' sections on the classic methods, the error budget and
 //!   what else the timings measure.
 pub mod axes;
@@ -58,6 +60,7 @@ pub mod reduction;
 pub mod reduction_json;
 pub mod report_sections;
 pub mod residual_chart;
+pub mod residual_groups;
 pub mod sheet_calendar;
 pub mod sheet_files;
 pub mod sheet_limb;

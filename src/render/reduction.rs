@@ -129,6 +129,9 @@ pub(crate) fn reduction_json_head(red: &Reduction) -> Map<String, Value> {
     for (k, x) in crate::render::what_else::what_else_json(&w) {
         map.insert(k.to_string(), x);
     }
+    for (k, x) in crate::render::residual_groups::groups_json(red) {
+        map.insert(k.to_string(), x);
+    }
     map
 }
 
@@ -433,6 +436,7 @@ pub fn reduction_table(red: &Reduction) -> String {
     headline_section(red, &mut s);
     parameters_section(red, &mut s);
     stations_section(red, &mut s);
+    s.push_str(&crate::render::residual_groups::groups_text(red));
     crate::render::methods::methods_section(red, &mut s);
     crate::render::what_else::what_else_section(red, &mut s);
     if !red.rejected.is_empty() {

@@ -50,6 +50,8 @@ pub struct Solved {
     pub states: HashMap<i64, (String, String)>,
     /// The organiser page's methods and charts (HTML).
     pub charts_html: String,
+    /// The timings that need the organiser's attention (`triage.rs`).
+    pub attention: super::triage::Attention,
     observations: Option<ObservationSet>,
 }
 
@@ -233,9 +235,12 @@ fn solve_once(app: &App, generation: u64) -> Solved {
         ..Solved::default()
     };
     let read = with_reader(&app.cache.reader, app, |s| {
-        Ok((s.timings_in_force()?, s.counts()?.0))
+        Ok((
+            (s.timings_in_force()?, s.verdicts_in_force()?),
+            s.counts()?.0,
+        ))
     });
-    let (timings, submissions) = match read {
+    let ((timings, verdicts), submissions) = match read {
         Ok(t) => t,
         Err(e) => {
             solved.error = Some(e);
@@ -259,8 +264,10 @@ fn solve_once(app: &App, generation: u64) -> Solved {
         Err(e) => solved.error = Some(e.to_string()),
     }
     solved.states = states(&timings, &ids, solved.reduction.as_deref());
+    solved.attention = super::triage::attention(&timings, &verdicts, &solved.states);
     if let Some(red) = &solved.reduction {
-        solved.charts_html = super::organiser::charts_html(red);
+        solved.charts_html =
+            super::organiser::charts_html(red) + &crate::render::residual_groups::groups_html(red);
     }
     solved.solution_json = solution_prefix(&solved);
     solved.export_csv = Bytes::from(text);

@@ -138,8 +138,8 @@ pub fn report(app: &App, headers: &HeaderMap) -> Response {
     )
 }
 
-/// `GET /organiser?page=N&state=..&station=..`: the solution of the cache, a page of the
-/// table read in SQL.
+/// `GET /organiser?page=N&state=..&q=..&clock=..&viewing=..&verdict=..&sort=..`: the
+/// solution of the cache, the timings that need attention, a page of the table read in SQL.
 pub fn organiser(app: &App, q: &HashMap<String, String>, csrf: &str) -> Response {
     let query = TableQuery::from_query(q);
     let gathered = app.cache.with_page_reader(app, |s| {
@@ -156,7 +156,9 @@ pub fn organiser(app: &App, q: &HashMap<String, String>, csrf: &str) -> Response
         Err(e) => return (StatusCode::INTERNAL_SERVER_ERROR, e).into_response(),
     };
     let solved = app.cache.solved();
-    let table = table_html(&query, (&rows, total), &solved, csrf);
+    let table = super::triage::attention_html(&solved.attention)
+        + &table_html(&query, (&rows, total), &solved, csrf)
+        + &super::triage::note_form(csrf);
     let view = OrganiserView {
         solution: solved.reduction.as_deref(),
         error: solved.error.as_deref(),

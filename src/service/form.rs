@@ -3,7 +3,8 @@
 //! `<label for>`; choices (contact, kind of local time, day reckoning) are lists, so nothing
 //! has to be spelled; the station's name and coordinates are `required`. The posted names are
 //! the ones `intake::from_form` reads (`station`, `latitude`, ..., `contact0`, `time_utc0`,
-//! `time_local0`, `local_time0`, `day_reckoning0`, `sigma_s0`, ..., `csv`, `file`).
+//! `time_local0`, `local_time0`, `day_reckoning0`, `sigma_s0`, ..., `observer`,
+//! `clock_source`, `instrument`, `aperture_mm`, `viewing`, `notes`, `csv`, `file`).
 //!
 //! Latitude and longitude keep the ordinary keyboard: a phone's decimal pad (`inputmode=
 //! "decimal"`) has no minus sign on some systems, and south and west are negative; elevation
@@ -106,6 +107,45 @@ fn day_reckonings(l: Language) -> [(&'static str, String); 2] {
     ]
 }
 
+/// The clocks a time may have been read from.
+fn clock_sources(l: Language) -> [(&'static str, String); 6] {
+    [
+        ("", t(l, "not-said")),
+        ("gps", t(l, "clock-gps")),
+        ("radio", t(l, "clock-radio")),
+        ("network", t(l, "clock-network")),
+        ("phone", t(l, "clock-phone")),
+        ("other", t(l, "clock-other")),
+    ]
+}
+
+/// The ways the Sun may have been viewed (both safe; see the caution).
+fn viewings(l: Language) -> [(&'static str, String); 3] {
+    [
+        ("", t(l, "not-said")),
+        ("filter", t(l, "viewing-filter")),
+        ("projection", t(l, "viewing-projection")),
+    ]
+}
+
+/// The fieldset of how the timings were made: observer, clock, instrument, aperture, viewing,
+/// notes (the submission's; every timing takes them).
+fn how_fields(l: Language, first: &TimingFields) -> String {
+    let heading = t(l, "how-heading");
+    format!(
+        "<h2>{h}</h2>\n<fieldset><legend class=\"vh\">{h}</legend>\n<div class=\"row\">{}{}</div>\n<div class=\"row\">{}{}</div>\n{}\n<div class=\"field\"><label for=\"notes\">{} <span class=\"hint\">{}</span></label><textarea id=\"notes\" name=\"notes\" rows=\"2\">{}</textarea></div>\n</fieldset>\n",
+        text_field("observer", &t(l, "observer"), &t(l, "observer-hint"), &first.observer, ""),
+        select_field(l, ("clock_source", &t(l, "clock-source")), &clock_sources(l), &first.clock_source),
+        text_field("instrument", &t(l, "instrument"), &t(l, "instrument-hint"), &first.instrument, ""),
+        text_field("aperture_mm", &t(l, "aperture"), &t(l, "aperture-hint"), &first.aperture_mm, " inputmode=\"numeric\""),
+        select_field(l, ("viewing", &t(l, "viewing")), &viewings(l), &first.viewing),
+        esc(&t(l, "notes")),
+        esc(&t(l, "notes-hint")),
+        esc(&first.notes),
+        h = esc(&heading),
+    )
+}
+
 /// The hidden fields every form posts: the anti-forgery token, and the edit key of a
 /// correction.
 fn hidden(csrf: &str, key: Option<&str>) -> String {
@@ -178,6 +218,7 @@ pub fn timing_form(
         hidden(csrf, key)
     );
     s.push_str(&station_fields(l, &first));
+    s.push_str(&how_fields(l, &first));
     let _ = writeln!(
         s,
         "<h2>{}</h2>\n<p class=\"note\">{}</p>\n<div class=\"timings\">",
@@ -255,5 +296,16 @@ mod tests {
         let de = timing_form(Language::German, "/submit", ("t", None), &[]);
         assert!(de.contains(">Breite (Grad)"), "German labels");
         assert!(de.contains("name=\"latitude\"") && de.contains("name=\"contact3\""));
+        for name in [
+            "clock_source",
+            "viewing",
+            "aperture_mm",
+            "notes",
+            "observer",
+            "instrument",
+        ] {
+            assert!(html.contains(&format!("<label for=\"{name}\"")), "{name}");
+        }
+        assert!(html.contains("id=\"aperture_mm\" name=\"aperture_mm\" value=\"\" autocomplete=\"off\" spellcheck=\"false\" inputmode=\"numeric\""));
     }
 }

@@ -33,7 +33,9 @@ fn text_of(v: Option<&Value>, key: &str) -> Result<String, String> {
 /// The timings of a JSON submission: `station`, `latitude`, `longitude`, optional
 /// `elevation_m` and `longitude_sigma_deg`, and `timings`, a non-empty array of objects with
 /// `contact` and `time_utc` (or `time_local` with `local_time` and `day_reckoning`) and an
-/// optional `sigma_s`.
+/// optional `sigma_s`. How the timings were made (`observer`, `clock_source`, `instrument`,
+/// `aperture_mm`, `viewing`, `notes`) may be given for the whole submission, for a timing, or
+/// both (a timing's own value wins).
 ///
 /// Errors: a sentence saying what is missing or malformed (the body is unreadable).
 pub fn from_json(body: &[u8]) -> Result<Vec<TimingFields>, String> {
@@ -58,13 +60,19 @@ pub fn from_json(body: &[u8]) -> Result<Vec<TimingFields>, String> {
         meridian: text_of(obj.get("meridian"), "meridian")?,
         observer: text_of(obj.get("observer"), "observer")?,
         calendar: text_of(obj.get("calendar"), "calendar")?,
+        clock_source: text_of(obj.get("clock_source"), "clock_source")?,
+        instrument: text_of(obj.get("instrument"), "instrument")?,
+        aperture_mm: text_of(obj.get("aperture_mm"), "aperture_mm")?,
+        viewing: text_of(obj.get("viewing"), "viewing")?,
+        notes: text_of(obj.get("notes"), "notes")?,
         ..TimingFields::default()
     };
     timings
         .iter()
         .map(|t| {
             let t = t.as_object().ok_or("each timing must be a JSON object")?;
-            // A timing may name its own observer or calendar; the submission's hold otherwise.
+            // A timing may name its own observer, calendar and how it was made; the
+            // submission's hold otherwise.
             let own = |key: &str, common: &str| -> Result<String, String> {
                 let v = text_of(t.get(key), key)?;
                 Ok(if v.is_empty() { common.to_string() } else { v })
@@ -83,6 +91,11 @@ pub fn from_json(body: &[u8]) -> Result<Vec<TimingFields>, String> {
                 contact_judged: text_of(t.get("contact_judged"), "contact_judged")?,
                 observer: own("observer", &common.observer)?,
                 calendar: own("calendar", &common.calendar)?,
+                clock_source: own("clock_source", &common.clock_source)?,
+                instrument: own("instrument", &common.instrument)?,
+                aperture_mm: own("aperture_mm", &common.aperture_mm)?,
+                viewing: own("viewing", &common.viewing)?,
+                notes: own("notes", &common.notes)?,
                 ..common.clone()
             })
         })
@@ -144,6 +157,11 @@ fn fields_of_table(table: &CsvTable) -> Result<Vec<TimingFields>, String> {
             time_meridian: get("time_meridian"),
             duration: get("duration"),
             contact_judged: get("contact_judged"),
+            clock_source: get("clock_source"),
+            instrument: get("instrument"),
+            aperture_mm: get("aperture_mm"),
+            viewing: get("viewing"),
+            notes: get("notes"),
         });
     }
     if out.is_empty() {
@@ -177,6 +195,12 @@ pub fn from_form(form: &[(String, String)]) -> Result<Vec<TimingFields>, String>
         longitude: get("longitude"),
         elevation_m: get("elevation_m"),
         longitude_sigma_deg: get("longitude_sigma_deg"),
+        observer: get("observer"),
+        clock_source: get("clock_source"),
+        instrument: get("instrument"),
+        aperture_mm: get("aperture_mm"),
+        viewing: get("viewing"),
+        notes: get("notes"),
         ..TimingFields::default()
     };
     let rows: Vec<TimingFields> = (0..4)
@@ -243,5 +267,56 @@ mod tests {
         assert_eq!(t[0].contact, "2");
         assert_eq!(t[0].day_reckoning, "astronomical");
         assert!(from_form(&[]).is_err());
+    }
+
+    #[test]
+    fn how_a_timing_was_made_is_the_submissions_unless_the_timing_says() {
+        let body = br#"{"station":"A","latitude":10,"longitude":20,"clock_source":"gps","aperture_mm":80,"viewing":"filter","instrument":"refractor","notes":"thin cloud","timings":[{"contact":2,"time_utc":"x"},{"contact":3,"time_utc":"y","clock_source":"phone","aperture_mm":"60","notes":"=1+1"}]}"#;
+        let t = from_json(body).unwrap();
+        assert_eq!(
+            (
+                t[0].clock_source.as_str(),
+                t[0].aperture_mm.as_str(),
+                t[0].viewing.as_str()
+            ),
+            ("gps", "80", "filter")
+        );
+        assert_eq!(
+            (t[0].instrument.as_str(), t[0].notes.as_str()),
+            ("refractor", "thin cloud")
+        );
+        assert_eq!(
+            (
+                t[1].clock_source.as_str(),
+                t[1].aperture_mm.as_str(),
+                t[1].notes.as_str()
+            ),
+            ("phone", "60", "=1+1")
+        );
+        assert_eq!(t[1].instrument, "refractor");
+        assert!(
+            from_json(br#"{"station":"A","clock_source":[1],"timings":[{}]}"#)
+                .unwrap_err()
+                .contains("clock_source")
+        );
+        let form: Vec<(String, String)> = [
+            ("station", "B"),
+            ("observer", "R. Vale"),
+            ("clock_source", "radio"),
+            ("aperture_mm", "102"),
+            ("viewing", "projection"),
+            ("contact0", "2"),
+            ("time_utc0", "2012-06-05T22:30:00Z"),
+            ("contact1", "3"),
+            ("time_utc1", "2012-06-06T04:30:00Z"),
+        ]
+        .iter()
+        .map(|(a, b)| (a.to_string(), b.to_string()))
+        .collect();
+        let t = from_form(&form).unwrap();
+        assert!(t.iter().all(|f| f.clock_source == "radio"
+            && f.aperture_mm == "102"
+            && f.viewing == "projection"
+            && f.observer == "R. Vale"));
     }
 }

@@ -6,6 +6,11 @@
 //! - `cached.rs`: the solution, export, report and organiser's page served from that cache.
 //! - `timing_table.rs`: the organiser's table of every timing, paged and filtered in SQL.
 //! - `store.rs`: the SQLite database (raw submissions, timings as sent, the audit trail).
+//! - `store_triage.rs`: the triage in the database (verdicts at arrival, bulk exclusion,
+//!   restoration with a reason, notes to participants).
+//! - `table_query.rs`: the organiser's table's filters, search and order, as SQL.
+//! - `triage.rs`: the organiser's triage routes (bulk exclusion, notes) and the list of
+//!   timings that need attention.
 //! - `intake.rs`: a submission's JSON body or form into timings.
 //! - `feedback.rs`: each timing against its prediction at once, and the station's share.
 //! - `pages.rs`: the pages' frame (header, caution, landmarks, language switch) and the participant's pages.
@@ -38,5 +43,8 @@ pub mod security;
 pub mod server;
 pub mod sign_in;
 pub mod store;
+pub mod store_triage;
 pub mod style;
+pub mod table_query;
 pub mod timing_table;
+pub mod triage;

@@ -76,10 +76,10 @@ fn methods(red: &Reduction, s: &mut String) {
     s.push_str(&scroll_box("The methods side by side", &t));
 }
 
-/// The form that excludes (with a reason) or restores one timing.
+/// The form that excludes or restores one timing, each with a reason.
 pub(super) fn action_form(csrf: &str, id: i64, excluded: bool) -> String {
     if excluded {
-        format!("<form method=\"post\" action=\"/organiser/restore\"><input type=\"hidden\" name=\"csrf\" value=\"{}\"/><input type=\"hidden\" name=\"timing\" value=\"{}\"/><button type=\"submit\">restore</button></form>", esc(csrf), id)
+        format!("<form method=\"post\" action=\"/organiser/restore\" class=\"inline\"><input type=\"hidden\" name=\"csrf\" value=\"{}\"/><input type=\"hidden\" name=\"timing\" value=\"{id}\"/><label class=\"vh\" for=\"restore-reason-{id}\">reason for restoring timing {id}</label><input id=\"restore-reason-{id}\" name=\"reason\" placeholder=\"reason\" size=\"14\" required/><button type=\"submit\">restore</button></form>", esc(csrf))
     } else {
         format!("<form method=\"post\" action=\"/organiser/exclude\" class=\"inline\"><input type=\"hidden\" name=\"csrf\" value=\"{}\"/><input type=\"hidden\" name=\"timing\" value=\"{id}\"/><label class=\"vh\" for=\"reason-{id}\">reason for excluding timing {id}</label><input id=\"reason-{id}\" name=\"reason\" placeholder=\"reason\" size=\"14\"/><button type=\"submit\">exclude</button></form>", esc(csrf))
     }

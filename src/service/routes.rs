@@ -58,7 +58,7 @@ async fn organiser(
     super::cached::organiser(&app, &q, &visitor.token)
 }
 
-/// Exclude (`exclude` true, with a reason) or restore a timing from the organiser's form.
+/// Exclude (`exclude` true) or restore a timing from the organiser's form, with a reason.
 async fn set_state(
     app: Shared,
     (visitor, headers): (super::forgery::Visitor, HeaderMap),
@@ -84,18 +84,25 @@ async fn set_state(
         )
             .into_response();
     };
-    let reason = get("reason").filter(|r| !r.is_empty());
-    if exclude && reason.is_none() {
+    let Some(reason) = get("reason").filter(|r| !r.is_empty()) else {
+        let what = if exclude { "excluding" } else { "restoring" };
         return (
             StatusCode::BAD_REQUEST,
             Html(message_page(
                 "Not done",
-                "give a reason for excluding the timing; it is kept in the audit trail",
+                &format!("give a reason for {what} the timing; it is kept in the audit trail"),
             )),
         )
             .into_response();
-    }
-    match app.with_store(|s| s.set_excluded(id, if exclude { reason.as_deref() } else { None })) {
+    };
+    let done = app.with_store(|s| {
+        if exclude {
+            s.set_excluded(id, Some(&reason))
+        } else {
+            s.restore_with_reason(id, &reason)
+        }
+    });
+    match done {
         Ok(true) => {
             app.mark_changed();
             Redirect::to("/organiser").into_response()
@@ -137,6 +144,7 @@ pub fn router(app: Shared, rate: Option<super::limits::RateLimit>) -> Router {
         .route("/organiser/report.html", get(report))
         .route("/organiser/exclude", post(exclude))
         .route("/organiser/restore", post(restore))
+        .merge(super::triage::routes())
         .layer(DefaultBodyLimit::max(BODY_LIMIT))
         .with_state(app.clone());
     super::security::harden(routes, app, rate)

@@ -3,7 +3,7 @@
 //! in a request.
 
 use super::cache::Cache;
-use super::feedback::{feedback, parallax_information};
+use super::feedback::{feedback, parallax_information, SubmissionFeedback};
 use super::feedback_page::{feedback_cards, feedback_page, share_of, NoShare};
 use super::forgery::{refused_form, Visitor};
 use super::intake::{from_form, from_json};
@@ -163,9 +163,15 @@ impl App {
     }
 }
 
-/// Store, read and acknowledge one submission; (status, submission id, fields, feedback,
-/// edit key, duplicate of) or the reason it is unreadable (stored all the same).
-type Accepted = (i64, Vec<TimingFields>, String, Option<i64>);
+/// Store, read and acknowledge one submission; (submission id, fields, edit key, duplicate
+/// of, feedback) or the reason it is unreadable (stored all the same).
+type Accepted = (
+    i64,
+    Vec<TimingFields>,
+    String,
+    Option<i64>,
+    SubmissionFeedback,
+);
 
 fn take_in(
     app: &App,
@@ -193,12 +199,19 @@ fn take_in(
             .with_store(|s| s.submission(first))?
             .map(|x| x.0)
             .unwrap_or_default();
-        return Ok(Ok((first, fields, key, Some(first))));
+        let fb = feedback(&app.event, &fields);
+        return Ok(Ok((first, fields, key, Some(first), fb)));
     }
     let key = random_token(24);
-    app.with_store(|s| s.accept(id, &key, &fields, supersedes))?;
+    // The feedback is kept with the timings (the organiser's table filters by its verdict)
+    // before the change is announced to the reducer.
+    let fb = feedback(&app.event, &fields);
+    app.with_store(|s| {
+        let ids = s.accept(id, &key, &fields, supersedes)?;
+        s.record_feedback(&ids, &fb)
+    })?;
     app.changed();
-    Ok(Ok((id, fields, key, None)))
+    Ok(Ok((id, fields, key, None, fb)))
 }
 
 /// `POST /api/submissions`.
@@ -206,8 +219,7 @@ pub async fn api_submit_route(State(app): State<Shared>, body: Bytes) -> Respons
     let worker = app.clone();
     let done = tokio::task::spawn_blocking(move || take_in(&worker, &body, from_json, None)).await;
     match done {
-        Ok(Ok(Ok((id, fields, key, duplicate)))) => {
-            let fb = feedback(&app.event, &fields);
+        Ok(Ok(Ok((id, fields, key, duplicate, fb)))) => {
             let status = if duplicate.is_some() {
                 StatusCode::OK
             } else {
@@ -339,8 +351,7 @@ fn feedback_reply(
     done: Result<Result<Result<Accepted, String>, String>, tokio::task::JoinError>,
 ) -> Response {
     match done {
-        Ok(Ok(Ok((id, fields, key, duplicate)))) => {
-            let fb = feedback(&app.event, &fields);
+        Ok(Ok(Ok((id, fields, key, duplicate, fb)))) => {
             let link = format!("/submission/{id}?key={key}");
             let page = feedback_page(
                 l,
@@ -417,7 +428,9 @@ pub async fn review_route(
     match app.with_store(|s| s.submission(id)) {
         Ok(Some((k, in_force, fields))) if k == key => {
             let fb = feedback(&app.event, &fields);
-            let mut body = super::feedback_page::drawings(&app.event, &fb);
+            let notes = app.with_store(|s| s.notes(id)).unwrap_or_default();
+            let mut body = super::triage::notes_html(&notes);
+            body.push_str(&super::feedback_page::drawings(&app.event, &fb));
             body.push_str(&feedback_cards(l, &fields, &fb));
             let esc = crate::render::svg::esc;
             if in_force {

@@ -55,6 +55,16 @@ pub struct TimingFields {
     pub duration: String,
     /// `geometric`, `thread` or `touch`.
     pub contact_judged: String,
+    /// `gps`, `radio`, `network`, `phone` or `other`.
+    pub clock_source: String,
+    /// The instrument (free text).
+    pub instrument: String,
+    /// The instrument's aperture, millimetres, as sent.
+    pub aperture_mm: String,
+    /// `filter` or `projection`.
+    pub viewing: String,
+    /// The participant's notes (free text).
+    pub notes: String,
     /// The contact exactly as the participant wrote it (`II`, `c2`), for the feedback to echo;
     /// neither stored nor exported (empty for a timing read back from the store).
     pub contact_as_written: String,
@@ -62,7 +72,7 @@ pub struct TimingFields {
 
 /// The columns of the observations file the store exports, in order (the timings table has
 /// one column of the same name each).
-pub const EXPORT_COLUMNS: [&str; 17] = [
+pub const EXPORT_COLUMNS: [&str; 22] = [
     "station",
     "latitude",
     "longitude",
@@ -80,10 +90,15 @@ pub const EXPORT_COLUMNS: [&str; 17] = [
     "time_meridian",
     "duration",
     "contact_judged",
+    "clock_source",
+    "instrument",
+    "aperture_mm",
+    "viewing",
+    "notes",
 ];
 
 impl TimingFields {
-    fn values(&self) -> [&str; 17] {
+    fn values(&self) -> [&str; 22] {
         [
             &self.station,
             &self.latitude,
@@ -102,6 +117,11 @@ impl TimingFields {
             &self.time_meridian,
             &self.duration,
             &self.contact_judged,
+            &self.clock_source,
+            &self.instrument,
+            &self.aperture_mm,
+            &self.viewing,
+            &self.notes,
         ]
     }
 
@@ -128,6 +148,11 @@ impl TimingFields {
             time_meridian: next(),
             duration: next(),
             contact_judged: next(),
+            clock_source: next(),
+            instrument: next(),
+            aperture_mm: next(),
+            viewing: next(),
+            notes: next(),
             contact_as_written: String::new(),
         }
     }
@@ -219,7 +244,8 @@ fn add_missing_columns(conn: &Connection) -> StoreResult<()> {
     Ok(())
 }
 
-fn now_utc() -> String {
+/// The time now, UTC, ISO 8601 to the millisecond.
+pub(super) fn now_utc() -> String {
     let since = std::time::SystemTime::now()
         .duration_since(std::time::UNIX_EPOCH)
         .unwrap_or_default();
@@ -237,6 +263,7 @@ impl Store {
             .map_err(db_err)?;
         conn.execute_batch(SCHEMA).map_err(db_err)?;
         add_missing_columns(&conn)?;
+        super::store_triage::migrate(&conn)?;
         Ok(Store { conn })
     }
 
@@ -475,7 +502,8 @@ impl Store {
 
 /// The export's columns that hold numbers: a plain number there (`-33.9`) is written as it
 /// is; any other cell beginning with a formula character is written with a leading `'`.
-const NUMERIC_COLUMNS: [&str; 6] = [
+const NUMERIC_COLUMNS: [&str; 7] = [
+    "aperture_mm",
     "latitude",
     "longitude",
     "elevation_m",

@@ -1,107 +1,73 @@
-//! The organiser's table of every timing in force, a page at a time: `GET /organiser?page=N&
-//! state=in_force|excluded|all&station=NAME`, read with SQL `LIMIT`/`OFFSET` and filters (so
-//! that a campaign of 100,000 timings is never read whole for a page), each row with its state
-//! in the latest solution and the form that excludes or restores it.
+//! The organiser's table of every timing in force, a page at a time (the filters, search and
+//! order of `table_query.rs`), read with SQL `LIMIT`/`OFFSET` (so that a campaign of 100,000
+//! timings is never read whole for a page), each row with its verdict at arrival, its state in
+//! the latest solution, a box that ticks it for a bulk exclusion and the form that excludes or
+//! restores it.
 
 use super::cache::Solved;
 use super::store::Store;
 use crate::render::svg::esc;
 use rusqlite::params_from_iter;
-use std::collections::HashMap;
 use std::fmt::Write;
 
-/// Rows on one page of the table.
-pub const PAGE_ROWS: i64 = 200;
+use super::table_query::{Sort, CLOCK_CHOICES, VERDICT_CHOICES, VIEWING_CHOICES};
+pub use super::table_query::{StateFilter, TableQuery, PAGE_ROWS};
 
-/// Which timings the table lists.
-#[derive(Clone, Copy, Debug, PartialEq, Eq)]
-pub enum StateFilter {
-    /// Every timing of the submissions in force.
-    All,
-    /// Those not excluded by the organiser.
-    InForce,
-    /// Those excluded by the organiser.
-    Excluded,
-}
-
-impl StateFilter {
-    fn name(self) -> &'static str {
-        match self {
-            StateFilter::All => "all",
-            StateFilter::InForce => "in_force",
-            StateFilter::Excluded => "excluded",
-        }
-    }
-
-    fn sql(self) -> &'static str {
-        match self {
-            StateFilter::All => "",
-            StateFilter::InForce => " AND t.excluded_reason IS NULL",
-            StateFilter::Excluded => " AND t.excluded_reason IS NOT NULL",
-        }
-    }
-}
-
-/// The page asked for: its number (from 1), the state and the station's name (a part of it,
-/// any case; empty for every station).
+/// One row of the table.
 #[derive(Clone, Debug, PartialEq)]
-pub struct TableQuery {
-    /// Page number, from 1.
-    pub page: i64,
-    /// Which timings.
-    pub state: StateFilter,
-    /// A part of the station's name.
+pub struct TableRow {
+    /// Timing id.
+    pub id: i64,
+    /// The submission it came with.
+    pub submission_id: i64,
+    /// Station, as sent.
     pub station: String,
+    /// Observer, as sent.
+    pub observer: String,
+    /// Contact, as sent.
+    pub contact: String,
+    /// The time as sent (UTC, or the local reading).
+    pub time: String,
+    /// Clock source, as sent.
+    pub clock_source: String,
+    /// The feedback's verdict at arrival, where recorded.
+    pub verdict: Option<String>,
+    /// The O - C at arrival, seconds, where recorded.
+    pub o_c_s: Option<f64>,
+    /// The organiser's reason for excluding it.
+    pub excluded: Option<String>,
 }
-
-impl TableQuery {
-    /// The page asked for in a query string; page 1 of every timing by default.
-    pub fn from_query(q: &HashMap<String, String>) -> TableQuery {
-        let state = match q.get("state").map(String::as_str) {
-            Some("in_force") => StateFilter::InForce,
-            Some("excluded") => StateFilter::Excluded,
-            _ => StateFilter::All,
-        };
-        TableQuery {
-            page: q
-                .get("page")
-                .and_then(|p| p.parse::<i64>().ok())
-                .unwrap_or(1)
-                .clamp(1, i64::MAX / PAGE_ROWS),
-            state,
-            station: q.get("station").map_or(String::new(), |s| s.trim().into()),
-        }
-    }
-
-    /// The address of page `page` with the same filters.
-    fn link(&self, page: i64) -> String {
-        let pairs = [
-            ("page", page.to_string()),
-            ("state", self.state.name().to_string()),
-            ("station", self.station.clone()),
-        ];
-        format!(
-            "/organiser?{}",
-            serde_urlencoded::to_string(pairs).unwrap_or_default()
-        )
-    }
-}
-
-/// One row of the table: timing id, station, contact, time as sent, the organiser's reason
-/// for excluding it.
-pub type TableRow = (i64, String, String, String, Option<String>);
 
 const IN_FORCE: &str = "FROM timings t JOIN submissions s ON s.id = t.submission_id WHERE s.status = 'accepted' AND s.superseded_by IS NULL";
 
-fn station_clause(q: &TableQuery) -> (&'static str, Vec<String>) {
-    if q.station.is_empty() {
-        ("", Vec::new())
-    } else {
-        (
-            " AND instr(lower(t.station), lower(?1)) > 0",
-            vec![q.station.clone()],
+/// How many timings match the query's filters.
+///
+/// Errors: the database's, as text.
+pub fn matching_count(store: &Store, q: &TableQuery) -> Result<i64, String> {
+    let (cond, p) = q.condition();
+    store
+        .connection()
+        .query_row(
+            &format!("SELECT COUNT(*) {IN_FORCE}{cond}"),
+            params_from_iter(&p),
+            |r| r.get(0),
         )
-    }
+        .map_err(|e| format!("database: {e}"))
+}
+
+/// The ids of every timing the query's filters show (every page), not yet excluded: what a
+/// bulk exclusion of "every timing the filters show" excludes.
+///
+/// Errors: the database's, as text.
+pub fn matching_ids(store: &Store, q: &TableQuery) -> Result<Vec<i64>, String> {
+    let err = |e: rusqlite::Error| format!("database: {e}");
+    let (cond, p) = q.condition();
+    let sql = format!("SELECT t.id {IN_FORCE}{cond} AND t.excluded_reason IS NULL ORDER BY t.id");
+    let mut stmt = store.connection().prepare(&sql).map_err(err)?;
+    let rows = stmt
+        .query_map(params_from_iter(&p), |r| r.get(0))
+        .map_err(err)?;
+    rows.collect::<Result<Vec<i64>, _>>().map_err(err)
 }
 
 /// One page of the table and how many timings match the filters.
@@ -109,22 +75,25 @@ fn station_clause(q: &TableQuery) -> (&'static str, Vec<String>) {
 /// Errors: the database's, as text.
 pub fn page_of(store: &Store, q: &TableQuery) -> Result<(Vec<TableRow>, i64), String> {
     let err = |e: rusqlite::Error| format!("database: {e}");
-    let (station, p) = station_clause(q);
-    let filter = format!("{IN_FORCE}{}{station}", q.state.sql());
-    let total: i64 = store
-        .connection()
-        .query_row(
-            &format!("SELECT COUNT(*) {filter}"),
-            params_from_iter(&p),
-            |r| r.get(0),
-        )
-        .map_err(err)?;
+    let total = matching_count(store, q)?;
+    let (cond, p) = q.condition();
     let offset = (q.page - 1) * PAGE_ROWS;
-    let sql = format!("SELECT t.id, t.station, t.contact, CASE WHEN t.time_utc = '' THEN t.time_local ELSE t.time_utc END, t.excluded_reason {filter} ORDER BY t.id LIMIT {PAGE_ROWS} OFFSET {offset}");
+    let sql = format!("SELECT t.id, t.submission_id, t.station, t.observer, t.contact, CASE WHEN t.time_utc = '' THEN t.time_local ELSE t.time_utc END, t.clock_source, t.verdict, t.o_c_s, t.excluded_reason {IN_FORCE}{cond} ORDER BY {} LIMIT {PAGE_ROWS} OFFSET {offset}", q.order_sql());
     let mut stmt = store.connection().prepare(&sql).map_err(err)?;
     let rows = stmt
         .query_map(params_from_iter(&p), |r| {
-            Ok((r.get(0)?, r.get(1)?, r.get(2)?, r.get(3)?, r.get(4)?))
+            Ok(TableRow {
+                id: r.get(0)?,
+                submission_id: r.get(1)?,
+                station: r.get(2)?,
+                observer: r.get(3)?,
+                contact: r.get(4)?,
+                time: r.get(5)?,
+                clock_source: r.get(6)?,
+                verdict: r.get(7)?,
+                o_c_s: r.get(8)?,
+                excluded: r.get(9)?,
+            })
         })
         .map_err(err)?;
     Ok((rows.collect::<Result<Vec<_>, _>>().map_err(err)?, total))
@@ -144,13 +113,37 @@ pub fn timing_counts(store: &Store) -> Result<(i64, i64), String> {
         .map_err(|e| format!("database: {e}"))
 }
 
-/// The filter form: state and station.
+/// A choice list of the filter form.
+fn choice_list(id: &str, label: &str, choices: &[(&str, &str)], value: &str) -> String {
+    let mut s = format!("<div class=\"field\"><label for=\"filter-{id}\">{label}</label><select id=\"filter-{id}\" name=\"{id}\">");
+    for (word, text) in choices {
+        let selected = if *word == value { " selected" } else { "" };
+        let _ = write!(
+            s,
+            "<option value=\"{word}\"{selected}>{}</option>",
+            esc(text)
+        );
+    }
+    s.push_str("</select></div>");
+    s
+}
+
+/// The filter form: state, search, clock source, viewing, verdict at arrival, order.
 fn filters(q: &TableQuery, s: &mut String) {
-    let option = |f: StateFilter, label: &str| {
-        let selected = if q.state == f { " selected" } else { "" };
-        format!("<option value=\"{}\"{selected}>{label}</option>", f.name())
-    };
-    let _ = writeln!(s, "<form method=\"get\" action=\"/organiser\" id=\"filters\"><div class=\"row\"><div class=\"field\"><label for=\"filter-state\">Timings</label><select id=\"filter-state\" name=\"state\">{}{}{}</select></div><div class=\"field\"><label for=\"filter-station\">Station <span class=\"hint\">a part of its name</span></label><input id=\"filter-station\" name=\"station\" value=\"{}\" size=\"16\"/></div></div><p class=\"actions\"><button type=\"submit\">show</button></p></form>", option(StateFilter::All, "all"), option(StateFilter::InForce, "in force"), option(StateFilter::Excluded, "excluded by you"), esc(&q.station));
+    let states = [
+        ("all", "all"),
+        ("in_force", "in force"),
+        ("excluded", "excluded by you"),
+    ];
+    let sorts: Vec<(&str, &str)> = Sort::ALL.iter().map(|(_, w, l)| (*w, *l)).collect();
+    let _ = writeln!(s, "<form method=\"get\" action=\"/organiser\" id=\"filters\"><div class=\"row\">{}<div class=\"field\"><label for=\"filter-q\">Search <span class=\"hint\">a part of a station's or an observer's name</span></label><input id=\"filter-q\" name=\"q\" value=\"{}\" size=\"16\"/></div></div><div class=\"row\">{}{}{}{}</div><p class=\"actions\"><button type=\"submit\" id=\"show\">show</button></p></form>",
+        choice_list("state", "Timings", &states, q.state.name()),
+        esc(&q.search),
+        choice_list("clock", "Clock", &CLOCK_CHOICES, &q.clock),
+        choice_list("viewing", "Viewing", &VIEWING_CHOICES, &q.viewing),
+        choice_list("verdict", "Verdict at arrival", &VERDICT_CHOICES, &q.verdict),
+        choice_list("sort", "Order", &sorts, q.sort.name()),
+    );
 }
 
 /// The page's links: first, previous, next, last.
@@ -178,15 +171,24 @@ fn page_links(q: &TableQuery, total: i64, s: &mut String) {
     );
 }
 
-/// The table's section: the filters, "timings 201-400 of 100,000", the rows with their
-/// states and forms, the page links.
+/// The verdict at arrival and its O - C, as the table shows it.
+fn arrival(row: &TableRow) -> String {
+    match (&row.verdict, row.o_c_s) {
+        (Some(v), Some(x)) => format!("{v}, {x:+.1} s"),
+        (Some(v), None) => v.clone(),
+        (None, _) => "not recorded".into(),
+    }
+}
+
+/// The table's section: the filters, "timings 201-400 of 100,000", the bulk exclusion, the
+/// rows (each with a box to tick for it, its state and its form), the page links.
 pub fn table_html(
     q: &TableQuery,
     (rows, total): (&[TableRow], i64),
     solved: &Solved,
     csrf: &str,
 ) -> String {
-    let mut s = String::from("<h2>Every timing</h2>\n");
+    let mut s = String::from("<h2 id=\"every-timing\">Every timing</h2>\n");
     filters(q, &mut s);
     let first = (q.page - 1) * PAGE_ROWS + 1;
     let shown = if rows.is_empty() {
@@ -201,9 +203,11 @@ pub fn table_html(
         )
     };
     let _ = writeln!(s, "<p id=\"shown\">{shown}</p>");
-    let mut t = String::from("<table id=\"rows\"><tr><th scope=\"col\">id</th><th scope=\"col\">station</th><th scope=\"col\">contact</th><th scope=\"col\">time</th><th scope=\"col\">state</th><th scope=\"col\">why</th><th scope=\"col\">action</th></tr>\n");
-    for (id, station, contact, time, excluded) in rows {
-        let (state, why) = match (excluded, solved.states.get(id)) {
+    s.push_str(&super::triage::bulk_form(q, total, csrf));
+    let mut t = String::from("<table id=\"rows\"><tr><th scope=\"col\">tick</th><th scope=\"col\">id</th><th scope=\"col\">submission</th><th scope=\"col\">station</th><th scope=\"col\">observer</th><th scope=\"col\">contact</th><th scope=\"col\">time</th><th scope=\"col\">clock</th><th scope=\"col\">at arrival</th><th scope=\"col\">state</th><th scope=\"col\">why</th><th scope=\"col\">action</th></tr>\n");
+    for row in rows {
+        let id = row.id;
+        let (state, why) = match (&row.excluded, solved.states.get(&id)) {
             (Some(r), _) => ("excluded".to_string(), format!("by the organiser: {r}")),
             (None, Some((state, why))) if state != "excluded" => (state.clone(), why.clone()),
             (None, _) => (
@@ -211,8 +215,9 @@ pub fn table_html(
                 "arrived after the solution was computed".to_string(),
             ),
         };
-        let action = super::organiser::action_form(csrf, *id, excluded.is_some());
-        let _ = writeln!(t, "<tr><td>{id}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{action}</td></tr>", esc(station), esc(contact), esc(time), esc(&state), esc(&why));
+        let tick = format!("<input type=\"checkbox\" form=\"bulk\" name=\"timing\" value=\"{id}\" id=\"tick-{id}\"/><label class=\"vh\" for=\"tick-{id}\">tick timing {id}</label>");
+        let action = super::organiser::action_form(csrf, id, row.excluded.is_some());
+        let _ = writeln!(t, "<tr><td>{tick}</td><td>{id}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{action}</td></tr>", row.submission_id, esc(&row.station), esc(&row.observer), esc(&row.contact), esc(&row.time), esc(&row.clock_source), esc(&arrival(row)), esc(&state), esc(&why));
     }
     t.push_str("</table>\n");
     s.push_str(&super::pages::scroll_box("Every timing", &t));
@@ -248,22 +253,5 @@ mod tests {
         assert_eq!(count(1000), "1,000");
         assert_eq!(count(100_000), "100,000");
         assert_eq!(count(1_234_567), "1,234,567");
-    }
-
-    #[test]
-    fn the_query_is_read_with_defaults() {
-        let q: HashMap<String, String> =
-            [("page", "3"), ("state", "excluded"), ("station", " Lima ")]
-                .into_iter()
-                .map(|(k, v)| (k.to_string(), v.to_string()))
-                .collect();
-        let t = TableQuery::from_query(&q);
-        assert_eq!(
-            (t.page, t.state, t.station.as_str()),
-            (3, StateFilter::Excluded, "Lima")
-        );
-        let d = TableQuery::from_query(&HashMap::new());
-        assert_eq!((d.page, d.state), (1, StateFilter::All));
-        assert!(d.link(2).contains("page=2"));
     }
 }
