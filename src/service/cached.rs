@@ -27,7 +27,7 @@ fn not_modified(headers: &HeaderMap, etag: &str) -> bool {
 }
 
 /// A cached body with its version headers, or `304` when the client holds that version.
-fn versioned(
+pub(super) fn versioned(
     headers: &HeaderMap,
     (etag, version, pending): (String, u64, u64),
     content_type: &'static str,
@@ -157,6 +157,7 @@ pub fn organiser(app: &App, q: &HashMap<String, String>, csrf: &str) -> Response
     };
     let solved = app.cache.solved();
     let table = table_html(&query, (&rows, total), &solved, csrf);
+    let network = super::network_plan::organiser_section(app);
     let view = OrganiserView {
         solution: solved.reduction.as_deref(),
         error: solved.error.as_deref(),
@@ -164,6 +165,7 @@ pub fn organiser(app: &App, q: &HashMap<String, String>, csrf: &str) -> Response
         timing_counts: timings,
         table_html: &table,
         charts_html: &solved.charts_html,
+        network_html: &network,
         counts,
         unreadable: &unreadable,
         audit: &audit,

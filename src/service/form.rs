@@ -14,7 +14,7 @@ use crate::render::svg::esc;
 use std::fmt::Write;
 
 /// A text field with its label (and a hint inside the label, read with it).
-fn text_field(name: &str, label: &str, hint: &str, value: &str, attrs: &str) -> String {
+pub(super) fn text_field(name: &str, label: &str, hint: &str, value: &str, attrs: &str) -> String {
     let hint = if hint.is_empty() {
         String::new()
     } else {

@@ -219,7 +219,8 @@ fn add_missing_columns(conn: &Connection) -> StoreResult<()> {
     Ok(())
 }
 
-fn now_utc() -> String {
+/// The time now, ISO 8601 UTC to the millisecond.
+pub(super) fn now_utc() -> String {
     let since = std::time::SystemTime::now()
         .duration_since(std::time::UNIX_EPOCH)
         .unwrap_or_default();
@@ -237,6 +238,7 @@ impl Store {
             .map_err(db_err)?;
         conn.execute_batch(SCHEMA).map_err(db_err)?;
         add_missing_columns(&conn)?;
+        super::store_registrations::create_table(&conn)?;
         Ok(Store { conn })
     }
 
