@@ -117,7 +117,15 @@ pub fn public_section(solved: &Solved, timings: &[StoredTiming]) -> String {
         .map(|t| super::store_registrations::name_key(&t.fields.station))
         .collect();
     let red = solved.reduction.as_deref();
-    let mut s = headline(red, solved.error.as_deref());
+    let why = if reduced.is_empty() {
+        Some("no timings have arrived yet")
+    } else {
+        solved
+            .error
+            .as_deref()
+            .map(|e| e.strip_prefix("<campaign>: ").unwrap_or(e))
+    };
+    let mut s = headline(red, why);
     let _ = writeln!(
         s,
         "<p id=\"counts\">Stations: <b id=\"n-stations\">{}</b>; timings in force: <b id=\"n-timings\">{}</b>; submissions: <b id=\"n-submissions\">{}</b>.</p>",
@@ -153,6 +161,12 @@ pub fn results(app: &App, headers: &HeaderMap) -> Response {
         "<p id=\"as-of\">{}</p>\n",
         as_of_sentence(&solved.solved_utc, solved.version, pending)
     );
+    if solved.version == 0 {
+        body.push_str(&headline(
+            None,
+            Some("the first solution is being computed"),
+        ));
+    }
     body.push_str(&solved.public_html);
     if let Some(chart) = rendered.convergence_html.as_deref() {
         let note = if rendered.version == solved.version {
