@@ -290,7 +290,7 @@ pub async fn participant_route(
     State(app): State<Shared>,
     Extension(visitor): Extension<Visitor>,
 ) -> Html<String> {
-    let intro = format!("<p>Send the contact times you observed of the transit of {} of {}. You will see at once how each compares with its prediction at your station.</p>\n", app.event.planet, app.event.date());
+    let intro = format!("<p>Send the contact times you observed of the transit of {} of {}. You will see at once how each compares with its prediction at your station.</p>\n<p>Before the event, <a href=\"/register\">register your station</a> for its observers' sheet and calendar; <a href=\"/results\">the results so far</a> are public.</p>\n", app.event.planet, app.event.date());
     let forms = timing_form("/submit", &visitor.token, None, &[])
         + &super::pages::upload_form(&visitor.token)
         + &super::limits::limits_sentence();
