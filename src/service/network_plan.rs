@@ -61,7 +61,10 @@ pub fn network_map_svg(plan: &NetworkPlan) -> String {
     // Silent stations first, so that a reported one at the same place is drawn over them.
     let mut order: Vec<&NetworkStation> = plan.stations.iter().collect();
     order.sort_by_key(|st| st.reported);
-    for st in order {
+    let placed = order
+        .into_iter()
+        .filter(|st| st.latitude_deg.is_finite() && st.longitude_deg.is_finite());
+    for st in placed {
         let _ = writeln!(
             s,
             "{}",

@@ -210,17 +210,13 @@ fn no_store(res: &mut Response) {
         .insert(header::CACHE_CONTROL, HeaderValue::from_static("no-store"));
 }
 
-/// The registration a key opens, or the `404` page.
-fn find(app: &App, key: &str) -> Result<Registration, Response> {
+/// The registration a key opens, or the status and sentence of the refusal (`404`).
+fn find(app: &App, key: &str) -> Result<Registration, (StatusCode, String)> {
     let not_found = || {
         (
             StatusCode::NOT_FOUND,
-            Html(message_page(
-                "Not found",
-                "no registration answers to this link",
-            )),
+            "no registration answers to this link".to_string(),
         )
-            .into_response()
     };
     if !looks_like_key(key) {
         return Err(not_found());
@@ -228,19 +224,25 @@ fn find(app: &App, key: &str) -> Result<Registration, Response> {
     match app.with_store(|s| s.registration_by_key(key)) {
         Ok(Some(r)) => Ok(r),
         Ok(None) => Err(not_found()),
-        Err(e) => Err((
-            StatusCode::INTERNAL_SERVER_ERROR,
-            Html(message_page("Error", &e)),
-        )
-            .into_response()),
+        Err(e) => Err((StatusCode::INTERNAL_SERVER_ERROR, e)),
     }
+}
+
+/// The page of a refusal of [`find`].
+fn refused((status, why): (StatusCode, String)) -> Response {
+    let title = if status == StatusCode::NOT_FOUND {
+        "Not found"
+    } else {
+        "Error"
+    };
+    (status, Html(message_page(title, &why))).into_response()
 }
 
 /// `GET /registrations/{key}`.
 pub async fn private_route(State(app): State<Shared>, Path(key): Path<String>) -> Response {
     match find(&app, &key) {
         Ok(r) => private_response(&app, &key, &r, StatusCode::OK),
-        Err(res) => res,
+        Err(why) => refused(why),
     }
 }
 
@@ -248,7 +250,7 @@ pub async fn private_route(State(app): State<Shared>, Path(key): Path<String>) -
 pub async fn sheet_route(State(app): State<Shared>, Path(key): Path<String>) -> Response {
     let r = match find(&app, &key) {
         Ok(r) => r,
-        Err(res) => return res,
+        Err(why) => return refused(why),
     };
     let mut res = match sheet_html(app.event(), &r) {
         Ok(html) => Html(html).into_response(),
@@ -266,7 +268,7 @@ pub async fn sheet_route(State(app): State<Shared>, Path(key): Path<String>) -> 
 pub async fn calendar_route(State(app): State<Shared>, Path(key): Path<String>) -> Response {
     let r = match find(&app, &key) {
         Ok(r) => r,
-        Err(res) => return res,
+        Err(why) => return refused(why),
     };
     let ics = match calendar_ics(app.event(), &r) {
         Ok(text) => text,

@@ -165,25 +165,21 @@ impl Store {
 
     /// The network planned against reported: each registered station, linked by name to the
     /// timings in force, and each station that reported without registering (one whose
-    /// coordinates cannot be read is listed at 0, 0 with `reported` and drawn nowhere: see
-    /// [`NetworkStation`]).
+    /// coordinates cannot be read has them not-a-number: counted, drawn on no map).
     pub fn network_plan(&self) -> StoreResult<NetworkPlan> {
         let mut by_name: BTreeMap<String, NetworkStation> = BTreeMap::new();
         let mut order: Vec<String> = Vec::new();
         for r in self.registrations()? {
             let key = name_key(&r.station);
-            if !by_name.contains_key(&key) {
-                order.push(key.clone());
-                by_name.insert(
-                    key,
-                    NetworkStation {
-                        station: r.station,
-                        latitude_deg: r.latitude_deg,
-                        longitude_deg: r.longitude_deg,
-                        registered: true,
-                        reported: false,
-                    },
-                );
+            if let std::collections::btree_map::Entry::Vacant(slot) = by_name.entry(key.clone()) {
+                order.push(key);
+                slot.insert(NetworkStation {
+                    station: r.station,
+                    latitude_deg: r.latitude_deg,
+                    longitude_deg: r.longitude_deg,
+                    registered: true,
+                    reported: false,
+                });
             }
         }
         for (name, lat, lon) in self.reported_stations()? {
@@ -192,9 +188,9 @@ impl Store {
                 s.reported = true;
                 continue;
             }
-            let (Ok(lat), Ok(lon)) = (lat.trim().parse::<f64>(), lon.trim().parse::<f64>()) else {
-                continue;
-            };
+            // Coordinates that cannot be read: counted, drawn nowhere.
+            let read = |t: &str| t.trim().parse::<f64>().unwrap_or(f64::NAN);
+            let (lat, lon) = (read(&lat), read(&lon));
             order.push(key.clone());
             by_name.insert(
                 key,
