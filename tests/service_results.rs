@@ -79,6 +79,12 @@ fn thin_data_is_not_determined_and_says_why() {
     let parallax = text_of(&page.body, "parallax");
     assert!(parallax.contains("not determined"), "{parallax}");
     assert!(!parallax.contains('"'), "no figure: {parallax}");
+    assert!(parallax.contains("at least two stations"), "{parallax}");
+    // No share of the information on a parallax that is not determined; the place on a map.
+    assert!(page.body.contains(
+        "<td>Lone Pine</td><td>35.7</td><td>139.7</td><td>2</td><td>not determined</td>"
+    ));
+    assert!(page.body.contains("World map of the stations") && !page.body.contains("share 0"));
     assert_eq!(text_of(&page.body, "n-stations"), "1");
     assert_eq!(text_of(&page.body, "n-timings"), "2");
     assert_nothing_private(&page.body, &[key]);

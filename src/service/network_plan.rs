@@ -45,21 +45,18 @@ fn mark(s: &NetworkStation, (x, y): (f64, f64)) -> String {
     }
 }
 
-/// The map of the network planned against reported, with its key.
-pub fn network_map_svg(plan: &NetworkPlan) -> String {
+/// The world frame (720 x 360 px, land, graticule) with a mark for each station that has a
+/// place, silent ones first so that a reported one at the same place is drawn over them; the
+/// SVG is left open below the frame (`extra_h` px) for a key.
+fn frame_with_marks(stations: &[NetworkStation], label: &str, extra_h: f64) -> String {
     let (w, h) = (720.0, 360.0);
-    let mut s = svg_open(
-        w,
-        h + 50.0,
-        "World map of the stations registered and reported",
-    );
+    let mut s = svg_open(w, h + extra_h, label);
     let _ = writeln!(s, "<rect width=\"{w}\" height=\"{h}\" fill=\"#dbeafe\"/>");
     s.push_str(&land_svg("#e7e2d3", "#9c9581", 0.4));
     s.push_str(&graticule_lines("#94a3b8"));
     s.push_str(&graticule_labels(h));
     let _ = writeln!(s, "<defs><clipPath id=\"plan-frame\"><rect width=\"{w}\" height=\"{h}\"/></clipPath></defs>\n<g clip-path=\"url(#plan-frame)\">");
-    // Silent stations first, so that a reported one at the same place is drawn over them.
-    let mut order: Vec<&NetworkStation> = plan.stations.iter().collect();
+    let mut order: Vec<&NetworkStation> = stations.iter().collect();
     order.sort_by_key(|st| st.reported);
     let placed = order
         .into_iter()
@@ -72,6 +69,25 @@ pub fn network_map_svg(plan: &NetworkPlan) -> String {
         );
     }
     s.push_str("</g>\n");
+    s
+}
+
+/// A plain map of stations (each a filled circle, named in its tooltip), for the public page
+/// while the solution's own map has no figures to draw.
+pub fn places_map_svg(stations: &[NetworkStation]) -> String {
+    let mut s = frame_with_marks(stations, "World map of the stations", 20.0);
+    s.push_str("<text x=\"12\" y=\"376\" font-size=\"9\">Land: Natural Earth 1:110m (public domain).</text>\n</svg>\n");
+    s
+}
+
+/// The map of the network planned against reported, with its key.
+pub fn network_map_svg(plan: &NetworkPlan) -> String {
+    let h = 360.0;
+    let mut s = frame_with_marks(
+        &plan.stations,
+        "World map of the stations registered and reported",
+        50.0,
+    );
     let y = h + 20.0;
     let key_stations = [(true, true), (false, true), (true, false)];
     let keys = [REPORTED_REGISTERED, REPORTED_ONLY, REGISTERED_ONLY];

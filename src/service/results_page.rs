@@ -12,10 +12,11 @@
 //! header, no script).
 
 use super::cache::Solved;
-use super::network_plan::as_of_sentence;
+use super::network_plan::{as_of_sentence, places_map_svg};
 use super::pages::{page, scroll_box};
 use super::server::App;
 use super::store::StoredTiming;
+use super::store_registrations::NetworkStation;
 use crate::reduction::Reduction;
 use crate::render::charts::{convergence_svg, station_map_svg};
 use crate::render::svg::esc;
@@ -66,9 +67,15 @@ fn headline(red: Option<&Reduction>, error: Option<&str>) -> String {
                 .warnings
                 .last()
                 .map_or("the timings in force do not determine it", String::as_str);
+            let stations = red.stations.iter().filter(|s| s.timings > 0).count();
+            let need = match stations {
+                0 => " Timings from at least two stations far apart are needed; no station has sent usable ones yet.",
+                1 => " Timings from at least two stations far apart are needed; one station has sent usable ones so far.",
+                _ => "",
+            };
             format!(
-                "<p id=\"parallax\">The solar parallax is not determined yet, and so neither is the astronomical unit: {}</p>\n",
-                esc(why)
+                "<p id=\"parallax\">The solar parallax is not determined yet, and so neither is the astronomical unit: {}.{need}</p>\n",
+                esc(why.trim_end_matches('.'))
             )
         }
     }
@@ -87,10 +94,28 @@ fn public_stations(red: &Reduction) -> Reduction {
     public
 }
 
-fn stations_table(red: &Reduction) -> String {
+/// The stations as plain places (for the map drawn while the parallax is not determined).
+fn places(red: &Reduction) -> Vec<NetworkStation> {
+    red.stations
+        .iter()
+        .map(|s| NetworkStation {
+            station: s.station.clone(),
+            latitude_deg: s.latitude_deg,
+            longitude_deg: s.longitude_deg,
+            registered: true,
+            reported: true,
+        })
+        .collect()
+}
+
+/// The stations' table; the shares of the information only where the parallax is
+/// `determined` (else there is no information on it to share).
+fn stations_table(red: &Reduction, determined: bool) -> String {
     let mut t = String::from("<table id=\"stations\"><tr><th scope=\"col\">station</th><th scope=\"col\">latitude (0.1°)</th><th scope=\"col\">longitude (0.1°)</th><th scope=\"col\">timings used</th><th scope=\"col\">share of the information</th></tr>\n");
     for s in &red.stations {
-        let share = if s.timings > 0 && s.information_share.is_finite() {
+        let share = if !determined {
+            "not determined".to_string()
+        } else if s.timings > 0 && s.information_share.is_finite() {
             format!("{:.1} %", 100.0 * s.information_share)
         } else {
             "none".to_string()
@@ -135,12 +160,17 @@ pub fn public_section(solved: &Solved, timings: &[StoredTiming]) -> String {
     );
     if let Some(red) = red.filter(|r| !r.stations.is_empty()) {
         let public = public_stations(red);
+        let determined = red.headline().is_some();
+        let map = if determined {
+            station_map_svg(&public)
+        } else {
+            places_map_svg(&places(&public))
+        };
         let _ = writeln!(
             s,
-            "<h2>The stations</h2>\n<figure id=\"map\">{}<figcaption>The stations, each at its place rounded to 0.1 degree.</figcaption></figure>",
-            station_map_svg(&public)
+            "<h2>The stations</h2>\n<figure id=\"map\">{map}<figcaption>The stations, each at its place rounded to 0.1 degree.</figcaption></figure>"
         );
-        s.push_str(&stations_table(&public));
+        s.push_str(&stations_table(&public, determined));
     }
     s
 }
