@@ -17,6 +17,7 @@ back-to-form = Zurück zum Formular
 
 form-title = Senden Sie Ihre Zeiten
 form-intro = Senden Sie die Kontaktzeiten, die Sie beim Transit von { $planet } am { $date } beobachtet haben. Sie sehen sofort, wie jede mit ihrer Vorhersage für Ihre Station übereinstimmt.
+form-before-and-after = Melden Sie vor dem Ereignis <a href="/register">Ihre Station an</a>, um ihr Beobachtungsblatt und ihren Kalender zu erhalten; <a href="/results">die bisherigen Ergebnisse</a> sind öffentlich.
 station-heading = Ihre Station
 station-name = Name der Station
 station-name-hint = so, wie er angezeigt werden soll

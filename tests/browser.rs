@@ -294,6 +294,7 @@ fn the_organiser_pages_charts_are_laid_out_cleanly_in_a_browser() {
         unreadable: &[],
         audit: &[],
         csrf: "test",
+        network_html: "",
     };
     let html = transit_parallax::service::organiser::organiser_page(&view);
     assert_eq!(

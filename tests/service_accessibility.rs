@@ -2,8 +2,9 @@
 //! service is started and fed timings of the transit of Venus of 2012, then Debian's chromium
 //! (through chromium-driver) visits the participant's form, the feedback after a real form
 //! post, the review page of the private link, a message page, the `413` page, the organiser's
-//! sign-in page, the organiser's page, the report and an observer's sheet of `predict
-//! --sheets` (as a file). On a desktop window axe-core (from the npm registry; `.ci/run`
+//! sign-in page, the organiser's page, the report, an observer's sheet of `predict
+//! --sheets` (as a file), the public results page, the registration form, a registered
+//! station's private page and its sheet as the service serves it. On a desktop window axe-core (from the npm registry; `.ci/run`
 //! installs it) audits each page and the test fails on any violation, listing each with its
 //! rule, impact and elements; on a phone 360 px wide each page must fit without scrolling
 //! sideways (a wide table scrolls inside its own box, never the page).
@@ -24,9 +25,8 @@ use std::sync::Mutex;
 use std::time::Duration;
 use webdriver::{axe_violations, session, sideways_overflow, start_driver, which, Screen};
 
-/// Public pages (no sign-in) beyond the participant's, to be checked like the others: add
-/// `/results` here once the service has a public results page.
-const PUBLIC_PAGES: &[&str] = &[];
+/// Public pages (no sign-in) beyond the participant's, to be checked like the others.
+const PUBLIC_PAGES: &[&str] = &["/results", "/register"];
 
 /// The phone's width, CSS pixels.
 const PHONE_WIDTH_PX: u32 = 360;
@@ -81,6 +81,20 @@ fn sheet(dir: &Path) -> PathBuf {
     );
     assert!(o.status.success(), "{}", common::err(&o));
     out.join("Jade_Terrace_School.html")
+}
+
+/// A station registered through the API (after the seed, so that the organiser's map shows
+/// it silent); its private page and its sheet.
+fn register(server: &Server) -> (String, String) {
+    let body = serde_json::json!({ "station": "Quiet Ridge Observatory", "latitude": -41.29,
+        "longitude": 174.78, "elevation_m": 120, "time_zone": "Pacific/Auckland" });
+    let r = post_json(server.port, "/api/registrations", &body.to_string());
+    assert_eq!(r.status, 201, "{}", r.body);
+    let v = r.json();
+    (
+        v["registration_url"].as_str().unwrap().to_string(),
+        v["sheet_url"].as_str().unwrap().to_string(),
+    )
 }
 
 /// What each page is checked for.
@@ -234,6 +248,11 @@ async fn every_page(
         goto(c, &format!("{base}{path}")).await;
         check(c, path, &how, &mut problems).await;
     }
+    let (private, sheet_url) = register(server);
+    goto(c, &format!("{base}{private}")).await;
+    check(c, "registered station's page", &how, &mut problems).await;
+    goto(c, &format!("{base}{sheet_url}")).await;
+    check(c, "registered station's sheet", &how, &mut problems).await;
     goto(c, &format!("{base}/organiser?token={TOKEN}")).await;
     exclude_first(c).await;
     settled_report(server);

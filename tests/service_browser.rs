@@ -267,3 +267,109 @@ fn a_participant_and_the_organiser_in_a_real_browser() {
         c.close().await.ok();
     });
 }
+
+/// Register a station through the form in Chromium; the private page's links; the sheet
+/// opened from it, styled under the content-security policy, with the station's clock times.
+async fn register_in_browser(c: &Client, base: &str) {
+    c.goto(&format!("{base}/register")).await.expect("the form");
+    assert_styled(c, "the registration form").await;
+    fill(c, "station", "Kauri Point School").await;
+    fill(c, "latitude", "-36.85").await;
+    fill(c, "longitude", "174.76").await;
+    fill(c, "elevation_m", "20").await;
+    fill(c, "time_zone", "Pacific/Auckland").await;
+    c.find(Locator::Id("register"))
+        .await
+        .expect("the button")
+        .click()
+        .await
+        .expect("sent");
+    let sheet = c
+        .wait()
+        .at_most(Duration::from_secs(20))
+        .for_element(Locator::Id("sheet"))
+        .await
+        .unwrap_or_else(|e| panic!("no registered page: {e}"));
+    screenshot(c, "service-registered.png").await;
+    let contacts = c
+        .find(Locator::Id("contacts"))
+        .await
+        .expect("the contacts")
+        .text()
+        .await
+        .unwrap();
+    assert!(contacts.contains("NZST"), "{contacts}");
+    sheet.click().await.expect("the sheet");
+    let caution = c
+        .wait()
+        .at_most(Duration::from_secs(20))
+        .for_element(Locator::Css(".caution"))
+        .await
+        .expect("the sheet's caution");
+    screenshot(c, "service-registered-sheet.png").await;
+    assert!(caution
+        .text()
+        .await
+        .unwrap()
+        .contains("certified solar filter"));
+    let background = c
+        .execute(
+            "return getComputedStyle(document.querySelector('.caution')).backgroundColor;",
+            vec![],
+        )
+        .await
+        .expect("a computed style");
+    // The sheet's own style (#ffe9a8) applies: its hash is in the policy.
+    assert_eq!(background, serde_json::json!("rgb(255, 233, 168)"));
+    let url = c.current_url().await.expect("an address");
+    assert!(url.path().ends_with("/sheet.html"), "{url}");
+    let source = c.source().await.expect("the sheet's source");
+    assert!(source.contains("Kauri Point School") && source.contains("NZST"));
+}
+
+#[test]
+fn registering_a_station_and_reading_the_results_in_a_real_browser() {
+    let (Some(chromium), Some(driver_path)) = (which("chromium"), which("chromedriver")) else {
+        eprintln!("SKIPPED: chromium and chromedriver are not installed (CI installs Debian's chromium and chromium-driver and runs this test)");
+        return;
+    };
+    let dir = std::env::temp_dir().join(format!("tp-service-register-{}", std::process::id()));
+    let _ = std::fs::remove_dir_all(&dir);
+    std::fs::create_dir_all(&dir).unwrap();
+    let server = start(&dir.join("campaign.sqlite"), &["--token", "organiser8"]);
+    seed_five_stations(&server, false);
+    let solution = settled_solution(&server);
+    let driver = start_driver(&driver_path);
+    let base = format!("http://127.0.0.1:{}", server.port);
+    let runtime = tokio::runtime::Builder::new_current_thread()
+        .enable_all()
+        .build()
+        .unwrap();
+    runtime.block_on(async {
+        let c = session(&driver, &chromium, &dir.join("profile"), Screen::Desktop).await;
+        register_in_browser(&c, &base).await;
+        c.goto(&format!("{base}/results"))
+            .await
+            .expect("the results");
+        assert_styled(&c, "the results page").await;
+        screenshot(&c, "service-results.png").await;
+        let parallax = c
+            .find(Locator::Id("parallax"))
+            .await
+            .expect("the solution")
+            .text()
+            .await
+            .unwrap();
+        let want = format!("{:.4}", solution["parallax_arcsec"].as_f64().unwrap());
+        assert!(parallax.contains(&want), "{parallax} against {want}");
+        let stations = c
+            .find(Locator::Id("n-stations"))
+            .await
+            .expect("the counts")
+            .text()
+            .await
+            .unwrap();
+        assert_eq!(stations, "5");
+        c.close().await.ok();
+    });
+}

@@ -32,7 +32,9 @@ pub struct SheetStation<'a> {
 /// was 0.054 s (README, "How accurate"), stated as 0.1 s.
 pub const GEOMETRY_SIGMA_S: f64 = 0.1;
 
-const STYLE: &str = "@page { size: auto; margin: 12mm; }
+/// The sheet's style sheet, the text of its `<style>` element between two line ends (the
+/// service allows it by its hash in the content-security policy).
+pub const STYLE: &str = "@page { size: auto; margin: 12mm; }
 * { box-sizing: border-box; }
 body { font: 9.5pt/1.28 'DejaVu Sans', Arial, sans-serif; color: #000; background: #fff; max-width: 186mm; margin: 8px auto; }
 h1 { font-size: 14pt; margin: 5px 0 2px; }

@@ -52,6 +52,10 @@ pub struct Solved {
     pub charts_html: String,
     /// The timings that need the organiser's attention (`triage.rs`).
     pub attention: super::triage::Attention,
+    /// When this version was reduced, ISO 8601 UTC (empty: none yet).
+    pub solved_utc: String,
+    /// The public results page's section of this version (`results_page.rs`).
+    pub public_html: String,
     observations: Option<ObservationSet>,
 }
 
@@ -62,6 +66,8 @@ pub struct Rendered {
     pub version: u64,
     /// The page, or `None` when there is no solution to report.
     pub html: Option<Bytes>,
+    /// The convergence chart for the public results page (`None`: nothing to draw).
+    pub convergence_html: Option<String>,
 }
 
 /// The cache of the newest artefacts, and the workers' own database connections.
@@ -217,13 +223,16 @@ fn options(event: &crate::TransitEvent, follow_convergence: bool) -> ReduceOptio
 /// The report of a solved version: its observations reduced again with the convergence chart
 /// (as `reduce --report` does), then the page.
 fn render_once(event: &crate::TransitEvent, solved: &Solved) -> Rendered {
-    let html = solved.observations.clone().and_then(|set| {
-        let red = reduce_for_event(set, event.clone(), &options(event, true)).ok()?;
-        Some(Bytes::from(crate::render::document::html_report(&red)))
-    });
+    let red = solved
+        .observations
+        .clone()
+        .and_then(|set| reduce_for_event(set, event.clone(), &options(event, true)).ok());
     Rendered {
         version: solved.version,
-        html,
+        html: red
+            .as_ref()
+            .map(|r| Bytes::from(crate::render::document::html_report(r))),
+        convergence_html: red.as_ref().and_then(super::results_page::convergence_html),
     }
 }
 
@@ -232,6 +241,7 @@ fn render_once(event: &crate::TransitEvent, solved: &Solved) -> Rendered {
 fn solve_once(app: &App, generation: u64) -> Solved {
     let mut solved = Solved {
         version: generation,
+        solved_utc: super::store::now_utc(),
         ..Solved::default()
     };
     let read = with_reader(&app.cache.reader, app, |s| {
@@ -269,6 +279,7 @@ fn solve_once(app: &App, generation: u64) -> Solved {
         solved.charts_html =
             super::organiser::charts_html(red) + &crate::render::residual_groups::groups_html(red);
     }
+    solved.public_html = super::results_page::public_section(&solved, &timings);
     solved.solution_json = solution_prefix(&solved);
     solved.export_csv = Bytes::from(text);
     solved

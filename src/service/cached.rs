@@ -27,7 +27,7 @@ fn not_modified(headers: &HeaderMap, etag: &str) -> bool {
 }
 
 /// A cached body with its version headers, or `304` when the client holds that version.
-fn versioned(
+pub(super) fn versioned(
     headers: &HeaderMap,
     (etag, version, pending): (String, u64, u64),
     content_type: &'static str,
@@ -159,6 +159,7 @@ pub fn organiser(app: &App, q: &HashMap<String, String>, csrf: &str) -> Response
     let table = super::triage::attention_html(&solved.attention)
         + &table_html(&query, (&rows, total), &solved, csrf)
         + &super::triage::note_form(csrf);
+    let network = super::network_plan::organiser_section(app);
     let view = OrganiserView {
         solution: solved.reduction.as_deref(),
         error: solved.error.as_deref(),
@@ -166,6 +167,7 @@ pub fn organiser(app: &App, q: &HashMap<String, String>, csrf: &str) -> Response
         timing_counts: timings,
         table_html: &table,
         charts_html: &solved.charts_html,
+        network_html: &network,
         counts,
         unreadable: &unreadable,
         audit: &audit,

@@ -26,7 +26,7 @@ fn t1(language: Language, id: &str, name: &'static str, value: &str) -> String {
 }
 
 /// A text field with its label (and a hint inside the label, read with it).
-fn text_field(name: &str, label: &str, hint: &str, value: &str, attrs: &str) -> String {
+pub(super) fn text_field(name: &str, label: &str, hint: &str, value: &str, attrs: &str) -> String {
     let hint = if hint.is_empty() {
         String::new()
     } else {

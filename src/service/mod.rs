@@ -25,6 +25,11 @@
 //! - `security.rs`: the security headers on every response, and the router's protective layers.
 //! - `forgery.rs`: the visitor's anti-forgery cookie and tokens, the origin and content-type checks.
 //! - `sign_in.rs`: the organiser's sign-in, session cookie and sign-out.
+//! - `registration.rs`: a station registered before the event, checked; its sheet and calendar.
+//! - `registration_page.rs`: the registration's routes: the API, the form, the private link.
+//! - `store_registrations.rs`: the registrations in the database; planned against reported.
+//! - `network_plan.rs`: the organiser's stations planned against reported, with their map.
+//! - `results_page.rs`: the public results page, from the cache.
 //! - `limits.rs`: the body limit said plainly (413 pages), the rate limit with `--public`.
 pub mod cache;
 pub mod cached;
@@ -36,13 +41,18 @@ pub mod form;
 pub mod intake;
 pub mod language_choice;
 pub mod limits;
+pub mod network_plan;
 pub mod organiser;
 pub mod pages;
+pub mod registration;
+pub mod registration_page;
+pub mod results_page;
 pub mod routes;
 pub mod security;
 pub mod server;
 pub mod sign_in;
 pub mod store;
+pub mod store_registrations;
 pub mod store_triage;
 pub mod style;
 pub mod table_query;

@@ -24,6 +24,8 @@ pub struct OrganiserView<'a> {
     pub table_html: &'a str,
     /// The solution's methods and charts, made once per version (`charts_html`).
     pub charts_html: &'a str,
+    /// The "as of" sentence and the stations planned against reported (`network_plan.rs`).
+    pub network_html: &'a str,
     /// (submissions in force, stored, unreadable).
     pub counts: (i64, i64, i64),
     /// Unreadable submissions: (id, arrival, reason).
@@ -142,6 +144,7 @@ pub fn organiser_page(v: &OrganiserView) -> String {
     let _ = writeln!(s, "<p>Downloads: <a id=\"export\" href=\"/api/export.csv\">every timing in force (observations CSV)</a> · <a href=\"/organiser/report.html\">the report (HTML)</a> · <a href=\"/organiser\">reload</a></p>");
     s.push_str(&super::sign_in::sign_out_form(v.csrf));
     summary(v, &mut s);
+    s.push_str(v.network_html);
     s.push_str(v.charts_html);
     s.push_str(v.table_html);
     trails(v, &mut s);

@@ -14,6 +14,8 @@ use serde_json::json;
 use std::collections::HashMap;
 use std::sync::Arc;
 
+use super::registration_page as reg;
+
 type Shared = Arc<App>;
 type Q = Query<HashMap<String, String>>;
 
@@ -44,6 +46,11 @@ async fn report(State(app): State<Shared>, headers: HeaderMap, Query(q): Q) -> R
         return unauthorised();
     }
     super::cached::report(&app, &headers)
+}
+
+/// `GET /results`: public, from the cache.
+async fn results(State(app): State<Shared>, headers: HeaderMap) -> Response {
+    super::results_page::results(&app, &headers)
 }
 
 async fn organiser(
@@ -138,6 +145,18 @@ pub fn router(app: Shared, rate: Option<super::limits::RateLimit>) -> Router {
             get(super::server::review_route).post(super::server::correct_route),
         )
         .route("/api/submissions", post(super::server::api_submit_route))
+        .route("/api/registrations", post(reg::api_register_route))
+        .route(
+            "/register",
+            get(reg::register_page_route).post(reg::register_form_route),
+        )
+        .route("/registrations/{key}", get(reg::private_route))
+        .route("/registrations/{key}/sheet.html", get(reg::sheet_route))
+        .route(
+            "/registrations/{key}/calendar.ics",
+            get(reg::calendar_route),
+        )
+        .route("/results", get(results))
         .route("/api/solution", get(solution))
         .route("/api/export.csv", get(export))
         .route("/organiser", get(organiser))

@@ -50,14 +50,15 @@ fn base64(bytes: &[u8]) -> String {
     out
 }
 
-/// The content-security policy of every response: nothing allowed by default; the pages'
-/// and the report's style elements by their hashes; images from the service itself and
+/// The content-security policy of every response: nothing allowed by default; the pages',
+/// the report's and the observers' sheet's style elements by their hashes; images from the service itself and
 /// `data:` URLs; forms posted only to the service; no framing, no `<base>`, no script.
 pub fn content_security_policy() -> String {
     format!(
-        "default-src 'none'; script-src 'none'; style-src {} {}; img-src 'self' data:; form-action 'self'; frame-ancestors 'none'; base-uri 'none'",
+        "default-src 'none'; script-src 'none'; style-src {} {} {}; img-src 'self' data:; form-action 'self'; frame-ancestors 'none'; base-uri 'none'",
         style_hash(super::pages::STYLE),
-        style_hash(crate::render::document::REPORT_STYLE)
+        style_hash(crate::render::document::REPORT_STYLE),
+        style_hash(&super::registration::sheet_style_text())
     )
 }
 

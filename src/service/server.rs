@@ -319,8 +319,9 @@ pub async fn participant_route(
             crate::language::numbers::date_long(l, app.event.date()),
         );
     let intro = format!(
-        "<p>{}</p>\n",
-        crate::render::svg::esc(&crate::language::text(l, "form-intro", &args))
+        "<p>{}</p>\n<p>{}</p>\n",
+        crate::render::svg::esc(&crate::language::text(l, "form-intro", &args)),
+        crate::language::text(l, "form-before-and-after", &crate::language::Args::new())
     );
     let forms = timing_form(l, "/submit", (&visitor.token, None), &[])
         + &super::pages::upload_form(l, &visitor.token)

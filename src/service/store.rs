@@ -264,6 +264,7 @@ impl Store {
         conn.execute_batch(SCHEMA).map_err(db_err)?;
         add_missing_columns(&conn)?;
         super::store_triage::migrate(&conn)?;
+        super::store_registrations::create_table(&conn)?;
         Ok(Store { conn })
     }
 
