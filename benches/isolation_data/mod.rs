@@ -20,29 +20,6 @@ pub fn venus_2012() -> TransitEvent {
         .expect("the event")
 }
 
-/// The fields of a timing in the order of [`EXPORT_COLUMNS`].
-fn values(f: &TimingFields) -> [&str; 17] {
-    [
-        &f.station,
-        &f.latitude,
-        &f.longitude,
-        &f.elevation_m,
-        &f.contact,
-        &f.time_utc,
-        &f.sigma_s,
-        &f.time_local,
-        &f.local_time,
-        &f.day_reckoning,
-        &f.longitude_sigma_deg,
-        &f.observer,
-        &f.calendar,
-        &f.meridian,
-        &f.time_meridian,
-        &f.duration,
-        &f.contact_judged,
-    ]
-}
-
 /// Simulate a campaign (stations over the globe, 1 % blunders) of at least `n` timings,
 /// keep the first `n`, and store them as one accepted submission per station; returns the
 /// number of timings stored.
@@ -84,7 +61,7 @@ pub fn write_campaign(event: &TransitEvent, db: &std::path::Path, n: usize) -> u
             last_station.clone_from(&f.station);
         }
         let values: Vec<String> = std::iter::once(submission.to_string())
-            .chain(values(f).iter().map(|v| v.to_string()))
+            .chain(f.values().iter().map(|v| v.to_string()))
             .collect();
         tx.execute(&sql, rusqlite::params_from_iter(values))
             .expect("a timing");
@@ -146,9 +123,14 @@ pub fn phases(event: &TransitEvent, db: &std::path::Path) {
             .expect("read")
     });
     let fields: Vec<TimingFields> = timings.iter().map(|t| t.fields.clone()).collect();
-    timed("information estimate", || {
-        transit_parallax::service::feedback::parallax_information(event, &fields)
-    });
+    timed(
+        "information estimate (from the fields, reading them again)",
+        || transit_parallax::service::feedback::parallax_information(event, &fields),
+    );
+    timed(
+        "information estimate (from the parsed timings, as the service does)",
+        || transit_parallax::service::feedback::information_of_set(event, &set),
+    );
     let mut options = ReduceOptions {
         event: Some((event.planet, event.date())),
         follow_convergence: false,
@@ -161,10 +143,17 @@ pub fn phases(event: &TransitEvent, db: &std::path::Path) {
     let full = timed("reduce with the convergence chart", || {
         reduce_for_event(set, event.clone(), &options).expect("reduced")
     });
-    timed("solution JSON", || {
-        serde_json::to_vec(&transit_parallax::render::reduction::reduction_json(&red))
-            .map_or(0, |v| v.len())
-    });
+    timed(
+        "solution JSON (written straight, as the service does)",
+        || transit_parallax::render::reduction_json::reduction_json_bytes(&red, &[]).len(),
+    );
+    timed(
+        "solution JSON through a serde_json::Value (as before)",
+        || {
+            serde_json::to_vec(&transit_parallax::render::reduction::reduction_json(&red))
+                .map_or(0, |v| v.len())
+        },
+    );
     timed("HTML report", || {
         transit_parallax::render::document::html_report(&full).len()
     });

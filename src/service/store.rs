@@ -98,7 +98,8 @@ pub const EXPORT_COLUMNS: [&str; 22] = [
 ];
 
 impl TimingFields {
-    fn values(&self) -> [&str; 22] {
+    /// The values in the order of [`EXPORT_COLUMNS`] (the store's columns and the export's).
+    pub fn values(&self) -> [&str; 22] {
         [
             &self.station,
             &self.latitude,
