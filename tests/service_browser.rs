@@ -373,3 +373,76 @@ fn registering_a_station_and_reading_the_results_in_a_real_browser() {
         c.close().await.ok();
     });
 }
+
+/// The page's language (`<html lang>`) and its main heading.
+async fn language_and_heading(c: &Client) -> (String, String) {
+    let lang = c
+        .execute("return document.documentElement.lang;", vec![])
+        .await
+        .expect("the page's language");
+    let h1 = c
+        .find(Locator::Css("h1"))
+        .await
+        .expect("a heading")
+        .text()
+        .await
+        .expect("its text");
+    (lang.as_str().unwrap_or_default().to_string(), h1)
+}
+
+/// The language switch in Chromium: a click on "Deutsch" turns the form German, the choice
+/// outlives the page (a cookie), and the feedback of a timing sent from it is German too; a
+/// click on "English" turns it back.
+#[test]
+fn the_language_switch_in_a_real_browser() {
+    let (Some(chromium), Some(driver_path)) = (which("chromium"), which("chromedriver")) else {
+        eprintln!("SKIPPED: chromium and chromedriver are not installed (CI installs Debian's chromium and chromium-driver and runs this test)");
+        return;
+    };
+    let dir = std::env::temp_dir().join(format!("tp-service-language-{}", std::process::id()));
+    let _ = std::fs::remove_dir_all(&dir);
+    std::fs::create_dir_all(&dir).unwrap();
+    let server = start(&dir.join("campaign.sqlite"), &["--token", "organiser9"]);
+    let driver = start_driver(&driver_path);
+    let base = format!("http://127.0.0.1:{}", server.port);
+    let runtime = tokio::runtime::Builder::new_current_thread()
+        .enable_all()
+        .build()
+        .unwrap();
+    runtime.block_on(async {
+        let c = session(&driver, &chromium, &dir.join("profile"), Screen::Desktop).await;
+        c.goto(&format!("{base}/")).await.expect("the form");
+        let switch = |code: &'static str| {
+            let c = c.clone();
+            async move {
+                c.find(Locator::Css(&format!("nav.languages a[hreflang='{code}']")))
+                    .await
+                    .expect("the switch's link")
+                    .click()
+                    .await
+                    .expect("clicked");
+            }
+        };
+        switch("de").await;
+        let (lang, h1) = language_and_heading(&c).await;
+        assert_eq!(lang, "de");
+        assert_eq!(h1, "Senden Sie Ihre Zeiten");
+        // Kept: the plain address is German now.
+        c.goto(&format!("{base}/")).await.expect("the form again");
+        assert_eq!(language_and_heading(&c).await.0, "de");
+        let feedback = send_form(
+            &c,
+            &base,
+            ("Willow Point Observatory", "22.28", "114.16"),
+            &predicted_at(22.28, 114.16, 2, 5.0),
+        )
+        .await;
+        assert!(feedback.contains("passt"), "{feedback}");
+        assert!(feedback.contains("später als vorhergesagt"), "{feedback}");
+        screenshot(&c, "service-feedback-german.png").await;
+        switch("en").await;
+        let (lang, _) = language_and_heading(&c).await;
+        assert_eq!(lang, "en");
+        c.close().await.ok();
+    });
+}
