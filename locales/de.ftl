@@ -145,3 +145,15 @@ clock-phone = Mobiltelefon
 clock-other = andere (eine von Hand gestellte Uhr)
 viewing-filter = zertifizierter Sonnenfilter vorn
 viewing-projection = Projektion auf einen Schirm
+
+## Eine Station vor dem Ereignis anmelden
+
+register-title = Melden Sie Ihre Station an
+register-intro = Melden Sie Ihre Station vor dem Transit an: Sie erhalten sofort einen privaten Link zu Ihrem Beobachtungsblatt (die Kontakte in der Zeit Ihrer eigenen Uhr, eine leere Tabelle für die Zeiten) und einen Kalender der Kontakte für Ihr Telefon. Senden Sie nach dem Ereignis Ihre Zeiten unter demselben Stationsnamen, und die Organisation sieht, dass Ihre Station gemeldet hat.
+register-refused = Nicht angemeldet:
+register-name-hint = so, wie er angezeigt werden soll; senden Sie Ihre Zeiten unter demselben Namen
+register-elevation-hint = über dem Meeresspiegel; leer: 0
+register-zone = Zeitzone Ihrer Uhren
+register-zone-hint = ein Name wie Europe/Berlin, Europe/Vienna oder Europe/Zurich, oder ein Versatz wie +01:00
+register-button = Die Station anmelden
+register-privacy = Der Name Ihrer Station und ihr auf ein Zehntelgrad gerundeter Ort können auf der öffentlichen Ergebnisseite erscheinen; der private Link gehört nur Ihnen.

@@ -144,3 +144,15 @@ clock-phone = mobile phone
 clock-other = other (a watch set by hand)
 viewing-filter = certified solar filter over the front
 viewing-projection = projection onto a screen
+
+## Registering a station before the event
+
+register-title = Register your station
+register-intro = Register your station before the transit: you get at once a private link to your observers' sheet (the contacts in your own clock time, a blank table for the timings) and a calendar of the contacts for your phone. After the event, send your timings under the same station name, and the organiser sees that your station reported.
+register-refused = Not registered:
+register-name-hint = as you want it listed; send your timings under the same name
+register-elevation-hint = above sea level; empty: 0
+register-zone = Time zone of your clocks
+register-zone-hint = a name such as Europe/Amsterdam, America/Sao_Paulo or Asia/Kolkata, or an offset such as +05:30
+register-button = Register the station
+register-privacy = Your station's name and its place rounded to a tenth of a degree may appear on the public results page; the private link is yours alone.

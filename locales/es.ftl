@@ -145,3 +145,15 @@ clock-phone = teléfono móvil
 clock-other = otro (un reloj puesto a mano)
 viewing-filter = filtro solar certificado delante
 viewing-projection = proyección sobre una pantalla
+
+## Registrar una estación antes del evento
+
+register-title = Registre su estación
+register-intro = Registre su estación antes del tránsito: recibirá al momento un enlace privado a su hoja de observación (los contactos en la hora de su propio reloj, una tabla en blanco para los tiempos) y un calendario de los contactos para su teléfono. Después del evento, envíe sus tiempos con el mismo nombre de estación, y el organizador verá que su estación informó.
+register-refused = No registrada:
+register-name-hint = tal como quiere que aparezca; envíe sus tiempos con el mismo nombre
+register-elevation-hint = sobre el nivel del mar; vacío: 0
+register-zone = Zona horaria de sus relojes
+register-zone-hint = un nombre como Europe/Madrid, America/Mexico_City o America/Bogota, o un desfase como -05:00
+register-button = Registrar la estación
+register-privacy = El nombre de su estación y su posición redondeada a una décima de grado pueden aparecer en la página pública de resultados; el enlace privado es solo suyo.

@@ -145,3 +145,15 @@ clock-phone = téléphone portable
 clock-other = autre (une montre réglée à la main)
 viewing-filter = filtre solaire certifié à l'avant
 viewing-projection = projection sur un écran
+
+## Inscrire une station avant l'événement
+
+register-title = Inscrivez votre station
+register-intro = Inscrivez votre station avant le transit : vous recevez aussitôt un lien privé vers votre fiche d'observation (les contacts à l'heure de votre propre horloge, un tableau vierge pour les chronométrages) et un calendrier des contacts pour votre téléphone. Après l'événement, envoyez vos chronométrages sous le même nom de station, et l'organisateur verra que votre station a répondu.
+register-refused = Non inscrite :
+register-name-hint = tel que vous voulez le voir affiché ; envoyez vos chronométrages sous le même nom
+register-elevation-hint = au-dessus du niveau de la mer ; vide : 0
+register-zone = Fuseau horaire de vos horloges
+register-zone-hint = un nom comme Europe/Paris, America/Montreal ou Africa/Dakar, ou un décalage comme +01:00
+register-button = Inscrire la station
+register-privacy = Le nom de votre station et sa position arrondie au dixième de degré peuvent paraître sur la page publique des résultats ; le lien privé n'appartient qu'à vous.

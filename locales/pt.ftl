@@ -145,3 +145,15 @@ clock-phone = telemóvel
 clock-other = outro (um relógio acertado à mão)
 viewing-filter = filtro solar certificado à frente
 viewing-projection = projeção num ecrã
+
+## Registar uma estação antes do evento
+
+register-title = Registe a sua estação
+register-intro = Registe a sua estação antes do trânsito: recebe de imediato uma ligação privada para a sua folha de observação (os contactos na hora do seu próprio relógio, uma tabela em branco para os tempos) e um calendário dos contactos para o seu telemóvel. Depois do evento, envie os seus tempos com o mesmo nome de estação, e a organização verá que a sua estação respondeu.
+register-refused = Não registada:
+register-name-hint = como quer que apareça; envie os seus tempos com o mesmo nome
+register-elevation-hint = acima do nível do mar; vazio: 0
+register-zone = Fuso horário dos seus relógios
+register-zone-hint = um nome como Europe/Lisbon, America/Sao_Paulo ou Africa/Luanda, ou um desvio como -03:00
+register-button = Registar a estação
+register-privacy = O nome da sua estação e a sua posição arredondada a uma décima de grau podem aparecer na página pública de resultados; a ligação privada é só sua.

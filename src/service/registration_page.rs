@@ -9,7 +9,7 @@
 
 use super::forgery::{refused_form, Visitor};
 use super::form::text_field;
-use super::pages::{message_page, page};
+use super::pages::{message_page, page, page_in};
 use super::registration::{
     calendar_file, calendar_ics, checked, fields_from_form, fields_from_json, looks_like_key,
     prediction, sheet_html, RegistrationFields, KEY_LEN,
@@ -17,6 +17,7 @@ use super::registration::{
 use super::server::{random_token, App};
 use super::store_registrations::Registration;
 use crate::geometry::sun_horizon::sun_is_up;
+use crate::language::{text, Args, Language};
 use crate::render::svg::esc;
 use crate::time::iso::format_utc;
 use axum::body::Bytes;
@@ -78,33 +79,42 @@ pub async fn api_register_route(State(app): State<Shared>, body: Bytes) -> Respo
 }
 
 /// The registration form, pre-filled with `f`, with an error sentence above it when `error`.
-fn form_page(csrf: &str, f: &RegistrationFields, error: Option<&str>) -> String {
+fn form_page(l: Language, csrf: &str, f: &RegistrationFields, error: Option<&str>) -> String {
     const DECIMAL: &str = " inputmode=\"decimal\"";
-    let mut s = String::from("<p>Register your station before the transit: you get at once a private link to your observers' sheet (the contacts in your own clock time, a blank table for the timings) and a calendar of the contacts for your phone. After the event, send your timings under the same station name, and the organiser sees that your station reported.</p>\n");
-    if let Some(e) = error {
+    let t = |id: &str| text(l, id, &Args::new());
+    let t1 = |id: &str, v: &str| text(l, id, &Args::new().text("example", v.to_string()));
+    let mut s = format!("<p>{}</p>\n", esc(&t("register-intro")));
+    if let Some(why) = error {
         let _ = writeln!(
             s,
-            "<p id=\"error\" class=\"card rejected\" role=\"alert\">Not registered: {}</p>",
-            esc(e)
+            "<p id=\"error\" class=\"card rejected\" role=\"alert\">{} {}</p>",
+            esc(&t("register-refused")),
+            esc(why)
         );
     }
     let _ = writeln!(
         s,
-        "<form method=\"post\" action=\"/register\" id=\"register-form\">\n<input type=\"hidden\" name=\"csrf\" value=\"{}\"/>\n<fieldset><legend>Your station</legend>\n{}\n<div class=\"row\">{}{}</div>\n<div class=\"row\">{}{}</div>\n</fieldset>\n<p class=\"actions\"><button type=\"submit\" id=\"register\">Register the station</button></p>\n</form>",
+        "<form method=\"post\" action=\"/register\" id=\"register-form\">\n<input type=\"hidden\" name=\"csrf\" value=\"{}\"/>\n<fieldset><legend>{}</legend>\n{}\n<div class=\"row\">{}{}</div>\n<div class=\"row\">{}{}</div>\n</fieldset>\n<p class=\"actions\"><button type=\"submit\" id=\"register\">{}</button></p>\n</form>",
         esc(csrf),
-        text_field("station", "Station's name", "as you want it listed; send your timings under the same name", &f.station, " required maxlength=\"120\""),
-        text_field("latitude", "Latitude (degrees)", "north positive, south negative: -33.87", &f.latitude, " required"),
-        text_field("longitude", "Longitude (degrees)", "east positive, west negative: -157.86", &f.longitude, " required"),
-        text_field("elevation_m", "Elevation (metres)", "above sea level; empty: 0", &f.elevation_m, DECIMAL),
-        text_field("time_zone", "Time zone of your clocks", "a name such as Europe/Amsterdam, America/Sao_Paulo or Asia/Kolkata, or an offset such as +05:30", &f.time_zone, " required"),
+        esc(&t("station-heading")),
+        text_field("station", &t("station-name"), &t("register-name-hint"), &f.station, " required maxlength=\"120\""),
+        text_field("latitude", &t("latitude"), &t1("latitude-hint", "-33.87"), &f.latitude, " required"),
+        text_field("longitude", &t("longitude"), &t1("longitude-hint", "-157.86"), &f.longitude, " required"),
+        text_field("elevation_m", &t("elevation"), &t("register-elevation-hint"), &f.elevation_m, DECIMAL),
+        text_field("time_zone", &t("register-zone"), &t("register-zone-hint"), &f.time_zone, " required"),
+        esc(&t("register-button")),
     );
-    s.push_str("<p class=\"note\">Your station's name and its place rounded to a tenth of a degree may appear on the public results page; the private link is yours alone.</p>\n");
-    page("Register your station", &s)
+    let _ = writeln!(s, "<p class=\"note\">{}</p>", esc(&t("register-privacy")));
+    page_in(l, Some("/register"), &t("register-title"), &s)
 }
 
 /// `GET /register`.
-pub async fn register_page_route(Extension(visitor): Extension<Visitor>) -> Html<String> {
+pub async fn register_page_route(
+    Extension(visitor): Extension<Visitor>,
+    Extension(l): Extension<Language>,
+) -> Html<String> {
     Html(form_page(
+        l,
         &visitor.token,
         &RegistrationFields::default(),
         None,
@@ -115,6 +125,7 @@ pub async fn register_page_route(Extension(visitor): Extension<Visitor>) -> Html
 pub async fn register_form_route(
     State(app): State<Shared>,
     Extension(visitor): Extension<Visitor>,
+    Extension(l): Extension<Language>,
     body: Bytes,
 ) -> Response {
     let form: Vec<(String, String)> = serde_urlencoded::from_bytes(&body).unwrap_or_default();
@@ -131,7 +142,7 @@ pub async fn register_form_route(
         Err(why) => {
             return (
                 StatusCode::BAD_REQUEST,
-                Html(form_page(&visitor.token, &fields, Some(&why))),
+                Html(form_page(l, &visitor.token, &fields, Some(&why))),
             )
                 .into_response()
         }
@@ -285,4 +296,35 @@ pub async fn calendar_route(State(app): State<Shared>, Path(key): Path<String>) 
     }
     no_store(&mut res);
     res
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    /// The registration form in the visitor's language, with the language switch and every
+    /// field still named as the form posts it.
+    #[test]
+    fn the_form_is_in_the_visitors_language() {
+        let es = form_page(Language::Spanish, "t", &RegistrationFields::default(), None);
+        assert!(es.contains("<html lang=\"es\">"));
+        assert!(es.contains("Registre su estación") && es.contains("Zona horaria de sus relojes"));
+        assert!(es.contains("<nav class=\"languages\""));
+        for name in [
+            "station",
+            "latitude",
+            "longitude",
+            "elevation_m",
+            "time_zone",
+        ] {
+            assert!(es.contains(&format!("<label for=\"{name}\"")), "{name}");
+        }
+        let refused = form_page(
+            Language::German,
+            "t",
+            &RegistrationFields::default(),
+            Some("x"),
+        );
+        assert!(refused.contains("Nicht angemeldet: x"), "{refused}");
+    }
 }
