@@ -179,11 +179,7 @@ fn organiser_load(port: u16, stop: Arc<AtomicBool>) -> std::thread::JoinHandle<(
 /// not take the server's cores; the server's work for them (its request handling and sending)
 /// keeps its normal priority.
 fn stand_in_for_another_machine() {
-    #[cfg(target_os = "linux")]
-    // SAFETY: plain integers; with PRIO_PROCESS and who = 0 it applies to this thread only.
-    unsafe {
-        let _ = libc::setpriority(libc::PRIO_PROCESS, 0, 19);
-    }
+    transit_parallax::service::cache::lower_thread_priority(19);
 }
 
 /// The participants' page every 20 ms for `seconds`; its latencies, milliseconds, sorted.

@@ -198,28 +198,70 @@ async fn triage(c: &Client, base: &str) {
     );
 }
 
-#[test]
-fn a_participant_and_the_organiser_in_a_real_browser() {
-    let (Some(chromium), Some(driver_path)) = (which("chromium"), which("chromedriver")) else {
-        eprintln!("SKIPPED: chromium and chromedriver are not installed (CI installs Debian's chromium and chromium-driver and runs this test)");
-        return;
-    };
-    let dir = std::env::temp_dir().join(format!("tp-service-browser-{}", std::process::id()));
-    let _ = std::fs::remove_dir_all(&dir);
-    std::fs::create_dir_all(&dir).unwrap();
-    let server = start(&dir.join("campaign.sqlite"), &["--token", "organiser7"]);
-    seed_five_stations(&server, false);
-    let driver = start_driver(&driver_path);
-    let base = format!("http://127.0.0.1:{}", server.port);
-    let runtime = tokio::runtime::Builder::new_current_thread()
+/// One test's campaign in a real browser: a fresh server with the organiser's `token`, a
+/// chromium-driver, and the folder they use. `None`, with SKIPPED said, without chromium and
+/// chromedriver.
+struct BrowserCampaign {
+    dir: std::path::PathBuf,
+    chromium: std::path::PathBuf,
+    server: common::server::Server,
+    driver: webdriver::Driver,
+    base: String,
+}
+
+impl BrowserCampaign {
+    fn start(name: &str, token: &str) -> Option<BrowserCampaign> {
+        let (Some(chromium), Some(driver_path)) = (which("chromium"), which("chromedriver")) else {
+            eprintln!("SKIPPED: chromium and chromedriver are not installed (CI installs Debian's chromium and chromium-driver and runs this test)");
+            return None;
+        };
+        let dir = std::env::temp_dir().join(format!("tp-service-{name}-{}", std::process::id()));
+        let _ = std::fs::remove_dir_all(&dir);
+        std::fs::create_dir_all(&dir).unwrap();
+        let server = start(&dir.join("campaign.sqlite"), &["--token", token]);
+        let driver = start_driver(&driver_path);
+        let base = format!("http://127.0.0.1:{}", server.port);
+        Some(BrowserCampaign {
+            dir,
+            chromium,
+            server,
+            driver,
+            base,
+        })
+    }
+
+    /// A desktop session with a profile of its own.
+    async fn session(&self) -> Client {
+        session(
+            &self.driver,
+            &self.chromium,
+            &self.dir.join("profile"),
+            Screen::Desktop,
+        )
+        .await
+    }
+}
+
+/// The runtime a browser test drives its session on.
+fn runtime() -> tokio::runtime::Runtime {
+    tokio::runtime::Builder::new_current_thread()
         .enable_all()
         .build()
-        .unwrap();
-    runtime.block_on(async {
-        let c = session(&driver, &chromium, &dir.join("profile"), Screen::Desktop).await;
+        .unwrap()
+}
+
+#[test]
+fn a_participant_and_the_organiser_in_a_real_browser() {
+    let Some(b) = BrowserCampaign::start("browser", "organiser7") else {
+        return;
+    };
+    let (server, base) = (&b.server, &b.base);
+    seed_five_stations(server, false);
+    runtime().block_on(async {
+        let c = b.session().await;
         let good = send_form(
             &c,
-            &base,
+            base,
             ("Jade Harbour School", "22.28", "114.16"),
             &predicted_at(22.28, 114.16, 2, 5.0),
         )
@@ -228,7 +270,7 @@ fn a_participant_and_the_organiser_in_a_real_browser() {
         assert!(good.contains("fits"), "{good}");
         let blunder = send_form(
             &c,
-            &base,
+            base,
             ("Pearl Shore Club", "22.30", "114.20"),
             // Hong Kong's zone time (+8 h) left in.
             &predicted_at(22.3, 114.2, 2, 8.0 * 3600.0),
@@ -240,20 +282,20 @@ fn a_participant_and_the_organiser_in_a_real_browser() {
             blunder.contains("probably a slip you can fix") && blunder.contains("zone"),
             "{blunder}"
         );
-        settled_solution(&server);
-        let (n1, p1) = organiser_counts(&c, &base, "organiser7").await;
+        settled_solution(server);
+        let (n1, p1) = organiser_counts(&c, base, "organiser7").await;
         screenshot(&c, "service-organiser.png").await;
         assert_eq!(n1, "12", "{n1}");
         assert!(p1.contains('"'), "a parallax on the page: {p1}");
         send_form(
             &c,
-            &base,
+            base,
             ("Lantern Hill", "35.68", "139.69"),
             &predicted_at(35.68, 139.69, 2, -6.0),
         )
         .await;
-        settled_solution(&server);
-        let (n2, p2) = organiser_counts(&c, &base, "organiser7").await;
+        settled_solution(server);
+        let (n2, p2) = organiser_counts(&c, base, "organiser7").await;
         screenshot(&c, "service-organiser-after.png").await;
         assert_eq!(n2, "13");
         assert_ne!(p1, p2, "the solution changed with the new timing");
@@ -263,7 +305,7 @@ fn a_participant_and_the_organiser_in_a_real_browser() {
         assert_styled(&c, "the report").await;
         let source = c.source().await.expect("the report's source");
         assert!(!source.contains("organiser7"), "the token on the report");
-        triage(&c, &base).await;
+        triage(&c, base).await;
         c.close().await.ok();
     });
 }
@@ -329,25 +371,15 @@ async fn register_in_browser(c: &Client, base: &str) {
 
 #[test]
 fn registering_a_station_and_reading_the_results_in_a_real_browser() {
-    let (Some(chromium), Some(driver_path)) = (which("chromium"), which("chromedriver")) else {
-        eprintln!("SKIPPED: chromium and chromedriver are not installed (CI installs Debian's chromium and chromium-driver and runs this test)");
+    let Some(b) = BrowserCampaign::start("register", "organiser8") else {
         return;
     };
-    let dir = std::env::temp_dir().join(format!("tp-service-register-{}", std::process::id()));
-    let _ = std::fs::remove_dir_all(&dir);
-    std::fs::create_dir_all(&dir).unwrap();
-    let server = start(&dir.join("campaign.sqlite"), &["--token", "organiser8"]);
-    seed_five_stations(&server, false);
-    let solution = settled_solution(&server);
-    let driver = start_driver(&driver_path);
-    let base = format!("http://127.0.0.1:{}", server.port);
-    let runtime = tokio::runtime::Builder::new_current_thread()
-        .enable_all()
-        .build()
-        .unwrap();
-    runtime.block_on(async {
-        let c = session(&driver, &chromium, &dir.join("profile"), Screen::Desktop).await;
-        register_in_browser(&c, &base).await;
+    let (server, base) = (&b.server, &b.base);
+    seed_five_stations(server, false);
+    let solution = settled_solution(server);
+    runtime().block_on(async {
+        let c = b.session().await;
+        register_in_browser(&c, base).await;
         c.goto(&format!("{base}/results"))
             .await
             .expect("the results");
@@ -395,22 +427,12 @@ async fn language_and_heading(c: &Client) -> (String, String) {
 /// click on "English" turns it back.
 #[test]
 fn the_language_switch_in_a_real_browser() {
-    let (Some(chromium), Some(driver_path)) = (which("chromium"), which("chromedriver")) else {
-        eprintln!("SKIPPED: chromium and chromedriver are not installed (CI installs Debian's chromium and chromium-driver and runs this test)");
+    let Some(b) = BrowserCampaign::start("language", "organiser9") else {
         return;
     };
-    let dir = std::env::temp_dir().join(format!("tp-service-language-{}", std::process::id()));
-    let _ = std::fs::remove_dir_all(&dir);
-    std::fs::create_dir_all(&dir).unwrap();
-    let server = start(&dir.join("campaign.sqlite"), &["--token", "organiser9"]);
-    let driver = start_driver(&driver_path);
-    let base = format!("http://127.0.0.1:{}", server.port);
-    let runtime = tokio::runtime::Builder::new_current_thread()
-        .enable_all()
-        .build()
-        .unwrap();
-    runtime.block_on(async {
-        let c = session(&driver, &chromium, &dir.join("profile"), Screen::Desktop).await;
+    let base = &b.base;
+    runtime().block_on(async {
+        let c = b.session().await;
         c.goto(&format!("{base}/")).await.expect("the form");
         let switch = |code: &'static str| {
             let c = c.clone();
@@ -432,7 +454,7 @@ fn the_language_switch_in_a_real_browser() {
         assert_eq!(language_and_heading(&c).await.0, "de");
         let feedback = send_form(
             &c,
-            &base,
+            base,
             ("Willow Point Observatory", "22.28", "114.16"),
             &predicted_at(22.28, 114.16, 2, 5.0),
         )

@@ -9,7 +9,8 @@
 mod common;
 
 use common::server::{
-    get, post_json, predicted_at, request, settled_solution, sign_in, start, visitor, Reply,
+    assert_export_reduces_to, get, post_json, predicted_at, request, settled_solution, sign_in,
+    start, visitor, Reply,
 };
 use common::{err, out, run, temp};
 
@@ -142,20 +143,7 @@ fn metadata_is_stored_exported_and_read_back_by_reduce() {
         "{coral:?}"
     );
     // The export reduces to the service's solution, with the residuals grouped.
-    let path = temp("triage-export.csv", export.body.as_bytes());
-    let o = run(&[
-        "reduce",
-        &path,
-        "--planet",
-        "venus",
-        "--date",
-        "2012-06-06",
-        "--format",
-        "json",
-    ]);
-    assert!(o.status.success(), "{}", err(&o));
-    let direct: serde_json::Value = serde_json::from_str(&out(&o)).unwrap();
-    assert_eq!(direct["parallax_arcsec"], solution["parallax_arcsec"]);
+    let direct = assert_export_reduces_to(&server, &solution);
     assert_eq!(
         solution["residuals_by_clock_source"],
         direct["residuals_by_clock_source"]
@@ -181,6 +169,7 @@ fn metadata_is_stored_exported_and_read_back_by_reduce() {
         .collect();
     assert_eq!(labels, ["<= 60 mm", "61-100 mm", "101-150 mm", "> 150 mm"]);
     // The report shows the groups.
+    let path = temp("triage-export.csv", export.body.as_bytes());
     let report = temp("triage-report.md", b"");
     let o = run(&[
         "reduce",

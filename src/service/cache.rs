@@ -187,6 +187,9 @@ async fn render_loop(app: Arc<App>) {
 /// of submissions never leaves the report behind for good).
 const RENDER_DEFER_S: u64 = 20;
 
+/// The renderer's scheduling priority (`nice`).
+const RENDER_NICE: i32 = 10;
+
 /// The renderer's own thread: one, at a lower scheduling priority than the reducer and the
 /// requests (`nice` 10 on Linux, where a thread's nice value is its own: `setpriority(2)`),
 /// so that a report in progress takes the cores only when nothing else wants them. `None`
@@ -195,20 +198,23 @@ fn render_pool() -> Option<Arc<rayon::ThreadPool>> {
     rayon::ThreadPoolBuilder::new()
         .num_threads(1)
         .thread_name(|_| "report-renderer".into())
-        .start_handler(|_| lower_priority())
+        .start_handler(|_| lower_thread_priority(RENDER_NICE))
         .build()
         .ok()
         .map(Arc::new)
 }
 
-/// Lower the calling thread's scheduling priority (Linux only; elsewhere nothing).
-fn lower_priority() {
+/// Lower the calling thread's scheduling priority to `nice` (0 normal, 19 the least; Linux
+/// only, elsewhere nothing).
+pub fn lower_thread_priority(nice: i32) {
     #[cfg(target_os = "linux")]
     // SAFETY: `setpriority` takes plain integers and touches no memory of ours; with
     // `PRIO_PROCESS` and who = 0 it applies, on Linux, to the calling thread only.
     unsafe {
-        let _ = libc::setpriority(libc::PRIO_PROCESS, 0, 10);
+        let _ = libc::setpriority(libc::PRIO_PROCESS, 0, nice);
     }
+    #[cfg(not(target_os = "linux"))]
+    let _ = nice;
 }
 
 /// The options of the service's reductions: those of `reduce` for the event.

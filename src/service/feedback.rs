@@ -15,7 +15,7 @@
 //! plain ones (`verdict_words`, `advice`).
 
 use super::feedback_words::{
-    difference_words, example_time, offset_cause, plain, plain_reason, station_advice,
+    difference_words, example_time, offset_cause, plain, plain_reason, station_advice, VerdictWords,
 };
 use super::store::{export_csv, StoredTiming, TimingFields};
 use crate::geometry::contacts::Perturbation;
@@ -47,7 +47,7 @@ pub struct TimingFeedback {
     /// `fits`, `doubtful` or `rejected`.
     pub verdict: &'static str,
     /// The verdict in words for people ("fits", "probably a slip you can fix", ...).
-    pub verdict_words: &'static str,
+    pub verdict_words: VerdictWords,
     /// A sentence: the likely blunder, why the row cannot be used, or how close it is.
     pub diagnosis: Option<String>,
     /// What to do about it, in plain words (none when nothing needs doing).
@@ -125,7 +125,7 @@ impl TimingFeedback {
             o_c_s: None,
             sun_altitude_deg: None,
             verdict: Agreement::Rejected.as_str(),
-            verdict_words: "could not be read",
+            verdict_words: VerdictWords::Unread,
             diagnosis: Some(why),
             advice: Some(advice),
             station_offset: false,
@@ -145,7 +145,7 @@ impl TimingFeedback {
             o_c_s: None,
             sun_altitude_deg: None,
             verdict: Agreement::Rejected.as_str(),
-            verdict_words: "does not fit",
+            verdict_words: VerdictWords::DoesNotFit,
             diagnosis: None,
             advice: None,
             station_offset: false,
@@ -226,12 +226,12 @@ fn set_verdict(
     fb.verdict = verdict.as_str();
     (fb.verdict_words, fb.diagnosis, fb.advice) = match (verdict, far) {
         (Agreement::Fits, _) => (
-            "fits",
+            VerdictWords::Fits,
             Some(format!("{diff}: within what your timing's uncertainty allows")),
             None,
         ),
         (Agreement::Doubtful, far) => (
-            "doubtful",
+            VerdictWords::Doubtful,
             Some(match far {
                 Some(f) => format!("{diff}: probably {}", plain(&f)),
                 None => format!("{diff}: more than your stated uncertainty ({sigma_s:.0} s) allows"),
@@ -239,12 +239,12 @@ fn set_verdict(
             Some("check the clock you timed with and the contact's number; if the time is right as written, leave it: the solution weighs it with the others".into()),
         ),
         (Agreement::Rejected, Some(f)) => (
-            "probably a slip you can fix",
+            VerdictWords::Slip,
             Some(format!("{diff}: probably {}", plain(&f))),
             Some("correct the time as said, then send it again through your private link below".into()),
         ),
         (Agreement::Rejected, None) => (
-            "does not fit",
+            VerdictWords::DoesNotFit,
             Some(format!("{diff}: far more than any error of the prediction or of a clock")),
             Some("check the date, the time zone (give the time in UTC) and the contact's number".into()),
         ),
@@ -387,9 +387,9 @@ fn refer_to_station(t: &mut TimingFeedback, offset_s: f64) {
     });
     t.verdict = own.as_str();
     t.verdict_words = if own == Agreement::Rejected {
-        "probably a slip you can fix"
+        VerdictWords::Slip
     } else {
-        "doubtful"
+        VerdictWords::Doubtful
     };
     t.station_offset = true;
     t.diagnosis = Some(format!(

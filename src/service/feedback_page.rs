@@ -30,20 +30,6 @@ fn t(l: Language, id: &str) -> String {
     text(l, id, &Args::new())
 }
 
-/// The verdict in the visitor's words (the feedback's words are English; this is their
-/// closed set, set in `feedback.rs`).
-fn verdict_words(l: Language, b: &TimingFeedback) -> String {
-    let id = match b.verdict_words {
-        "fits" => "verdict-fits",
-        "doubtful" => "verdict-doubtful",
-        "does not fit" => "verdict-does-not-fit",
-        "could not be read" => "verdict-unread",
-        "probably a slip you can fix" => "verdict-slip",
-        other => return other.to_string(),
-    };
-    t(l, id)
-}
-
 /// A difference from the prediction in the visitor's words ("12.0 s later than
 /// predicted", "3,0 s früher als vorhergesagt").
 pub fn difference_in(l: Language, o_c_s: f64) -> String {
@@ -100,7 +86,7 @@ fn card(l: Language, f: &TimingFields, b: &TimingFeedback) -> String {
         "<dt>{}</dt><dd class=\"{}\"><strong>{}</strong></dd>",
         esc(&t(l, "card-verdict")),
         b.verdict,
-        esc(&verdict_words(l, b))
+        esc(&t(l, b.verdict_words.message_id()))
     );
     if let Some(d) = &b.diagnosis {
         pair(&mut s, &t(l, "card-meaning"), d);

@@ -4,6 +4,68 @@
 
 use crate::geometry::transit::TransitEvent;
 
+/// A verdict in words for people: a closed set, each with its English words (the API's
+/// `verdict_words`, serialised as them) and its message in the participants' languages
+/// (`locales/*.ftl`; a test holds the English message to the English words).
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum VerdictWords {
+    /// The timing agrees with its prediction.
+    Fits,
+    /// More off than its uncertainty allows, not enough to be set aside.
+    Doubtful,
+    /// Far more off than any error of the prediction or of a clock.
+    DoesNotFit,
+    /// A blunder of a known kind, with the correction said.
+    Slip,
+    /// The row could not be read as a timing.
+    Unread,
+}
+
+impl VerdictWords {
+    /// Every verdict in words.
+    pub const ALL: [VerdictWords; 5] = [
+        VerdictWords::Fits,
+        VerdictWords::Doubtful,
+        VerdictWords::DoesNotFit,
+        VerdictWords::Slip,
+        VerdictWords::Unread,
+    ];
+
+    /// The words in English, as the API writes them.
+    pub fn english(self) -> &'static str {
+        match self {
+            VerdictWords::Fits => "fits",
+            VerdictWords::Doubtful => "doubtful",
+            VerdictWords::DoesNotFit => "does not fit",
+            VerdictWords::Slip => "probably a slip you can fix",
+            VerdictWords::Unread => "could not be read",
+        }
+    }
+
+    /// The id of the words' message in the participants' languages.
+    pub fn message_id(self) -> &'static str {
+        match self {
+            VerdictWords::Fits => "verdict-fits",
+            VerdictWords::Doubtful => "verdict-doubtful",
+            VerdictWords::DoesNotFit => "verdict-does-not-fit",
+            VerdictWords::Slip => "verdict-slip",
+            VerdictWords::Unread => "verdict-unread",
+        }
+    }
+}
+
+impl serde::Serialize for VerdictWords {
+    fn serialize<S: serde::Serializer>(&self, serializer: S) -> Result<S::Ok, S::Error> {
+        serializer.serialize_str(self.english())
+    }
+}
+
+impl PartialEq<&str> for VerdictWords {
+    fn eq(&self, other: &&str) -> bool {
+        self.english() == *other
+    }
+}
+
 /// A difference from the prediction in words: "12.0 s later than predicted", "8 h 0 min
 /// earlier than predicted".
 pub fn difference_words(o_c_s: f64) -> String {
@@ -125,6 +187,17 @@ mod tests {
         // Rounded before it is split: never "1 min 60 s".
         assert_eq!(difference_words(119.7), "2 min 0 s later than predicted");
         assert_eq!(difference_words(3599.6), "1 h 0 min later than predicted");
+    }
+
+    #[test]
+    fn verdict_words_are_the_english_messages() {
+        use crate::language::{text, Args, Language};
+        for v in VerdictWords::ALL {
+            assert_eq!(
+                text(Language::English, v.message_id(), &Args::new()),
+                v.english()
+            );
+        }
     }
 
     #[test]

@@ -40,12 +40,13 @@ pub(super) fn text_field(name: &str, label: &str, hint: &str, value: &str, attrs
     )
 }
 
-/// A choice list with its label; `value` is selected, and kept as an option of its own when it
-/// is none of `options` (a correction then sends back what was sent).
+/// A choice list with its label; `options` are (value posted, id of the message shown);
+/// `value` is selected, and kept as an option of its own when it is none of `options` (a
+/// correction then sends back what was sent).
 fn select_field(
     language: Language,
     (name, label): (&str, &str),
-    options: &[(&str, String)],
+    options: &[(&str, &str)],
     value: &str,
 ) -> String {
     let mut s = format!(
@@ -62,7 +63,7 @@ fn select_field(
             esc(&t1(language, "as-sent", "value", value))
         );
     }
-    for (v, text) in options {
+    for (v, id) in options {
         let selected = if known && v.eq_ignore_ascii_case(value) {
             " selected"
         } else {
@@ -72,61 +73,48 @@ fn select_field(
             s,
             "<option value=\"{}\"{selected}>{}</option>",
             esc(v),
-            esc(text)
+            esc(&t(language, id))
         );
     }
     s.push_str("</select></div>");
     s
 }
 
-/// The choices of contact, as the list shows them.
-fn contacts(l: Language) -> [(&'static str, String); 5] {
-    [
-        ("", t(l, "contact-none")),
-        ("1", t(l, "contact-1")),
-        ("2", t(l, "contact-2")),
-        ("3", t(l, "contact-3")),
-        ("4", t(l, "contact-4")),
-    ]
-}
+/// The choices of contact: the value posted and the message shown.
+const CONTACTS: [(&str, &str); 5] = [
+    ("", "contact-none"),
+    ("1", "contact-1"),
+    ("2", "contact-2"),
+    ("3", "contact-3"),
+    ("4", "contact-4"),
+];
 
 /// The kinds of local time.
-fn local_times(l: Language) -> [(&'static str, String); 3] {
-    [
-        ("", t(l, "local-kind-none")),
-        ("apparent", t(l, "local-kind-apparent")),
-        ("mean", t(l, "local-kind-mean")),
-    ]
-}
+const LOCAL_TIMES: [(&str, &str); 3] = [
+    ("", "local-kind-none"),
+    ("apparent", "local-kind-apparent"),
+    ("mean", "local-kind-mean"),
+];
 
 /// The day reckonings.
-fn day_reckonings(l: Language) -> [(&'static str, String); 2] {
-    [
-        ("", t(l, "day-civil")),
-        ("astronomical", t(l, "day-astronomical")),
-    ]
-}
+const DAY_RECKONINGS: [(&str, &str); 2] = [("", "day-civil"), ("astronomical", "day-astronomical")];
 
 /// The clocks a time may have been read from.
-fn clock_sources(l: Language) -> [(&'static str, String); 6] {
-    [
-        ("", t(l, "not-said")),
-        ("gps", t(l, "clock-gps")),
-        ("radio", t(l, "clock-radio")),
-        ("network", t(l, "clock-network")),
-        ("phone", t(l, "clock-phone")),
-        ("other", t(l, "clock-other")),
-    ]
-}
+const CLOCK_SOURCES: [(&str, &str); 6] = [
+    ("", "not-said"),
+    ("gps", "clock-gps"),
+    ("radio", "clock-radio"),
+    ("network", "clock-network"),
+    ("phone", "clock-phone"),
+    ("other", "clock-other"),
+];
 
 /// The ways the Sun may have been viewed (both safe; see the caution).
-fn viewings(l: Language) -> [(&'static str, String); 3] {
-    [
-        ("", t(l, "not-said")),
-        ("filter", t(l, "viewing-filter")),
-        ("projection", t(l, "viewing-projection")),
-    ]
-}
+const VIEWINGS: [(&str, &str); 3] = [
+    ("", "not-said"),
+    ("filter", "viewing-filter"),
+    ("projection", "viewing-projection"),
+];
 
 /// The fieldset of how the timings were made: observer, clock, instrument, aperture, viewing,
 /// notes (the submission's; every timing takes them).
@@ -135,10 +123,10 @@ fn how_fields(l: Language, first: &TimingFields) -> String {
     format!(
         "<h2>{h}</h2>\n<fieldset><legend class=\"vh\">{h}</legend>\n<div class=\"row\">{}{}</div>\n<div class=\"row\">{}{}</div>\n{}\n<div class=\"field\"><label for=\"notes\">{} <span class=\"hint\">{}</span></label><textarea id=\"notes\" name=\"notes\" rows=\"2\">{}</textarea></div>\n</fieldset>\n",
         text_field("observer", &t(l, "observer"), &t(l, "observer-hint"), &first.observer, ""),
-        select_field(l, ("clock_source", &t(l, "clock-source")), &clock_sources(l), &first.clock_source),
+        select_field(l, ("clock_source", &t(l, "clock-source")), &CLOCK_SOURCES, &first.clock_source),
         text_field("instrument", &t(l, "instrument"), &t(l, "instrument-hint"), &first.instrument, ""),
         text_field("aperture_mm", &t(l, "aperture"), &t(l, "aperture-hint"), &first.aperture_mm, " inputmode=\"numeric\""),
-        select_field(l, ("viewing", &t(l, "viewing")), &viewings(l), &first.viewing),
+        select_field(l, ("viewing", &t(l, "viewing")), &VIEWINGS, &first.viewing),
         esc(&t(l, "notes")),
         esc(&t(l, "notes-hint")),
         esc(&first.notes),
@@ -191,13 +179,13 @@ fn timing_fields(l: Language, k: usize, f: &TimingFields) -> String {
     format!(
         "<fieldset class=\"timing\"><legend>{}</legend>\n{}\n{}\n{}\n<details class=\"local\"{open}><summary>{}</summary>\n{}\n<div class=\"row\">{}{}</div>\n</details>\n</fieldset>\n",
         esc(&legend),
-        select_field(l, (&format!("contact{k}"), &t(l, "contact")), &contacts(l), &f.contact),
+        select_field(l, (&format!("contact{k}"), &t(l, "contact")), &CONTACTS, &f.contact),
         text_field(&format!("time_utc{k}"), &t(l, "time-utc"), &t1(l, "time-utc-hint", "example", "2012-06-05T22:25:41.3Z"), &f.time_utc, ""),
         text_field(&format!("sigma_s{k}"), &t(l, "sigma"), &t(l, "sigma-hint"), &f.sigma_s, " inputmode=\"decimal\""),
         esc(&t(l, "local-summary")),
         text_field(&format!("time_local{k}"), &t(l, "time-local"), &t1(l, "time-local-hint", "example", "1769-06-03T21:25:03.5"), &f.time_local, ""),
-        select_field(l, (&format!("local_time{k}"), &t(l, "local-kind")), &local_times(l), &f.local_time),
-        select_field(l, (&format!("day_reckoning{k}"), &t(l, "day-reckoning")), &day_reckonings(l), &f.day_reckoning),
+        select_field(l, (&format!("local_time{k}"), &t(l, "local-kind")), &LOCAL_TIMES, &f.local_time),
+        select_field(l, (&format!("day_reckoning{k}"), &t(l, "day-reckoning")), &DAY_RECKONINGS, &f.day_reckoning),
     )
 }
 

@@ -539,6 +539,27 @@ pub fn export_csv(timings: &[StoredTiming]) -> (String, Vec<i64>) {
     (s, ids)
 }
 
+/// A database as the first release of the service made it (no columns of historical
+/// records, of how a timing was made or of triage; one submission of one timing), in a
+/// fresh folder named after `name`, for the tests that newer code reads it.
+#[cfg(test)]
+pub(crate) fn oldest_database(name: &str) -> std::path::PathBuf {
+    let dir = std::env::temp_dir().join(format!("tp-{name}-{}", std::process::id()));
+    let _ = std::fs::remove_dir_all(&dir);
+    std::fs::create_dir_all(&dir).unwrap();
+    let path = dir.join("old.sqlite");
+    let conn = Connection::open(&path).unwrap();
+    conn.execute_batch(
+        "CREATE TABLE submissions (id INTEGER PRIMARY KEY, received_utc TEXT NOT NULL, content_hash TEXT NOT NULL, body BLOB NOT NULL, status TEXT NOT NULL, error TEXT, edit_key TEXT, supersedes INTEGER, superseded_by INTEGER);
+         CREATE TABLE timings (id INTEGER PRIMARY KEY, submission_id INTEGER NOT NULL, station TEXT NOT NULL, latitude TEXT NOT NULL, longitude TEXT NOT NULL, elevation_m TEXT NOT NULL, contact TEXT NOT NULL, time_utc TEXT NOT NULL, sigma_s TEXT NOT NULL, time_local TEXT NOT NULL, local_time TEXT NOT NULL, day_reckoning TEXT NOT NULL, longitude_sigma_deg TEXT NOT NULL, excluded_reason TEXT);
+         CREATE TABLE audit (id INTEGER PRIMARY KEY, at_utc TEXT NOT NULL, action TEXT NOT NULL, timing_id INTEGER, reason TEXT);
+         INSERT INTO submissions VALUES (1, 'x', 'h', x'00', 'accepted', NULL, 'k', NULL, NULL);
+         INSERT INTO timings VALUES (1, 1, 'a', '10', '20', '0', '2', '2012-06-05T22:30:00Z', '5', '', '', '', '', NULL);",
+    )
+    .unwrap();
+    path
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -547,20 +568,7 @@ mod tests {
     /// read with those fields empty.
     #[test]
     fn an_older_database_gains_the_new_columns() {
-        let dir = std::env::temp_dir().join(format!("tp-store-{}", std::process::id()));
-        let _ = std::fs::remove_dir_all(&dir);
-        std::fs::create_dir_all(&dir).unwrap();
-        let path = dir.join("old.sqlite");
-        {
-            let conn = Connection::open(&path).unwrap();
-            conn.execute_batch(
-                "CREATE TABLE submissions (id INTEGER PRIMARY KEY, received_utc TEXT NOT NULL, content_hash TEXT NOT NULL, body BLOB NOT NULL, status TEXT NOT NULL, error TEXT, edit_key TEXT, supersedes INTEGER, superseded_by INTEGER);
-                 CREATE TABLE timings (id INTEGER PRIMARY KEY, submission_id INTEGER NOT NULL, station TEXT NOT NULL, latitude TEXT NOT NULL, longitude TEXT NOT NULL, elevation_m TEXT NOT NULL, contact TEXT NOT NULL, time_utc TEXT NOT NULL, sigma_s TEXT NOT NULL, time_local TEXT NOT NULL, local_time TEXT NOT NULL, day_reckoning TEXT NOT NULL, longitude_sigma_deg TEXT NOT NULL, excluded_reason TEXT);
-                 INSERT INTO submissions VALUES (1, 'x', 'h', x'00', 'accepted', NULL, 'k', NULL, NULL);
-                 INSERT INTO timings VALUES (1, 1, 'a', '10', '20', '0', '2', '2012-06-05T22:30:00Z', '5', '', '', '', '', NULL);",
-            )
-            .unwrap();
-        }
+        let path = oldest_database("store");
         let store = Store::open(&path).unwrap();
         let t = store.timings_in_force().unwrap();
         assert_eq!(t.len(), 1);
