@@ -1,7 +1,7 @@
 //! The words of the participants' pages in each language: Project Fluent files
-//! (`locales/<code>.ftl`, embedded in the binary), read once into one `fluent-bundle` per
-//! language. A message missing from a language (the test below forbids it) or failing to
-//! format falls back to English, never to an empty string.
+//! (`locales/<code>/<area>.ftl`, one file per area of the pages, embedded in the binary), read
+//! once into one `fluent-bundle` per language. A message missing from a language (the test
+//! below forbids it) or failing to format falls back to English, never to an empty string.
 //!
 //! Reference: Project Fluent, the syntax guide (projectfluent.org/fluent/guide), and the
 //! `fluent-bundle` crate's documentation.
@@ -9,16 +9,41 @@
 use super::Language;
 use fluent_bundle::concurrent::FluentBundle;
 use fluent_bundle::{FluentArgs, FluentResource, FluentValue};
+use fluent_syntax::ast;
 use std::sync::OnceLock;
 
-/// The Fluent source of a language.
-pub fn source(language: Language) -> &'static str {
+/// The areas of the pages, one Fluent file each: the service's pages and their frame, the
+/// observers' sheet, the public results, the feedback's diagnoses and advice.
+pub const AREAS: [&str; 4] = ["pages", "sheet", "results", "feedback"];
+
+/// The Fluent files of a language, one per area (in the order of [`AREAS`]).
+macro_rules! files_of {
+    ($code:literal) => {
+        [
+            include_str!(concat!("../../locales/", $code, "/pages.ftl")),
+            include_str!(concat!("../../locales/", $code, "/sheet.ftl")),
+            include_str!(concat!("../../locales/", $code, "/results.ftl")),
+            include_str!(concat!("../../locales/", $code, "/feedback.ftl")),
+        ]
+    };
+}
+
+/// The Fluent sources of a language, one per area (in the order of [`AREAS`]).
+pub fn sources(language: Language) -> [&'static str; 4] {
     match language {
-        Language::English => include_str!("../../locales/en.ftl"),
-        Language::Spanish => include_str!("../../locales/es.ftl"),
-        Language::French => include_str!("../../locales/fr.ftl"),
-        Language::German => include_str!("../../locales/de.ftl"),
-        Language::Portuguese => include_str!("../../locales/pt.ftl"),
+        Language::English => files_of!("en"),
+        Language::Spanish => files_of!("es"),
+        Language::French => files_of!("fr"),
+        Language::German => files_of!("de"),
+        Language::Portuguese => files_of!("pt"),
+    }
+}
+
+/// A Fluent source read into a resource; a resource with a syntax error keeps the messages
+/// it could read (the test below fails on any error, so a shipped file has none).
+fn resource_of(source: &str) -> FluentResource {
+    match FluentResource::try_new(source.to_string()) {
+        Ok(r) | Err((r, _)) => r,
     }
 }
 
@@ -36,12 +61,10 @@ fn bundle_of(language: Language) -> Bundle {
     // The pages are left to right in every language here: no isolation marks around the
     // values (they would reach the HTML as invisible characters).
     bundle.set_use_isolating(false);
-    // A resource with a syntax error keeps the messages it could read; the test below fails
-    // on any error, so a shipped file has none.
-    let resource = match FluentResource::try_new(source(language).to_string()) {
-        Ok(r) | Err((r, _)) => r,
-    };
-    let _ = bundle.add_resource(resource);
+    for source in sources(language) {
+        // A message defined twice keeps its first definition (the test forbids it).
+        let _ = bundle.add_resource(resource_of(source));
+    }
     bundle
 }
 
@@ -88,59 +111,80 @@ fn formatted(language: Language, id: &str, args: &Args) -> Option<String> {
 
 /// The ids of a language's messages, in file order (for the completeness test and tools).
 pub fn message_ids(language: Language) -> Vec<String> {
-    let resource = match FluentResource::try_new(source(language).to_string()) {
-        Ok(r) | Err((r, _)) => r,
-    };
-    resource
-        .entries()
-        .filter_map(|e| match e {
-            fluent_syntax::ast::Entry::Message(m) => Some(m.id.name.to_string()),
+    let mut ids = Vec::new();
+    for source in sources(language) {
+        let resource = resource_of(source);
+        ids.extend(resource.entries().filter_map(|e| match e {
+            ast::Entry::Message(m) => Some(m.id.name.to_string()),
             _ => None,
-        })
-        .collect()
+        }));
+    }
+    ids
 }
 
-/// The names of the variables a message uses (`{ $name }`), sorted, for the test that every
-/// translation takes the same values as the English.
+/// The names of the variables a message uses (`{ $name }`, in its value, its attributes and
+/// every variant of a selection), sorted, for the test that every translation takes the same
+/// values as the English.
 pub fn variables(language: Language, id: &str) -> Vec<String> {
-    let text = source(language);
-    let Some(start) = message_start(text, id) else {
-        return Vec::new();
-    };
-    let body: String = text[start..]
-        .lines()
-        .enumerate()
-        .take_while(|(k, l)| *k == 0 || l.starts_with(' ') || l.is_empty())
-        .map(|(_, l)| l)
-        .collect::<Vec<_>>()
-        .join("\n");
-    let mut names: Vec<String> = body
-        .split("$")
-        .skip(1)
-        .map(|rest| {
-            rest.chars()
-                .take_while(|c| c.is_ascii_alphanumeric() || *c == '_' || *c == '-')
-                .collect()
-        })
-        .collect();
+    let mut names = Vec::new();
+    for source in sources(language) {
+        let resource = resource_of(source);
+        for entry in resource.entries() {
+            if let ast::Entry::Message(m) = entry {
+                if m.id.name == id {
+                    m.value
+                        .iter()
+                        .for_each(|p| pattern_variables(p, &mut names));
+                    for a in &m.attributes {
+                        pattern_variables(&a.value, &mut names);
+                    }
+                }
+            }
+        }
+    }
     names.sort();
     names.dedup();
     names
 }
 
-/// Where message `id` begins in a Fluent source (its line `id =`).
-fn message_start(text: &str, id: &str) -> Option<usize> {
-    let mut offset = 0;
-    for line in text.split_inclusive('\n') {
-        if line
-            .strip_prefix(id)
-            .is_some_and(|rest| rest.trim_start().starts_with('='))
-        {
-            return Some(offset);
+fn pattern_variables(pattern: &ast::Pattern<&str>, names: &mut Vec<String>) {
+    for element in &pattern.elements {
+        if let ast::PatternElement::Placeable { expression } = element {
+            expression_variables(expression, names);
         }
-        offset += line.len();
     }
-    None
+}
+
+fn expression_variables(expression: &ast::Expression<&str>, names: &mut Vec<String>) {
+    match expression {
+        ast::Expression::Inline(inline) => inline_variables(inline, names),
+        ast::Expression::Select { selector, variants } => {
+            inline_variables(selector, names);
+            for v in variants {
+                pattern_variables(&v.value, names);
+            }
+        }
+    }
+}
+
+fn inline_variables(inline: &ast::InlineExpression<&str>, names: &mut Vec<String>) {
+    match inline {
+        ast::InlineExpression::VariableReference { id } => names.push(id.name.to_string()),
+        ast::InlineExpression::Placeable { expression } => expression_variables(expression, names),
+        ast::InlineExpression::FunctionReference { arguments, .. }
+        | ast::InlineExpression::TermReference {
+            arguments: Some(arguments),
+            ..
+        } => {
+            for a in &arguments.positional {
+                inline_variables(a, names);
+            }
+            for a in &arguments.named {
+                inline_variables(&a.value, names);
+            }
+        }
+        _ => {}
+    }
 }
 
 #[cfg(test)]
@@ -152,14 +196,31 @@ mod tests {
     #[test]
     fn every_message_exists_in_every_language() {
         for language in Language::ALL {
-            let errors = FluentResource::try_new(source(language).to_string())
-                .err()
-                .map(|(_, e)| e.len())
-                .unwrap_or(0);
-            assert_eq!(errors, 0, "{}: syntax errors", language.code());
+            for (area, source) in AREAS.iter().zip(sources(language)) {
+                let errors = FluentResource::try_new(source.to_string())
+                    .err()
+                    .map(|(_, e)| e.len())
+                    .unwrap_or(0);
+                assert_eq!(errors, 0, "{}/{area}.ftl: syntax errors", language.code());
+            }
+            let mut ids = message_ids(language);
+            let all = ids.len();
+            ids.sort();
+            ids.dedup();
+            assert_eq!(
+                ids.len(),
+                all,
+                "{}: a message defined twice",
+                language.code()
+            );
         }
         let english = message_ids(Language::English);
         assert!(english.len() > 50, "{} messages", english.len());
+        // The variables are read from the syntax tree, selections included.
+        assert_eq!(
+            variables(Language::English, "feedback-received"),
+            ["id", "n"]
+        );
         for language in Language::ALL {
             let ids = message_ids(language);
             for id in &english {

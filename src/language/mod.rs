@@ -4,7 +4,7 @@
 //!
 //! - `mod.rs`: the languages and the choice among them (`Accept-Language`, RFC 9110 section
 //!   12.5.4, matched by `fluent-langneg`).
-//! - `messages.rs`: the words, in Project Fluent files (`locales/<code>.ftl`, read with
+//! - `messages.rs`: the words, in Project Fluent files (`locales/<code>/<area>.ftl`, read with
 //!   `fluent-bundle`); every message exists in every language (a test holds them together).
 //! - `numbers.rs`: decimals and dates written as each language writes them (separators from
 //!   the CLDR data of `num-format`, month names from `chrono`'s locales).

@@ -6,7 +6,7 @@ use crate::geometry::transit::TransitEvent;
 
 /// A verdict in words for people: a closed set, each with its English words (the API's
 /// `verdict_words`, serialised as them) and its message in the participants' languages
-/// (`locales/*.ftl`; a test holds the English message to the English words).
+/// (`locales/*/*.ftl`; a test holds the English message to the English words).
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
 pub enum VerdictWords {
     /// The timing agrees with its prediction.

@@ -1,0 +1,1 @@
+# transit-parallax: Meldungen (feedback) auf Deutsch. DURCHSICHT NÖTIG: braucht die Durchsicht durch Muttersprachler (translations want a native speaker's review).

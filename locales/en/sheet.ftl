@@ -1,0 +1,1 @@
+# transit-parallax: sheet messages in English (the reference: every message here must exist in every language's file, with the same variables).

@@ -1,0 +1,1 @@
+# transit-parallax: mensajes (results) en español. REVISIÓN PENDIENTE: necesita la revisión de un hablante nativo (translations want a native speaker's review).

@@ -1,0 +1,1 @@
+# transit-parallax : messages (sheet) en français. RELECTURE NÉCESSAIRE : elle demande la relecture d'un locuteur natif (translations want a native speaker's review).

@@ -1,0 +1,1 @@
+# transit-parallax: mensagens (sheet) em português. REVISÃO PENDENTE: precisa da revisão de um falante nativo (translations want a native speaker's review).
