@@ -166,3 +166,80 @@ fn the_public_page_follows_the_solution_and_keeps_private_things_private() {
         .contains("<td>Harbour Light</td><td>1.3</td><td>103.9</td>"));
     assert_nothing_private(&after.body, &[key, key2]);
 }
+
+/// The page in the visitor's language: German from `Accept-Language` (its words, decimal
+/// commas, the charts' words, `Content-Language`), French from the switch (`?lang=fr`), and a
+/// separate version tag per language so that no cache hands one language to another; nothing
+/// private in any of them.
+#[test]
+fn the_public_page_speaks_the_visitors_language() {
+    let server = start(&db("languages"), &["--token", TOKEN]);
+    seed_five_stations(&server, false);
+    let key = submit_private(server.port, "Lantern Hill", (35.6789, 139.6912));
+    let solution = settled_solution(&server);
+    settled_report(&server);
+    let german = |path: &str| {
+        common::server::request(
+            server.port,
+            "GET",
+            path,
+            &["Accept-Language: de-DE,de;q=0.9,en;q=0.5"],
+            b"",
+        )
+    };
+    let de = (0..600)
+        .map(|_| {
+            std::thread::sleep(std::time::Duration::from_millis(100));
+            german("/results")
+        })
+        .find(|r| r.body.contains("id=\"convergence\""))
+        .expect("the convergence drawn within a minute");
+    assert_eq!(de.status, 200);
+    assert_eq!(de.header("content-language").as_deref(), Some("de"));
+    assert!(de.body.contains("<html lang=\"de\""));
+    assert!(de
+        .body
+        .contains("Ergebnisse: die Sonnenparallaxe bis jetzt"));
+    let want = format!(
+        "{:.4}\" ± {:.4}\"",
+        solution["parallax_arcsec"].as_f64().unwrap(),
+        solution["parallax_sigma_arcsec"].as_f64().unwrap()
+    )
+    .replace('.', ",");
+    assert_eq!(text_of(&de.body, "parallax"), want);
+    assert!(text_of(&de.body, "au").contains("Millionen km"));
+    assert!(text_of(&de.body, "as-of").contains("sie enthält jede eingegangene Zeit"));
+    assert!(de
+        .body
+        .contains("<td>Lantern Hill</td><td>35,7</td><td>139,7</td>"));
+    // The charts speak German too: the map's key and the convergence's axes.
+    assert!(de.body.contains("Fläche: Anteil an der Information"));
+    assert!(de.body.contains("Konvergenz der Sonnenparallaxe"));
+    assert!(!de.body.contains("share of the information"));
+    assert!(!de.body.contains("timings in the solution"));
+    assert_nothing_private(&de.body, std::slice::from_ref(&key));
+
+    let fr = get(server.port, "/results?lang=fr", None);
+    assert_eq!(fr.status, 200);
+    assert!(fr.body.contains("<html lang=\"fr\""));
+    assert!(text_of(&fr.body, "au").contains("millions de km"));
+    assert!(fr.body.contains("Carte du monde des stations"));
+    assert!(fr.body.contains("aria-current=\"true\">Français</a>"));
+    assert_nothing_private(&fr.body, std::slice::from_ref(&key));
+
+    let en = results(server.port);
+    for page in [&de, &fr] {
+        assert_ne!(page.header("etag"), en.header("etag"), "a tag per language");
+    }
+    // The German tag does not match the English page.
+    let etag = de.header("etag").unwrap();
+    let english_again = common::server::request(
+        server.port,
+        "GET",
+        "/results",
+        &[&format!("If-None-Match: {etag}"), "Accept-Language: en"],
+        b"",
+    );
+    assert_eq!(english_again.status, 200);
+    assert!(english_again.body.contains("<html lang=\"en\""));
+}

@@ -53,6 +53,17 @@ pub fn decimal(language: Language, x: f64, decimals: usize) -> String {
 }
 
 /// A date written in full for the language: "5 June 2012", "5 de junio de 2012",
+/// A number already written with a point for its decimal sign (a chart's tick label such as
+/// `8.79` or `-0.5`), with the language's decimal sign instead: `8,79` in German.
+pub fn decimal_text(language: Language, number: &str) -> String {
+    let sign = cldr(language).decimal();
+    if sign == "." {
+        number.to_string()
+    } else {
+        number.replace('.', sign)
+    }
+}
+
 /// "5 juin 2012", "5. Juni 2012", "5 de junho de 2012".
 pub fn date_long(language: Language, date: NaiveDate) -> String {
     let pattern = match language {
@@ -88,6 +99,8 @@ mod tests {
             "no minus on zero"
         );
         assert_eq!(decimal(Language::English, f64::NAN, 2), "–");
+        assert_eq!(decimal_text(Language::German, "-8.79"), "-8,79");
+        assert_eq!(decimal_text(Language::English, "8.79"), "8.79");
     }
 
     // Month names: glibc's locale data as chrono carries it (from memory of those names).

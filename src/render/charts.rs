@@ -5,12 +5,14 @@
 //! written by `figures.rs`.
 
 use crate::geometry::contacts::Contact;
-use crate::reduction::Reduction;
+use crate::language::numbers::decimal;
+use crate::language::{text, Args, Language};
+use crate::reduction::{Reduction, StationContribution};
 use crate::render::axes::{SMALL_TEXT_PX, TEXT_PX};
 use crate::render::svg::{esc, graticule_labels_sized, land_svg, svg_open_text};
 use std::fmt::Write;
 
-pub use crate::render::convergence_chart::convergence_svg;
+pub use crate::render::convergence_chart::{convergence_svg, convergence_svg_in};
 pub use crate::render::disc_chart::{
     disc_exaggeration, solar_disc_chart, solar_disc_svg, DiscChart, DISC_STATIONS_MAX,
 };
@@ -55,12 +57,13 @@ fn marker_r(share: f64) -> f64 {
 }
 
 /// The map's keys below the frame: the colour scale and three marker sizes.
-fn map_keys(s: &mut String, h: f64) {
+fn map_keys(language: Language, s: &mut String, h: f64) {
     let y = h + 14.0;
     let _ = writeln!(
         s,
-        "<text x=\"10\" y=\"{:.1}\">colour: mean (O - C)/σ</text>",
-        y + 12.0
+        "<text x=\"10\" y=\"{:.1}\">{}</text>",
+        y + 12.0,
+        esc(&text(language, "chart-map-colour-key", &Args::new()))
     );
     for (k, z) in [-2.0, -1.0, 0.0, 1.0, 2.0].iter().enumerate() {
         let x = 200.0 + 34.0 * k as f64;
@@ -69,8 +72,9 @@ fn map_keys(s: &mut String, h: f64) {
     let key_y = h + 76.0;
     let _ = writeln!(
         s,
-        "<text x=\"10\" y=\"{:.1}\">area: share of the information</text>",
-        key_y + 5.0
+        "<text x=\"10\" y=\"{:.1}\">{}</text>",
+        key_y + 5.0,
+        esc(&text(language, "chart-map-area-key", &Args::new()))
     );
     for (k, share) in [0.01f64, 0.05, 0.2].iter().enumerate() {
         let x = 270.0 + 100.0 * k as f64;
@@ -81,11 +85,46 @@ fn map_keys(s: &mut String, h: f64) {
 
 /// A world map (equirectangular) with each station: marker area by its information share,
 /// colour by its mean normalised residual, a cross where none of its timings was used. Land
-/// outlines: Natural Earth 1:110m (public domain).
+/// outlines: Natural Earth 1:110m (public domain). In English.
 pub fn station_map_svg(red: &Reduction) -> String {
+    station_map_svg_in(Language::English, red)
+}
+
+/// A station's mark's title: its name and number, and its share and mean normalised residual
+/// or why it was not used.
+fn station_title(language: Language, number: usize, st: &StationContribution) -> String {
+    let args = Args::new()
+        .text("station", st.station.clone())
+        .text("number", number.to_string());
+    esc(&match &st.not_used {
+        Some(why) => text(
+            language,
+            "chart-map-not-used",
+            &args.text("why", why.clone()),
+        ),
+        None => {
+            let z = decimal(language, st.mean_normalised_residual, 2);
+            let args = args
+                .text("share", decimal(language, st.information_share, 3))
+                .text(
+                    "z",
+                    if st.mean_normalised_residual >= 0.0 && !z.starts_with('-') {
+                        format!("+{z}")
+                    } else {
+                        z
+                    },
+                );
+            text(language, "chart-map-station", &args)
+        }
+    })
+}
+
+/// The station map in `language`.
+pub fn station_map_svg_in(language: Language, red: &Reduction) -> String {
     let (w, h) = (720.0, 360.0);
     let px = |lon: f64, lat: f64| ((lon + 180.0) * 2.0, (90.0 - lat) * 2.0);
-    let mut s = svg_open_text(w, h + 100.0, "World map of the stations", TEXT_PX);
+    let title = text(language, "chart-map-title", &Args::new());
+    let mut s = svg_open_text(w, h + 100.0, &title, TEXT_PX);
     let _ = writeln!(s, "<rect width=\"100%\" height=\"100%\" fill=\"#ffffff\"/><rect width=\"{w}\" height=\"{h}\" fill=\"#dbeafe\"/>");
     s.push_str(&land_svg("#e7e2d3", "#9c9581", 0.4));
     let _ = writeln!(s, "<g stroke=\"#94a3b8\" stroke-width=\"0.3\">");
@@ -103,30 +142,25 @@ pub fn station_map_svg(red: &Reduction) -> String {
     let _ = writeln!(s, "<defs><clipPath id=\"map-frame\"><rect width=\"{w}\" height=\"{h}\"/></clipPath></defs>\n<g clip-path=\"url(#map-frame)\">");
     for (i, st) in red.stations.iter().enumerate().take(MAP_STATIONS_MAX) {
         let (x, y) = px(st.longitude_deg, st.latitude_deg);
-        if let Some(why) = &st.not_used {
+        if st.not_used.is_some() {
             let _ = writeln!(
                 s,
-                "<g class=\"not-used\" stroke=\"#b91c1c\" stroke-width=\"1.6\"><line x1=\"{:.1}\" y1=\"{:.1}\" x2=\"{:.1}\" y2=\"{:.1}\"/><line x1=\"{:.1}\" y1=\"{:.1}\" x2=\"{:.1}\" y2=\"{:.1}\"/><title>{} (#{}): not used: {}</title></g>",
+                "<g class=\"not-used\" stroke=\"#b91c1c\" stroke-width=\"1.6\"><line x1=\"{:.1}\" y1=\"{:.1}\" x2=\"{:.1}\" y2=\"{:.1}\"/><line x1=\"{:.1}\" y1=\"{:.1}\" x2=\"{:.1}\" y2=\"{:.1}\"/><title>{}</title></g>",
                 x - 4.0, y - 4.0, x + 4.0, y + 4.0, x - 4.0, y + 4.0, x + 4.0, y - 4.0,
-                esc(&st.station),
-                i + 1,
-                esc(why)
+                station_title(language, i + 1, st)
             );
             continue;
         }
         let _ = writeln!(
             s,
-            "<circle cx=\"{x:.1}\" cy=\"{y:.1}\" r=\"{:.1}\" fill=\"{}\" fill-opacity=\"0.85\" stroke=\"#1f2937\" stroke-width=\"0.6\"><title>{} (#{}): share {:.3}, mean z {:+.2}</title></circle>",
+            "<circle cx=\"{x:.1}\" cy=\"{y:.1}\" r=\"{:.1}\" fill=\"{}\" fill-opacity=\"0.85\" stroke=\"#1f2937\" stroke-width=\"0.6\"><title>{}</title></circle>",
             marker_r(st.information_share),
             residual_colour(st.mean_normalised_residual),
-            esc(&st.station),
-            i + 1,
-            st.information_share,
-            st.mean_normalised_residual
+            station_title(language, i + 1, st)
         );
     }
     s.push_str("</g>\n");
-    map_keys(&mut s, h);
+    map_keys(language, &mut s, h);
     s.push_str("</svg>\n");
     s
 }

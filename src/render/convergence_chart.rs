@@ -11,6 +11,8 @@
 //! a reader wants to read off. The zoom keeps the value linear and readable, the log panel
 //! keeps the whole history and shows at a glance whether the uncertainty falls as it should.
 
+use crate::language::numbers::{decimal, decimal_text};
+use crate::language::{text, Args, Language};
 use crate::reduction::{ConvergencePoint, Reduction};
 use crate::render::axes::{edge_arrow, log_tick_label, log_ticks, SMALL_TEXT_PX, TEXT_PX};
 use crate::render::svg::{svg_open_text, ticks, trim_tick};
@@ -36,6 +38,7 @@ pub fn zoom_range(final_arcsec: f64, final_sigma_arcsec: f64) -> (f64, f64) {
 
 /// The parallax's band and line, clipped to the zoomed panel.
 fn zoomed_panel(
+    language: Language,
     s: &mut String,
     pts: &[ConvergencePoint],
     x_of: &dyn Fn(f64) -> f64,
@@ -44,9 +47,14 @@ fn zoomed_panel(
     let y_of = |v: f64| A.0 + (A.1 - A.0) * (yhi - v) / (yhi - ylo);
     for t in ticks(ylo, yhi, 5) {
         let y = y_of(t);
-        let _ = writeln!(s, "<line x1=\"{LEFT}\" y1=\"{y:.1}\" x2=\"{}\" y2=\"{y:.1}\" stroke=\"#e5e7eb\"/><text x=\"{}\" y=\"{:.1}\" text-anchor=\"end\">{}</text>", WIDTH - RIGHT, LEFT - 6.0, y + 4.5, trim_tick(t));
+        let _ = writeln!(s, "<line x1=\"{LEFT}\" y1=\"{y:.1}\" x2=\"{}\" y2=\"{y:.1}\" stroke=\"#e5e7eb\"/><text x=\"{}\" y=\"{:.1}\" text-anchor=\"end\">{}</text>", WIDTH - RIGHT, LEFT - 6.0, y + 4.5, decimal_text(language, &trim_tick(t)));
     }
-    let _ = writeln!(s, "<text x=\"{LEFT}\" y=\"{}\">Solar parallax (arcsec), zoomed on the final value ± {ZOOM_SIGMAS:.0} uncertainties</text>", A.0 - 12.0);
+    let zoomed = words(
+        language,
+        "chart-convergence-zoomed",
+        Args::new().text("sigmas", format!("{ZOOM_SIGMAS:.0}")),
+    );
+    let _ = writeln!(s, "<text x=\"{LEFT}\" y=\"{}\">{zoomed}</text>", A.0 - 12.0);
     let line = |f: &dyn Fn(&ConvergencePoint) -> f64,
                 it: &mut dyn Iterator<Item = &ConvergencePoint>| {
         it.map(|p| format!("{:.1},{:.1}", x_of(p.timings as f64), y_of(f(p))))
@@ -76,10 +84,15 @@ fn zoomed_panel(
         A.1 - A.0
     );
     let iau = crate::sky::constants::nominal_parallax_arcsec();
-    let label = format!("IAU 2009 value {}\"", trim_tick(iau));
+    let value = decimal_text(language, &trim_tick(iau));
+    let label = text(
+        language,
+        "chart-convergence-iau",
+        &Args::new().text("value", value),
+    );
     if (ylo..=yhi).contains(&iau) {
         let y = y_of(iau);
-        let _ = writeln!(s, "<line x1=\"{LEFT}\" y1=\"{y:.1}\" x2=\"{}\" y2=\"{y:.1}\" stroke=\"#15803d\" stroke-dasharray=\"5,4\"/><text x=\"{}\" y=\"{:.1}\" text-anchor=\"end\" fill=\"#15803d\" font-size=\"{SMALL_TEXT_PX}\" stroke=\"#ffffff\" stroke-width=\"3\" paint-order=\"stroke\">{label}</text>", WIDTH - RIGHT, WIDTH - RIGHT - 4.0, if y - A.0 > 20.0 { y - 5.0 } else { y + 16.0 });
+        let _ = writeln!(s, "<line x1=\"{LEFT}\" y1=\"{y:.1}\" x2=\"{}\" y2=\"{y:.1}\" stroke=\"#15803d\" stroke-dasharray=\"5,4\"/><text x=\"{}\" y=\"{:.1}\" text-anchor=\"end\" fill=\"#15803d\" font-size=\"{SMALL_TEXT_PX}\" stroke=\"#ffffff\" stroke-width=\"3\" paint-order=\"stroke\">{}</text>", WIDTH - RIGHT, WIDTH - RIGHT - 4.0, if y - A.0 > 20.0 { y - 5.0 } else { y + 16.0 }, crate::render::svg::esc(&label));
     } else {
         let up = iau > yhi;
         let (y, ty) = if up {
@@ -88,12 +101,17 @@ fn zoomed_panel(
             (A.1 - 14.0, A.1 - 6.0)
         };
         let x = WIDTH - RIGHT - 12.0;
-        let _ = writeln!(s, "{}<text x=\"{:.1}\" y=\"{ty:.1}\" text-anchor=\"end\" fill=\"#15803d\" font-size=\"{SMALL_TEXT_PX}\">{label} {}, off this scale</text>", edge_arrow((x, y), up, "#15803d"), x - 8.0, if up { "above" } else { "below" });
+        let _ = writeln!(s, "{}<text x=\"{:.1}\" y=\"{ty:.1}\" text-anchor=\"end\" fill=\"#15803d\" font-size=\"{SMALL_TEXT_PX}\">{}</text>", edge_arrow((x, y), up, "#15803d"), x - 8.0, words(language, if up { "chart-convergence-off-above" } else { "chart-convergence-off-below" }, Args::new().text("label", label)));
     }
 }
 
 /// The uncertainty on a logarithmic scale, with the fall as 1/sqrt(N) through the final one.
-fn uncertainty_panel(s: &mut String, pts: &[ConvergencePoint], x_of: &dyn Fn(f64) -> f64) {
+fn uncertainty_panel(
+    language: Language,
+    s: &mut String,
+    pts: &[ConvergencePoint],
+    x_of: &dyn Fn(f64) -> f64,
+) {
     let Some(last) = pts.last() else {
         return;
     };
@@ -107,12 +125,13 @@ fn uncertainty_panel(s: &mut String, pts: &[ConvergencePoint], x_of: &dyn Fn(f64
     let y_of = |v: f64| B.1 - (B.1 - B.0) * (v.max(lo).ln() - lo.ln()) / (hi.ln() - lo.ln());
     for t in log_ticks(lo, hi) {
         let y = y_of(t);
-        let _ = writeln!(s, "<line x1=\"{LEFT}\" y1=\"{y:.1}\" x2=\"{}\" y2=\"{y:.1}\" stroke=\"#e5e7eb\"/><text x=\"{}\" y=\"{:.1}\" text-anchor=\"end\">{}</text>", WIDTH - RIGHT, LEFT - 6.0, y + 4.5, log_tick_label(t));
+        let _ = writeln!(s, "<line x1=\"{LEFT}\" y1=\"{y:.1}\" x2=\"{}\" y2=\"{y:.1}\" stroke=\"#e5e7eb\"/><text x=\"{}\" y=\"{:.1}\" text-anchor=\"end\">{}</text>", WIDTH - RIGHT, LEFT - 6.0, y + 4.5, decimal_text(language, &log_tick_label(t)));
     }
     let _ = writeln!(
         s,
-        "<text x=\"{LEFT}\" y=\"{}\">Its standard uncertainty (arcsec, logarithmic scale)</text>",
-        B.0 - 12.0
+        "<text x=\"{LEFT}\" y=\"{}\">{}</text>",
+        B.0 - 12.0,
+        words(language, "chart-convergence-sigma-axis", Args::new())
     );
     let _ = writeln!(
         s,
@@ -134,14 +153,34 @@ fn uncertainty_panel(s: &mut String, pts: &[ConvergencePoint], x_of: &dyn Fn(f64
         line(&|p| p.sigma_arcsec)
     );
     for p in pts {
-        let _ = writeln!(s, "<circle cx=\"{:.1}\" cy=\"{:.1}\" r=\"2.5\" fill=\"#1d4ed8\"><title>{} timings: {:.4}\" ± {:.4}\"</title></circle>", x_of(p.timings as f64), y_of(p.sigma_arcsec), p.timings, p.parallax_arcsec, p.sigma_arcsec);
+        let _ = writeln!(s, "<circle cx=\"{:.1}\" cy=\"{:.1}\" r=\"2.5\" fill=\"#1d4ed8\"><title>{}</title></circle>", x_of(p.timings as f64), y_of(p.sigma_arcsec), point_title(language, p));
     }
-    let _ = writeln!(s, "<text x=\"{}\" y=\"{}\" text-anchor=\"end\" fill=\"#4b5563\" font-size=\"{SMALL_TEXT_PX}\">dashed: falling as 1/√N to the final value</text>", WIDTH - RIGHT - 6.0, B.0 + 16.0);
+    let _ = writeln!(s, "<text x=\"{}\" y=\"{}\" text-anchor=\"end\" fill=\"#4b5563\" font-size=\"{SMALL_TEXT_PX}\">{}</text>", WIDTH - RIGHT - 6.0, B.0 + 16.0, words(language, "chart-convergence-dashed", Args::new()));
 }
 
-/// The convergence chart (see the module's description).
+/// A chart's words in `language`, escaped for the SVG.
+fn words(language: Language, id: &str, args: Args) -> String {
+    crate::render::svg::esc(&text(language, id, &args))
+}
+
+/// A point's title: the timings so far and the solution with them.
+fn point_title(language: Language, p: &ConvergencePoint) -> String {
+    let args = Args::new()
+        .text("timings", p.timings.to_string())
+        .text("parallax", decimal(language, p.parallax_arcsec, 4))
+        .text("sigma", decimal(language, p.sigma_arcsec, 4));
+    words(language, "chart-convergence-point", args)
+}
+
+/// The convergence chart (see the module's description), in English.
 pub fn convergence_svg(red: &Reduction) -> String {
-    let mut s = svg_open_text(WIDTH, HEIGHT, "Convergence of the solar parallax", TEXT_PX);
+    convergence_svg_in(Language::English, red)
+}
+
+/// The convergence chart in `language`.
+pub fn convergence_svg_in(language: Language, red: &Reduction) -> String {
+    let title = text(language, "chart-convergence-title", &Args::new());
+    let mut s = svg_open_text(WIDTH, HEIGHT, &title, TEXT_PX);
     let _ = writeln!(s, "<g font-size=\"{TEXT_PX}\">");
     let _ = writeln!(s, "<rect width=\"100%\" height=\"100%\" fill=\"#ffffff\"/>");
     let pts: Vec<ConvergencePoint> = red
@@ -153,7 +192,11 @@ pub fn convergence_svg(red: &Reduction) -> String {
         .cloned()
         .collect();
     let Some(last) = pts.last() else {
-        let _ = writeln!(s, "<text x=\"20\" y=\"40\">Too few timings to follow the solution as they are added.</text></g></svg>");
+        let _ = writeln!(
+            s,
+            "<text x=\"20\" y=\"40\">{}</text></g></svg>",
+            words(language, "chart-convergence-too-few", Args::new())
+        );
         return s;
     };
     let final_pi = red.parallax_arcsec.unwrap_or(last.parallax_arcsec);
@@ -161,11 +204,18 @@ pub fn convergence_svg(red: &Reduction) -> String {
     let x_of = |n: f64| LEFT + (WIDTH - LEFT - RIGHT) * n / nmax;
     for t in ticks(0.0, nmax, 8) {
         let x = x_of(t);
-        let _ = writeln!(s, "<line x1=\"{x:.1}\" y1=\"{}\" x2=\"{x:.1}\" y2=\"{}\" stroke=\"#e5e7eb\"/><line x1=\"{x:.1}\" y1=\"{}\" x2=\"{x:.1}\" y2=\"{}\" stroke=\"#e5e7eb\"/><text x=\"{x:.1}\" y=\"{}\" text-anchor=\"middle\">{}</text>", A.0, A.1, B.0, B.1, B.1 + 18.0, trim_tick(t));
+        let _ = writeln!(s, "<line x1=\"{x:.1}\" y1=\"{}\" x2=\"{x:.1}\" y2=\"{}\" stroke=\"#e5e7eb\"/><line x1=\"{x:.1}\" y1=\"{}\" x2=\"{x:.1}\" y2=\"{}\" stroke=\"#e5e7eb\"/><text x=\"{x:.1}\" y=\"{}\" text-anchor=\"middle\">{}</text>", A.0, A.1, B.0, B.1, B.1 + 18.0, decimal_text(language, &trim_tick(t)));
     }
-    let _ = writeln!(s, "<text x=\"{}\" y=\"{}\" text-anchor=\"middle\">timings in the solution (in the order of the file)</text>", (LEFT + WIDTH - RIGHT) / 2.0, HEIGHT - 12.0);
-    zoomed_panel(&mut s, &pts, &x_of, zoom_range(final_pi, last.sigma_arcsec));
-    uncertainty_panel(&mut s, &pts, &x_of);
+    let _ = writeln!(
+        s,
+        "<text x=\"{}\" y=\"{}\" text-anchor=\"middle\">{}</text>",
+        (LEFT + WIDTH - RIGHT) / 2.0,
+        HEIGHT - 12.0,
+        words(language, "chart-convergence-timings-axis", Args::new())
+    );
+    let range = zoom_range(final_pi, last.sigma_arcsec);
+    zoomed_panel(language, &mut s, &pts, &x_of, range);
+    uncertainty_panel(language, &mut s, &pts, &x_of);
     s.push_str("</g>\n</svg>\n");
     s
 }

@@ -55,7 +55,7 @@ pub struct Solved {
     /// When this version was reduced, ISO 8601 UTC (empty: none yet).
     pub solved_utc: String,
     /// The public results page's section of this version (`results_page.rs`).
-    pub public_html: String,
+    pub public: super::results_page::PublicSection,
     observations: Option<ObservationSet>,
 }
 
@@ -66,8 +66,8 @@ pub struct Rendered {
     pub version: u64,
     /// The page, or `None` when there is no solution to report.
     pub html: Option<Bytes>,
-    /// The convergence chart for the public results page (`None`: nothing to draw).
-    pub convergence_html: Option<String>,
+    /// The convergence chart for the public results page, in each language.
+    pub convergence: super::results_page::ConvergenceCharts,
 }
 
 /// The cache of the newest artefacts, and the workers' own database connections.
@@ -238,7 +238,10 @@ fn render_once(event: &crate::TransitEvent, solved: &Solved) -> Rendered {
         html: red
             .as_ref()
             .map(|r| Bytes::from(crate::render::document::html_report(r))),
-        convergence_html: red.as_ref().and_then(super::results_page::convergence_html),
+        convergence: red
+            .as_ref()
+            .map(super::results_page::ConvergenceCharts::of)
+            .unwrap_or_default(),
     }
 }
 
@@ -285,7 +288,7 @@ fn solve_once(app: &App, generation: u64) -> Solved {
         solved.charts_html =
             super::organiser::charts_html(red) + &crate::render::residual_groups::groups_html(red);
     }
-    solved.public_html = super::results_page::public_section(&solved, &timings);
+    solved.public = super::results_page::public_section(&solved, &timings);
     solved.solution_json = solution_prefix(&solved);
     solved.export_csv = Bytes::from(text);
     solved

@@ -6,6 +6,7 @@
 use super::pages::scroll_box;
 use super::server::App;
 use super::store_registrations::{NetworkPlan, NetworkStation, Registration};
+use crate::language::{text, Args, Language};
 use crate::render::svg::{esc, graticule_labels, graticule_lines, land_svg, svg_open, world_px};
 use std::fmt::Write;
 
@@ -143,31 +144,39 @@ fn registrations_table(registrations: &[Registration], plan: &NetworkPlan) -> St
     scroll_box("Registered stations", &t)
 }
 
-/// The sentence of the solution's time and the changes it does not include yet.
+/// The sentence of the solution's time and the changes it does not include yet (English, as
+/// the organiser's page has it).
 pub fn as_of_sentence(solved_utc: &str, version: u64, pending: u64) -> String {
-    let when = if solved_utc.is_empty() {
-        "No solution has been computed yet".to_string()
+    as_of_sentence_in(Language::English, solved_utc, version, pending)
+}
+
+/// The sentence of the solution's time and the changes it does not include yet, in
+/// `language` (HTML: the values escaped).
+pub fn as_of_sentence_in(
+    language: Language,
+    solved_utc: &str,
+    version: u64,
+    pending: u64,
+) -> String {
+    let solution = if solved_utc.is_empty() {
+        text(language, "as-of-none", &Args::new())
     } else {
-        format!(
-            "Solution as of {} UTC (version {version} of the data)",
-            esc(&solved_utc
-                .replace('T', " ")
-                .trim_end_matches('Z')
-                .chars()
-                .take(19)
-                .collect::<String>())
-        )
+        let when: String = solved_utc
+            .replace('T', " ")
+            .trim_end_matches('Z')
+            .chars()
+            .take(19)
+            .collect();
+        let args = Args::new()
+            .text("when", when)
+            .text("version", version.to_string());
+        text(language, "as-of-solution", &args)
     };
-    let pending = match pending {
-        0 => "; it includes every timing received.".to_string(),
-        1 => {
-            "; 1 newer change (a submission, correction or exclusion) is being reduced.".to_string()
-        }
-        n => format!(
-            "; {n} newer changes (submissions, corrections or exclusions) are being reduced."
-        ),
-    };
-    format!("{when}{pending}")
+    let args = Args::new().text("solution", solution);
+    esc(&match pending {
+        0 => text(language, "as-of-settled", &args),
+        n => text(language, "as-of-pending", &args.count("n", n as usize)),
+    })
 }
 
 /// The organiser page's section: the "as of" sentence, the network planned against

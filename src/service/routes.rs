@@ -49,8 +49,12 @@ async fn report(State(app): State<Shared>, headers: HeaderMap, Query(q): Q) -> R
 }
 
 /// `GET /results`: public, from the cache.
-async fn results(State(app): State<Shared>, headers: HeaderMap) -> Response {
-    super::results_page::results(&app, &headers)
+async fn results(
+    State(app): State<Shared>,
+    Extension(language): Extension<crate::language::Language>,
+    headers: HeaderMap,
+) -> Response {
+    super::results_page::results(&app, &headers, language)
 }
 
 async fn organiser(
