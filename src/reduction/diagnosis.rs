@@ -9,46 +9,14 @@
 //! [`crate::reduction`]).
 
 use super::historical_diagnosis::{meridian_alternatives, reckoning_sentence};
+pub use super::row_blunders::{find_row_blunder, RowBlunder};
+use super::row_blunders::{minute_typo, predicted_hours};
 use crate::geometry::contacts::{Contact, Perturbation};
-use crate::geometry::station::{GeocentricStation, Station};
+use crate::geometry::station::Station;
 use crate::geometry::transit::TransitEvent;
 
-/// Predicted contact time (hours from the elements' epoch) for a station and contact under
-/// trial parameters, or `None` when the station sees no such contact.
-fn predicted_hours(
-    event: &TransitEvent,
-    geo: &GeocentricStation,
-    c: Contact,
-    p: &Perturbation,
-) -> Option<f64> {
-    event.contact_hours_perturbed(geo, c, p)
-}
-
-/// A timing 12 h off its prediction: civil and astronomical day reckoning confused (the
-/// astronomical day of a date begins at its noon, common practice of observatories until 1925,
-/// no source), or a.m. and p.m. confused on a modern clock.
-fn half_day(r_s: f64, tolerance_s: f64) -> Option<String> {
-    let sign = [-1.0f64, 1.0]
-        .into_iter()
-        .find(|s| (r_s - 43_200.0 * s).abs() < tolerance_s)?;
-    Some(format!(
-        "O - C is {:+.3} h, half a day: civil and astronomical day reckoning were probably confused (an astronomical day begins at noon: astronomical June 3, 21 h is civil June 4, 9 h; set day_reckoning to {}), or a.m. and p.m. on a modern clock",
-        r_s / 3600.0,
-        if sign > 0.0 {
-            "civil if the rows say astronomical"
-        } else {
-            "astronomical if the rows say civil"
-        }
-    ))
-}
-
-/// Explain one timing that does not fit by a blunder of that timing alone: the date off by a
-/// day, half a day (day reckonings confused), a time zone left in (whole or half hours), or the contact mislabelled.
-///
-/// Arguments: `event`; `station`, `contact` as given; `observed_h`, the timing (hours from the
-/// elements' epoch, TT); `p`, the solution's parameters; `tolerance_s`, how close a corrected
-/// timing must come to its prediction.
-/// Returns: a sentence naming the blunder, or `None`.
+/// Explain one timing that does not fit by a blunder of that timing alone, in the
+/// reduction's English sentence (see [`find_row_blunder`]), or `None`.
 pub fn explain_row(
     event: &TransitEvent,
     station: &Station,
@@ -57,86 +25,7 @@ pub fn explain_row(
     p: &Perturbation,
     tolerance_s: f64,
 ) -> Option<String> {
-    let geo = station.geocentric();
-    if let Some(c_h) = predicted_hours(event, &geo, contact, p) {
-        let r = (observed_h - c_h) * 3600.0;
-        for days in [-1.0f64, 1.0] {
-            if (r - 86_400.0 * days).abs() < tolerance_s {
-                return Some(format!(
-                    "the timing is {:+.0} s from its prediction, one day within {:.0} s: the date is probably off by one day ({})",
-                    r,
-                    (r - 86_400.0 * days).abs(),
-                    if days > 0.0 { "a day late" } else { "a day early" }
-                ));
-            }
-        }
-        if let Some(sentence) = half_day(r, tolerance_s) {
-            return Some(sentence);
-        }
-        let hours = (r / 3600.0).round();
-        if (1.0..=14.0).contains(&hours.abs()) && (r - 3600.0 * hours).abs() < tolerance_s {
-            return Some(format!(
-                "O - C is {:+.3} h, a whole number of hours: local (zone) time was probably given as UTC; {} {:.0} h to correct it",
-                r / 3600.0,
-                if hours > 0.0 { "subtract" } else { "add" },
-                hours.abs()
-            ));
-        }
-        let halves = (r / 1800.0).round();
-        if halves.abs() <= 29.0
-            && (halves as i64) % 2 != 0
-            && (r - 1800.0 * halves).abs() < tolerance_s
-        {
-            return Some(format!(
-                "O - C is {:+.3} h, a whole number of half hours: a half-hour time zone was probably left in; {} {:.1} h to correct it",
-                r / 3600.0,
-                if halves > 0.0 { "subtract" } else { "add" },
-                (halves / 2.0).abs()
-            ));
-        }
-    }
-    for other in Contact::ALL {
-        if other == contact {
-            continue;
-        }
-        if let Some(o_h) = predicted_hours(event, &geo, other, p) {
-            let r = (observed_h - o_h) * 3600.0;
-            if r.abs() < tolerance_s {
-                let (a, b) = if contact < other {
-                    (contact, other)
-                } else {
-                    (other, contact)
-                };
-                return Some(format!(
-                    "labelled contact {} but fits contact {} at this station (O - C {:+.1} s): contacts {} and {} were probably exchanged",
-                    contact.roman(),
-                    other.roman(),
-                    r,
-                    a.roman(),
-                    b.roman()
-                ));
-            }
-        }
-    }
-    let c_h = predicted_hours(event, &geo, contact, p)?;
-    minute_typo((observed_h - c_h) * 3600.0, tolerance_s.min(15.0))
-}
-
-/// A typing slip in the minutes: O - C within `tolerance_s` of 1-9 whole minutes (the last
-/// digit) or of 10, 20, 30, 40 or 50 (the tens digit). Common practice, no single source.
-fn minute_typo(r: f64, tolerance_s: f64) -> Option<String> {
-    let minutes = (r / 60.0).round();
-    let m = minutes.abs();
-    let plausible = (1.0..=9.0).contains(&m) || (m % 10.0 == 0.0 && (10.0..=50.0).contains(&m));
-    if !plausible || (r - 60.0 * minutes).abs() >= tolerance_s {
-        return None;
-    }
-    Some(format!(
-        "O - C is {r:+.1} s, {} within {:.0} s: a digit of the minutes was probably mistyped; {} {m:.0} min to correct it",
-        crate::words::count(m as usize, "whole minute", "whole minutes"),
-        (r - 60.0 * minutes).abs(),
-        if minutes > 0.0 { "subtract" } else { "add" }
-    ))
+    find_row_blunder(event, station, contact, observed_h, p, tolerance_s).map(|b| b.sentence())
 }
 
 /// Explain a timed interval that does not fit: it fits another pair of contacts at this
@@ -176,7 +65,7 @@ pub fn explain_interval(
         }
     }
     let h = interval(pair.0, pair.1)?;
-    minute_typo((observed_h - h) * 3600.0, tolerance_s.min(15.0))
+    minute_typo((observed_h - h) * 3600.0, tolerance_s.min(15.0)).map(|b| b.sentence())
 }
 
 /// One timing of a station, for station-level diagnosis.
@@ -512,18 +401,6 @@ pub fn clock_offset_s(
 #[cfg(test)]
 mod tests {
     use super::*;
-
-    #[test]
-    fn half_a_day_names_the_day_reckoning() {
-        // An astronomical reading marked civil comes out 12 h early.
-        assert!(half_day(-43_195.0, 30.0)
-            .unwrap()
-            .contains("astronomical if the rows say civil"));
-        assert!(half_day(43_210.0, 30.0)
-            .unwrap()
-            .contains("civil if the rows say astronomical"));
-        assert!(half_day(11.0 * 3600.0, 30.0).is_none());
-    }
 
     #[test]
     fn clock_signature() {

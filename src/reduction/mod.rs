@@ -56,6 +56,7 @@ pub mod planet_place;
 pub mod rejection;
 pub mod residual_groups;
 pub mod result;
+pub mod row_blunders;
 pub mod screening;
 pub mod statistics;
 pub mod undated;

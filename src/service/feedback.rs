@@ -14,9 +14,10 @@
 //! was down, or when the row cannot be read. The JSON keeps those three words; people read
 //! plain ones (`verdict_words`, `advice`).
 
-use super::feedback_words::{
-    difference_words, example_time, offset_cause, plain, plain_reason, station_advice, VerdictWords,
-};
+use super::feedback_sentences::{blunder_sentence, plain_reason, Sentence, Value};
+use super::feedback_station::station_offsets;
+pub use super::feedback_station::StationAdvice;
+use super::feedback_words::{example_time, VerdictWords};
 use super::store::{export_csv, StoredTiming, TimingFields};
 use crate::geometry::contacts::Perturbation;
 use crate::geometry::station::Station;
@@ -26,8 +27,7 @@ use crate::observations::timings::{observations_from_table, Observation, Observa
 use crate::reduction::agreement::{
     agreement, nominal_contact_hours, tolerance_sigma_s, Agreement, FIT_SIGMAS,
 };
-use crate::reduction::diagnosis::{clock_offset_s, explain_row};
-use crate::reduction::rejection::NOMINAL_CLOCK_SIGMAS;
+use crate::reduction::diagnosis::{find_row_blunder, RowBlunder};
 use crate::reduction::screening::MIN_VISIBLE_ALTITUDE_DEG;
 use serde::Serialize;
 
@@ -48,10 +48,11 @@ pub struct TimingFeedback {
     pub verdict: &'static str,
     /// The verdict in words for people ("fits", "probably a slip you can fix", ...).
     pub verdict_words: VerdictWords,
-    /// A sentence: the likely blunder, why the row cannot be used, or how close it is.
-    pub diagnosis: Option<String>,
+    /// A sentence: the likely blunder, why the row cannot be used, or how close it is
+    /// (English in the API, the visitor's language on the pages).
+    pub diagnosis: Option<Sentence>,
     /// What to do about it, in plain words (none when nothing needs doing).
-    pub advice: Option<String>,
+    pub advice: Option<Sentence>,
     /// Whether the timing shares an offset with every other timing of its station, named
     /// once for the station (`station_advice`).
     pub station_offset: bool,
@@ -67,19 +68,6 @@ pub struct TimingFeedback {
     /// The timing's standard uncertainty as read, seconds.
     #[serde(skip)]
     pub sigma_s: Option<f64>,
-}
-
-/// An offset common to every timing of one station, said once.
-#[derive(Clone, Debug, PartialEq, Serialize)]
-pub struct StationAdvice {
-    /// The station's name.
-    pub station: String,
-    /// How many of its timings share the offset.
-    pub timings: usize,
-    /// The common offset, seconds (positive: late).
-    pub offset_s: f64,
-    /// What it probably is and what to change.
-    pub advice: String,
 }
 
 /// The feedback on one submission.
@@ -117,7 +105,7 @@ fn read(fields: &[TimingFields]) -> Option<ObservationSet> {
 
 impl TimingFeedback {
     /// A row that could not be read, with the reason in plain words.
-    fn unread(written: &str, contact: Option<u8>, why: String, advice: String) -> Self {
+    fn unread(written: &str, contact: Option<u8>, why: Sentence, advice: Sentence) -> Self {
         TimingFeedback {
             contact,
             contact_as_written: written.trim().to_string(),
@@ -167,19 +155,17 @@ fn judge(event: &TransitEvent, obs: &Observation, written: &str) -> TimingFeedba
     crate::reduction::undated::complete_date(&mut completed, event);
     let obs = &completed;
     let Ok(tt) = event.time_model().tt_from_label(obs.time_label) else {
-        fb.diagnosis = Some("the time lies outside the years the tool covers".into());
-        fb.advice = Some("check the date".into());
+        fb.diagnosis = Some(Sentence::new("feedback-outside-years"));
+        fb.advice = Some(Sentence::new("advice-check-date"));
         return fb;
     };
     let observed_h = event.elements.hours(tt);
     fb.observed_h = Some(observed_h);
     let occurs = nominal_contact_hours(event, &obs.station.geocentric(), obs.contact);
     let Some(c) = occurs.and(event.predict(&obs.station).contacts[obs.contact.index()]) else {
-        fb.diagnosis = Some(format!(
-            "your station does not see contact {} of this transit (the planet's path as seen from there misses that circle)",
-            fb.contact_as_written
-        ));
-        fb.advice = Some("check the contact's number and your station's coordinates (south latitudes and west longitudes are negative)".into());
+        let contact = Value::Text(fb.contact_as_written.clone());
+        fb.diagnosis = Some(Sentence::new("feedback-contact-not-seen").with("contact", contact));
+        fb.advice = Some(Sentence::new("advice-check-contact-and-place"));
         return fb;
     };
     let o_c = (observed_h - c.hours) * 3600.0;
@@ -187,17 +173,13 @@ fn judge(event: &TransitEvent, obs: &Observation, written: &str) -> TimingFeedba
     fb.o_c_s = Some(o_c);
     fb.sun_altitude_deg = Some(c.sun_altitude_deg);
     if c.sun_altitude_deg < MIN_VISIBLE_ALTITUDE_DEG {
-        fb.diagnosis = Some(format!(
-            "the Sun was {:.1} degrees below the horizon at your station at this contact",
-            -c.sun_altitude_deg
-        ));
-        fb.advice = Some(
-            "check your station's coordinates (west longitudes are negative) and the date".into(),
-        );
+        let below = Value::Decimal(-c.sun_altitude_deg, 1);
+        fb.diagnosis = Some(Sentence::new("feedback-sun-down").with("degrees", below));
+        fb.advice = Some(Sentence::new("advice-check-place-and-date"));
         return fb;
     }
     let tolerance_s = FIT_SIGMAS * tolerance_sigma_s(obs.sigma_s);
-    let far = explain_row(
+    let far = find_row_blunder(
         event,
         &obs.station,
         obs.contact,
@@ -208,47 +190,48 @@ fn judge(event: &TransitEvent, obs: &Observation, written: &str) -> TimingFeedba
     set_verdict(
         &mut fb,
         agreement(o_c, obs.sigma_s),
-        (o_c, obs.sigma_s),
+        (o_c, obs.sigma_s, false),
         far,
     );
     fb
 }
 
-/// The verdict and its words for an instant `o_c_s` from its prediction, of uncertainty
-/// `sigma_s`; `far` the blunder that explains it, if any.
+/// The verdict and its words for an instant (or an `interval`) `o_c_s` from its prediction,
+/// of uncertainty `sigma_s`; `far` the blunder that explains it, if any.
 fn set_verdict(
     fb: &mut TimingFeedback,
     verdict: Agreement,
-    (o_c_s, sigma_s): (f64, f64),
-    far: Option<String>,
+    (o_c_s, sigma_s, interval): (f64, f64, bool),
+    far: Option<RowBlunder>,
 ) {
-    let diff = difference_words(o_c_s);
+    let diff = Value::Difference { o_c_s, interval };
+    let said = |id: &'static str| Sentence::new(id).with("diff", diff.clone());
+    let probably = |b: &RowBlunder| {
+        said("feedback-probably").with("blunder", Value::Sentence(Box::new(blunder_sentence(b))))
+    };
     fb.verdict = verdict.as_str();
-    (fb.verdict_words, fb.diagnosis, fb.advice) = match (verdict, far) {
-        (Agreement::Fits, _) => (
-            VerdictWords::Fits,
-            Some(format!("{diff}: within what your timing's uncertainty allows")),
-            None,
-        ),
+    let (words, diagnosis, advice) = match (verdict, far) {
+        (Agreement::Fits, _) => (VerdictWords::Fits, said("feedback-fits"), None),
         (Agreement::Doubtful, far) => (
             VerdictWords::Doubtful,
-            Some(match far {
-                Some(f) => format!("{diff}: probably {}", plain(&f)),
-                None => format!("{diff}: more than your stated uncertainty ({sigma_s:.0} s) allows"),
-            }),
-            Some("check the clock you timed with and the contact's number; if the time is right as written, leave it: the solution weighs it with the others".into()),
+            match far {
+                Some(b) => probably(&b),
+                None => said("feedback-more-than-stated").with("sigma", Value::Decimal(sigma_s, 0)),
+            },
+            Some(Sentence::new("advice-doubtful")),
         ),
-        (Agreement::Rejected, Some(f)) => (
+        (Agreement::Rejected, Some(b)) => (
             VerdictWords::Slip,
-            Some(format!("{diff}: probably {}", plain(&f))),
-            Some("correct the time as said, then send it again through your private link below".into()),
+            probably(&b),
+            Some(Sentence::new("advice-slip")),
         ),
         (Agreement::Rejected, None) => (
             VerdictWords::DoesNotFit,
-            Some(format!("{diff}: far more than any error of the prediction or of a clock")),
-            Some("check the date, the time zone (give the time in UTC) and the contact's number".into()),
+            said("feedback-far-off"),
+            Some(Sentence::new("advice-does-not-fit")),
         ),
     };
+    (fb.verdict_words, fb.diagnosis, fb.advice) = (words, Some(diagnosis), advice);
 }
 
 /// A timed interval against the interval predicted at the station (no instant to give).
@@ -260,11 +243,9 @@ fn judge_interval(
 ) -> TimingFeedback {
     let p = event.predict(&obs.station);
     let (Some(a), Some(b)) = (p.contacts[d.first.index()], p.contacts[obs.contact.index()]) else {
-        fb.diagnosis = Some(format!(
-            "your station does not see the interval {} of this transit",
-            obs.contact_label()
-        ));
-        fb.advice = Some("check the pair of contacts and your station's coordinates".into());
+        let interval = Value::Text(obs.contact_label());
+        fb.diagnosis = Some(Sentence::new("feedback-interval-not-seen").with("interval", interval));
+        fb.advice = Some(Sentence::new("advice-check-pair"));
         return fb;
     };
     let observed_h = crate::reduction::screening::interval_hours(obs, d, event);
@@ -274,12 +255,9 @@ fn judge_interval(
     set_verdict(
         &mut fb,
         agreement(o_c, obs.sigma_s),
-        (o_c, obs.sigma_s),
+        (o_c, obs.sigma_s, true),
         None,
     );
-    if let Some(text) = &mut fb.diagnosis {
-        *text = text.replace("than predicted", "than the predicted interval");
-    }
     fb
 }
 
@@ -299,8 +277,8 @@ pub fn feedback(event: &TransitEvent, fields: &[TimingFields]) -> SubmissionFeed
         let timings = fields
             .iter()
             .map(|f| {
-                let (why, what) =
-                    plain_reason("the submission could not be read as timings", &example);
+                let (_, what) = plain_reason("", &example);
+                let why = Sentence::new("feedback-submission-unread");
                 TimingFeedback::unread(as_written(f), None, why, what)
             })
             .collect();
@@ -319,86 +297,16 @@ pub fn feedback(event: &TransitEvent, fields: &[TimingFields]) -> SubmissionFeed
                 return judge(event, obs, written);
             }
             let r = set.rejected.iter().find(|r| r.line == line);
-            let reason = r
-                .and_then(|r| r.diagnosis.clone())
-                .unwrap_or_else(|| "the row cannot be read".into());
-            let (why, what) = plain_reason(&reason, &example);
+            let reason = r.and_then(|r| r.diagnosis.clone()).unwrap_or_default();
+            let (mut why, what) = plain_reason(&reason, &example);
+            if reason.is_empty() {
+                why = Sentence::new("feedback-row-unread");
+            }
             TimingFeedback::unread(written, r.and_then(|r| r.contact), why, what)
         })
         .collect();
     let stations = station_offsets(&mut timings);
     SubmissionFeedback { timings, stations }
-}
-
-/// Find each station whose instants (two or more) share one offset beyond their uncertainty
-/// (the reduction's own test, `reduction::diagnosis::clock_offset_s`, at unit scatter and
-/// three standard errors), name it once, and let each timing refer to it.
-fn station_offsets(timings: &mut [TimingFeedback]) -> Vec<StationAdvice> {
-    let mut names: Vec<String> = Vec::new();
-    for t in timings.iter() {
-        if let Some(st) = &t.station {
-            if !names.contains(&st.name) {
-                names.push(st.name.clone());
-            }
-        }
-    }
-    let mut out = Vec::new();
-    for name in names {
-        let rows: Vec<usize> = (0..timings.len())
-            .filter(|&k| timings[k].station.as_ref().is_some_and(|s| s.name == name))
-            .collect();
-        let instants: Vec<usize> = rows
-            .iter()
-            .copied()
-            .filter(|&k| timings[k].o_c_s.is_some() && timings[k].observed_h.is_some())
-            .collect();
-        if instants.len() < 2 || instants.len() < rows.len() {
-            continue;
-        }
-        let res: Vec<f64> = instants.iter().filter_map(|&k| timings[k].o_c_s).collect();
-        let sig: Vec<f64> = instants
-            .iter()
-            .map(|&k| tolerance_sigma_s(timings[k].sigma_s.unwrap_or(0.0)))
-            .collect();
-        let Some(offset_s) = clock_offset_s(&res, &sig, 1.0, NOMINAL_CLOCK_SIGMAS) else {
-            continue;
-        };
-        for &k in &instants {
-            refer_to_station(&mut timings[k], offset_s);
-        }
-        out.push(StationAdvice {
-            station: name,
-            timings: instants.len(),
-            offset_s,
-            advice: station_advice(offset_s, instants.len()),
-        });
-    }
-    out
-}
-
-/// A timing that shares its station's offset: at least doubtful, its text pointing to the
-/// station's advice.
-fn refer_to_station(t: &mut TimingFeedback, offset_s: f64) {
-    let o_c = t.o_c_s.unwrap_or(offset_s);
-    let own = Agreement::Doubtful.max(match t.verdict {
-        "fits" => Agreement::Fits,
-        "doubtful" => Agreement::Doubtful,
-        _ => Agreement::Rejected,
-    });
-    t.verdict = own.as_str();
-    t.verdict_words = if own == Agreement::Rejected {
-        VerdictWords::Slip
-    } else {
-        VerdictWords::Doubtful
-    };
-    t.station_offset = true;
-    t.diagnosis = Some(format!(
-        "{}: part of the offset that all your timings share, probably {} (said once, above); without it this timing is {:+.1} s from its prediction",
-        difference_words(o_c),
-        offset_cause(offset_s),
-        o_c - offset_s
-    ));
-    t.advice = Some("see what to change for the whole station, above".into());
 }
 
 /// The information these timings carry on the parallax, sum of (sensitivity / sigma)^2
@@ -490,7 +398,8 @@ mod tests {
         assert_eq!(fb.timings[1].contact_as_written, "c3");
         for t in &fb.timings {
             assert_eq!(t.verdict, "fits", "{t:?}");
-            assert!(t.diagnosis.as_deref().unwrap().contains("than predicted"));
+            let said = t.diagnosis.as_ref().unwrap().english();
+            assert!(said.contains("than predicted"), "{said}");
         }
         assert!(fb.stations.is_empty());
     }
@@ -502,7 +411,7 @@ mod tests {
         let contacts = [("I", 62.0), ("II", 58.0), ("III", 66.0), ("IV", 61.0)];
         let fb = feedback(&event, &rows(&event, &contacts, "20"));
         assert_eq!(fb.stations.len(), 1, "{:?}", fb.stations);
-        let advice = &fb.stations[0].advice;
+        let advice = &fb.stations[0].advice.english();
         assert!(
             advice.starts_with("all four of your timings are about 62 s late"),
             "{advice}"
@@ -512,17 +421,16 @@ mod tests {
             assert!(t.station_offset);
             assert_ne!(t.verdict, "fits", "{t:?}");
             assert_eq!(
-                t.advice.as_deref(),
+                t.advice.as_ref().map(Sentence::english).as_deref(),
                 Some("see what to change for the whole station, above")
             );
         }
         // A zone left in is named as such.
         let zone = [("II", 8.0 * 3600.0 + 2.0), ("III", 8.0 * 3600.0 - 3.0)];
         let fb = feedback(&event, &rows(&event, &zone, "8"));
-        assert!(fb.stations[0]
-            .advice
-            .contains("both of your timings are about 8 h late"));
-        assert!(fb.stations[0].advice.contains("subtract 8 h"));
+        let advice = fb.stations[0].advice.english();
+        assert!(advice.contains("both of your timings are about 8 h late"));
+        assert!(advice.contains("subtract 8 h"));
         assert_eq!(fb.timings[0].verdict, "rejected");
         assert_eq!(fb.timings[0].verdict_words, "probably a slip you can fix");
         // Timings that disagree among themselves get their own words.
@@ -544,13 +452,61 @@ mod tests {
         assert_eq!(t.verdict_words, "could not be read");
         let all = format!(
             "{} {}",
-            t.diagnosis.as_deref().unwrap(),
-            t.advice.as_deref().unwrap()
+            t.diagnosis.as_ref().unwrap().english(),
+            t.advice.as_ref().unwrap().english()
         );
         assert!(!all.contains("ISO"), "{all}");
         assert!(all.contains("like 2012-06-05 22:"), "{all}");
         // The example shown is a form the reader takes.
         let ex = example_time(&event);
         assert!(crate::time::iso::parse_utc(&ex).is_ok(), "{ex}");
+    }
+
+    /// The sentences are written in the visitor's language on the pages: a zone left in,
+    /// said for the station and for each timing, in German, with no English left.
+    #[test]
+    fn the_sentences_are_written_in_the_visitors_language() {
+        use crate::language::Language;
+        let event = event_2012();
+        let zone = [("II", 8.0 * 3600.0 + 2.0), ("III", 8.0 * 3600.0 - 3.0)];
+        let fields = rows(&event, &zone, "8");
+        let fb = feedback(&event, &fields);
+        let station = fb.stations[0].advice.in_language(Language::German);
+        assert!(
+            station.starts_with("Ihre beiden Zeiten liegen etwa 8 h zu spät"),
+            "{station}"
+        );
+        assert!(
+            station.contains("ziehen Sie von jeder Zeit 8 h ab"),
+            "{station}"
+        );
+        let t = &fb.timings[0];
+        let said = t.diagnosis.as_ref().unwrap().in_language(Language::German);
+        assert!(
+            said.starts_with("8 h 0 min später als vorhergesagt: Teil des Versatzes"),
+            "{said}"
+        );
+        assert!(
+            said.contains("eine stehen gebliebene Zeitzone von 8 h"),
+            "{said}"
+        );
+        let cards = super::super::feedback_page::feedback_cards(Language::German, &fields, &fb);
+        for english in ["your timings", "than predicted", "probably", "check the"] {
+            assert!(!cards.contains(english), "{english} in {cards}");
+        }
+        // One timing alone off by a whole number of hours: the reduction's finding, in
+        // French, with the decimal comma.
+        let fb = feedback(&event, &rows(&event, &[("II", -5.0 * 3600.0 + 4.0)], "8"));
+        let said = fb.timings[0].diagnosis.as_ref().unwrap();
+        assert!(
+            said.english().contains("add 5 h to correct it"),
+            "{}",
+            said.english()
+        );
+        let fr = said.in_language(Language::French);
+        assert!(
+            fr.contains("l'écart est de -4,999 h") && fr.contains("ajoutez 5 h"),
+            "{fr}"
+        );
     }
 }

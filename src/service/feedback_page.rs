@@ -89,14 +89,13 @@ fn card(l: Language, f: &TimingFields, b: &TimingFeedback) -> String {
         esc(&t(l, b.verdict_words.message_id()))
     );
     if let Some(d) = &b.diagnosis {
-        pair(&mut s, &t(l, "card-meaning"), d);
+        pair(&mut s, &t(l, "card-meaning"), &d.in_language(l));
     }
-    let nothing = t(l, "card-nothing-to-do");
-    pair(
-        &mut s,
-        &t(l, "card-what-to-do"),
-        b.advice.as_deref().unwrap_or(&nothing),
-    );
+    let advice = b
+        .advice
+        .as_ref()
+        .map_or_else(|| t(l, "card-nothing-to-do"), |a| a.in_language(l));
+    pair(&mut s, &t(l, "card-what-to-do"), &advice);
     s.push_str("</dl></li>\n");
     s
 }
@@ -114,7 +113,7 @@ pub fn feedback_cards(l: Language, fields: &[TimingFields], fb: &SubmissionFeedb
             s,
             "<section class=\"station-advice\"><h2>{}</h2>\n<p>{}.</p></section>",
             esc(&heading),
-            esc(&capitalised(&st.advice))
+            esc(&capitalised(&st.advice.in_language(l)))
         );
     }
     let _ = writeln!(

@@ -17,7 +17,9 @@
 //! - `language_choice.rs`: the visitor's language (switch, cookie, `Accept-Language`) and the switch.
 //! - `form.rs`: the participant's forms, one labelled field each.
 //! - `style.rs`: the pages' style sheet, phone first.
-//! - `feedback_words.rs`: the feedback's plain words (differences, reasons, station offsets).
+//! - `feedback_words.rs`: the feedback's plain words (verdicts, differences, an example time).
+//! - `feedback_sentences.rs`: the feedback's sentences as messages with values, written in
+//!   the visitor's language (English in the API).
 //! - `feedback_page.rs`: the reply to a submission: one card per timing, the path drawn.
 //! - `organiser.rs`: the organiser's page.
 //! - `server.rs`: the state, the participant's routes, the background reduction.
@@ -35,6 +37,8 @@ pub mod cache;
 pub mod cached;
 pub mod feedback;
 pub mod feedback_page;
+pub mod feedback_sentences;
+pub mod feedback_station;
 pub mod feedback_words;
 pub mod forgery;
 pub mod form;
