@@ -315,3 +315,70 @@ fn the_organiser_pages_charts_are_laid_out_cleanly_in_a_browser() {
     );
     assert!(f.problems.is_empty(), "{}", f.problems.join("\n"));
 }
+
+/// Send an observations file to the service's upload form in parts within its body limit
+/// (each part with the header line), as an organiser loading a large file would.
+fn upload_in_parts(port: u16, csv: &[u8]) {
+    use common::server::{request, visitor};
+    let text = String::from_utf8_lossy(csv);
+    let mut lines = text.lines();
+    let header = lines.next().expect("a header line");
+    let rows: Vec<&str> = lines.collect();
+    let (cookie, csrf) = visitor(port);
+    let cookie = format!("Cookie: {cookie}");
+    for part in rows.chunks(2_000) {
+        let file = format!("{header}\n{}\n", part.join("\n"));
+        let body = format!(
+            "--XyZ\r\nContent-Disposition: form-data; name=\"csrf\"\r\n\r\n{csrf}\r\n--XyZ\r\nContent-Disposition: form-data; name=\"file\"; filename=\"part.csv\"\r\nContent-Type: text/csv\r\n\r\n{file}\r\n--XyZ--\r\n"
+        );
+        let headers = [
+            "Content-Type: multipart/form-data; boundary=XyZ",
+            cookie.as_str(),
+        ];
+        let r = request(port, "POST", "/upload", &headers, body.as_bytes());
+        assert_eq!(r.status, 201, "{}", &r.body[..r.body.len().min(2_000)]);
+    }
+}
+
+/// The service's public results page (`GET /results`, no token) with the 1,500-station
+/// campaign's solution, in English and in German (the longer words): its two charts (the map
+/// and the convergence) each with a caption, laid out cleanly with no text under 12 px.
+#[test]
+fn the_public_results_page_is_laid_out_cleanly_in_a_browser() {
+    let Some(browser) = browser_or_skip() else {
+        return;
+    };
+    let dir = temp_dir("results");
+    let server = common::server::start(&dir.join("campaign.sqlite"), &[]);
+    upload_in_parts(server.port, &big_campaign());
+    common::server::settled_report(&server);
+    for code in ["en", "de"] {
+        let page = common::server::get(server.port, &format!("/results?lang={code}"), None);
+        assert_eq!(page.status, 200);
+        let html = page.body;
+        assert!(html.contains(&format!("<html lang=\"{code}\"")), "{code}");
+        let opening = "<b id=\"n-stations\">";
+        let counted = &html[html.find(opening).expect("the counts") + opening.len()..];
+        let stations: usize = counted[..counted.find('<').unwrap()]
+            .replace([',', '.'], "")
+            .parse()
+            .expect("a count");
+        // The grid's stations that saw a contact (about 1,070 of the 1,500).
+        assert!(stations > 1_000, "{stations} stations ({code})");
+        assert_eq!(
+            html.matches("<figcaption>").count(),
+            2,
+            "a caption per chart ({code})"
+        );
+        let name = format!("results-{code}");
+        let f = measure_with(&browser, &dir, &name, &html, Some(MIN_TEXT_PX));
+        assert_eq!(f.svgs, 2, "the map and the convergence ({code})");
+        assert!(f.texts > 10, "{} texts ({code})", f.texts);
+        assert!(
+            (MIN_TEXT_PX..20.0).contains(&f.smallest_text_px),
+            "the smallest text is {} px ({code})",
+            f.smallest_text_px
+        );
+        assert!(f.problems.is_empty(), "{code}: {}", f.problems.join("\n"));
+    }
+}

@@ -32,11 +32,35 @@ async fn screenshot(c: &Client, name: &str) {
 /// Fill the participant's form for one timing of contact II and send it; the feedback
 /// table's text.
 async fn send_form(c: &Client, base: &str, station: (&str, &str, &str), time: &str) -> String {
+    send_form_saying_how(c, base, station, time, &[]).await
+}
+
+/// [`send_form`], also filling in how the timing was made: (field id, value) pairs, the
+/// lists (`clock_source`, `viewing`) chosen by value.
+async fn send_form_saying_how(
+    c: &Client,
+    base: &str,
+    station: (&str, &str, &str),
+    time: &str,
+    how: &[(&str, &str)],
+) -> String {
     c.goto(&format!("{base}/")).await.expect("the form");
     assert_styled(c, "the form").await;
     fill(c, "station", station.0).await;
     fill(c, "latitude", station.1).await;
     fill(c, "longitude", station.2).await;
+    for (id, value) in how {
+        if ["clock_source", "viewing"].contains(id) {
+            c.find(Locator::Id(id))
+                .await
+                .expect("a list")
+                .select_by_value(value)
+                .await
+                .expect("chosen");
+        } else {
+            fill(c, id, value).await;
+        }
+    }
     c.find(Locator::Id("contact0"))
         .await
         .expect("contact0")
@@ -312,7 +336,7 @@ fn a_participant_and_the_organiser_in_a_real_browser() {
 
 /// Register a station through the form in Chromium; the private page's links; the sheet
 /// opened from it, styled under the content-security policy, with the station's clock times.
-async fn register_in_browser(c: &Client, base: &str) {
+async fn register_in_browser(c: &Client, base: &str) -> String {
     c.goto(&format!("{base}/register")).await.expect("the form");
     assert_styled(c, "the registration form").await;
     fill(c, "station", "Kauri Point School").await;
@@ -367,6 +391,8 @@ async fn register_in_browser(c: &Client, base: &str) {
     assert!(url.path().ends_with("/sheet.html"), "{url}");
     let source = c.source().await.expect("the sheet's source");
     assert!(source.contains("Kauri Point School") && source.contains("NZST"));
+    let segments: Vec<String> = url.path_segments().unwrap().map(String::from).collect();
+    segments[segments.len() - 2].clone()
 }
 
 #[test]
@@ -376,10 +402,22 @@ fn registering_a_station_and_reading_the_results_in_a_real_browser() {
     };
     let (server, base) = (&b.server, &b.base);
     seed_five_stations(server, false);
-    let solution = settled_solution(server);
+    let before = settled_solution(server);
     runtime().block_on(async {
         let c = b.session().await;
-        register_in_browser(&c, base).await;
+        let key = register_in_browser(&c, base).await;
+        let feedback = send_form_saying_how(
+            &c,
+            base,
+            ("Kauri Point School", "-36.85", "174.76"),
+            &predicted_at(-36.85, 174.76, 2, 3.0),
+            &HOW_KAURI,
+        )
+        .await;
+        assert!(feedback.contains("fits"), "{feedback}");
+        let solution = settled_solution(server);
+        assert_ne!(solution["parallax_arcsec"], before["parallax_arcsec"]);
+        organiser_sees_how(&c, base, "organiser8").await;
         c.goto(&format!("{base}/results"))
             .await
             .expect("the results");
@@ -401,9 +439,60 @@ fn registering_a_station_and_reading_the_results_in_a_real_browser() {
             .text()
             .await
             .unwrap();
-        assert_eq!(stations, "5");
+        assert_eq!(
+            stations, "6",
+            "the registered station's timing in the solution"
+        );
+        let source = c.source().await.expect("the page's source");
+        for private in HOW_KAURI.iter().map(|(_, v)| *v).filter(|v| v.len() > 4) {
+            assert!(!source.contains(private), "{private} on the public page");
+        }
+        for private in ["organiser8", key.as_str(), "-36.85", "174.76"] {
+            assert!(!source.contains(private), "{private} on the public page");
+        }
+        assert!(source.contains("174.8"), "the place to 0.1 degree");
         c.close().await.ok();
     });
+}
+
+/// How the registered station's timing was made, as its observer fills it in.
+const HOW_KAURI: [(&str, &str); 6] = [
+    ("observer", "Rangi Tamatea"),
+    ("clock_source", "gps"),
+    ("instrument", "80 mm refractor on a tripod"),
+    ("aperture_mm", "80"),
+    ("viewing", "projection"),
+    ("notes", "thin cloud at the second contact; private remark"),
+];
+
+/// The organiser's table filtered by clock source: the registered station's timing, with
+/// its observer and instrument, and none of the seeded ones (which said nothing of a clock).
+async fn organiser_sees_how(c: &Client, base: &str, token: &str) {
+    organiser_counts(c, base, token).await;
+    c.find(Locator::Id("filter-clock"))
+        .await
+        .expect("the clock filter")
+        .select_by_value("gps")
+        .await
+        .expect("chosen");
+    c.find(Locator::Id("show"))
+        .await
+        .expect("show")
+        .click()
+        .await
+        .expect("shown");
+    c.wait()
+        .at_most(Duration::from_secs(20))
+        .for_element(Locator::Css("#filter-clock option[value='gps'][selected]"))
+        .await
+        .expect("the filtered table");
+    let rows = table_text(c).await;
+    assert!(
+        rows.contains("Kauri Point School") && rows.contains("Rangi Tamatea"),
+        "{rows}"
+    );
+    assert!(!rows.contains("Kestrel Point"), "{rows}");
+    screenshot(c, "service-organiser-by-clock.png").await;
 }
 
 /// The page's language (`<html lang>`) and its main heading.
