@@ -23,13 +23,19 @@ use fantoccini::{Client, Locator};
 use std::path::{Path, PathBuf};
 use std::sync::Mutex;
 use std::time::Duration;
-use webdriver::{axe_violations, session, sideways_overflow, start_driver, which, Screen};
+use webdriver::{
+    axe_violations, session, sideways_overflow, small_chart_text, start_driver, which, Screen,
+};
 
 /// Public pages (no sign-in) beyond the participant's, to be checked like the others.
 const PUBLIC_PAGES: &[&str] = &["/results", "/register"];
 
 /// The phone's width, CSS pixels.
 const PHONE_WIDTH_PX: u32 = 360;
+
+/// The smallest text a chart may be drawn with on the phone, CSS pixels (the project's rule
+/// for every chart on every page: a wide chart scrolls inside its figure rather than shrink).
+const MIN_CHART_TEXT_PX: f64 = 12.0;
 
 /// The organiser's token of these tests.
 const TOKEN: &str = "organiser11y";
@@ -115,6 +121,7 @@ async fn check(c: &Client, page: &str, how: &Check<'_>, problems: &mut Vec<Strin
         }
         Check::Width(width) => {
             problems.extend(sideways_overflow(c, page, *width).await);
+            problems.extend(small_chart_text(c, page, MIN_CHART_TEXT_PX).await);
             "phone"
         }
     };

@@ -339,6 +339,7 @@ pub const REPORT_STYLE: &str = concat!(
     ".skip:focus{top:0.5em}\n",
     ":focus-visible{outline:3px solid #b45309;outline-offset:2px}\n",
     "svg{max-width:100%;height:auto}\n",
+    "figure.chart{overflow-x:auto}figure.chart>svg{max-width:none}\n",
     "figure{margin:1.5em 0}\n",
     "figcaption{font-size:0.9em;color:#374151}\n",
     "footer{border-top:1px solid #d1d5db;margin-top:2em;color:#374151}\n",

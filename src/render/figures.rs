@@ -125,9 +125,15 @@ pub fn light_curve_caption() -> String {
     format!("The Sun's brightness seen from the Earth's centre through the transit: the change in brightness in parts per million of the unobscured Sun (so the transit is a dip), against time. Dashed lines: contacts I-IV. Model: {}.", crate::scale::light_curve::LIMB_DARKENING_LAW)
 }
 
+/// The opening of a chart's figure: drawn at its own size, never shrunk (its text stays at
+/// least 12 px), it scrolls sideways inside the figure where the page is narrower (WCAG 2.2,
+/// success criterion 1.4.10, excepts charts and maps from reflow), and takes the keyboard's
+/// focus so that it can be scrolled without a pointer (as the tables' boxes do).
+pub const CHART_FIGURE: &str = "<figure class=\"chart\" tabindex=\"0\">";
+
 fn figure(svg: &str, caption: &str, extra: &str) -> String {
     format!(
-        "<figure>\n{svg}<figcaption>{}{extra}</figcaption>\n</figure>\n",
+        "{CHART_FIGURE}\n{svg}<figcaption>{}{extra}</figcaption>\n</figure>\n",
         esc(caption)
     )
 }
@@ -185,7 +191,7 @@ pub fn residual_figure(red: &Reduction, page: Page) -> String {
         Page::Organiser => residual_key(red),
     };
     format!(
-        "<figure>\n{}<figcaption>{}</figcaption>\n</figure>\n{key}\n",
+        "{CHART_FIGURE}\n{}<figcaption>{}</figcaption>\n</figure>\n{key}\n",
         chart.svg,
         esc(&residual_caption(&chart, page))
     )

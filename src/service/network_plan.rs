@@ -7,7 +7,9 @@ use super::pages::scroll_box;
 use super::server::App;
 use super::store_registrations::{NetworkPlan, NetworkStation, Registration};
 use crate::language::{text, Args, Language};
-use crate::render::svg::{esc, graticule_labels, graticule_lines, land_svg, svg_open, world_px};
+use crate::render::svg::{
+    esc, graticule_labels_sized, graticule_lines, land_svg, svg_open, world_px,
+};
 use std::fmt::Write;
 
 /// The map's marks: (class, colour, words of the key).
@@ -26,6 +28,9 @@ const REGISTERED_ONLY: (&str, &str, &str) = (
     "#b45309",
     "registered, no timings yet (open triangle)",
 );
+
+/// Where the land outlines come from, as every map says.
+const LAND_CREDIT: &str = "Land: Natural Earth 1:110m (public domain).";
 
 /// One station's mark at (x, y): a filled circle, a filled square or an open triangle.
 fn mark(s: &NetworkStation, (x, y): (f64, f64)) -> String {
@@ -55,7 +60,7 @@ fn frame_with_marks(stations: &[NetworkStation], label: &str, extra_h: f64) -> S
     let _ = writeln!(s, "<rect width=\"{w}\" height=\"{h}\" fill=\"#dbeafe\"/>");
     s.push_str(&land_svg("#e7e2d3", "#9c9581", 0.4));
     s.push_str(&graticule_lines("#94a3b8"));
-    s.push_str(&graticule_labels(h));
+    s.push_str(&graticule_labels_sized(h, 13.0));
     let _ = writeln!(s, "<defs><clipPath id=\"plan-frame\"><rect width=\"{w}\" height=\"{h}\"/></clipPath></defs>\n<g clip-path=\"url(#plan-frame)\">");
     let mut order: Vec<&NetworkStation> = stations.iter().collect();
     order.sort_by_key(|st| st.reported);
@@ -76,24 +81,28 @@ fn frame_with_marks(stations: &[NetworkStation], label: &str, extra_h: f64) -> S
 /// A plain map of stations (each a filled circle, named in its tooltip), for the public page
 /// while the solution's own map has no figures to draw.
 pub fn places_map_svg(stations: &[NetworkStation]) -> String {
-    let mut s = frame_with_marks(stations, "World map of the stations", 20.0);
-    s.push_str("<text x=\"12\" y=\"376\" font-size=\"9\">Land: Natural Earth 1:110m (public domain).</text>\n</svg>\n");
+    let mut s = frame_with_marks(stations, "World map of the stations", 24.0);
+    let _ = writeln!(
+        s,
+        "<text x=\"12\" y=\"378\" font-size=\"13\">{LAND_CREDIT}</text>\n</svg>"
+    );
     s
 }
 
-/// The map of the network planned against reported, with its key.
+/// The map of the network planned against reported, with its key (one line per mark, text at
+/// 13 px like the report's charts).
 pub fn network_map_svg(plan: &NetworkPlan) -> String {
     let h = 360.0;
+    let line_h = 20.0;
     let mut s = frame_with_marks(
         &plan.stations,
         "World map of the stations registered and reported",
-        50.0,
+        24.0 + 4.0 * line_h,
     );
-    let y = h + 20.0;
     let key_stations = [(true, true), (false, true), (true, false)];
     let keys = [REPORTED_REGISTERED, REPORTED_ONLY, REGISTERED_ONLY];
     for (k, ((registered, reported), (_, _, words))) in key_stations.iter().zip(keys).enumerate() {
-        let x = 12.0 + 240.0 * k as f64;
+        let (x, y) = (16.0, h + 22.0 + line_h * k as f64);
         let st = NetworkStation {
             station: words.to_string(),
             latitude_deg: 0.0,
@@ -103,14 +112,18 @@ pub fn network_map_svg(plan: &NetworkPlan) -> String {
         };
         let _ = writeln!(
             s,
-            "{}<text x=\"{:.1}\" y=\"{:.1}\" font-size=\"10\">{}</text>",
+            "{}<text x=\"{:.1}\" y=\"{:.1}\" font-size=\"13\">{}</text>",
             mark(&st, (x, y)),
-            x + 10.0,
-            y + 4.0,
+            x + 14.0,
+            y + 4.5,
             esc(words)
         );
     }
-    let _ = writeln!(s, "<text x=\"12\" y=\"{:.1}\" font-size=\"9\">Land: Natural Earth 1:110m (public domain).</text>", y + 22.0);
+    let _ = writeln!(
+        s,
+        "<text x=\"12\" y=\"{:.1}\" font-size=\"13\">{LAND_CREDIT}</text>",
+        h + 26.0 + 3.0 * line_h
+    );
     s.push_str("</svg>\n");
     s
 }
@@ -208,7 +221,7 @@ pub fn organiser_section(app: &App) -> String {
     }
     let _ = writeln!(
         s,
-        "<figure id=\"plan-map\">{}<figcaption>Stations planned against reported: a filled circle for a registered station that has sent timings, a filled square for one that sent timings without registering, an open triangle for a registered station with no timings yet.</figcaption></figure>",
+        "<figure id=\"plan-map\" class=\"chart\" tabindex=\"0\">{}<figcaption>Stations planned against reported: a filled circle for a registered station that has sent timings, a filled square for one that sent timings without registering, an open triangle for a registered station with no timings yet.</figcaption></figure>",
         network_map_svg(&plan)
     );
     if !registrations.is_empty() {

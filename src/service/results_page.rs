@@ -269,7 +269,7 @@ impl PublicSection {
             };
             let _ = writeln!(
                 s,
-                "<h2>{}</h2>\n<figure id=\"map\">{map}<figcaption>{}</figcaption></figure>",
+                "<h2>{}</h2>\n<figure id=\"map\" class=\"chart\" tabindex=\"0\">{map}<figcaption>{}</figcaption></figure>",
                 esc(&t(language, "results-stations-heading", Args::new())),
                 esc(&t(language, "results-map-caption", Args::new()))
             );
@@ -341,7 +341,7 @@ pub fn results(app: &App, headers: &HeaderMap, language: Language) -> Response {
         }
         let _ = writeln!(
             body,
-            "<h2>{}</h2>\n<figure id=\"convergence\">{chart}<figcaption>{}</figcaption></figure>",
+            "<h2>{}</h2>\n<figure id=\"convergence\" class=\"chart\" tabindex=\"0\">{chart}<figcaption>{}</figcaption></figure>",
             esc(&t(language, "results-convergence-heading", Args::new())),
             esc(&caption)
         );

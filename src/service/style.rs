@@ -48,6 +48,8 @@ pub const STYLE: &str = concat!(
     "th{background:#f3eee2}",
     ".headline th{background:#fff;font-weight:600}",
     "svg{max-width:100%;height:auto}",
+    // A chart keeps its own size (text at least 12 px) and scrolls inside its figure.
+    "figure.chart{overflow-x:auto}figure.chart>svg{max-width:none}",
     "figure{margin:1.5rem 0}",
     // Cards: a block per timing, per result; the verdicts as words and colours together.
     ".card{background:#fff;border:1px solid #d8cfbd;border-radius:8px;padding:0.75rem 1rem;margin:1rem 0}",

@@ -206,3 +206,43 @@ pub async fn sideways_overflow(c: &Client, page: &str, width_px: u32) -> Option<
         )
     })
 }
+
+/// Finds the texts of the page's charts (`figure svg text`) drawn smaller than `arguments[0]`
+/// CSS pixels as laid out: the text's font size times the chart's scale to the page.
+const MEASURE_CHART_TEXT: &str = r#"
+var small = [], min = arguments[0];
+document.querySelectorAll('figure svg text').forEach(function (t) {
+  var m = t.getScreenCTM(), words = t.textContent.trim();
+  if (!m || !words) return;
+  var px = parseFloat(getComputedStyle(t).fontSize) * Math.hypot(m.a, m.b);
+  if (px < min - 0.05) {
+    var fig = t.closest('figure');
+    small.push((fig.id || fig.className || 'figure') + ': "' + words.slice(0, 24) + '" at ' + px.toFixed(1) + ' px');
+  }
+});
+return small;
+"#;
+
+/// The chart texts of the page in view drawn under `min_px` CSS pixels (at most eight, with
+/// how many), or `None` when every one is at least that large.
+pub async fn small_chart_text(c: &Client, page: &str, min_px: f64) -> Option<String> {
+    let v = c
+        .execute(MEASURE_CHART_TEXT, vec![serde_json::json!(min_px)])
+        .await
+        .expect("measured");
+    let small: Vec<String> = v
+        .as_array()
+        .map(|a| {
+            a.iter()
+                .filter_map(|s| s.as_str().map(String::from))
+                .collect()
+        })
+        .unwrap_or_default();
+    (!small.is_empty()).then(|| {
+        format!(
+            "{page}: {} chart texts under {min_px} px, e.g. {}",
+            small.len(),
+            small[..small.len().min(8)].join("; ")
+        )
+    })
+}
