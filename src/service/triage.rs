@@ -57,6 +57,8 @@ pub struct Attention {
     pub doubtful: usize,
     /// Stations with one timing.
     pub lone_stations: usize,
+    /// Timings that need attention, each counted once (for one of these reasons or several).
+    pub timings: usize,
 }
 
 /// Why a timing not excluded needs attention, if it does (the lone-station case aside).
@@ -118,19 +120,23 @@ pub fn attention(
         }
     }
     out.items.extend(doubtful);
+    // A station as the reduction knows it: by its name as written.
     let mut per_station: HashMap<&str, usize> = HashMap::new();
     for t in &live {
-        *per_station.entry(t.fields.station.as_str()).or_default() += 1;
+        *per_station.entry(t.fields.station.trim()).or_default() += 1;
     }
+    let lone = "its station's only timing: nothing to compare it with, so a slip or a clock error cannot show";
     for t in &live {
-        if per_station.get(t.fields.station.as_str()) == Some(&1) {
+        if per_station.get(t.fields.station.trim()) == Some(&1) {
             out.lone_stations += 1;
-            out.items.push(item(
-                t,
-                "its station's only timing: nothing to compare it with, so a slip or a clock error cannot show".into(),
-            ));
+            // One row per timing: a lone timing already listed gets the reason added.
+            match out.items.iter_mut().find(|i| i.timing_id == t.id) {
+                Some(listed) => listed.why = format!("{}; {lone}", listed.why),
+                None => out.items.push(item(t, lone.into())),
+            }
         }
     }
+    out.timings = out.items.len();
     out.items.truncate(ATTENTION_ROWS);
     out
 }
@@ -148,8 +154,8 @@ pub fn attention_html(a: &Attention) -> String {
         a.disagreements,
         a.doubtful,
         a.lone_stations,
-        if a.disagreements + a.doubtful + a.lone_stations > a.items.len() {
-            format!(" The first {} are listed.", a.items.len())
+        if a.timings > a.items.len() {
+            format!(" The first {} of {} timings are listed.", a.items.len(), a.timings)
         } else {
             String::new()
         }
@@ -406,6 +412,26 @@ mod tests {
         assert!(html.contains("stations with one timing: 2"));
         let none = attention(&[], &HashMap::new(), &HashMap::new());
         assert!(attention_html(&none).contains("Nothing"));
+    }
+
+    /// A lone station's doubtful timing is one row with both reasons.
+    #[test]
+    fn each_timing_is_listed_once() {
+        let timings = vec![
+            timing(1, "Reed Lake", false),
+            timing(2, "Reed Lake", false),
+            timing(3, "Stone Quay", false),
+        ];
+        let verdicts: HashMap<i64, String> = [(3, "doubtful".to_string())].into_iter().collect();
+        let a = attention(&timings, &verdicts, &HashMap::new());
+        assert_eq!((a.doubtful, a.lone_stations, a.timings), (1, 1, 1));
+        assert_eq!(a.items.len(), 1);
+        assert!(
+            a.items[0].why.contains("; its station's only timing"),
+            "{}",
+            a.items[0].why
+        );
+        assert!(!attention_html(&a).contains("are listed"));
     }
 
     #[test]
