@@ -132,21 +132,21 @@ pub struct ContactPartials {
 
 /// The quantities of one station that the contact equation needs at one instant.
 #[derive(Clone, Copy, Debug)]
-struct LocalGeometry {
-    u: f64,
-    v: f64,
-    u_rate: f64,
-    v_rate: f64,
-    radius: f64,
-    radius_rate: f64,
-    x: f64,
-    y: f64,
-    l: f64,
-    mu: f64,
-    scale: f64,
+pub(crate) struct LocalGeometry {
+    pub(crate) u: f64,
+    pub(crate) v: f64,
+    pub(crate) u_rate: f64,
+    pub(crate) v_rate: f64,
+    pub(crate) radius: f64,
+    pub(crate) radius_rate: f64,
+    pub(crate) x: f64,
+    pub(crate) y: f64,
+    pub(crate) l: f64,
+    pub(crate) mu: f64,
+    pub(crate) scale: f64,
     /// d(xi, eta, zeta)/d(east longitude), Earth radii per radian.
-    pos_per_longitude: [f64; 3],
-    tan_f: f64,
+    pub(crate) pos_per_longitude: [f64; 3],
+    pub(crate) tan_f: f64,
 }
 
 /// Station coordinates on the fundamental plane (xi, eta, zeta) and their rates per hour.
@@ -180,7 +180,7 @@ fn station_on_plane(
 }
 
 #[inline]
-fn local_geometry(
+pub(crate) fn local_geometry(
     el: &Elements,
     st: Option<&GeocentricStation>,
     contact: Contact,
@@ -395,11 +395,11 @@ fn circumstances_from(
 }
 
 /// What a station sees in the sky at one instant.
-struct Sky {
-    sun_altitude_deg: f64,
-    sun_azimuth_deg: f64,
-    parallactic_angle_deg: f64,
-    position_angle_deg: f64,
+pub(crate) struct Sky {
+    pub(crate) sun_altitude_deg: f64,
+    pub(crate) sun_azimuth_deg: f64,
+    pub(crate) parallactic_angle_deg: f64,
+    pub(crate) position_angle_deg: f64,
 }
 
 /// The Sun's true altitude and azimuth against the geodetic horizon (no refraction; NaN for the
@@ -409,7 +409,7 @@ struct Sky {
 /// follows the planet-Sun axis (up to half a degree from the Sun for Mercury): the position
 /// angle is referred to the Sun's own north by adding the convergence of the meridians,
 /// (alpha_sun - a) sin(d) (spherical trigonometry, first order in the small offset).
-fn sky_at(
+pub(crate) fn sky_at(
     el: &Elements,
     st: Option<&GeocentricStation>,
     hours: f64,
