@@ -330,6 +330,28 @@ pub struct PlanArgs {
         allow_hyphen_values = true
     )]
     pub min_altitude: f64,
+    /// Each station also images the Sun every this many seconds while the planet is wholly on
+    /// the disc (with --sigma-solar-radii): the forecast counts the measured positions too.
+    #[arg(
+        long = "positions-every",
+        value_name = "SECONDS",
+        requires = "sigma_solar_radii",
+        allow_hyphen_values = true
+    )]
+    pub positions_every: Option<f64>,
+    /// Standard uncertainty of one measured separation of the centres, in the Sun's radius
+    /// (1e-3 is about 0.95"), with --positions-every.
+    #[arg(
+        long = "sigma-solar-radii",
+        value_name = "X",
+        requires = "positions_every",
+        allow_hyphen_values = true
+    )]
+    pub sigma_solar_radii: Option<f64>,
+    /// What the choice and the forecast count: contacts, positions or both (default: both with
+    /// --positions-every, else contacts).
+    #[arg(long, value_name = "WHAT")]
+    pub measure: Option<String>,
     /// Output format.
     #[arg(long, value_enum, default_value = "table")]
     pub format: FormatArg,

@@ -250,7 +250,8 @@ fn plan(a: PlanArgs) -> Result<String, Error> {
         _ => {}
     }
     let event = a.event.transit()?;
-    let plan = sites::plan(&event, &stations, a.sigma_s, a.min_altitude, a.choose);
+    let options = plan_options(&a)?;
+    let plan = sites::plan_with(&event, &stations, &options);
     let format = a.format.format();
     let mut text = match format {
         Format::Table => planning::plan_table(&event, &plan, a.min_altitude),
@@ -292,6 +293,44 @@ fn plan(a: PlanArgs) -> Result<String, Error> {
         }
     }
     Ok(text)
+}
+
+/// The plan's options from its arguments: the images' cadence and precision checked, and
+/// what is measured.
+fn plan_options(a: &PlanArgs) -> Result<sites::PlanOptions, Error> {
+    let imaging = match (a.positions_every, a.sigma_solar_radii) {
+        (Some(every_s), Some(sigma)) => {
+            check_range("--positions-every", every_s, 1.0, 3600.0)?;
+            check_range("--sigma-solar-radii", sigma, 1e-6, 0.1)?;
+            Some(transit_parallax::planning::imaging::Imaging {
+                every_s,
+                sigma_solar_radii: sigma,
+            })
+        }
+        _ => None,
+    };
+    let measure = match a.measure.as_deref() {
+        None if imaging.is_some() => sites::Measure::Both,
+        None => sites::Measure::Contacts,
+        Some(word) => sites::Measure::parse(word).ok_or_else(|| {
+            Error::argument(format!(
+                "--measure '{word}' is not a way of measuring; give contacts, positions or both"
+            ))
+        })?,
+    };
+    if measure != sites::Measure::Contacts && imaging.is_none() {
+        return Err(Error::argument(format!(
+            "--measure {}: say how the stations would image the Sun with --positions-every SECONDS and --sigma-solar-radii X",
+            measure.name()
+        )));
+    }
+    Ok(sites::PlanOptions {
+        sigma_s: a.sigma_s,
+        min_altitude_deg: a.min_altitude,
+        choose: a.choose,
+        imaging,
+        measure,
+    })
 }
 
 fn simulation_settings(a: &SimulateArgs) -> Result<simulation::SimulationSettings, Error> {

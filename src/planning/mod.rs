@@ -6,10 +6,12 @@
 //!
 //! - `sites.rs`: site ranking, greedy network choice, forecasts, sensitivity grids.
 //! - `simulation.rs`: simulated campaigns and Monte Carlo forecasts.
+//! - `imaging.rs`: the information a camera's positions of the planet on the disc carry.
 //! - `historical.rs`: simulated campaigns recorded as historical expeditions wrote them.
 //! - `records.rs`: a campaign written out as an observations file, in the forms it was
 //!   recorded in.
 pub mod historical;
+pub mod imaging;
 pub mod records;
 pub mod simulation;
 pub mod sites;

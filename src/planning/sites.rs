@@ -13,6 +13,7 @@
 //! Phil. Trans. 29, 454 (1716) (durations, stations far apart in latitude) and J.-N. Delisle's
 //! method of one contact from stations far apart in longitude (1760).
 
+use super::imaging::{site_positions, Imaging, SitePositions};
 use crate::geometry::contacts::Contact;
 use crate::geometry::station::Station;
 use crate::geometry::transit::TransitEvent;
@@ -21,6 +22,70 @@ use crate::reduction::parameters::N_CLASSIC as N_PARAMS;
 use nalgebra::{DMatrix, SMatrix};
 
 type Info = SMatrix<f64, N_PARAMS, N_PARAMS>;
+
+/// What the network would measure.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum Measure {
+    /// Contact timings only.
+    Contacts,
+    /// Positions on the disc from images only.
+    Positions,
+    /// Both, reduced together.
+    Both,
+}
+
+impl Measure {
+    /// The word used on the command line and in the outputs.
+    pub fn name(self) -> &'static str {
+        match self {
+            Measure::Contacts => "contacts",
+            Measure::Positions => "positions",
+            Measure::Both => "both",
+        }
+    }
+
+    /// From the command line's word.
+    pub fn parse(text: &str) -> Option<Measure> {
+        [Measure::Contacts, Measure::Positions, Measure::Both]
+            .into_iter()
+            .find(|m| m.name() == text.trim().to_ascii_lowercase())
+    }
+
+    fn contacts(self) -> bool {
+        self != Measure::Positions
+    }
+
+    fn positions(self) -> bool {
+        self != Measure::Contacts
+    }
+}
+
+/// How a plan is made.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct PlanOptions {
+    /// The timing uncertainty assumed for every contact, seconds.
+    pub sigma_s: f64,
+    /// The least altitude of the Sun, degrees.
+    pub min_altitude_deg: f64,
+    /// How many sites to choose.
+    pub choose: Option<usize>,
+    /// How the stations would image the Sun (`None`: no images).
+    pub imaging: Option<Imaging>,
+    /// What the choice, the gains and the forecasts count.
+    pub measure: Measure,
+}
+
+/// The forecast sigma of the parallax (arcsec) by each way of measuring, for the chosen sites
+/// (or every site when none is chosen); `None` where it is not determined.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct MethodForecasts {
+    /// Contacts alone.
+    pub contacts: Option<f64>,
+    /// Positions alone.
+    pub positions: Option<f64>,
+    /// Both together.
+    pub both: Option<f64>,
+}
 
 /// One site's view of one contact.
 #[derive(Clone, Debug, PartialEq)]
@@ -48,6 +113,8 @@ pub struct Site {
     /// Percentage by which the whole candidate network's forecast sigma would grow without
     /// this site (its gain to the network); `None` if the rest cannot determine the parallax.
     pub gain_percent: Option<f64>,
+    /// What its images would measure (`None` without `imaging`).
+    pub positions: Option<SitePositions>,
 }
 
 /// The result of planning.
@@ -65,18 +132,37 @@ pub struct Plan {
     pub reasons: Vec<String>,
     /// Timing uncertainty assumed, seconds.
     pub sigma_s: f64,
+    /// What the choice, the gains and the forecasts count.
+    pub measure: Measure,
+    /// How the stations would image the Sun, if they do.
+    pub imaging: Option<Imaging>,
+    /// The forecast by each way of measuring (with `imaging`).
+    pub by_method: Option<MethodForecasts>,
 }
 
-fn information(sites: &[Site], which: &[usize], sigma_s: f64) -> Info {
+/// The information of the sites `which` on the classic parameters, counting what `measure`
+/// says.
+fn information(sites: &[Site], which: &[usize], sigma_s: f64, measure: Measure) -> Info {
     let mut n = Info::zeros();
     let w = 1.0 / (sigma_s * sigma_s);
     for &i in which {
-        for c in sites[i].contacts.iter().filter(|c| c.visible) {
-            let r = nalgebra::SVector::<f64, N_PARAMS>::from_row_slice(&c.row);
-            n += w * r * r.transpose();
+        if measure.contacts() {
+            for c in sites[i].contacts.iter().filter(|c| c.visible) {
+                let r = nalgebra::SVector::<f64, N_PARAMS>::from_row_slice(&c.row);
+                n += w * r * r.transpose();
+            }
+        }
+        if let Some(p) = sites[i].positions.as_ref().filter(|_| measure.positions()) {
+            n += p.info;
         }
     }
     n
+}
+
+/// Whether a site adds anything to what `measure` counts.
+fn adds_something(site: &Site, measure: Measure) -> bool {
+    (measure.contacts() && site.contacts.iter().any(|c| c.visible))
+        || (measure.positions() && site.positions.as_ref().is_some_and(|p| p.count > 0))
 }
 
 /// Forecast sigma of the parallax from an information matrix, with the parameters no site
@@ -113,7 +199,8 @@ fn forecast_sigma_regularised(n: &Info) -> f64 {
 }
 
 /// One candidate's contacts, circumstances and condition-equation rows.
-fn evaluate_site(event: &TransitEvent, st: &Station, min_altitude_deg: f64) -> Site {
+fn evaluate_site(event: &TransitEvent, st: &Station, o: &PlanOptions) -> Site {
+    let min_altitude_deg = o.min_altitude_deg;
     let theta = nominal_theta();
     let geo = st.geocentric();
     let pred = event.predict(st);
@@ -136,35 +223,39 @@ fn evaluate_site(event: &TransitEvent, st: &Station, min_altitude_deg: f64) -> S
         station: st.clone(),
         contacts,
         gain_percent: None,
+        positions: o
+            .imaging
+            .map(|im| site_positions(event, st, &im, min_altitude_deg)),
     }
 }
 
 /// Choose up to `k` sites one at a time, each the one that most lowers the forecast sigma
 /// (greedy forward selection; a weak prior ranks sites while the set cannot yet determine
-/// everything). A site that sees no contact with the Sun up is never chosen.
-fn choose_greedily(sites: &[Site], k: usize, sigma_s: f64) -> Vec<usize> {
+/// everything). A site that adds nothing (no contact, no image with the Sun up) is never
+/// chosen.
+fn choose_greedily(sites: &[Site], k: usize, sigma_s: f64, measure: Measure) -> Vec<usize> {
     let mut chosen = Vec::new();
     let mut n = Info::zeros();
     for _ in 0..k.min(sites.len()) {
-        // A site that sees no contact with the Sun up adds nothing: it is never chosen.
         let best = (0..sites.len())
             .filter(|i| !chosen.contains(i))
-            .filter(|&i| sites[i].contacts.iter().any(|c| c.visible))
+            .filter(|&i| adds_something(&sites[i], measure))
             .map(|i| {
-                let trial = n + information(sites, &[i], sigma_s);
+                let trial = n + information(sites, &[i], sigma_s, measure);
                 let score = forecast_sigma(&trial)
                     .unwrap_or_else(|| 1e6 * forecast_sigma_regularised(&trial));
                 (i, score)
             })
             .min_by(|a, b| a.1.total_cmp(&b.1));
         let Some((i, _)) = best else { break };
-        n += information(sites, &[i], sigma_s);
+        n += information(sites, &[i], sigma_s, measure);
         chosen.push(i);
     }
     chosen
 }
 
-/// Evaluate every candidate site and, with `choose`, pick that many greedily.
+/// Evaluate every candidate site and, with `choose`, pick that many greedily (contact timings
+/// only; [`plan_with`] for images too).
 ///
 /// Arguments: `event`; `stations`; `sigma_s`, the timing uncertainty assumed for every contact;
 /// `min_altitude_deg`; `choose`, how many sites to pick.
@@ -175,34 +266,60 @@ pub fn plan(
     min_altitude_deg: f64,
     choose: Option<usize>,
 ) -> Plan {
+    let options = PlanOptions {
+        sigma_s,
+        min_altitude_deg,
+        choose,
+        imaging: None,
+        measure: Measure::Contacts,
+    };
+    plan_with(event, stations, &options)
+}
+
+/// Evaluate every candidate site for what the network would measure and, with `choose`, pick
+/// that many greedily; with imaging, also the forecast by each way of measuring.
+pub fn plan_with(event: &TransitEvent, stations: &[Station], o: &PlanOptions) -> Plan {
+    let (sigma_s, measure) = (o.sigma_s, o.measure);
     let mut sites: Vec<Site> = stations
         .iter()
-        .map(|st| evaluate_site(event, st, min_altitude_deg))
+        .map(|st| evaluate_site(event, st, o))
         .collect();
     let all: Vec<usize> = (0..sites.len()).collect();
-    let n_all = information(&sites, &all, sigma_s);
-    let all_sigma = forecast_sigma(&n_all);
+    let all_sigma = forecast_sigma(&information(&sites, &all, sigma_s, measure));
     for i in 0..sites.len() {
         let rest: Vec<usize> = all.iter().copied().filter(|&j| j != i).collect();
-        let without = forecast_sigma(&information(&sites, &rest, sigma_s));
+        let without = forecast_sigma(&information(&sites, &rest, sigma_s, measure));
         sites[i].gain_percent = match (all_sigma, without) {
             (Some(a), Some(b)) => Some(100.0 * (b / a - 1.0)),
             _ => None,
         };
     }
-    let chosen = choose.map_or_else(Vec::new, |k| choose_greedily(&sites, k, sigma_s));
+    let chosen = o
+        .choose
+        .map_or_else(Vec::new, |k| choose_greedily(&sites, k, sigma_s, measure));
     let chosen_sigma = if chosen.is_empty() {
         None
     } else {
-        forecast_sigma(&information(&sites, &chosen, sigma_s))
+        forecast_sigma(&information(&sites, &chosen, sigma_s, measure))
     };
     let mut reasons = explain_choice(&sites, &chosen, chosen_sigma);
-    if let Some(k) = choose.filter(|&k| k > chosen.len()) {
+    if let Some(k) = o.choose.filter(|&k| k > chosen.len()) {
         reasons.push(format!(
-            "only {} of the {k} sites asked for were chosen: the other sites see no contact with the Sun at least {min_altitude_deg} degrees up and would add nothing",
-            chosen.len()
+            "only {} of the {k} sites asked for were chosen: the other sites see no contact {}with the Sun at least {} degrees up and would add nothing",
+            chosen.len(),
+            if measure.positions() { "and take no image " } else { "" },
+            o.min_altitude_deg
         ));
     }
+    let counted = if chosen.is_empty() { &all } else { &chosen };
+    let by_method = o.imaging.map(|_| {
+        let f = |m: Measure| forecast_sigma(&information(&sites, counted, sigma_s, m));
+        MethodForecasts {
+            contacts: f(Measure::Contacts),
+            positions: f(Measure::Positions),
+            both: f(Measure::Both),
+        }
+    });
     Plan {
         sites,
         all_sites_sigma_arcsec: all_sigma,
@@ -210,6 +327,9 @@ pub fn plan(
         chosen_sigma_arcsec: chosen_sigma,
         reasons,
         sigma_s,
+        measure,
+        imaging: o.imaging,
+        by_method,
     }
 }
 

@@ -48,7 +48,7 @@ pub fn plan_json(event: &TransitEvent, plan: &Plan, min_altitude_deg: f64) -> Va
         .iter()
         .enumerate()
         .map(|(i, site)| {
-            json!({
+            let mut v = json!({
                 "station": site.station.name,
                 "latitude": site.station.latitude_deg,
                 "longitude": site.station.longitude_deg,
@@ -61,10 +61,17 @@ pub fn plan_json(event: &TransitEvent, plan: &Plan, min_altitude_deg: f64) -> Va
                     "sensitivity_s_per_arcsec": r(c.sensitivity_s_per_arcsec, 3),
                     "visible": c.visible,
                 })).collect::<Vec<_>>(),
-            })
+            });
+            if let Some(p) = &site.positions {
+                let at = |h: f64| format_utc(event.label(h), 0);
+                v["images"] = json!(p.count);
+                v["images_from_utc"] = json!(p.window_hours.map(|w| at(w.0)));
+                v["images_to_utc"] = json!(p.window_hours.map(|w| at(w.1)));
+            }
+            v
         })
         .collect();
-    json!({
+    let mut out = json!({
         "planet": event.planet.name(),
         "transit_date": event.date().to_string(),
         "ephemeris": event.ephemeris_name(),
@@ -76,12 +83,54 @@ pub fn plan_json(event: &TransitEvent, plan: &Plan, min_altitude_deg: f64) -> Va
         "forecast_parallax_sigma_arcsec": plan.chosen_sigma_arcsec.map(|x| r(x, 6)),
         "forecast_au_sigma_km": plan.chosen_sigma_arcsec.map(|x| r(au_sigma_km(x), 0)),
         "reasons": plan.reasons,
-    })
+    });
+    if let (Some(im), Some(m)) = (plan.imaging, plan.by_method) {
+        out["measure"] = json!(plan.measure.name());
+        out["positions_every_s"] = json!(im.every_s);
+        out["sigma_solar_radii"] = json!(im.sigma_solar_radii);
+        out["forecast_by_method"] = json!({
+            "sites": if plan.chosen.is_empty() { "every site" } else { "chosen" },
+            "contacts_sigma_arcsec": m.contacts.map(|x| r(x, 6)),
+            "positions_sigma_arcsec": m.positions.map(|x| r(x, 6)),
+            "both_sigma_arcsec": m.both.map(|x| r(x, 6)),
+        });
+    }
+    out
 }
 
 fn au_sigma_km(parallax_sigma_arcsec: f64) -> f64 {
     let pi = crate::sky::constants::nominal_parallax_arcsec() * crate::sky::constants::ARCSEC_RAD;
     AU_KM * parallax_sigma_arcsec * crate::sky::constants::ARCSEC_RAD / pi.tan()
+}
+
+/// The forecast by each way of measuring (with images), below the table of sites.
+fn method_summary(plan: &Plan, s: &mut String) {
+    let Some(m) = plan.by_method else {
+        return;
+    };
+    let which = if plan.chosen.is_empty() {
+        "every site"
+    } else {
+        "the chosen sites"
+    };
+    s.push_str(&format!(
+        "\nForecast for {which} by what is measured (the choice above counts {}):\n",
+        plan.measure.name()
+    ));
+    for (what, sigma) in [
+        ("contacts alone", m.contacts),
+        ("positions alone", m.positions),
+        ("both together", m.both),
+    ] {
+        match sigma {
+            Some(x) => s.push_str(&format!(
+                "  {what:<16} parallax +- {x:.d$}\" (AU +- {})\n",
+                km_to_three_digits(au_sigma_km(x)),
+                d = decimals_for(x)
+            )),
+            None => s.push_str(&format!("  {what:<16} not determined\n")),
+        }
+    }
 }
 
 /// The forecasts and the reasons for the choice, below the table of sites.
@@ -119,10 +168,35 @@ fn plan_summary(plan: &Plan, s: &mut String) {
     }
 }
 
+/// A site's images, below its contacts.
+fn images_line(event: &TransitEvent, p: &crate::planning::imaging::SitePositions) -> String {
+    let pad = " ".repeat(4 + name_cell("").chars().count() + 2);
+    match p.window_hours {
+        Some((a, b)) => format!(
+            "{pad}images: {} from {} to {}\n",
+            p.count,
+            clock_label(event.label(a), 0),
+            clock_label(event.label(b), 0)
+        ),
+        None => format!("{pad}images: none (the planet not wholly on the disc with the Sun up)\n"),
+    }
+}
+
 /// A readable plan.
 pub fn plan_table(event: &TransitEvent, plan: &Plan, min_altitude_deg: f64) -> String {
+    let images = plan.imaging.map_or(String::new(), |i| {
+        format!(
+            "; an image every {} s with separations to {} solar radii",
+            i.every_s, i.sigma_solar_radii
+        )
+    });
+    let counted = if plan.imaging.is_some() {
+        "contacts and images"
+    } else {
+        "contacts"
+    };
     let mut s = format!(
-        "Planning for the transit of {} on {} (timings of {:.0} s assumed; contacts counted with the Sun at least {:.0} deg up; ephemeris {})\n\n",
+        "Planning for the transit of {} on {} (timings of {:.0} s assumed{images}; {counted} counted with the Sun at least {:.0} deg up; ephemeris {})\n\n",
         event.planet.title(),
         event.date(),
         plan.sigma_s,
@@ -179,8 +253,12 @@ pub fn plan_table(event: &TransitEvent, plan: &Plan, min_altitude_deg: f64) -> S
                 i + 1
             ));
         }
+        if let Some(p) = &site.positions {
+            s.push_str(&images_line(event, p));
+        }
     }
     plan_summary(plan, &mut s);
+    method_summary(plan, &mut s);
     s.push('\n');
     s.push_str(SAFETY_CAUTION);
     s.push('\n');
