@@ -474,3 +474,38 @@ fn offsets_west_of_greenwich_and_decimal_commas_before_an_offset() {
     let path = temp("forms_offsets.csv", text.as_bytes());
     assert_same_result("offsets", &reduce(&path, &[]));
 }
+
+/// A row giving a position on the disc (no contact; what `measure` writes) is set aside with
+/// a sentence saying that positions are not reduced yet, and the contacts of the same file
+/// are reduced as without it.
+#[test]
+fn a_position_row_is_set_aside_and_the_contacts_reduced() {
+    let demo = std::fs::read_to_string(concat!(
+        env!("CARGO_MANIFEST_DIR"),
+        "/src/data/demo_campaign.csv"
+    ))
+    .unwrap();
+    let plain = reduce(&temp("positions_none.csv", demo.as_bytes()), &[]);
+    let header = demo.lines().find(|l| l.starts_with("station,")).unwrap();
+    let with = demo.replacen(
+        header,
+        &format!("{header},separation_solar_radii,sigma_solar_radii"),
+        1,
+    ) + "Kauri Point,-36.85,174.76,20,,2012-06-05T23:00:00Z,,0.61234,0.0005\n";
+    let got = reduce(&temp("positions_one.csv", with.as_bytes()), &[]);
+    assert_eq!(got["parallax_arcsec"], plain["parallax_arcsec"]);
+    let set_aside = got["rejected"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|r| r["station"] == "Kauri Point")
+        .expect("the position row listed");
+    assert_eq!(set_aside["reason"], "invalid");
+    assert!(
+        set_aside["diagnosis"]
+            .as_str()
+            .unwrap()
+            .contains("does not reduce positions yet"),
+        "{set_aside}"
+    );
+}

@@ -62,6 +62,9 @@ pub struct Columns {
     /// How the timing was made (`clock_source`, `instrument`, `aperture_mm`, `viewing`,
     /// `notes`).
     pub metadata: MetadataColumns,
+    /// The columns of a measured position on the disc (`separation_solar_radii`,
+    /// `separation_arcsec`, `position_angle_deg`), where present.
+    pub position: Vec<usize>,
 }
 
 impl Columns {
@@ -90,6 +93,14 @@ impl Columns {
             duration: table.optional("duration"),
             judged: table.optional("contact_judged"),
             metadata: MetadataColumns::find(table),
+            position: [
+                "separation_solar_radii",
+                "separation_arcsec",
+                "position_angle_deg",
+            ]
+            .iter()
+            .filter_map(|name| table.optional(name))
+            .collect(),
         };
         if cols.time.is_none() && cols.local.time_local.is_none() && cols.duration.is_none() {
             // The message names the column every modern file has.
@@ -98,6 +109,9 @@ impl Columns {
         Ok(cols)
     }
 }
+
+/// Why a row giving a position on the disc (no contact) is not reduced.
+pub const POSITION_NOT_REDUCED: &str = "a position on the disc (no contact): `measure` writes such rows and `plan --positions-every` forecasts them, but this version of `reduce` does not reduce positions yet; the contact rows are reduced without it";
 
 /// The text of an optional column ("" where absent).
 fn field<'a>(table: &CsvTable, rec: &'a csv::StringRecord, col: Option<usize>) -> &'a str {
@@ -319,6 +333,15 @@ fn row_timing(
         });
     }
     let contact_text = table.text(rec, cols.contact);
+    if contact_text.is_empty() {
+        if let Some(&c) = cols
+            .position
+            .iter()
+            .find(|&&c| !table.text(rec, c).is_empty())
+        {
+            return Err((POSITION_NOT_REDUCED.to_string(), Some(c)));
+        }
+    }
     let contact = Contact::parse(contact_text).ok_or_else(|| {
         (format!("'{contact_text}' is not a contact; write 1-4, I-IV or C1-C4 (or a pair such as 2-3 with a duration)"), Some(cols.contact))
     })?;
