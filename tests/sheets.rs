@@ -318,27 +318,65 @@ fn a_sheet_in_spanish_or_german_has_its_caution_words_and_decimal_comma() {
         // projection; never an optical finder; local guidance and a supervisor.
         let caution = caution_in(language);
         let at = html.find(&caution).expect("the translated caution");
-        assert!(at < html.find("<h1>").unwrap(), "{code}: the caution comes first");
+        assert!(
+            at < html.find("<h1>").unwrap(),
+            "{code}: the caution comes first"
+        );
         let words: &[&str] = match language {
-            Language::Spanish => &["filtro solar certificado", "proyectada", "buscador óptico", "supervisor con experiencia"],
-            _ => &["zertifizierten Sonnenfilter", "Projektionsschirm", "optischen Sucher", "erfahrenen Aufsicht"],
+            Language::Spanish => &[
+                "filtro solar certificado",
+                "proyectada",
+                "buscador óptico",
+                "supervisor con experiencia",
+            ],
+            _ => &[
+                "zertifizierten Sonnenfilter",
+                "Projektionsschirm",
+                "optischen Sucher",
+                "erfahrenen Aufsicht",
+            ],
         };
         for w in words {
             assert!(caution.contains(w), "{code}: {w}");
         }
         assert!(!html.contains(SAFETY_CAUTION), "{code}: no English caution");
         // Numbers with the decimal comma, the date with its month name, times 24-hour.
-        assert!(html.contains("52,1600°") && html.contains("4,4900°"), "{code}: coordinates");
+        assert!(
+            html.contains("52,1600°") && html.contains("4,4900°"),
+            "{code}: coordinates"
+        );
         assert!(!html.contains("52.1600"), "{code}: no decimal point");
         let (title, heading, seen, month) = match language {
-            Language::Spanish => ("Tránsito de Mercurio, 13 de noviembre de 2032", "Los cuatro contactos", "sí, Sol sobre el horizonte", "noviembre"),
-            _ => ("Merkurtransit, 13. November 2032", "Die vier Kontakte", "ja, Sonne über dem Horizont", "November"),
+            Language::Spanish => (
+                "Tránsito de Mercurio, 13 de noviembre de 2032",
+                "Los cuatro contactos",
+                "sí, Sol arriba",
+                "noviembre",
+            ),
+            _ => (
+                "Merkurtransit, 13. November 2032",
+                "Die vier Kontakte",
+                "ja, Sonne oben",
+                "November",
+            ),
         };
-        assert!(html.contains(&format!("<h1>{title}: Leiden Primary School</h1>")), "{code}: {month}");
+        assert!(
+            html.contains(&format!("<h1>{title}: Leiden Primary School</h1>")),
+            "{code}: {month}"
+        );
         assert!(html.contains(heading) && html.contains(seen), "{code}");
         assert!(html.contains("12:06:00 CET"), "{code}: 24-hour clock time");
-        for english in ["The four contacts", "Your timings", "Sunrise and sunset", "Position angle", "Zenith<"] {
-            assert!(!html.contains(english), "{code}: '{english}' left in English");
+        for english in [
+            "The four contacts",
+            "Your timings",
+            "Sunrise and sunset",
+            "Position angle",
+            "Zenith<",
+        ] {
+            assert!(
+                !html.contains(english),
+                "{code}: '{english}' left in English"
+            );
         }
         assert_tables_are_rectangular(code, &html);
         // The calendar in the same language, its caution and decimal comma (escaped as RFC
@@ -348,13 +386,21 @@ fn a_sheet_in_spanish_or_german_has_its_caution_words_and_decimal_comma() {
         assert_eq!(events, 2, "{code}");
         let unfolded = ics.replace("\r\n ", "");
         let summary = match language {
-            Language::Spanish => "SUMMARY:Tránsito de Mercurio: contacto III (Leiden Primary School)",
+            Language::Spanish => {
+                "SUMMARY:Tránsito de Mercurio: contacto III (Leiden Primary School)"
+            }
             _ => "SUMMARY:Merkurtransit: Kontakt III (Leiden Primary School)",
         };
         assert!(unfolded.contains(summary), "{code}: {unfolded}");
         let first_words = caution.split(',').next().unwrap();
-        assert!(unfolded.contains(first_words), "{code}: the caution in the calendar");
-        assert!(unfolded.contains("19\\,5"), "{code}: the Sun's altitude with a comma");
+        assert!(
+            unfolded.contains(first_words),
+            "{code}: the caution in the calendar"
+        );
+        assert!(
+            unfolded.contains("19\\,5"),
+            "{code}: the Sun's altitude with a comma"
+        );
     }
 }
 
@@ -364,10 +410,23 @@ fn an_unknown_language_is_refused_naming_the_five() {
     let dir = std::env::temp_dir().join(format!("tp-sheets-{}-unknown", std::process::id()));
     let o = run_words(
         "predict --planet mercury --date 2032-11-13 --stations",
-        &[&stations, "--sheets", dir.to_str().unwrap(), "--language", "ja"],
+        &[
+            &stations,
+            "--sheets",
+            dir.to_str().unwrap(),
+            "--language",
+            "ja",
+        ],
     );
     assert!(!o.status.success());
-    for code in ["'ja'", "en (English)", "es (Español)", "fr (Français)", "de (Deutsch)", "pt (Português)"] {
+    for code in [
+        "'ja'",
+        "en (English)",
+        "es (Español)",
+        "fr (Français)",
+        "de (Deutsch)",
+        "pt (Português)",
+    ] {
         assert!(err(&o).contains(code), "{code}: {}", err(&o));
     }
     assert!(!dir.exists(), "nothing written");
@@ -376,5 +435,9 @@ fn an_unknown_language_is_refused_naming_the_five() {
         "predict --planet mercury --date 2032-11-13 --language de --stations",
         &[&stations],
     );
-    assert!(!o.status.success() && err(&o).contains("--sheets"), "{}", err(&o));
+    assert!(
+        !o.status.success() && err(&o).contains("--sheets"),
+        "{}",
+        err(&o)
+    );
 }

@@ -13,7 +13,7 @@ sheet-title =
        *[other] Merkurtransit
     }, { $date }: { $station }
 sheet-station-html = Station: <b>{ $station }</b>, Breite { $latitude }°, Länge { $longitude }° (östlich positiv), Höhe { $elevation } m.
-sheet-zone-html = Die Uhrzeiten sind in <b>{ $zone }</b> angegeben: { $abbreviation } (UTC{ $offset }) während des Transits; daneben steht UTC.
+sheet-zone-html = Uhrzeiten in <b>{ $zone }</b>: { $abbreviation } (UTC{ $offset }) während des Transits; daneben UTC.
 sheet-no-zone-html = Für diese Station wurde keine Zeitzone angegeben, daher stehen die Zeiten <b>nur in UTC</b> da. Um sie in der Zeit Ihrer Uhr zu erhalten, rufen Sie <code>predict</code> noch einmal mit <code>--time-zone ZONE</code> auf (z. B. <code>Europe/Berlin</code> oder <code>+05:30</code>) oder ergänzen Sie die Stationsdatei um eine Spalte <code>time_zone</code>.
 
 ## Die vier Kontakte
@@ -21,14 +21,14 @@ sheet-no-zone-html = Für diese Station wurde keine Zeitzone angegeben, daher st
 sheet-contacts-heading = Die vier Kontakte
 sheet-col-contact = Kontakt
 sheet-col-your-clock = Ihre Uhr
-sheet-col-sun-altitude = Sonnenhöhe
-sheet-col-sun-azimuth = Sonnenazimut
-sheet-col-position-angle = Positionswinkel
-sheet-col-vertex-angle = Vertexwinkel
+sheet-col-sun-altitude = Sonnen{ "\u00AD" }höhe
+sheet-col-sun-azimuth = Sonnen{ "\u00AD" }azimut
+sheet-col-position-angle = Positions{ "\u00AD" }winkel
+sheet-col-vertex-angle = Vertex{ "\u00AD" }winkel
 sheet-col-seen = Sichtbar?
 sheet-no-such-contact = dieser Kontakt findet an dieser Station nicht statt (streifender Transit)
-sheet-seen-yes = ja, Sonne über dem Horizont
-sheet-seen-no = unter dem Horizont — nicht sichtbar
+sheet-seen-yes = ja, Sonne oben
+sheet-seen-no = nein, unter Horizont
 sheet-contacts-note = Die Zeiten sind auf die Sekunde gerundet. Es sind die idealen geometrischen Kontakte (I, II: Eintritt außen und innen; III, IV: Austritt innen und außen), aus der Ephemeride auf ±{ $sigma } s vorhergesagt, mit Delta T { $delta_t } s (siehe Fuß der Seite); was Sie sehen, kann um einige Sekunden abweichen (Tropfenphänomen, Luftunruhe, Ihre Uhr). Höhe: wahre Höhe der Sonnenmitte (ohne Refraktion); Azimut von Norden über Osten. Sichtbar: der obere Sonnenrand über dem Horizont (wahre Höhe über −0°50′).
 
 ## Sonnenaufgang und Sonnenuntergang
@@ -45,7 +45,7 @@ sheet-sun-note = (oberer Rand am Horizont, Standardhöhe −0°50′, Meeus Kap.
 sheet-drawings-heading = Wo am Sonnenrand Sie hinsehen sollten
 sheet-zenith-caption-1 = Am Himmel: Zenit oben
 sheet-zenith-caption-2 = (Vertexwinkel)
-sheet-north-caption-1 = Äquatoriale Montierung: Norden oben,
+sheet-north-caption-1 = Äquatorial: Norden oben,
 sheet-north-caption-2 = Osten links (Positionswinkel)
 sheet-drawings-note = Der Positionswinkel wird vom Nordpunkt der Scheibe über Osten gezählt, der Vertexwinkel vom zenitnächsten Punkt über Osten; beide hier gegen den Uhrzeigersinn, wie man den Himmel direkt sieht. Ein Zenitspiegel spiegelt das Bild, ein Projektionsschirm kann es spiegeln oder drehen: Prüfen Sie vor dem Transit, in welche Richtung die Sonne wandert.
 limb-zenith-label = Sonnenscheibe, wie sie am Himmel steht, Zenit oben
@@ -90,7 +90,7 @@ sheet-delta-t-source-extrapolated = einer Extrapolation: der Mitte dreier veröf
 sheet-times-utc-hardly = Die Zeiten sind UTC; die Unsicherheit von Delta T verschiebt die Kontakte kaum.
 sheet-times-ut1 = Die Zeiten sind UT1, also TT - Delta T: Ein Fehler in Delta T verschiebt jede gedruckte Zeit um etwa ebenso viel.
 sheet-times-utc = Die Zeiten sind UTC.
-sheet-times-utc-held = Die Zeiten sind UTC mit TAI - UTC auf dem letzten Wert gehalten, so dass sie an TT gebunden bleiben: Ein Fehler in Delta T verschiebt sie nur über die Erddrehung während des Ereignisses (Sekunden für Minuten von Delta T), während sich die UT1 jedes Kontakts und jede noch kommende Schaltsekunde um den ganzen Fehler verschieben würde.
+sheet-times-utc-held = Die Zeiten sind UTC, mit TAI - UTC auf dem letzten Wert gehalten und so an TT gebunden: Ein Fehler in Delta T verschiebt sie nur über die Erddrehung während des Ereignisses (Sekunden für Minuten von Delta T), die UT1 jedes Kontakts und jede künftige Schaltsekunde aber um den ganzen Fehler.
 
 ## Der Kalender (.ics)
 

@@ -12,7 +12,7 @@ sheet-title =
        *[other] Tránsito de Mercurio
     }, { $date }: { $station }
 sheet-station-html = Estación: <b>{ $station }</b>, latitud { $latitude }°, longitud { $longitude }° (positiva al este), altitud { $elevation } m.
-sheet-zone-html = Las horas de reloj están en <b>{ $zone }</b>: { $abbreviation } (UTC{ $offset }) durante el tránsito; al lado se da la hora UTC.
+sheet-zone-html = Horas del reloj en <b>{ $zone }</b>: { $abbreviation } (UTC{ $offset }) durante el tránsito; al lado, UTC.
 sheet-no-zone-html = No se dio ninguna zona horaria para esta estación, así que las horas están <b>solo en UTC</b>. Para tenerlas en la hora de su reloj, ejecute <code>predict</code> de nuevo con <code>--time-zone ZONA</code> (p. ej. <code>Europe/Madrid</code> o <code>+05:30</code>) o añada una columna <code>time_zone</code> al archivo de estaciones.
 
 ## Los cuatro contactos
@@ -26,8 +26,8 @@ sheet-col-position-angle = Ángulo de posición
 sheet-col-vertex-angle = Ángulo de vértice
 sheet-col-seen = ¿Visible?
 sheet-no-such-contact = este contacto no ocurre en esta estación (tránsito rasante)
-sheet-seen-yes = sí, Sol sobre el horizonte
-sheet-seen-no = bajo el horizonte — no visible
+sheet-seen-yes = sí, Sol arriba
+sheet-seen-no = no, bajo el horizonte
 sheet-contacts-note = Las horas están redondeadas al segundo. Son los contactos geométricos ideales (I, II: ingreso exterior e interior; III, IV: egreso interior y exterior), predichos con ±{ $sigma } s a partir de la efeméride, con Delta T { $delta_t } s (véase el pie de la página); lo que usted vea puede diferir en varios segundos (la gota negra, la turbulencia, su reloj). Altura: altura verdadera del centro del Sol (sin refracción); acimut desde el norte hacia el este. Visible: el borde superior del Sol sobre el horizonte (altura verdadera mayor que −0°50′).
 
 ## Salida y puesta del Sol
@@ -44,8 +44,8 @@ sheet-sun-note = (borde superior en el horizonte, altura estándar −0°50′, 
 sheet-drawings-heading = Dónde mirar en el borde del Sol
 sheet-zenith-caption-1 = En el cielo: cenit arriba
 sheet-zenith-caption-2 = (ángulo de vértice)
-sheet-north-caption-1 = Montura ecuatorial: norte arriba,
-sheet-north-caption-2 = este a la izquierda (ángulo de posición)
+sheet-north-caption-1 = Montura ecuatorial:
+sheet-north-caption-2 = N arriba, E a la izquierda (ángulo de posición)
 sheet-drawings-note = El ángulo de posición se cuenta desde el punto norte del disco hacia el este; el ángulo de vértice, desde el punto más cercano al cenit hacia el este; ambos en sentido antihorario aquí, como se ve el cielo directamente. Un espejo diagonal invierte la imagen y una pantalla de proyección puede invertirla o girarla: compruebe hacia dónde se desplaza el Sol antes del tránsito.
 limb-zenith-label = Disco solar tal como se ve en el cielo, cenit arriba
 limb-north-label = Disco solar con el norte arriba y el este a la izquierda

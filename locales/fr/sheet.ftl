@@ -27,7 +27,7 @@ sheet-col-vertex-angle = Angle au zénith
 sheet-col-seen = Visible ?
 sheet-no-such-contact = ce contact n'a pas lieu à cette station (transit rasant)
 sheet-seen-yes = oui, Soleil levé
-sheet-seen-no = sous l'horizon — invisible
+sheet-seen-no = non, sous l'horizon
 sheet-contacts-note = Les heures sont arrondies à la seconde. Ce sont les contacts géométriques idéaux (I, II : entrée extérieure et intérieure ; III, IV : sortie intérieure et extérieure), prédits à ±{ $sigma } s d'après l'éphéméride, avec Delta T { $delta_t } s (voir le pied de page) ; ce que vous verrez peut différer de plusieurs secondes (la goutte noire, la turbulence, votre horloge). Hauteur : hauteur vraie du centre du Soleil (sans réfraction) ; azimut compté du nord vers l'est. Visible : le bord supérieur du Soleil au-dessus de l'horizon (hauteur vraie supérieure à −0°50′).
 
 ## Lever et coucher du Soleil
@@ -44,8 +44,8 @@ sheet-sun-note = (bord supérieur à l'horizon, hauteur standard −0°50′, Me
 sheet-drawings-heading = Où regarder sur le bord du Soleil
 sheet-zenith-caption-1 = Dans le ciel : zénith en haut
 sheet-zenith-caption-2 = (angle au zénith)
-sheet-north-caption-1 = Monture équatoriale : nord en haut,
-sheet-north-caption-2 = est à gauche (angle de position)
+sheet-north-caption-1 = Monture équatoriale :
+sheet-north-caption-2 = N en haut, E à gauche (angle de position)
 sheet-drawings-note = L'angle de position est compté depuis le point nord du disque vers l'est, l'angle au zénith depuis le point le plus proche du zénith vers l'est ; tous deux dans le sens inverse des aiguilles d'une montre ici, comme on voit le ciel directement. Un renvoi coudé inverse l'image et un écran de projection peut l'inverser ou la tourner : vérifiez dans quel sens le Soleil dérive avant le transit.
 limb-zenith-label = Disque solaire tel qu'on le voit dans le ciel, zénith en haut
 limb-north-label = Disque solaire nord en haut, est à gauche

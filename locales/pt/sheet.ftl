@@ -12,7 +12,7 @@ sheet-title =
        *[other] Trânsito de Mercúrio
     }, { $date }: { $station }
 sheet-station-html = Estação: <b>{ $station }</b>, latitude { $latitude }°, longitude { $longitude }° (positiva para leste), altitude { $elevation } m.
-sheet-zone-html = As horas do relógio estão em <b>{ $zone }</b>: { $abbreviation } (UTC{ $offset }) durante o trânsito; ao lado dá-se a hora UTC.
+sheet-zone-html = Horas do relógio em <b>{ $zone }</b>: { $abbreviation } (UTC{ $offset }) durante o trânsito; ao lado, UTC.
 sheet-no-zone-html = Não foi dado nenhum fuso horário para esta estação, por isso as horas estão <b>só em UTC</b>. Para as ter na hora do seu relógio, execute de novo <code>predict</code> com <code>--time-zone FUSO</code> (p. ex. <code>Europe/Lisbon</code> ou <code>+05:30</code>) ou acrescente uma coluna <code>time_zone</code> ao ficheiro das estações.
 
 ## Os quatro contactos
@@ -26,8 +26,8 @@ sheet-col-position-angle = Ângulo de posição
 sheet-col-vertex-angle = Ângulo de vértice
 sheet-col-seen = Visível?
 sheet-no-such-contact = este contacto não ocorre nesta estação (trânsito rasante)
-sheet-seen-yes = sim, Sol acima do horizonte
-sheet-seen-no = abaixo do horizonte — não visível
+sheet-seen-yes = sim, Sol acima
+sheet-seen-no = não, sob o horizonte
 sheet-contacts-note = As horas estão arredondadas ao segundo. São os contactos geométricos ideais (I, II: entrada exterior e interior; III, IV: saída interior e exterior), previstos com ±{ $sigma } s a partir da efeméride, com Delta T { $delta_t } s (ver o rodapé da página); o que vir pode diferir em vários segundos (a gota negra, a turbulência, o seu relógio). Altura: altura verdadeira do centro do Sol (sem refração); azimute a partir do norte, por leste. Visível: o bordo superior do Sol acima do horizonte (altura verdadeira acima de −0°50′).
 
 ## Nascer e pôr do Sol
@@ -44,8 +44,8 @@ sheet-sun-note = (bordo superior no horizonte, altura padrão −0°50′, Meeus
 sheet-drawings-heading = Onde olhar no bordo do Sol
 sheet-zenith-caption-1 = No céu: zénite em cima
 sheet-zenith-caption-2 = (ângulo de vértice)
-sheet-north-caption-1 = Montagem equatorial: norte em cima,
-sheet-north-caption-2 = leste à esquerda (ângulo de posição)
+sheet-north-caption-1 = Montagem equatorial:
+sheet-north-caption-2 = N em cima, E à esquerda (ângulo de posição)
 sheet-drawings-note = O ângulo de posição conta-se a partir do ponto norte do disco, por leste; o ângulo de vértice, a partir do ponto mais próximo do zénite, por leste; ambos aqui no sentido anti-horário, como se vê o céu diretamente. Um espelho diagonal inverte a imagem e um ecrã de projeção pode invertê-la ou rodá-la: verifique para que lado o Sol se desloca antes do trânsito.
 limb-zenith-label = Disco solar tal como se vê no céu, zénite em cima
 limb-north-label = Disco solar com o norte em cima e o leste à esquerda

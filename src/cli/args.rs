@@ -3,11 +3,11 @@
 
 use clap::{Parser, Subcommand, ValueEnum};
 use std::path::PathBuf;
+use transit_parallax::language::Language;
 use transit_parallax::render::text::Format;
 use transit_parallax::sky::ephemeris::EphemerisChoice;
 use transit_parallax::sky::solar_time::LocalTime;
 use transit_parallax::time::iso;
-use transit_parallax::language::Language;
 use transit_parallax::{Error, Planet, TimeModel};
 
 #[derive(Parser)]

@@ -57,8 +57,8 @@ td.t { white-space: nowrap; }
 figure { margin: 0; width: 36%; text-align: center; }
 .drawings .note { width: 28%; margin-top: 18px; }
 figcaption { font-size: 9pt; font-weight: bold; }
-svg.limb { width: 42mm; height: auto; display: block; margin: 0 auto; }
-.blank td { height: 6.5mm; }
+svg.limb { width: 39mm; height: auto; display: block; margin: 0 auto; }
+.blank td { height: 6mm; }
 .fill { display: flex; gap: 12px; margin-top: 5px; }
 .fill span { flex: 1; border-bottom: 1px solid #000; padding-top: 6px; font-size: 9pt; }
 footer { margin-top: 4px; border-top: 1px solid #777; font-size: 7.5pt; }

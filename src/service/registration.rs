@@ -324,10 +324,15 @@ mod tests {
         assert_eq!(calendar_file(&r), "Lantern_Hill.ics");
         // In German: the caution, the words and the decimal comma; the calendar likewise.
         let html = sheet_html(&event, &r, Language::German).unwrap();
-        assert!(html.contains("<html lang=\"de\">") && html.contains("zertifizierten Sonnenfilter"));
+        assert!(
+            html.contains("<html lang=\"de\">") && html.contains("zertifizierten Sonnenfilter")
+        );
         assert!(html.contains("Breite 35,6800°"), "the decimal comma");
         let ics = calendar_ics(&event, &r, Language::German).unwrap();
-        assert!(ics.contains("SUMMARY:Venustransit: Kontakt II (Lantern Hill)"), "{ics}");
+        assert!(
+            ics.contains("SUMMARY:Venustransit: Kontakt II (Lantern Hill)"),
+            "{ics}"
+        );
     }
 
     /// The language is taken as a code, English when none is given; another is refused with
@@ -340,6 +345,11 @@ mod tests {
         assert_eq!(checked(&f).unwrap().language, Language::Portuguese);
         f.language = "ja".into();
         let e = checked(&f).unwrap_err();
-        assert!(e.contains("'language' is 'ja'") && e.contains("en (English)") && e.contains("pt (Português)"), "{e}");
+        assert!(
+            e.contains("'language' is 'ja'")
+                && e.contains("en (English)")
+                && e.contains("pt (Português)"),
+            "{e}"
+        );
     }
 }

@@ -199,7 +199,11 @@ fn contacts_list(app: &App, r: &Registration, l: Language) -> String {
         let reading = zone.reading(label);
         let sun = if sun_is_up(c.sun_altitude_deg) {
             let degrees = decimal(l, c.sun_altitude_deg, 0);
-            text(l, "registered-sun-up", &Args::new().text("degrees", degrees))
+            text(
+                l,
+                "registered-sun-up",
+                &Args::new().text("degrees", degrees),
+            )
         } else {
             text(l, "registered-sun-down", &Args::new())
         };
@@ -325,10 +329,8 @@ fn refused(l: Language, (status, why): (StatusCode, String)) -> Response {
 
 /// Say the language of an answer made in another language than the visitor's.
 fn content_language(res: &mut Response, l: Language) {
-    res.headers_mut().insert(
-        header::CONTENT_LANGUAGE,
-        HeaderValue::from_static(l.code()),
-    );
+    res.headers_mut()
+        .insert(header::CONTENT_LANGUAGE, HeaderValue::from_static(l.code()));
 }
 
 /// `GET /registrations/{key}`: in the language the visitor chose (`?lang=`, the cookie), else

@@ -326,7 +326,10 @@ mod tests {
         }
         let mut store = Store::open(&path).unwrap();
         let old = store.registration_by_key("keyOld").unwrap().unwrap();
-        assert_eq!((old.station.as_str(), old.language), ("Old Mill", Language::English));
+        assert_eq!(
+            (old.station.as_str(), old.language),
+            ("Old Mill", Language::English)
+        );
         let new = Registration {
             language: Language::French,
             ..registration("Moulin Neuf")
@@ -336,7 +339,11 @@ mod tests {
         // Opened again, nothing is added twice.
         let store = Store::open(&path).unwrap();
         assert_eq!(
-            store.registration_by_key("keyNew").unwrap().unwrap().language,
+            store
+                .registration_by_key("keyNew")
+                .unwrap()
+                .unwrap()
+                .language,
             Language::French
         );
         assert_eq!(store.registrations().unwrap().len(), 2);
