@@ -4,8 +4,9 @@
 //! post, the review page of the private link, a message page, the `413` page, the organiser's
 //! sign-in page, the organiser's page, the report, an observer's sheet of `predict
 //! --sheets` (as a file), the public results page, the registration form, a registered
-//! station's private page and its sheet as the service serves it. On a desktop window axe-core (from the npm registry; `.ci/run`
-//! installs it) audits each page and the test fails on any violation, listing each with its
+//! station's private page and its sheet as the service serves it (in English, and in
+//! German). On a desktop window axe-core (from the npm registry; `.ci/run` installs it)
+//! audits each page and the test fails on any violation, listing each with its
 //! rule, impact and elements; on a phone 360 px wide each page must fit without scrolling
 //! sideways (a wide table scrolls inside its own box, never the page).
 //!
@@ -279,6 +280,24 @@ async fn every_page(
     check(c, "report", &how, &mut problems).await;
     goto(c, &format!("file://{}", sheet.display())).await;
     check(c, "observer's sheet", &how, &mut problems).await;
+    // The registered station's page and sheet in German (the longest words), last: the
+    // switch's choice stays in the browser's cookie.
+    goto(c, &format!("{base}{private}?lang=de")).await;
+    check(
+        c,
+        "registered station's page in German",
+        &how,
+        &mut problems,
+    )
+    .await;
+    goto(c, &format!("{base}{sheet_url}?lang=de")).await;
+    check(
+        c,
+        "registered station's sheet in German",
+        &how,
+        &mut problems,
+    )
+    .await;
     problems
 }
 

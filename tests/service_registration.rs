@@ -4,7 +4,8 @@
 //! caution) and whose calendar parses as iCalendar with the same contact events; a bad zone
 //! or place is refused with the field named; non-JSON, foreign and oversized posts store
 //! nothing; the form for people answers with the links; the organiser sees the stations
-//! planned against reported, linked by name.
+//! planned against reported, linked by name; a station registered in German gets its sheet,
+//! calendar and private page in German (the page following a later choice on the switch).
 
 mod common;
 
@@ -43,14 +44,28 @@ fn registered_count(server: &Server) -> i64 {
 
 /// The sheet and calendar `predict --sheets` writes for one station in a zone.
 fn predicted_sheet(name: &str, row: &str) -> (String, String) {
+    predicted_sheet_in(name, row, "en")
+}
+
+/// The sheet and calendar `predict --sheets --language CODE` writes for one station.
+fn predicted_sheet_in(name: &str, row: &str, code: &str) -> (String, String) {
     let stations = temp(
         &format!("reg-{name}.csv"),
         format!("station,latitude,longitude,elevation_m,time_zone\n{row}\n").as_bytes(),
     );
-    let dir = std::env::temp_dir().join(format!("tp-reg-sheets-{}-{name}", std::process::id()));
+    let dir = std::env::temp_dir().join(format!(
+        "tp-reg-sheets-{}-{name}-{code}",
+        std::process::id()
+    ));
     let o = run_words(
         "predict --planet venus --date 2012-06-06 --format json --stations",
-        &[&stations, "--sheets", dir.to_str().unwrap()],
+        &[
+            &stations,
+            "--sheets",
+            dir.to_str().unwrap(),
+            "--language",
+            code,
+        ],
     );
     assert!(o.status.success(), "{}", err(&o));
     let read = |ext: &str| std::fs::read_to_string(dir.join(format!("{name}.{ext}"))).unwrap();
@@ -297,4 +312,179 @@ fn the_organiser_sees_stations_planned_against_reported() {
     assert!(page.contains("<td>Quiet Ridge</td>") && page.contains("none yet"));
     // The private keys never reach the organiser.
     assert!(!page.contains("/registrations/"));
+}
+
+/// The `href` of the link with this id on a page.
+fn href_of(page: &str, id: &str) -> String {
+    let k = page
+        .find(&format!("id=\"{id}\" href=\""))
+        .unwrap_or_else(|| panic!("no link {id}"))
+        + id.len()
+        + 12;
+    page[k..k + page[k..].find('"').unwrap()].replace("&amp;", "&")
+}
+
+#[test]
+fn a_station_registered_in_german_gets_its_sheet_calendar_and_page_in_german() {
+    let server = start(&db("german"), &["--token", TOKEN]);
+    // The form in German (the switch's ?lang=de, then kept in the cookie).
+    let (cookie, csrf) = visitor(server.port);
+    let form = request(
+        server.port,
+        "GET",
+        "/register?lang=de",
+        &[&format!("Cookie: {cookie}")],
+        b"",
+    );
+    assert!(
+        form.body.contains("<html lang=\"de\">")
+            && form.body.contains("name=\"lang\" value=\"de\"")
+    );
+    let lang_cookie = common::server::cookie_of(&form, "tp_lang").expect("the choice kept");
+    assert_eq!(lang_cookie, "tp_lang=de");
+    let body = format!("csrf={csrf}&lang=de&station=Lantern+Hill+School&latitude=35.68&longitude=139.69&elevation_m=40&time_zone=Asia%2FTokyo");
+    let cookies = format!("Cookie: {cookie}; {lang_cookie}");
+    let ok = request(
+        server.port,
+        "POST",
+        "/register",
+        &[&cookies, "Content-Type: application/x-www-form-urlencoded"],
+        body.as_bytes(),
+    );
+    assert_eq!(ok.status, 201, "{}", ok.body);
+    // The private page in German: its title, the caution, the contacts, the decimal comma.
+    assert!(ok.body.contains("<html lang=\"de\">"));
+    assert!(ok.body.contains("Angemeldet: Lantern Hill School"));
+    assert!(ok.body.contains("zertifizierten Sonnenfilter"));
+    assert!(
+        ok.body.contains("Kontakt II: 07:28:30 JST (22:28:30 UTC)"),
+        "{}",
+        ok.body
+    );
+    assert!(ok.body.contains("Breite 35,6800°"));
+    assert!(!ok.body.contains("Your observers' sheet"));
+    let sheet_url = href_of(&ok.body, "sheet");
+    let calendar_url = href_of(&ok.body, "calendar");
+    let private_url = href_of(&ok.body, "private");
+    assert!(
+        !sheet_url.contains("lang="),
+        "the registration's own language: {sheet_url}"
+    );
+
+    // The sheet, with no cookie at all, is the German page predict --sheets writes.
+    let (want_html, want_ics) = predicted_sheet_in(
+        "Lantern_Hill_School",
+        "Lantern Hill School,35.68,139.69,40,Asia/Tokyo",
+        "de",
+    );
+    let sheet = get(server.port, &sheet_url, None);
+    assert_eq!(sheet.status, 200);
+    assert_eq!(sheet.header("content-language").as_deref(), Some("de"));
+    assert_eq!(
+        sheet.body, want_html,
+        "the sheet of predict --sheets --language de"
+    );
+    assert!(
+        sheet.body.contains("zertifizierten Sonnenfilter")
+            && sheet.body.contains("Die vier Kontakte")
+    );
+    assert!(sheet.body.contains("Venustransit, 6. Juni 2012"));
+    // The calendar likewise.
+    let calendar = get(server.port, &calendar_url, None);
+    assert_eq!(calendar.status, 200);
+    assert_eq!(without_stamps(&calendar.body), without_stamps(&want_ics));
+    let unfolded = calendar.body.replace("\r\n ", "");
+    assert!(unfolded.contains("SUMMARY:Venustransit: Kontakt II (Lantern Hill School)"));
+    assert!(unfolded.contains("VORSICHT: Ein Blick in die Sonne"));
+
+    // Opened later with an English browser and no choice made: still German (the language
+    // the participant registered in), whatever the browser says.
+    let later = request(
+        server.port,
+        "GET",
+        &private_url,
+        &["Accept-Language: en-GB"],
+        b"",
+    );
+    assert!(later.body.contains("<html lang=\"de\">"), "{}", later.body);
+    // Chosen French on the switch: the page in French, its links ask for French sheets.
+    let french = request(
+        server.port,
+        "GET",
+        &format!("{private_url}?lang=fr"),
+        &[],
+        b"",
+    );
+    assert!(
+        french.body.contains("<html lang=\"fr\">")
+            && french.body.contains("Inscrite : Lantern Hill School")
+    );
+    let french_sheet_url = href_of(&french.body, "sheet");
+    assert!(french_sheet_url.ends_with("?lang=fr"), "{french_sheet_url}");
+    let french_sheet = get(server.port, &french_sheet_url, None);
+    assert!(
+        french_sheet.body.contains("<html lang=\"fr\">")
+            && french_sheet.body.contains("Transit de Vénus, 6 juin 2012")
+    );
+    assert!(french_sheet.body.contains("filtre solaire certifié"));
+    // The plain link still gives the registration's German.
+    assert!(get(server.port, &sheet_url, None)
+        .body
+        .contains("<html lang=\"de\">"));
+}
+
+#[test]
+fn the_api_takes_a_language_or_the_requests() {
+    let server = start(&db("api-language"), &["--token", TOKEN]);
+    let station = |extra: &str| {
+        format!("{{\"station\":\"Quiet Ridge\",\"latitude\":-33.9,\"longitude\":151.2,\"time_zone\":\"Australia/Sydney\"{extra}}}")
+    };
+    let pt = post_json(
+        server.port,
+        "/api/registrations",
+        &station(",\"language\":\"pt-BR\""),
+    );
+    assert_eq!(pt.status, 201, "{}", pt.body);
+    assert_eq!(pt.json()["language"], "pt");
+    let sheet = get(server.port, pt.json()["sheet_url"].as_str().unwrap(), None);
+    assert!(sheet.body.contains("<html lang=\"pt\">") && sheet.body.contains("Trânsito de Vénus"));
+    // None in the body: the request's Accept-Language.
+    let es = request(
+        server.port,
+        "POST",
+        "/api/registrations",
+        &[
+            "Content-Type: application/json",
+            "Accept-Language: es-MX,es;q=0.9",
+        ],
+        station("").as_bytes(),
+    );
+    assert_eq!(es.json()["language"], "es");
+    assert_eq!(
+        post_json(server.port, "/api/registrations", &station("")).json()["language"],
+        "en"
+    );
+    let bad = post_json(
+        server.port,
+        "/api/registrations",
+        &station(",\"language\":\"tlh\""),
+    );
+    assert_eq!(bad.status, 400);
+    let e = bad.json()["error"].as_str().unwrap().to_string();
+    assert!(
+        e.contains("'language' is 'tlh'") && e.contains("de (Deutsch)"),
+        "{e}"
+    );
+    // A key that opens nothing: refused in the visitor's language.
+    let missing = request(
+        server.port,
+        "GET",
+        &format!("/registrations/{}", "A".repeat(24)),
+        &["Accept-Language: de"],
+        b"",
+    );
+    assert_eq!(missing.status, 404);
+    assert!(missing
+        .body
+        .contains("Zu diesem Link gehört keine Anmeldung."));
 }

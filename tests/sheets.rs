@@ -277,3 +277,167 @@ fn an_unwritable_folder_is_a_clear_error() {
     assert!(err(&o).contains("not-a-folder"), "{}", err(&o));
     assert!(!err(&o).contains("panicked"), "{}", err(&o));
 }
+
+/// Run `predict --sheets DIR --language CODE` on [`STATIONS`]; the folder.
+fn sheets_in(name: &str, code: &str) -> PathBuf {
+    let stations = temp(&format!("{name}-stations.csv"), STATIONS.as_bytes());
+    let dir = std::env::temp_dir().join(format!("tp-sheets-{}-{name}", std::process::id()));
+    let _ = std::fs::remove_dir_all(&dir);
+    let o = run_words(
+        "predict --planet mercury --date 2032-11-13 --stations",
+        &[
+            &stations,
+            "--sheets",
+            dir.to_str().unwrap(),
+            "--language",
+            code,
+        ],
+    );
+    assert!(o.status.success(), "{}", err(&o));
+    dir
+}
+
+/// The caution of a language as the pages and sheets write it (the pages' own message).
+fn caution_in(language: transit_parallax::language::Language) -> String {
+    let args = transit_parallax::language::Args::new();
+    transit_parallax::render::svg::esc(&transit_parallax::language::text(
+        language,
+        "solar-caution",
+        &args,
+    ))
+}
+
+#[test]
+fn a_sheet_in_spanish_or_german_has_its_caution_words_and_decimal_comma() {
+    use transit_parallax::language::Language;
+    for (code, language) in [("es", Language::Spanish), ("de", Language::German)] {
+        let dir = sheets_in(&format!("language-{code}"), code);
+        let html = std::fs::read_to_string(dir.join("Leiden_Primary_School.html")).unwrap();
+        assert!(html.contains(&format!("<html lang=\"{code}\">")), "{code}");
+        // The full caution, first on the page, in the language: filter over the front, or
+        // projection; never an optical finder; local guidance and a supervisor.
+        let caution = caution_in(language);
+        let at = html.find(&caution).expect("the translated caution");
+        assert!(
+            at < html.find("<h1>").unwrap(),
+            "{code}: the caution comes first"
+        );
+        let words: &[&str] = match language {
+            Language::Spanish => &[
+                "filtro solar certificado",
+                "proyectada",
+                "buscador óptico",
+                "supervisor con experiencia",
+            ],
+            _ => &[
+                "zertifizierten Sonnenfilter",
+                "Projektionsschirm",
+                "optischen Sucher",
+                "erfahrenen Aufsicht",
+            ],
+        };
+        for w in words {
+            assert!(caution.contains(w), "{code}: {w}");
+        }
+        assert!(!html.contains(SAFETY_CAUTION), "{code}: no English caution");
+        // Numbers with the decimal comma, the date with its month name, times 24-hour.
+        assert!(
+            html.contains("52,1600°") && html.contains("4,4900°"),
+            "{code}: coordinates"
+        );
+        assert!(!html.contains("52.1600"), "{code}: no decimal point");
+        let (title, heading, seen, month) = match language {
+            Language::Spanish => (
+                "Tránsito de Mercurio, 13 de noviembre de 2032",
+                "Los cuatro contactos",
+                "sí, Sol arriba",
+                "noviembre",
+            ),
+            _ => (
+                "Merkurtransit, 13. November 2032",
+                "Die vier Kontakte",
+                "ja, Sonne oben",
+                "November",
+            ),
+        };
+        assert!(
+            html.contains(&format!("<h1>{title}: Leiden Primary School</h1>")),
+            "{code}: {month}"
+        );
+        assert!(html.contains(heading) && html.contains(seen), "{code}");
+        assert!(html.contains("12:06:00 CET"), "{code}: 24-hour clock time");
+        for english in [
+            "The four contacts",
+            "Your timings",
+            "Sunrise and sunset",
+            "Position angle",
+            "Zenith<",
+        ] {
+            assert!(
+                !html.contains(english),
+                "{code}: '{english}' left in English"
+            );
+        }
+        assert_tables_are_rectangular(code, &html);
+        // The calendar in the same language, its caution and decimal comma (escaped as RFC
+        // 5545 text: `\,`), still valid iCalendar.
+        let ics = std::fs::read_to_string(dir.join("Leiden_Primary_School.ics")).unwrap();
+        let (_, events, _) = check_ics(&ics);
+        assert_eq!(events, 2, "{code}");
+        let unfolded = ics.replace("\r\n ", "");
+        let summary = match language {
+            Language::Spanish => {
+                "SUMMARY:Tránsito de Mercurio: contacto III (Leiden Primary School)"
+            }
+            _ => "SUMMARY:Merkurtransit: Kontakt III (Leiden Primary School)",
+        };
+        assert!(unfolded.contains(summary), "{code}: {unfolded}");
+        let first_words = caution.split(',').next().unwrap();
+        assert!(
+            unfolded.contains(first_words),
+            "{code}: the caution in the calendar"
+        );
+        assert!(
+            unfolded.contains("19\\,5"),
+            "{code}: the Sun's altitude with a comma"
+        );
+    }
+}
+
+#[test]
+fn an_unknown_language_is_refused_naming_the_five() {
+    let stations = temp("unknown-language.csv", STATIONS.as_bytes());
+    let dir = std::env::temp_dir().join(format!("tp-sheets-{}-unknown", std::process::id()));
+    let o = run_words(
+        "predict --planet mercury --date 2032-11-13 --stations",
+        &[
+            &stations,
+            "--sheets",
+            dir.to_str().unwrap(),
+            "--language",
+            "ja",
+        ],
+    );
+    assert!(!o.status.success());
+    for code in [
+        "'ja'",
+        "en (English)",
+        "es (Español)",
+        "fr (Français)",
+        "de (Deutsch)",
+        "pt (Português)",
+    ] {
+        assert!(err(&o).contains(code), "{code}: {}", err(&o));
+    }
+    assert!(!dir.exists(), "nothing written");
+    // The option belongs to --sheets.
+    let o = run_words(
+        "predict --planet mercury --date 2032-11-13 --language de --stations",
+        &[&stations],
+    );
+    assert!(
+        !o.status.success() && err(&o).contains("--sheets"),
+        "{}",
+        err(&o)
+    );
+}

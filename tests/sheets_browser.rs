@@ -1,8 +1,9 @@
 //! The observers' sheet as a browser lays it out and prints it (`predict --sheets`): headless
 //! Chromium takes a screenshot, prints the page to PDF on A4 and on US Letter (one page each),
 //! and a script measures every piece of text at the widths of both papers: no text's box
-//! overlaps another's, and none reaches outside the page or outside its drawing. Without
-//! chromium the tests say SKIPPED and pass (CI installs it).
+//! overlaps another's, and none reaches outside the page or outside its drawing; in each of the
+//! five languages (German has the longest words, French and Portuguese the longest sentences).
+//! Without chromium the tests say SKIPPED and pass (CI installs it).
 
 mod common;
 
@@ -18,11 +19,23 @@ Saltmarsh Academy,38.72,-9.14,50,
 Jade Terrace School,22.28,114.16,40,Asia/Hong_Kong
 ";
 
-/// The sheets of the Mercury transit of 2032 for [`STATIONS`], in `dir`.
+/// The languages whose sheets are laid out and printed: all of them.
+const LANGUAGES: [&str; 5] = ["en", "de", "es", "fr", "pt"];
+
+/// The sheets of the Mercury transit of 2032 for [`STATIONS`] in every language of
+/// [`LANGUAGES`], in `dir`.
 fn sheets(dir: &Path) -> Vec<PathBuf> {
+    LANGUAGES
+        .iter()
+        .flat_map(|code| sheets_in(dir, code))
+        .collect()
+}
+
+/// The sheets of the Mercury transit of 2032 for [`STATIONS`] in one language, in `dir`.
+fn sheets_in(dir: &Path, code: &str) -> Vec<PathBuf> {
     let stations = dir.join("stations.csv");
     std::fs::write(&stations, STATIONS).unwrap();
-    let out = dir.join("sheets");
+    let out = dir.join(format!("sheets-{code}"));
     let o = run(&[
         "predict",
         "--planet",
@@ -33,6 +46,8 @@ fn sheets(dir: &Path) -> Vec<PathBuf> {
         stations.to_str().unwrap(),
         "--sheets",
         out.to_str().unwrap(),
+        "--language",
+        code,
     ]);
     assert!(o.status.success(), "{}", String::from_utf8_lossy(&o.stderr));
     [
@@ -210,7 +225,7 @@ fn a_screenshot_of_a_sheet_shows_a_page() {
         return;
     };
     let dir = temp_dir("sheets-shot");
-    let sheet = &sheets(&dir)[0];
+    let sheet = &sheets_in(&dir, "en")[0];
     let shot = dir.join("sheet.png");
     let o = chromium(
         &browser,

@@ -157,3 +157,19 @@ register-zone = Zeitzone Ihrer Uhren
 register-zone-hint = ein Name wie Europe/Berlin, Europe/Vienna oder Europe/Zurich, oder ein Versatz wie +01:00
 register-button = Die Station anmelden
 register-privacy = Der Name Ihrer Station und ihr auf ein Zehntelgrad gerundeter Ort können auf der öffentlichen Ergebnisseite erscheinen; der private Link gehört nur Ihnen.
+
+## Die private Seite einer angemeldeten Station
+
+registered-title = Angemeldet: { $station }
+registered-private-link-html = Ihr privater Link: <a id="private" href="{ $href }">{ $href }</a>. Bewahren Sie ihn auf: Er öffnet Ihr Blatt und Ihren Kalender wieder, und jeder, der ihn hat, kann das auch.
+registered-sheet-html = <a id="sheet" href="{ $href }">Ihr Beobachtungsblatt</a>: eine Seite zum Ausdrucken mit den Kontakten in der Zeit Ihrer Uhr und einer Tabelle für Ihre Zeiten.
+registered-calendar-html = <a id="calendar" href="{ $href }" download="{ $file }">Ihr Kalender der Kontakte</a> (.ics, mit Erinnerungen) für ein Telefon oder ein Kalenderprogramm.
+registered-station-heading = Ihre Station
+registered-station = { $station }: Breite { $latitude }°, Länge { $longitude }°, Höhe { $elevation } m; Uhren auf { $zone }.
+registered-contacts-heading = Die Kontakte dort
+registered-contact = Kontakt { $contact }: { $clock } ({ $utc } UTC), { $sun }
+registered-sun-up = die Sonne { $degrees }° hoch
+registered-sun-down = die Sonne unter dem Horizont: nicht sichtbar
+registered-no-contact = An diesem Ort findet kein Kontakt dieses Transits statt.
+registered-after-html = Senden Sie nach dem Ereignis <a href="/">Ihre Zeiten</a> unter demselben Stationsnamen.
+not-found-registration = Zu diesem Link gehört keine Anmeldung.

@@ -156,3 +156,19 @@ register-zone = Time zone of your clocks
 register-zone-hint = a name such as Europe/Amsterdam, America/Sao_Paulo or Asia/Kolkata, or an offset such as +05:30
 register-button = Register the station
 register-privacy = Your station's name and its place rounded to a tenth of a degree may appear on the public results page; the private link is yours alone.
+
+## A registered station's private page
+
+registered-title = Registered: { $station }
+registered-private-link-html = Your private link: <a id="private" href="{ $href }">{ $href }</a>. Keep it: it opens your sheet and calendar again, and anyone who has it can.
+registered-sheet-html = <a id="sheet" href="{ $href }">Your observers' sheet</a>: a printable page with the contacts in your clock time and a table for your timings.
+registered-calendar-html = <a id="calendar" href="{ $href }" download="{ $file }">Your calendar of the contacts</a> (.ics, with reminders) for a phone or a calendar program.
+registered-station-heading = Your station
+registered-station = { $station }: latitude { $latitude }°, longitude { $longitude }°, elevation { $elevation } m; clocks on { $zone }.
+registered-contacts-heading = The contacts there
+registered-contact = Contact { $contact }: { $clock } ({ $utc } UTC), { $sun }
+registered-sun-up = the Sun { $degrees }° up
+registered-sun-down = the Sun below the horizon: not seen
+registered-no-contact = No contact of this transit occurs at this place.
+registered-after-html = After the event, <a href="/">send your timings</a> under the same station name.
+not-found-registration = No registration answers to this link.

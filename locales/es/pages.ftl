@@ -157,3 +157,19 @@ register-zone = Zona horaria de sus relojes
 register-zone-hint = un nombre como Europe/Madrid, America/Mexico_City o America/Bogota, o un desfase como -05:00
 register-button = Registrar la estación
 register-privacy = El nombre de su estación y su posición redondeada a una décima de grado pueden aparecer en la página pública de resultados; el enlace privado es solo suyo.
+
+## La página privada de una estación registrada
+
+registered-title = Registrada: { $station }
+registered-private-link-html = Su enlace privado: <a id="private" href="{ $href }">{ $href }</a>. Guárdelo: vuelve a abrir su hoja y su calendario, y cualquiera que lo tenga también puede.
+registered-sheet-html = <a id="sheet" href="{ $href }">Su hoja de observación</a>: una página para imprimir con los contactos en la hora de su reloj y una tabla para sus tiempos.
+registered-calendar-html = <a id="calendar" href="{ $href }" download="{ $file }">Su calendario de los contactos</a> (.ics, con recordatorios) para un teléfono o un programa de calendario.
+registered-station-heading = Su estación
+registered-station = { $station }: latitud { $latitude }°, longitud { $longitude }°, altitud { $elevation } m; relojes en { $zone }.
+registered-contacts-heading = Los contactos allí
+registered-contact = Contacto { $contact }: { $clock } ({ $utc } UTC), { $sun }
+registered-sun-up = el Sol a { $degrees }° de altura
+registered-sun-down = el Sol bajo el horizonte: no visible
+registered-no-contact = Ningún contacto de este tránsito ocurre en este lugar.
+registered-after-html = Después del evento, <a href="/">envíe sus tiempos</a> con el mismo nombre de estación.
+not-found-registration = Ningún registro corresponde a este enlace.

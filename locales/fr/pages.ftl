@@ -157,3 +157,19 @@ register-zone = Fuseau horaire de vos horloges
 register-zone-hint = un nom comme Europe/Paris, America/Montreal ou Africa/Dakar, ou un décalage comme +01:00
 register-button = Inscrire la station
 register-privacy = Le nom de votre station et sa position arrondie au dixième de degré peuvent paraître sur la page publique des résultats ; le lien privé n'appartient qu'à vous.
+
+## La page privée d'une station inscrite
+
+registered-title = Inscrite : { $station }
+registered-private-link-html = Votre lien privé : <a id="private" href="{ $href }">{ $href }</a>. Gardez-le : il rouvre votre fiche et votre calendrier, et quiconque l'a le peut aussi.
+registered-sheet-html = <a id="sheet" href="{ $href }">Votre fiche d'observation</a> : une page à imprimer avec les contacts à l'heure de votre horloge et un tableau pour vos chronométrages.
+registered-calendar-html = <a id="calendar" href="{ $href }" download="{ $file }">Votre calendrier des contacts</a> (.ics, avec rappels) pour un téléphone ou un agenda.
+registered-station-heading = Votre station
+registered-station = { $station } : latitude { $latitude }°, longitude { $longitude }°, altitude { $elevation } m ; horloges en { $zone }.
+registered-contacts-heading = Les contacts là-bas
+registered-contact = Contact { $contact } : { $clock } ({ $utc } UTC), { $sun }
+registered-sun-up = le Soleil à { $degrees }° de hauteur
+registered-sun-down = le Soleil sous l'horizon : invisible
+registered-no-contact = Aucun contact de ce transit n'a lieu à cet endroit.
+registered-after-html = Après l'événement, <a href="/">envoyez vos chronométrages</a> sous le même nom de station.
+not-found-registration = Aucune inscription ne correspond à ce lien.

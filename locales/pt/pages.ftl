@@ -157,3 +157,19 @@ register-zone = Fuso horário dos seus relógios
 register-zone-hint = um nome como Europe/Lisbon, America/Sao_Paulo ou Africa/Luanda, ou um desvio como -03:00
 register-button = Registar a estação
 register-privacy = O nome da sua estação e a sua posição arredondada a uma décima de grau podem aparecer na página pública de resultados; a ligação privada é só sua.
+
+## A página privada de uma estação registada
+
+registered-title = Registada: { $station }
+registered-private-link-html = A sua ligação privada: <a id="private" href="{ $href }">{ $href }</a>. Guarde-a: volta a abrir a sua folha e o seu calendário, e qualquer pessoa que a tenha também pode.
+registered-sheet-html = <a id="sheet" href="{ $href }">A sua folha de observação</a>: uma página para imprimir com os contactos na hora do seu relógio e uma tabela para os seus tempos.
+registered-calendar-html = <a id="calendar" href="{ $href }" download="{ $file }">O seu calendário dos contactos</a> (.ics, com lembretes) para um telemóvel ou um programa de calendário.
+registered-station-heading = A sua estação
+registered-station = { $station }: latitude { $latitude }°, longitude { $longitude }°, altitude { $elevation } m; relógios em { $zone }.
+registered-contacts-heading = Os contactos aí
+registered-contact = Contacto { $contact }: { $clock } ({ $utc } UTC), { $sun }
+registered-sun-up = o Sol a { $degrees }° de altura
+registered-sun-down = o Sol abaixo do horizonte: não visível
+registered-no-contact = Nenhum contacto deste trânsito ocorre neste lugar.
+registered-after-html = Depois do evento, <a href="/">envie os seus tempos</a> com o mesmo nome de estação.
+not-found-registration = Nenhum registo corresponde a esta ligação.

@@ -3,6 +3,7 @@
 
 use clap::{Parser, Subcommand, ValueEnum};
 use std::path::PathBuf;
+use transit_parallax::language::Language;
 use transit_parallax::render::text::Format;
 use transit_parallax::sky::ephemeris::EphemerisChoice;
 use transit_parallax::sky::solar_time::LocalTime;
@@ -240,9 +241,31 @@ pub struct PredictArgs {
     /// timings) and its calendar DIR/<station>.ics (one event per contact seen with the Sun up).
     #[arg(long, value_name = "DIR")]
     pub sheets: Option<PathBuf>,
+    /// The language of the sheets and calendars (--sheets): en (English, the default), es
+    /// (Spanish), fr (French), de (German) or pt (Portuguese); their words, decimal sign and
+    /// month names (times stay 24-hour).
+    #[arg(
+        long,
+        value_name = "CODE",
+        requires = "sheets",
+        default_value = "en",
+        value_parser = sheet_language
+    )]
+    pub language: Language,
     /// Output format.
     #[arg(long, value_enum, default_value = "table")]
     pub format: FormatArg,
+}
+
+/// A value of `--language`: one of the sheets' languages by its code (`de`, `pt-BR`: the
+/// primary subtag decides).
+fn sheet_language(code: &str) -> Result<Language, String> {
+    Language::from_code(code).ok_or_else(|| {
+        format!(
+            "not a language of the sheets; give one of {}",
+            Language::codes_named()
+        )
+    })
 }
 
 /// Values of `--local-time`.

@@ -157,6 +157,7 @@ fn predict(a: PredictArgs) -> Result<String, Error> {
             &event,
             &predictions,
             &file.zones,
+            a.language,
             std::time::SystemTime::now().into(),
         )?;
         eprintln!(

@@ -67,6 +67,16 @@ impl Language {
         }
     }
 
+    /// Every language's code with its own name, for a message that lists them:
+    /// `en (English), es (Español), fr (Français), de (Deutsch), pt (Português)`.
+    pub fn codes_named() -> String {
+        Language::ALL
+            .iter()
+            .map(|l| format!("{} ({})", l.code(), l.own_name()))
+            .collect::<Vec<_>>()
+            .join(", ")
+    }
+
     /// The language of a code (`es`, `es-MX`, `PT-br`: the primary subtag decides), if it is
     /// one of ours.
     pub fn from_code(code: &str) -> Option<Language> {
@@ -145,5 +155,9 @@ mod tests {
         assert_eq!(Language::negotiate("zz, ;;q=x"), Language::English);
         assert_eq!(Language::from_code("PT_br"), Some(Language::Portuguese));
         assert_eq!(Language::from_code("xx"), None);
+        assert_eq!(
+            Language::codes_named(),
+            "en (English), es (Español), fr (Français), de (Deutsch), pt (Português)"
+        );
     }
 }

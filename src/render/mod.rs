@@ -36,6 +36,7 @@
 //!   participant's timings placed on it (the service's feedback page).
 //! - `sheet_calendar.rs`: each station's contacts as an RFC 5545 calendar.
 //! - `sheet_files.rs`: the sheets and calendars written to a folder, names made safe.
+//! - `sheet_words.rs`: the sheet's and calendar's words, numbers and date in its language.
 //! - `document.rs`: the HTML and Markdown reports.
 //! - `residual_groups.rs`: the residuals by clock source and aperture class, for the JSON,
 //!   the reports and the organiser's page.
@@ -64,6 +65,7 @@ pub mod residual_groups;
 pub mod sheet_calendar;
 pub mod sheet_files;
 pub mod sheet_limb;
+pub mod sheet_words;
 pub mod station_predictions;
 pub mod svg;
 pub mod text;

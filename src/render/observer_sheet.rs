@@ -3,20 +3,24 @@
 //! station's clock time and UTC, whether the Sun rises or sets during the transit, the solar
 //! disc with each contact's place on the limb, and a blank table for the timings.
 //!
-//! The page fits one sheet of A4 or US Letter (`@page` size auto, 12 mm margins).
+//! The page fits one sheet of A4 or US Letter (`@page` size auto, 12 mm margins). Its words,
+//! numbers and date are in the sheet's language (`sheet_words.rs`, `locales/*/sheet.ftl`).
 
 use crate::geometry::contacts::{Contact, ContactCircumstances};
 use crate::geometry::sun_horizon::{sun_during, sun_is_up, SunDuring};
 use crate::geometry::transit::{StationPrediction, TransitEvent};
+use crate::language::{text, Args, Language};
 use crate::render::sheet_limb::{limb_svg, LimbFrame, LimbMark};
-use crate::render::station_predictions::{delta_t_note, delta_t_text};
+use crate::render::sheet_words::{
+    caution, delta_t_note, delta_t_value, esc_text, number, title, word, word_html,
+};
 use crate::render::svg::esc;
-use crate::render::text::SAFETY_CAUTION;
 use crate::time::civil::{offset_text, CivilZone};
 use crate::time::iso::format_utc;
 use std::fmt::Write as _;
 
-/// One station's sheet: its predictions, its clock's zone and the name of its calendar file.
+/// One station's sheet: its predictions, its clock's zone, the name of its calendar file and
+/// the language it is written in.
 #[derive(Clone, Copy, Debug)]
 pub struct SheetStation<'a> {
     /// The station and its contacts.
@@ -25,6 +29,8 @@ pub struct SheetStation<'a> {
     pub zone: Option<&'a CivilZone>,
     /// The file name of the station's calendar, beside the sheet.
     pub calendar_file: &'a str,
+    /// The language of the sheet and its calendar.
+    pub language: Language,
 }
 
 /// The uncertainty of a predicted contact from the geometry alone (ephemeris and elements),
@@ -51,8 +57,8 @@ td.t { white-space: nowrap; }
 figure { margin: 0; width: 36%; text-align: center; }
 .drawings .note { width: 28%; margin-top: 18px; }
 figcaption { font-size: 9pt; font-weight: bold; }
-svg.limb { width: 42mm; height: auto; display: block; margin: 0 auto; }
-.blank td { height: 6.5mm; }
+svg.limb { width: 39mm; height: auto; display: block; margin: 0 auto; }
+.blank td { height: 6mm; }
 .fill { display: flex; gap: 12px; margin-top: 5px; }
 .fill span { flex: 1; border-bottom: 1px solid #000; padding-top: 6px; font-size: 9pt; }
 footer { margin-top: 4px; border-top: 1px solid #777; font-size: 7.5pt; }
@@ -99,43 +105,42 @@ fn both_clocks_html(event: &TransitEvent, hours: f64, zone: Option<&CivilZone>) 
 
 /// The heading: caution, event, station and the zone the times are given in.
 fn push_heading(s: &mut String, event: &TransitEvent, st: &SheetStation) {
+    let l = st.language;
     let station = &st.prediction.station;
-    let planet = event.planet.title();
     let _ = writeln!(
         s,
         "<header>\n<div class=\"caution\" role=\"note\">{}</div>",
-        esc(SAFETY_CAUTION)
+        esc(&caution(l))
     );
     let _ = writeln!(
         s,
-        "<h1>Transit of {planet}, {}: {}</h1>\n</header>\n<main>",
-        event.date(),
-        esc(&station.name)
+        "<h1>{}</h1>\n</header>\n<main>",
+        esc(&title(l, event, &station.name))
     );
-    let _ = writeln!(
-        s,
-        "<p>Station: <b>{}</b>, latitude {:.4}°, longitude {:.4}° (east positive), elevation {:.0} m.</p>",
-        esc(&station.name),
-        station.latitude_deg,
-        station.longitude_deg,
-        station.elevation_m
+    let station_line = text(
+        l,
+        "sheet-station-html",
+        &Args::new()
+            .text("station", esc(&station.name))
+            .text("latitude", number(l, station.latitude_deg, 4))
+            .text("longitude", number(l, station.longitude_deg, 4))
+            .text("elevation", number(l, station.elevation_m, 0)),
     );
+    let _ = writeln!(s, "<p>{station_line}</p>");
     let zone_text = match st.zone {
         Some(z) => {
             let at = event.label(event.hours_of_greatest());
             let r = z.reading(at);
-            format!(
-                "Clock times are in <b>{}</b>: {} (UTC{}) during the transit; UTC is given beside them.",
-                esc(&z.name()),
-                esc(&r.abbreviation),
-                offset_text(r.offset_s)
+            text(
+                l,
+                "sheet-zone-html",
+                &Args::new()
+                    .text("zone", esc(&z.name()))
+                    .text("abbreviation", esc(&r.abbreviation))
+                    .text("offset", offset_text(r.offset_s)),
             )
         }
-        None => "No time zone was given for this station, so the times are in <b>UTC only</b>. \
-                 To have them in your clock time, run <code>predict</code> again with \
-                 <code>--time-zone ZONE</code> (e.g. <code>Europe/Amsterdam</code> or \
-                 <code>+05:30</code>) or add a <code>time_zone</code> column to the stations file."
-            .to_string(),
+        None => word(l, "sheet-no-zone-html"),
     };
     let _ = writeln!(s, "<p>{zone_text}</p>");
 }
@@ -157,63 +162,80 @@ fn push_contact_row(
     contact: Contact,
     cc: Option<&ContactCircumstances>,
 ) {
+    let l = st.language;
     let _ = write!(s, "<tr><td><b>{}</b></td>", contact.roman());
     let Some(x) = cc else {
         let span = if st.zone.is_some() { 7 } else { 6 };
         let _ = writeln!(
             s,
-            "<td colspan=\"{span}\">no such contact at this station (grazing transit)</td></tr>"
+            "<td colspan=\"{span}\">{}</td></tr>",
+            word_html(l, "sheet-no-such-contact")
         );
         return;
     };
     if let Some(z) = st.zone {
         let _ = write!(s, "<td class=\"t\">{}</td>", civil_html(event, x.hours, z));
     }
-    let seen = if sun_is_up(x.sun_altitude_deg) {
-        "yes, Sun up"
-    } else {
-        "below horizon — not seen"
-    };
+    let seen = word_html(
+        l,
+        if sun_is_up(x.sun_altitude_deg) {
+            "sheet-seen-yes"
+        } else {
+            "sheet-seen-no"
+        },
+    );
+    let deg = |x: f64| number(l, x, 1);
     let _ = writeln!(
         s,
-        "<td class=\"t\">{}</td><td class=\"num\">{:.1}°</td><td class=\"num\">{:.1}°</td>\
-         <td class=\"num\">{:.1}°</td><td class=\"num\">{:.1}°</td><td class=\"t\">{seen}</td></tr>",
+        "<td class=\"t\">{}</td><td class=\"num\">{}°</td><td class=\"num\">{}°</td>\
+         <td class=\"num\">{}°</td><td class=\"num\">{}°</td><td class=\"t\">{seen}</td></tr>",
         utc_html(event, x.hours),
-        x.sun_altitude_deg,
-        x.sun_azimuth_deg,
-        x.position_angle_deg,
-        x.vertex_angle_deg
+        deg(x.sun_altitude_deg),
+        deg(x.sun_azimuth_deg),
+        deg(x.position_angle_deg),
+        deg(x.vertex_angle_deg)
     );
 }
 
 /// The table of the four contacts and its note on accuracy.
 fn push_contacts(s: &mut String, event: &TransitEvent, st: &SheetStation) {
-    s.push_str("<h2>The four contacts</h2>\n");
-    s.push_str(&scroll_open("The four contacts"));
-    s.push_str("<table>\n<tr><th scope=\"col\">Contact</th>");
-    if st.zone.is_some() {
-        s.push_str("<th scope=\"col\">Your clock</th>");
-    }
-    s.push_str(
-        "<th scope=\"col\">UTC</th><th scope=\"col\">Sun altitude</th>\
-         <th scope=\"col\">Sun azimuth</th><th scope=\"col\">Position angle</th>\
-         <th scope=\"col\">Vertex angle</th><th scope=\"col\">Seen?</th></tr>\n",
+    let l = st.language;
+    let w = |id: &str| word_html(l, id);
+    let heading = word(l, "sheet-contacts-heading");
+    let _ = writeln!(s, "<h2>{}</h2>", esc_text(&heading));
+    s.push_str(&scroll_open(&heading));
+    let _ = write!(
+        s,
+        "<table>\n<tr><th scope=\"col\">{}</th>",
+        w("sheet-col-contact")
     );
+    if st.zone.is_some() {
+        let _ = write!(s, "<th scope=\"col\">{}</th>", w("sheet-col-your-clock"));
+    }
+    s.push_str("<th scope=\"col\">UTC</th>");
+    for id in [
+        "sheet-col-sun-altitude",
+        "sheet-col-sun-azimuth",
+        "sheet-col-position-angle",
+        "sheet-col-vertex-angle",
+        "sheet-col-seen",
+    ] {
+        let _ = write!(s, "<th scope=\"col\">{}</th>", w(id));
+    }
+    s.push_str("</tr>\n");
     for c in Contact::ALL {
         let cc = st.prediction.contacts[c.index()];
         push_contact_row(s, event, st, c, cc.as_ref());
     }
     s.push_str("</table>\n</div>\n");
-    let _ = writeln!(
-        s,
-        "<p class=\"note\">Times are rounded to the second. They are the ideal geometric contacts \
-         (I, II: ingress outer and inner; III, IV: egress inner and outer), predicted to \
-         ±{GEOMETRY_SIGMA_S} s from the ephemeris, with Delta T {} s (see the foot of the page); \
-         what you see may differ by several seconds (the black drop, seeing, your clock). \
-         Altitude: true altitude of the Sun's centre (no refraction); azimuth from north \
-         through east. Seen: the Sun's upper limb above the horizon (true altitude above −0°50′).</p>",
-        esc(&delta_t_text(event).replace("+-", "±"))
+    let note = text(
+        l,
+        "sheet-contacts-note",
+        &Args::new()
+            .text("sigma", number(l, GEOMETRY_SIGMA_S, 1))
+            .text("delta_t", delta_t_value(l, event)),
     );
+    let _ = writeln!(s, "<p class=\"note\">{}</p>", esc_text(&note));
 }
 
 /// Whether the Sun rises or sets between contacts I and IV, in a paragraph.
@@ -228,30 +250,30 @@ fn push_sun_during(s: &mut String, event: &TransitEvent, st: &SheetStation) {
     let (Some(&first_h), Some(&last_h)) = (hours.first(), hours.last()) else {
         return;
     };
+    let l = st.language;
     let during = sun_during(event, &st.prediction.station, first_h, last_h);
-    let text = match during {
-        SunDuring::UpThroughout => "The Sun stays up through the whole transit.".to_string(),
-        SunDuring::DownThroughout => {
-            "The Sun is down for the whole transit: nothing of it can be seen from here."
-                .to_string()
-        }
+    let text_html = match during {
+        SunDuring::UpThroughout => word_html(l, "sheet-sun-up-throughout"),
+        SunDuring::DownThroughout => word_html(l, "sheet-sun-down-throughout"),
         SunDuring::Crossings(list) => list
             .iter()
             .map(|c| {
-                format!(
-                    "The Sun {} during the transit, at {}.",
-                    if c.rising { "rises" } else { "sets" },
-                    both_clocks_html(event, c.hours, st.zone)
-                )
+                let id = if c.rising {
+                    "sheet-sun-rises-html"
+                } else {
+                    "sheet-sun-sets-html"
+                };
+                let time = both_clocks_html(event, c.hours, st.zone);
+                text(l, id, &Args::new().text("time", time))
             })
             .collect::<Vec<_>>()
             .join(" "),
     };
     let _ = writeln!(
         s,
-        "<p><b>Sunrise and sunset:</b> {text} <span class=\"note\">(upper limb on the \
-         horizon, standard altitude −0°50′, Meeus ch. 15; the station's height not allowed \
-         for)</span></p>"
+        "<p><b>{}</b> {text_html} <span class=\"note\">{}</span></p>",
+        word_html(l, "sheet-sun-heading"),
+        word_html(l, "sheet-sun-note")
     );
 }
 
@@ -271,72 +293,97 @@ fn push_drawings(s: &mut String, st: &SheetStation) {
             })
             .collect()
     };
-    s.push_str("<h2>Where on the Sun's edge to look</h2>\n<div class=\"drawings\">\n");
+    let l = st.language;
+    let w = |id: &str| word_html(l, id);
     let _ = writeln!(
         s,
-        "<figure><figcaption>In the sky: zenith up<br>(vertex angle)</figcaption>\n{}</figure>",
-        limb_svg(LimbFrame::Zenith, &marks(true))
+        "<h2>{}</h2>\n<div class=\"drawings\">",
+        w("sheet-drawings-heading")
     );
     let _ = writeln!(
         s,
-        "<figure><figcaption>Equatorial mount: north up,<br>east left (position angle)</figcaption>\n{}</figure>",
-        limb_svg(LimbFrame::North, &marks(false))
+        "<figure><figcaption>{}<br>{}</figcaption>\n{}</figure>",
+        w("sheet-zenith-caption-1"),
+        w("sheet-zenith-caption-2"),
+        limb_svg(l, LimbFrame::Zenith, &marks(true))
     );
-    s.push_str(
-        "<p class=\"note\">Position angle is counted from the north point of the disc \
-         through east, vertex angle from the point nearest the zenith through east; both \
-         anticlockwise here, as the sky is seen directly. A star diagonal mirrors the image and a \
-         projection screen may mirror or turn it: check which way the Sun drifts before the \
-         transit.</p>\n</div>\n",
+    let _ = writeln!(
+        s,
+        "<figure><figcaption>{}<br>{}</figcaption>\n{}</figure>",
+        w("sheet-north-caption-1"),
+        w("sheet-north-caption-2"),
+        limb_svg(l, LimbFrame::North, &marks(false))
+    );
+    let _ = writeln!(
+        s,
+        "<p class=\"note\">{}</p>\n</div>",
+        w("sheet-drawings-note")
     );
 }
 
 /// The blank table for the timings, with the lines for observer, instrument and clock.
-fn push_blank_table(s: &mut String) {
-    s.push_str("<h2>Your timings</h2>\n");
-    s.push_str(&scroll_open("Your timings"));
-    s.push_str(
-        "<table class=\"blank\">\n<tr><th scope=\"col\">Contact</th>\
-         <th scope=\"col\">Clock time (hh:mm:ss.s)</th><th scope=\"col\">Zone or offset</th>\
-         <th scope=\"col\">Sure to&nbsp;±&nbsp;s</th><th scope=\"col\">Observer</th>\
-         <th scope=\"col\">What you saw (black drop, cloud)</th></tr>\n",
+fn push_blank_table(s: &mut String, l: Language) {
+    let w = |id: &str| word_html(l, id);
+    let heading = word(l, "sheet-timings-heading");
+    let _ = writeln!(s, "<h2>{}</h2>", esc_text(&heading));
+    s.push_str(&scroll_open(&heading));
+    s.push_str("<table class=\"blank\">\n<tr>");
+    for id in [
+        "sheet-col-contact",
+        "sheet-col-clock-time",
+        "sheet-col-zone",
+    ] {
+        let _ = write!(s, "<th scope=\"col\">{}</th>", w(id));
+    }
+    let _ = write!(
+        s,
+        "<th scope=\"col\">{}</th>",
+        word(l, "sheet-col-sure-html")
     );
+    for id in ["sheet-col-observer", "sheet-col-what-seen"] {
+        let _ = write!(s, "<th scope=\"col\">{}</th>", w(id));
+    }
+    s.push_str("</tr>\n");
     for _ in 0..5 {
         s.push_str(
             "<tr><td></td><td>&nbsp;&nbsp;&nbsp;&nbsp;:&nbsp;&nbsp;&nbsp;&nbsp;&nbsp;:</td>\
              <td></td><td></td><td></td><td></td></tr>\n",
         );
     }
-    s.push_str(
-        "</table>\n</div>\n<div class=\"fill\"><span>Observer(s):</span><span>Instrument, aperture (mm), \
-         filter or projection:</span><span>Clock set by (GPS, radio, phone), its error:</span></div>\n<p class=\"note\">For \
-         <code>reduce</code>, copy each row into an observations file (<code>transit-parallax \
-         template observations</code>): contact, time_utc (or the clock time with its offset, \
-         2032-11-13T07:43:40.5+01:00), sigma_s (how sure) and observer.</p>\n",
+    let _ = writeln!(
+        s,
+        "</table>\n</div>\n<div class=\"fill\"><span>{}</span><span>{}</span><span>{}</span></div>\n<p class=\"note\">{}</p>",
+        w("sheet-fill-observers"),
+        w("sheet-fill-instrument"),
+        w("sheet-fill-clock"),
+        word(l, "sheet-reduce-note-html")
     );
 }
 
 /// The footer: how the times were computed, and by what.
 fn push_footer(s: &mut String, event: &TransitEvent, st: &SheetStation, seen_up: usize) {
+    let l = st.language;
+    let file = st.calendar_file;
     let calendar = if seen_up == 0 {
-        format!(
-            "None of the contacts is seen from here with the Sun up, so the calendar {} holds no events.",
-            esc(st.calendar_file)
-        )
+        text(l, "sheet-calendar-empty", &Args::new().text("file", file))
     } else {
-        format!(
-            "The calendar {} holds the {seen_up} contact(s) seen with the Sun up, with reminders.",
-            esc(st.calendar_file)
-        )
+        let args = Args::new().text("file", file).count("n", seen_up);
+        text(l, "sheet-calendar-holds", &args)
     };
+    let computed = text(
+        l,
+        "sheet-computed",
+        &Args::new()
+            .text("version", env!("CARGO_PKG_VERSION"))
+            .text("ephemeris", event.ephemeris_name())
+            .text("delta_t", delta_t_value(l, event)),
+    );
     let _ = writeln!(
         s,
-        "<footer><p>{calendar} Computed by transit-parallax {} with the {} ephemeris; Delta T {} \
-         s. {}</p></footer>",
-        env!("CARGO_PKG_VERSION"),
-        esc(&event.ephemeris_name()),
-        esc(&delta_t_text(event).replace("+-", "±")),
-        esc(delta_t_note(event).trim())
+        "<footer><p>{} {} {}</p></footer>",
+        esc_text(&calendar),
+        esc_text(&computed),
+        esc_text(&delta_t_note(l, event))
     );
 }
 
@@ -351,23 +398,22 @@ pub fn contacts_seen_up(prediction: &StationPrediction) -> usize {
         .count()
 }
 
-/// The whole sheet of one station, a self-contained HTML page.
+/// The whole sheet of one station, a self-contained HTML page in the sheet's language.
 pub fn observer_sheet_html(event: &TransitEvent, st: &SheetStation) -> String {
     let mut s = String::with_capacity(24_000);
     let _ = writeln!(
         s,
-        "<!DOCTYPE html>\n<html lang=\"en\"><head><meta charset=\"utf-8\">\n\
+        "<!DOCTYPE html>\n<html lang=\"{}\"><head><meta charset=\"utf-8\">\n\
          <meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n\
-         <title>Transit of {} {}: {}</title>\n<style>\n{STYLE}\n</style></head><body>",
-        event.planet.title(),
-        event.date(),
-        esc(&st.prediction.station.name)
+         <title>{}</title>\n<style>\n{STYLE}\n</style></head><body>",
+        st.language.code(),
+        esc(&title(st.language, event, &st.prediction.station.name))
     );
     push_heading(&mut s, event, st);
     push_contacts(&mut s, event, st);
     push_sun_during(&mut s, event, st);
     push_drawings(&mut s, st);
-    push_blank_table(&mut s);
+    push_blank_table(&mut s, st.language);
     s.push_str("</main>\n");
     push_footer(&mut s, event, st, contacts_seen_up(st.prediction));
     s.push_str("</body></html>\n");

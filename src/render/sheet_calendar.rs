@@ -1,5 +1,6 @@
 //! A station's contacts as an iCalendar file: one event per contact seen with the Sun up, each
-//! with a reminder, for the observers' phones and calendars.
+//! with a reminder, for the observers' phones and calendars; its words and numbers in the
+//! sheet's language (`locales/*/sheet.ftl`), the solar caution in every description.
 //!
 //! References: RFC 5545, *Internet Calendaring and Scheduling Core Object Specification*
 //! (2009): sections 3.6.1 (VEVENT), 3.6.6 (VALARM), 3.8.4.7 (UID), 3.8.7.2 (DTSTAMP), 3.1
@@ -8,8 +9,9 @@
 use crate::geometry::contacts::Contact;
 use crate::geometry::sun_horizon::sun_is_up;
 use crate::geometry::transit::TransitEvent;
+use crate::language::{text, Args};
 use crate::render::observer_sheet::SheetStation;
-use crate::render::text::SAFETY_CAUTION;
+use crate::render::sheet_words::{caution, number, title};
 use chrono::{DateTime, TimeDelta, Utc};
 use icalendar::{Alarm, Calendar, Component, Event, EventLike, Property, Trigger};
 
@@ -59,8 +61,8 @@ pub fn contact_uid(event: &TransitEvent, station_name: &str, contact: Contact) -
 /// The calendar of one station's contacts seen with the Sun up (none: a valid, empty
 /// calendar).
 ///
-/// Arguments: `event`; `st`, the station, its zone and file names; `stamp_utc`, the instant
-/// the calendar is made (DTSTAMP).
+/// Arguments: `event`; `st`, the station, its zone, file names and language; `stamp_utc`, the
+/// instant the calendar is made (DTSTAMP).
 /// Returns: the calendar as RFC 5545 text (CRLF line ends, lines folded at 75 octets).
 pub fn station_calendar(
     event: &TransitEvent,
@@ -68,7 +70,8 @@ pub fn station_calendar(
     stamp_utc: DateTime<Utc>,
 ) -> String {
     let name = &st.prediction.station.name;
-    let planet = event.planet.title();
+    let l = st.language;
+    let planet = event.planet.name();
     let mut calendar = Calendar::empty();
     for (key, value) in [
         ("VERSION", "2.0"),
@@ -77,7 +80,7 @@ pub fn station_calendar(
     ] {
         calendar.append_property(Property::new(key, value));
     }
-    calendar.name(&format!("Transit of {planet} {}: {name}", event.date()));
+    calendar.name(&title(l, event, name));
     for c in st.prediction.contacts.iter().flatten() {
         if !sun_is_up(c.sun_altitude_deg) {
             continue;
@@ -86,38 +89,56 @@ pub fn station_calendar(
         // Rounded to the second, as the sheet prints it.
         let start = (label + TimeDelta::milliseconds(500)).and_utc();
         let start = start - TimeDelta::nanoseconds(i64::from(start.timestamp_subsec_nanos()));
-        let civil = st.zone.map_or(String::new(), |z| {
+        let clock = st.zone.map_or(String::new(), |z| {
             let r = z.reading(label);
-            format!("Clock time {} ({}). ", &r.iso(0)[11..19], r.abbreviation)
+            let args = Args::new()
+                .text("time", r.iso(0)[11..19].to_string())
+                .text("abbreviation", r.abbreviation);
+            text(l, "calendar-clock-time", &args) + " "
         });
-        let description = format!(
-            "Contact {} of the transit of {planet} at {name}: {civil}UTC {}. Sun's altitude {:.1} \
-             degrees, position angle {:.1}, vertex angle {:.1}. {SAFETY_CAUTION}",
-            c.contact.roman(),
-            start.format("%H:%M:%S"),
-            c.sun_altitude_deg,
-            c.position_angle_deg,
-            c.vertex_angle_deg
-        );
+        let contact = c.contact.roman();
+        let description = text(
+            l,
+            "calendar-description",
+            &Args::new()
+                .text("contact", contact)
+                .text("planet", planet)
+                .text("station", name.as_str())
+                .text("clock", clock)
+                .text("utc", start.format("%H:%M:%S").to_string())
+                .text("altitude", number(l, c.sun_altitude_deg, 1))
+                .text("position_angle", number(l, c.position_angle_deg, 1))
+                .text("vertex_angle", number(l, c.vertex_angle_deg, 1)),
+        ) + " "
+            + &caution(l);
         let uid = contact_uid(event, name, c.contact);
+        let reminder = text(
+            l,
+            "calendar-reminder",
+            &Args::new()
+                .text("contact", contact)
+                .text("planet", planet)
+                .count("n", reminder_min(c.contact) as usize),
+        );
         let alarm = Alarm::display(
-            &format!(
-                "Contact {} of the transit of {planet} in {} minutes",
-                c.contact.roman(),
-                reminder_min(c.contact)
-            ),
+            &reminder,
             Trigger::before_start(TimeDelta::minutes(reminder_min(c.contact))),
         )
         .uid(&format!("alarm-{uid}"))
         .done();
+        let summary = text(
+            l,
+            "calendar-summary",
+            &Args::new()
+                .text("planet", planet)
+                .text("contact", contact)
+                .text("station", name.as_str()),
+        );
         calendar.push(
             Event::new()
                 .uid(&uid)
                 .timestamp(stamp_utc)
-                .summary(&format!(
-                    "Transit of {planet}: contact {} ({name})",
-                    c.contact.roman()
-                ))
+                .summary(&summary)
                 .description(&description)
                 .starts(start)
                 .ends(start + TimeDelta::minutes(EVENT_DURATION_MIN))

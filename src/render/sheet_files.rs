@@ -3,6 +3,7 @@
 
 use crate::error::{Error, Result};
 use crate::geometry::transit::{StationPrediction, TransitEvent};
+use crate::language::Language;
 use crate::render::observer_sheet::{observer_sheet_html, SheetStation};
 use crate::render::sheet_calendar::station_calendar;
 use crate::time::civil::CivilZone;
@@ -59,8 +60,8 @@ pub fn distinct_file_stems<'a>(names: impl IntoIterator<Item = &'a str>) -> Vec<
 /// Write one sheet and one calendar per station into `dir`, creating it where missing.
 ///
 /// Arguments: `dir`, the folder; `event`; `predictions`, one per station; `zones`, each
-/// station's civil zone in the same order (shorter or `None`: UTC only); `stamp_utc`, the
-/// instant written as each calendar event's DTSTAMP.
+/// station's civil zone in the same order (shorter or `None`: UTC only); `language`, of the
+/// sheets and calendars; `stamp_utc`, the instant written as each calendar event's DTSTAMP.
 /// Returns: the paths written, sheet then calendar for each station.
 /// Errors: [`Error::Io`] naming the folder or file that could not be created or written.
 pub fn write_sheets(
@@ -68,6 +69,7 @@ pub fn write_sheets(
     event: &TransitEvent,
     predictions: &[StationPrediction],
     zones: &[Option<CivilZone>],
+    language: Language,
     stamp_utc: DateTime<Utc>,
 ) -> Result<Vec<PathBuf>> {
     let io = |path: &Path| {
@@ -83,6 +85,7 @@ pub fn write_sheets(
             prediction: p,
             zone: zones.get(k).and_then(Option::as_ref),
             calendar_file: &calendar_file,
+            language,
         };
         let html = dir.join(format!("{stem}.html"));
         std::fs::write(&html, observer_sheet_html(event, &st)).map_err(io(&html))?;

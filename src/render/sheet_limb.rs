@@ -14,6 +14,9 @@
 //! ed. (1998), chapter 14.
 
 use crate::geometry::contacts::Contact;
+use crate::language::Language;
+use crate::render::sheet_words::word;
+use crate::render::svg::esc;
 use std::fmt::Write as _;
 
 /// Which way up a drawing is.
@@ -114,44 +117,60 @@ pub fn reserved_deg(frame: LimbFrame) -> &'static [f64] {
     }
 }
 
-/// The fixed labels of a frame: (text, x px, y px, text-anchor).
-fn frame_labels(frame: LimbFrame) -> Vec<(&'static str, f64, f64, &'static str)> {
+/// The fixed labels of a frame in the language: (text, x px, y px, text-anchor).
+fn frame_labels(language: Language, frame: LimbFrame) -> Vec<(String, f64, f64, &'static str)> {
     let top = (CENTRE_PX.0, 16.0, "middle");
     let left_x = CENTRE_PX.0 - LABEL_RADIUS_PX - 22.0;
     match frame {
-        LimbFrame::Zenith => vec![("Zenith", top.0, top.1, top.2)],
+        LimbFrame::Zenith => vec![(word(language, "limb-zenith"), top.0, top.1, top.2)],
         LimbFrame::North => vec![
-            ("N", top.0, top.1, top.2),
-            ("E", left_x, CENTRE_PX.1 + 4.0, "middle"),
+            (word(language, "limb-north"), top.0, top.1, top.2),
+            (
+                word(language, "limb-east"),
+                left_x,
+                CENTRE_PX.1 + 4.0,
+                "middle",
+            ),
         ],
     }
 }
 
 /// The drawing as an inline SVG element (no XML prolog), `aria-label` naming it.
 ///
-/// Arguments: `frame`, which way up; `marks`, the contacts that occur at the station.
-/// Returns: the disc, an arrow and a label for the up direction (and E for the north-up
+/// Arguments: `language`, of the labels; `frame`, which way up; `marks`, the contacts that
+/// occur at the station.
+/// Returns: the disc, an arrow and a label for the up direction (and east for the north-up
 /// frame), and for each contact a dot on the limb, a short tick outwards and its numeral.
-pub fn limb_svg(frame: LimbFrame, marks: &[LimbMark]) -> String {
-    let label = match frame {
-        LimbFrame::Zenith => "Solar disc as seen in the sky, zenith up",
-        LimbFrame::North => "Solar disc north up, east left",
-    };
+pub fn limb_svg(language: Language, frame: LimbFrame, marks: &[LimbMark]) -> String {
+    let label = word(
+        language,
+        match frame {
+            LimbFrame::Zenith => "limb-zenith-label",
+            LimbFrame::North => "limb-north-label",
+        },
+    );
     let (w, h) = VIEW_PX;
     let mut s = format!(
         "<svg xmlns=\"http://www.w3.org/2000/svg\" viewBox=\"0 0 {w} {h}\" role=\"img\" \
-         aria-label=\"{label}\" class=\"limb\">\n"
+         aria-label=\"{}\" class=\"limb\">\n",
+        esc(&label)
     );
-    s.push_str(&disc_with_frame(frame));
+    s.push_str(&disc_with_frame_in(language, frame));
     push_marks(&mut s, marks, reserved_deg(frame));
     s.push_str("</svg>");
     s
 }
 
-/// The disc, the arrow towards the up direction and the frame's labels (the inside of an SVG
-/// element of view box [`VIEW_PX`]): shared by the observers' sheets and the service's
-/// drawing of the planet's path.
+/// The disc, the arrow towards the up direction and the frame's labels in English (the
+/// inside of an SVG element of view box [`VIEW_PX`]): the service's drawing of the planet's
+/// path; see [`disc_with_frame_in`].
 pub fn disc_with_frame(frame: LimbFrame) -> String {
+    disc_with_frame_in(Language::English, frame)
+}
+
+/// The disc, the arrow towards the up direction and the frame's labels in `language` (the
+/// inside of an SVG element of view box [`VIEW_PX`]): the observers' sheets' drawings.
+pub fn disc_with_frame_in(language: Language, frame: LimbFrame) -> String {
     let (cx, cy) = CENTRE_PX;
     let mut s = String::new();
     let _ = writeln!(
@@ -172,10 +191,11 @@ pub fn disc_with_frame(frame: LimbFrame) -> String {
         cx + 4.0,
         29.0
     );
-    for (text, x, y, anchor) in frame_labels(frame) {
+    for (text, x, y, anchor) in frame_labels(language, frame) {
         let _ = writeln!(
             s,
-            "<text x=\"{x}\" y=\"{y}\" text-anchor=\"{anchor}\" font-size=\"15\" font-weight=\"bold\">{text}</text>"
+            "<text x=\"{x}\" y=\"{y}\" text-anchor=\"{anchor}\" font-size=\"15\" font-weight=\"bold\">{}</text>",
+            esc(&text)
         );
     }
     s
@@ -280,9 +300,13 @@ mod tests {
                 angle_deg: 329.1,
             },
         ];
-        let svg = limb_svg(LimbFrame::North, &marks);
+        let svg = limb_svg(Language::English, LimbFrame::North, &marks);
         assert!(svg.contains(">I</text>") && svg.contains(">IV</text>"));
         assert!(svg.contains(">N</text>") && svg.contains(">E</text>"));
-        assert!(limb_svg(LimbFrame::Zenith, &marks).contains(">Zenith</text>"));
+        assert!(limb_svg(Language::English, LimbFrame::Zenith, &marks).contains(">Zenith</text>"));
+        // In German east is O(sten) and the zenith Zenit; the drawing is named in German.
+        let de = limb_svg(Language::German, LimbFrame::North, &marks);
+        assert!(de.contains(">O</text>") && de.contains("aria-label=\"Sonnenscheibe, Norden oben"));
+        assert!(limb_svg(Language::German, LimbFrame::Zenith, &marks).contains(">Zenit</text>"));
     }
 }

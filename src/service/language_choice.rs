@@ -18,7 +18,7 @@ pub const LANGUAGE_COOKIE: &str = "tp_lang";
 const KEEP_S: u64 = 365 * 86_400;
 
 /// The language chosen on the link (`lang` in the query), if it names one of ours.
-fn from_query(query: Option<&str>) -> Option<Language> {
+pub fn from_query(query: Option<&str>) -> Option<Language> {
     serde_urlencoded::from_str::<Vec<(String, String)>>(query?)
         .ok()?
         .into_iter()
@@ -43,10 +43,18 @@ pub fn language_of(query: Option<&str>, headers: &HeaderMap) -> (Language, bool)
     (Language::negotiate(accept), false)
 }
 
+/// The language the visitor chose on the switch, on this link (`?lang=`) or earlier (the
+/// cookie); `None` when they never chose (the browser's languages are no choice here: a
+/// registered station's pages then keep the language it registered in).
+pub fn chosen_language(query: Option<&str>, headers: &HeaderMap) -> Option<Language> {
+    from_query(query)
+        .or_else(|| super::forgery::cookie(headers, LANGUAGE_COOKIE).and_then(Language::from_code))
+}
+
 /// Middleware: give the request its [`Language`]; keep a choice made on the switch in the
-/// cookie; say the language of the answer (`Content-Language`) and that it depends on the
-/// browser's languages and the cookie (`Vary`), so that no cache serves one visitor's
-/// language to another.
+/// cookie; say the language of the answer (`Content-Language`, unless the route said it, as
+/// a registered station's sheet does) and that it depends on the browser's languages and the
+/// cookie (`Vary`), so that no cache serves one visitor's language to another.
 pub async fn choose_language(mut req: Request, next: Next) -> Response {
     let (language, chosen) = language_of(req.uri().query(), req.headers());
     req.extensions_mut().insert(language);
@@ -61,7 +69,10 @@ pub async fn choose_language(mut req: Request, next: Next) -> Response {
             h.append(header::SET_COOKIE, v);
         }
     }
-    if let Ok(v) = HeaderValue::from_str(language.code()) {
+    if let (false, Ok(v)) = (
+        h.contains_key(header::CONTENT_LANGUAGE),
+        HeaderValue::from_str(language.code()),
+    ) {
         h.insert(header::CONTENT_LANGUAGE, v);
     }
     h.append(
@@ -141,6 +152,13 @@ mod tests {
             "an unknown code is no choice"
         );
         assert_eq!(language_of(None, &HeaderMap::new()).0, Language::English);
+        // A choice is the switch or the cookie, never the browser's languages.
+        assert_eq!(chosen_language(None, &browser), None);
+        assert_eq!(chosen_language(None, &kept), Some(Language::Portuguese));
+        assert_eq!(
+            chosen_language(Some("lang=fr"), &kept),
+            Some(Language::French)
+        );
     }
 
     #[test]

@@ -2,11 +2,13 @@
 //! of its clocks, read from the JSON of `POST /api/registrations` or the registration form and
 //! checked (each refusal a sentence naming the field); and the station's observers' sheet and
 //! calendar, made by the library's own sheet renderer exactly as `predict --sheets` writes
-//! them (`render::observer_sheet`, `render::sheet_calendar`), in the station's time zone.
+//! them (`render::observer_sheet`, `render::sheet_calendar`), in the station's time zone and
+//! in the language chosen at registration.
 
 use super::store_registrations::Registration;
 use crate::geometry::station::{Station, MAX_ELEVATION_M, MIN_ELEVATION_M};
 use crate::geometry::transit::{StationPrediction, TransitEvent};
+use crate::language::Language;
 use crate::render::observer_sheet::{observer_sheet_html, SheetStation};
 use crate::render::sheet_calendar::station_calendar;
 use crate::render::sheet_files::safe_file_stem;
@@ -37,6 +39,8 @@ pub struct RegistrationFields {
     pub elevation_m: String,
     /// Time zone of the station's clocks.
     pub time_zone: String,
+    /// Language of the sheet and calendar, a code (`de`; empty: English).
+    pub language: String,
 }
 
 /// A JSON value as text: strings as they are, numbers as written, absent or null as empty.
@@ -64,6 +68,7 @@ pub fn fields_from_json(body: &[u8]) -> Result<RegistrationFields, String> {
         longitude: get("longitude")?,
         elevation_m: get("elevation_m")?,
         time_zone: get("time_zone")?,
+        language: get("language")?,
     })
 }
 
@@ -81,6 +86,7 @@ pub fn fields_from_form(form: &[(String, String)]) -> RegistrationFields {
         longitude: get("longitude"),
         elevation_m: get("elevation_m"),
         time_zone: get("time_zone"),
+        language: get("lang"),
     }
 }
 
@@ -99,7 +105,8 @@ fn number(text: &str, key: &str, what: &str) -> Result<f64, String> {
 /// Check a registration's fields: a name (at most [`STATION_NAME_MAX`] characters), a latitude
 /// of -90 to 90 degrees, a longitude of -180 to 360 degrees east (kept as -180 to 180), an
 /// elevation of -500 to 15,000 m (empty: 0) and a time zone of the IANA database (or a fixed
-/// offset such as `+05:30`), written back by its canonical name.
+/// offset such as `+05:30`), written back by its canonical name; a language of the sheets
+/// (`es`, `pt-BR`: the primary subtag decides; empty: English).
 ///
 /// Errors: a sentence naming the field and what it should hold.
 pub fn checked(f: &RegistrationFields) -> Result<Registration, String> {
@@ -144,6 +151,15 @@ pub fn checked(f: &RegistrationFields) -> Result<Registration, String> {
         return Err("'time_zone' is missing; give the time zone of the station's clocks, a name of the IANA database such as Europe/Amsterdam, America/Sao_Paulo or Asia/Kolkata (or a fixed offset such as +05:30)".into());
     }
     let zone = CivilZone::parse(&f.time_zone).map_err(|e| format!("'time_zone': {e}"))?;
+    let language = match f.language.trim() {
+        "" => Language::English,
+        code => Language::from_code(code).ok_or_else(|| {
+            format!(
+                "'language' is '{code}', not a language of the sheets; give one of {}",
+                Language::codes_named()
+            )
+        })?,
+    };
     Ok(Registration {
         id: 0,
         registered_utc: String::new(),
@@ -152,6 +168,7 @@ pub fn checked(f: &RegistrationFields) -> Result<Registration, String> {
         longitude_deg: checked.longitude_deg,
         elevation_m,
         time_zone: zone.name(),
+        language,
     })
 }
 
@@ -171,8 +188,13 @@ pub fn calendar_file(r: &Registration) -> String {
     format!("{}.ics", safe_file_stem(&r.station))
 }
 
-/// The station's observers' sheet: the page `predict --sheets` writes for it.
-pub fn sheet_html(event: &TransitEvent, r: &Registration) -> Result<String, String> {
+/// The station's observers' sheet in `language` (the registration's own, or another the
+/// reader chose): the page `predict --sheets --language` writes for it.
+pub fn sheet_html(
+    event: &TransitEvent,
+    r: &Registration,
+    language: Language,
+) -> Result<String, String> {
     let (p, zone) = prediction(event, r)?;
     let file = calendar_file(r);
     Ok(observer_sheet_html(
@@ -181,12 +203,18 @@ pub fn sheet_html(event: &TransitEvent, r: &Registration) -> Result<String, Stri
             prediction: &p,
             zone: Some(&zone),
             calendar_file: &file,
+            language,
         },
     ))
 }
 
-/// The station's calendar (RFC 5545), its events stamped with the time of registration.
-pub fn calendar_ics(event: &TransitEvent, r: &Registration) -> Result<String, String> {
+/// The station's calendar (RFC 5545) in `language`, its events stamped with the time of
+/// registration.
+pub fn calendar_ics(
+    event: &TransitEvent,
+    r: &Registration,
+    language: Language,
+) -> Result<String, String> {
     let (p, zone) = prediction(event, r)?;
     let file = calendar_file(r);
     let stamp = chrono::DateTime::parse_from_rfc3339(&r.registered_utc)
@@ -198,6 +226,7 @@ pub fn calendar_ics(event: &TransitEvent, r: &Registration) -> Result<String, St
             prediction: &p,
             zone: Some(&zone),
             calendar_file: &file,
+            language,
         },
         stamp,
     ))
@@ -219,6 +248,7 @@ mod tests {
             longitude: lon.into(),
             elevation_m: elev.into(),
             time_zone: zone.into(),
+            language: String::new(),
         }
     }
 
@@ -280,7 +310,7 @@ mod tests {
         .unwrap();
         let mut r = checked(&fields("35.68", "139.69", "40", "Asia/Tokyo")).unwrap();
         r.registered_utc = "2012-05-01T10:00:00.000Z".into();
-        let html = sheet_html(&event, &r).unwrap();
+        let html = sheet_html(&event, &r, r.language).unwrap();
         assert!(html.contains(
             crate::render::text::SAFETY_CAUTION
                 .split(';')
@@ -289,8 +319,37 @@ mod tests {
         ));
         assert!(html.contains("JST"), "the clock times in the zone");
         assert!(html.contains(&format!("<style>{}</style>", sheet_style_text())));
-        let ics = calendar_ics(&event, &r).unwrap();
+        let ics = calendar_ics(&event, &r, r.language).unwrap();
         assert!(ics.contains("BEGIN:VCALENDAR") && ics.contains("DTSTAMP:20120501T100000Z"));
         assert_eq!(calendar_file(&r), "Lantern_Hill.ics");
+        // In German: the caution, the words and the decimal comma; the calendar likewise.
+        let html = sheet_html(&event, &r, Language::German).unwrap();
+        assert!(
+            html.contains("<html lang=\"de\">") && html.contains("zertifizierten Sonnenfilter")
+        );
+        assert!(html.contains("Breite 35,6800°"), "the decimal comma");
+        let ics = calendar_ics(&event, &r, Language::German).unwrap();
+        assert!(
+            ics.contains("SUMMARY:Venustransit: Kontakt II (Lantern Hill)"),
+            "{ics}"
+        );
+    }
+
+    /// The language is taken as a code, English when none is given; another is refused with
+    /// the five codes named.
+    #[test]
+    fn the_language_is_checked() {
+        let mut f = fields("35.68", "139.69", "", "UTC");
+        assert_eq!(checked(&f).unwrap().language, Language::English);
+        f.language = "pt-BR".into();
+        assert_eq!(checked(&f).unwrap().language, Language::Portuguese);
+        f.language = "ja".into();
+        let e = checked(&f).unwrap_err();
+        assert!(
+            e.contains("'language' is 'ja'")
+                && e.contains("en (English)")
+                && e.contains("pt (Português)"),
+            "{e}"
+        );
     }
 }

@@ -3,9 +3,12 @@
 //! the key's SHA-256 is stored, so a copy of the database opens no private link); and the
 //! network planned against reported: which registered stations have sent timings under the
 //! same name (compared without regard to case or surrounding spaces), which are silent, and
-//! which stations reported without registering.
+//! which stations reported without registering. Each registration keeps the language its
+//! sheet and calendar are written in (a database made before languages existed gains the
+//! column, its registrations in English).
 
 use super::store::{content_hash, Store, StoreResult};
+use crate::language::Language;
 use rusqlite::{params, Connection, OptionalExtension};
 use std::collections::BTreeMap;
 
@@ -19,14 +22,29 @@ CREATE TABLE IF NOT EXISTS registrations (
     latitude REAL NOT NULL,
     longitude REAL NOT NULL,
     elevation_m REAL NOT NULL,
-    time_zone TEXT NOT NULL
+    time_zone TEXT NOT NULL,
+    language TEXT NOT NULL DEFAULT 'en'
 );
 ";
 
-/// Create the registrations' table where it is missing.
+/// Create the registrations' table where it is missing, and give a table made before the
+/// registrations had a language its column (every registration it holds in English).
 pub(super) fn create_table(conn: &Connection) -> StoreResult<()> {
-    conn.execute_batch(REGISTRATIONS_SCHEMA)
-        .map_err(|e| format!("database: {e}"))
+    conn.execute_batch(REGISTRATIONS_SCHEMA).map_err(db_err)?;
+    let has_language: bool = conn
+        .query_row(
+            "SELECT COUNT(*) > 0 FROM pragma_table_info('registrations') WHERE name = 'language'",
+            [],
+            |r| r.get(0),
+        )
+        .map_err(db_err)?;
+    if !has_language {
+        conn.execute_batch(
+            "ALTER TABLE registrations ADD COLUMN language TEXT NOT NULL DEFAULT 'en'",
+        )
+        .map_err(db_err)?;
+    }
+    Ok(())
 }
 
 /// One registered station.
@@ -46,6 +64,8 @@ pub struct Registration {
     pub elevation_m: f64,
     /// The clocks' time zone, as the registration named it (`Europe/Amsterdam`, `+05:30`).
     pub time_zone: String,
+    /// The language of the station's sheet and calendar, chosen at registration.
+    pub language: Language,
 }
 
 /// A station name as names are matched between registrations and submissions: trimmed,
@@ -105,10 +125,12 @@ fn registration_of(r: &rusqlite::Row) -> rusqlite::Result<Registration> {
         longitude_deg: r.get(4)?,
         elevation_m: r.get(5)?,
         time_zone: r.get(6)?,
+        language: Language::from_code(&r.get::<_, String>(7)?).unwrap_or_default(),
     })
 }
 
-const COLUMNS: &str = "id, registered_utc, station, latitude, longitude, elevation_m, time_zone";
+const COLUMNS: &str =
+    "id, registered_utc, station, latitude, longitude, elevation_m, time_zone, language";
 
 impl Store {
     /// Store a registration (its `id` and `registered_utc` are set here) under the SHA-256 of
@@ -117,8 +139,8 @@ impl Store {
         let at = super::store::now_utc();
         self.connection()
             .execute(
-                "INSERT INTO registrations (key_hash, registered_utc, station, latitude, longitude, elevation_m, time_zone) VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7)",
-                params![content_hash(key.as_bytes()), at, r.station, r.latitude_deg, r.longitude_deg, r.elevation_m, r.time_zone],
+                "INSERT INTO registrations (key_hash, registered_utc, station, latitude, longitude, elevation_m, time_zone, language) VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8)",
+                params![content_hash(key.as_bytes()), at, r.station, r.latitude_deg, r.longitude_deg, r.elevation_m, r.time_zone, r.language.code()],
             )
             .map_err(db_err)?;
         Ok(Registration {
@@ -226,6 +248,7 @@ mod tests {
             longitude_deg: 139.0,
             elevation_m: 10.0,
             time_zone: "Asia/Tokyo".into(),
+            language: Language::English,
         }
     }
 
@@ -272,5 +295,57 @@ mod tests {
             (walk_in.station.as_str(), walk_in.latitude_deg),
             ("Walk-in Field", 10.0)
         );
+        // The language is kept.
+        let german = Registration {
+            language: Language::German,
+            ..registration("Stiller Hang")
+        };
+        store.register(&german, "keyD").unwrap();
+        assert_eq!(
+            store.registration_by_key("keyD").unwrap().unwrap().language,
+            Language::German
+        );
+    }
+
+    /// A database whose registrations were made before they had a language gains the column;
+    /// its registrations read in English, and new ones keep theirs.
+    #[test]
+    fn an_older_registrations_table_gains_the_language() {
+        let path = super::super::store::oldest_database("registrations-store");
+        {
+            let conn = Connection::open(&path).unwrap();
+            conn.execute_batch(
+                "CREATE TABLE registrations (id INTEGER PRIMARY KEY, key_hash TEXT NOT NULL UNIQUE, registered_utc TEXT NOT NULL, station TEXT NOT NULL, latitude REAL NOT NULL, longitude REAL NOT NULL, elevation_m REAL NOT NULL, time_zone TEXT NOT NULL);",
+            )
+            .unwrap();
+            conn.execute(
+                "INSERT INTO registrations (key_hash, registered_utc, station, latitude, longitude, elevation_m, time_zone) VALUES (?1, 'x', 'Old Mill', 1, 2, 3, 'UTC')",
+                [content_hash(b"keyOld")],
+            )
+            .unwrap();
+        }
+        let mut store = Store::open(&path).unwrap();
+        let old = store.registration_by_key("keyOld").unwrap().unwrap();
+        assert_eq!(
+            (old.station.as_str(), old.language),
+            ("Old Mill", Language::English)
+        );
+        let new = Registration {
+            language: Language::French,
+            ..registration("Moulin Neuf")
+        };
+        store.register(&new, "keyNew").unwrap();
+        drop(store);
+        // Opened again, nothing is added twice.
+        let store = Store::open(&path).unwrap();
+        assert_eq!(
+            store
+                .registration_by_key("keyNew")
+                .unwrap()
+                .unwrap()
+                .language,
+            Language::French
+        );
+        assert_eq!(store.registrations().unwrap().len(), 2);
     }
 }
