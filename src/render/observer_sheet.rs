@@ -65,7 +65,7 @@ footer { margin-top: 4px; border-top: 1px solid #777; font-size: 7.5pt; }
 @media print { body { margin: 0 auto; max-width: none; } }
 @media screen { .scroll { overflow-x: auto; max-width: 100%; } svg { max-width: 100%; height: auto; } }
 @media screen and (max-width: 600px) { body { margin: 8px; } .drawings { flex-wrap: wrap; } \
-figure { width: 46%; } .drawings .note { width: 100%; margin-top: 0; } .fill { flex-direction: column; } \
+figure { width: 100%; } svg.limb { width: min(100%, 64mm); } .drawings .note { width: 100%; margin-top: 0; } .fill { flex-direction: column; } \
 .scroll > table { min-width: 34rem; } }";
 
 /// A contact's UTC label rounded to the second, `2032-11-13T06:41:21Z`.
