@@ -16,7 +16,10 @@ back-to-form = Zurück zum Formular
 ## Das Formular der Teilnehmenden
 
 form-title = Senden Sie Ihre Zeiten
-form-intro = Senden Sie die Kontaktzeiten, die Sie beim Transit von { $planet } am { $date } beobachtet haben. Sie sehen sofort, wie jede mit ihrer Vorhersage für Ihre Station übereinstimmt.
+form-intro = Senden Sie die Kontaktzeiten, die Sie beim Transit von { $planet ->
+        [venus] Venus
+       *[other] Merkur
+    } am { $date } beobachtet haben. Sie sehen sofort, wie jede mit ihrer Vorhersage für Ihre Station übereinstimmt.
 form-before-and-after = Melden Sie vor dem Ereignis <a href="/register">Ihre Station an</a>, um ihr Beobachtungsblatt und ihren Kalender zu erhalten; <a href="/results">die bisherigen Ergebnisse</a> sind öffentlich.
 station-heading = Ihre Station
 station-name = Name der Station

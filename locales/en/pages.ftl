@@ -15,7 +15,10 @@ back-to-form = Back to the form
 ## The participant's form
 
 form-title = Send your timings
-form-intro = Send the contact times you observed of the transit of { $planet } of { $date }. You will see at once how each compares with its prediction at your station.
+form-intro = Send the contact times you observed of the transit of { $planet ->
+        [venus] Venus
+       *[other] Mercury
+    } of { $date }. You will see at once how each compares with its prediction at your station.
 form-before-and-after = Before the event, <a href="/register">register your station</a> for its observers' sheet and calendar; <a href="/results">the results so far</a> are public.
 station-heading = Your station
 station-name = Station's name

@@ -16,7 +16,10 @@ back-to-form = Volver al formulario
 ## El formulario del participante
 
 form-title = Envíe sus tiempos
-form-intro = Envíe los instantes de contacto que observó del tránsito de { $planet } del { $date }. Verá al momento cómo se compara cada uno con su predicción en su estación.
+form-intro = Envíe los instantes de contacto que observó del tránsito de { $planet ->
+        [venus] Venus
+       *[other] Mercurio
+    } del { $date }. Verá al momento cómo se compara cada uno con su predicción en su estación.
 form-before-and-after = Antes del evento, <a href="/register">registre su estación</a> para obtener su hoja de observación y su calendario; <a href="/results">los resultados hasta ahora</a> son públicos.
 station-heading = Su estación
 station-name = Nombre de la estación

@@ -16,7 +16,10 @@ back-to-form = Retour au formulaire
 ## Le formulaire du participant
 
 form-title = Envoyez vos chronométrages
-form-intro = Envoyez les instants de contact que vous avez observés lors du transit de { $planet } du { $date }. Vous verrez aussitôt comment chacun se compare à sa prédiction pour votre station.
+form-intro = Envoyez les instants de contact que vous avez observés lors du transit de { $planet ->
+        [venus] Vénus
+       *[other] Mercure
+    } du { $date }. Vous verrez aussitôt comment chacun se compare à sa prédiction pour votre station.
 form-before-and-after = Avant l'événement, <a href="/register">inscrivez votre station</a> pour recevoir sa fiche d'observation et son calendrier ; <a href="/results">les résultats obtenus jusqu'ici</a> sont publics.
 station-heading = Votre station
 station-name = Nom de la station

@@ -16,7 +16,10 @@ back-to-form = Voltar ao formulário
 ## O formulário do participante
 
 form-title = Envie os seus tempos
-form-intro = Envie os instantes de contacto que observou do trânsito de { $planet } de { $date }. Verá de imediato como cada um se compara com a sua previsão na sua estação.
+form-intro = Envie os instantes de contacto que observou do trânsito de { $planet ->
+        [venus] Vénus
+       *[other] Mercúrio
+    } de { $date }. Verá de imediato como cada um se compara com a sua previsão na sua estação.
 form-before-and-after = Antes do evento, <a href="/register">registe a sua estação</a> para obter a sua folha de observação e o seu calendário; <a href="/results">os resultados até agora</a> são públicos.
 station-heading = A sua estação
 station-name = Nome da estação

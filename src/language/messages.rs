@@ -277,4 +277,29 @@ mod tests {
         let fr = text(Language::French, "skip-link", &Args::new());
         assert!(!fr.is_empty() && fr != text(Language::English, "skip-link", &Args::new()));
     }
+
+    /// The planet is named in the reader's language (a Fluent selector on `venus`/`mercury`).
+    #[test]
+    fn the_planet_is_named_in_each_language() {
+        let args = |planet: &str| Args::new().text("planet", planet).text("date", "13");
+        for (l, mercury, venus) in [
+            (Language::English, "transit of Mercury", "transit of Venus"),
+            (
+                Language::Spanish,
+                "tránsito de Mercurio",
+                "tránsito de Venus",
+            ),
+            (Language::French, "transit de Mercure", "transit de Vénus"),
+            (Language::German, "Transit von Merkur", "Transit von Venus"),
+            (
+                Language::Portuguese,
+                "trânsito de Mercúrio",
+                "trânsito de Vénus",
+            ),
+        ] {
+            let m = text(l, "form-intro", &args("mercury"));
+            let v = text(l, "form-intro", &args("venus"));
+            assert!(m.contains(mercury) && v.contains(venus), "{m} / {v}");
+        }
+    }
 }

@@ -313,7 +313,7 @@ pub async fn participant_route(
     Extension(l): Extension<Language>,
 ) -> Html<String> {
     let args = crate::language::Args::new()
-        .text("planet", app.event.planet.to_string())
+        .text("planet", app.event.planet.name())
         .text(
             "date",
             crate::language::numbers::date_long(l, app.event.date()),
