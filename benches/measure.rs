@@ -23,9 +23,14 @@ fn scene(side: usize) -> GreyImage {
         for x in 0..side {
             let mut sum = 0.0;
             for k in 0..16 {
-                sum += value(x as f64 + ((k % 4) as f64 - 1.5) / 4.0, y as f64 + ((k / 4) as f64 - 1.5) / 4.0);
+                sum += value(
+                    x as f64 + ((k % 4) as f64 - 1.5) / 4.0,
+                    y as f64 + ((k / 4) as f64 - 1.5) / 4.0,
+                );
             }
-            state = state.wrapping_mul(6364136223846793005).wrapping_add(1442695040888963407);
+            state = state
+                .wrapping_mul(6364136223846793005)
+                .wrapping_add(1442695040888963407);
             let noise = ((state >> 33) as f64 / (1u64 << 31) as f64 - 0.5) * 0.02;
             pixels.push((sum / 16.0 + noise) as f32);
         }

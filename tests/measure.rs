@@ -13,7 +13,9 @@ use rand::SeedableRng;
 use rand_distr::{Distribution, Normal};
 use rayon::prelude::*;
 use std::path::{Path, PathBuf};
-use transit_parallax::images::{measure_disc, measure_file, GreyImage, InstantOptions, InstantSource, MeasureError};
+use transit_parallax::images::{
+    measure_disc, measure_file, GreyImage, InstantOptions, InstantSource, MeasureError,
+};
 use transit_parallax::time::iso::parse_utc;
 
 fn images_dir() -> PathBuf {
@@ -38,8 +40,14 @@ fn clean_images_give_the_separation_within_2e_4_solar_radii() {
     // Source: truth.csv from generate_solar_images.py (Skyfield + DE421), clean images.
     for row in records("truth.csv") {
         let (file, truth) = (&row[0], row[7].parse::<f64>().expect("truth"));
-        let options = InstantOptions { camera_utc_offset_s: Some(6 * 3600), ..Default::default() };
-        let m = measure_file(&images_dir().join(file), &options).unwrap_or_else(|e| panic!("{file}: {e}"));
+        let file_has_time = matches!(&row[17], "fits" | "exif-offset" | "exif-no-offset");
+        let options = InstantOptions {
+            camera_utc_offset_s: Some(6 * 3600),
+            time_utc: (!file_has_time).then(|| utc(&row[6])),
+            ..Default::default()
+        };
+        let m = measure_file(&images_dir().join(file), &options)
+            .unwrap_or_else(|e| panic!("{file}: {e}"));
         let error = m.disc.separation_solar_radii - truth;
         eprintln!(
             "{file}: measured {:.6} truth {truth:.6} error {error:+.2e} sigma {:.1e} R {:.3} px (true {})",
@@ -49,7 +57,10 @@ fn clean_images_give_the_separation_within_2e_4_solar_radii() {
         assert!(m.disc.sigma_solar_radii > 0.0 && m.disc.sigma_solar_radii < 2e-3);
         let ratio = row[9].parse::<f64>().expect("radius");
         // The half-deficit radius of a blurred small disc is a little small: within 25 %.
-        assert!((m.disc.planet_radius_solar_radii / ratio - 1.0).abs() < 0.25, "{file}: planet radius");
+        assert!(
+            (m.disc.planet_radius_solar_radii / ratio - 1.0).abs() < 0.25,
+            "{file}: planet radius"
+        );
     }
 }
 
@@ -60,41 +71,75 @@ fn the_instant_comes_from_date_obs_plus_half_exptime_and_from_exif() {
     let truth: Vec<_> = records("truth.csv");
     let time_of = |file: &str| utc(&truth.iter().find(|r| &r[0] == file).expect("row")[6]);
     let dir = images_dir();
-    let fits = measure_file(&dir.join("venus2012-b.fits"), &InstantOptions::default()).expect("fits");
+    let fits =
+        measure_file(&dir.join("venus2012-b.fits"), &InstantOptions::default()).expect("fits");
     assert_eq!(fits.instant_source, InstantSource::FitsMidExposure);
     assert!(seconds_between(fits.time_utc, time_of("venus2012-b.fits")).abs() < 1e-6);
-    let fast = InstantOptions { clock_offset_s: 1.5, ..Default::default() };
+    let fast = InstantOptions {
+        clock_offset_s: 1.5,
+        ..Default::default()
+    };
     let corrected = measure_file(&dir.join("venus2012-b.fits"), &fast).expect("fits");
-    assert!((seconds_between(corrected.time_utc, fits.time_utc) + 1.5).abs() < 1e-6, "a fast clock is subtracted");
-    let exif = measure_file(&dir.join("venus2012-a.png"), &InstantOptions::default()).expect("exif");
+    assert!(
+        (seconds_between(corrected.time_utc, fits.time_utc) + 1.5).abs() < 1e-6,
+        "a fast clock is subtracted"
+    );
+    let exif =
+        measure_file(&dir.join("venus2012-a.png"), &InstantOptions::default()).expect("exif");
     assert_eq!(exif.instant_source, InstantSource::Exif);
     assert!(seconds_between(exif.time_utc, time_of("venus2012-a.png")).abs() < 1e-6);
     // No offset in the EXIF: refused unless the camera's zone is given (+06:00 in the generator).
     let refused = measure_file(&dir.join("venus2012-c.png"), &InstantOptions::default());
-    assert!(matches!(refused, Err(MeasureError::Instant { .. })), "{refused:?}");
-    let zoned = InstantOptions { camera_utc_offset_s: Some(6 * 3600), ..Default::default() };
+    assert!(
+        matches!(refused, Err(MeasureError::Instant { .. })),
+        "{refused:?}"
+    );
+    let zoned = InstantOptions {
+        camera_utc_offset_s: Some(6 * 3600),
+        ..Default::default()
+    };
     let c = measure_file(&dir.join("venus2012-c.png"), &zoned).expect("zoned");
     assert_eq!(c.instant_source, InstantSource::ExifWithGivenZone);
     assert!(seconds_between(c.time_utc, time_of("venus2012-c.png")).abs() < 1e-6);
     // --time-utc overrides; a PNG without EXIF needs it.
-    let given = InstantOptions { time_utc: Some(utc("2016-05-09T12:00:00Z")), ..Default::default() };
+    let given = InstantOptions {
+        time_utc: Some(utc("2016-05-09T12:00:00Z")),
+        ..Default::default()
+    };
     let g = measure_file(&dir.join("mercury2016-a.png"), &given).expect("given");
-    assert_eq!((g.instant_source, g.time_utc), (InstantSource::Given, utc("2016-05-09T12:00:00Z")));
+    assert_eq!(
+        (g.instant_source, g.time_utc),
+        (InstantSource::Given, utc("2016-05-09T12:00:00Z"))
+    );
     let none = measure_file(&dir.join("mercury2016-a.png"), &InstantOptions::default());
-    assert!(matches!(none, Err(MeasureError::Instant { .. })), "{none:?}");
+    assert!(
+        matches!(none, Err(MeasureError::Instant { .. })),
+        "{none:?}"
+    );
 }
 
 #[test]
 fn bad_images_are_refused_with_a_sentence_naming_the_file() {
     // Common practice, no source: the refusal cases of generate_solar_images.py.
-    let given = InstantOptions { time_utc: Some(utc("2012-06-06T01:00:00Z")), ..Default::default() };
+    let given = InstantOptions {
+        time_utc: Some(utc("2012-06-06T01:00:00Z")),
+        ..Default::default()
+    };
     let dir = images_dir();
     let outcome = |file: &str| measure_file(&dir.join(file), &given).expect_err(file);
     let cases: [(&str, fn(&MeasureError) -> bool); 4] = [
-        ("refuse-no-sun.png", |e| matches!(e, MeasureError::NoSun { .. })),
-        ("refuse-clipped.png", |e| matches!(e, MeasureError::ClippedLimb { .. })),
-        ("refuse-no-planet.png", |e| matches!(e, MeasureError::NoPlanet { .. })),
-        ("refuse-two-discs.png", |e| matches!(e, MeasureError::SeveralCandidates { count: 2, .. })),
+        ("refuse-no-sun.png", |e| {
+            matches!(e, MeasureError::NoSun { .. })
+        }),
+        ("refuse-clipped.png", |e| {
+            matches!(e, MeasureError::ClippedLimb { .. })
+        }),
+        ("refuse-no-planet.png", |e| {
+            matches!(e, MeasureError::NoPlanet { .. })
+        }),
+        ("refuse-two-discs.png", |e| {
+            matches!(e, MeasureError::SeveralCandidates { count: 2, .. })
+        }),
     ];
     for (file, expected) in cases {
         let e = outcome(file);
@@ -104,7 +149,10 @@ fn bad_images_are_refused_with_a_sentence_naming_the_file() {
     let missing = measure_file(&dir.join("no-such-file.png"), &given).expect_err("missing");
     assert!(matches!(missing, MeasureError::Io { .. }));
     let not_image = measure_file(&dir.join("truth.csv"), &given).expect_err("csv");
-    assert!(matches!(not_image, MeasureError::Format { .. }), "{not_image}");
+    assert!(
+        matches!(not_image, MeasureError::Format { .. }),
+        "{not_image}"
+    );
 }
 
 /// The limb-darkening law of the generator: Cox (2000), section 14.7, u2 = 0.93, v2 = -0.23.
@@ -138,7 +186,10 @@ impl Scene {
         let mut sum = 0.0;
         for i in 0..k {
             for j in 0..k {
-                let (dx, dy) = ((i as f64 + 0.5) / k as f64 - 0.5, (j as f64 + 0.5) / k as f64 - 0.5);
+                let (dx, dy) = (
+                    (i as f64 + 0.5) / k as f64 - 0.5,
+                    (j as f64 + 0.5) / k as f64 - 0.5,
+                );
                 sum += self.intensity(x + dx, y + dy);
             }
         }
@@ -149,7 +200,9 @@ impl Scene {
 /// A separable Gaussian blur (edges clamped).
 fn blur(pixels: &[f64], width: usize, height: usize, sigma_px: f64) -> Vec<f64> {
     let reach = (5.0 * sigma_px).ceil() as isize;
-    let kernel: Vec<f64> = (-reach..=reach).map(|k| (-0.5 * (k as f64 / sigma_px).powi(2)).exp()).collect();
+    let kernel: Vec<f64> = (-reach..=reach)
+        .map(|k| (-0.5 * (k as f64 / sigma_px).powi(2)).exp())
+        .collect();
     let total: f64 = kernel.iter().sum();
     let pass = |input: &[f64], along_rows: bool| -> Vec<f64> {
         let mut out = vec![0.0; input.len()];
@@ -158,8 +211,15 @@ fn blur(pixels: &[f64], width: usize, height: usize, sigma_px: f64) -> Vec<f64> 
                 let mut sum = 0.0;
                 for (k, w) in kernel.iter().enumerate() {
                     let offset = k as isize - reach;
-                    let (c, r) = if along_rows { (col as isize + offset, row as isize) } else { (col as isize, row as isize + offset) };
-                    let (c, r) = (c.clamp(0, width as isize - 1) as usize, r.clamp(0, height as isize - 1) as usize);
+                    let (c, r) = if along_rows {
+                        (col as isize + offset, row as isize)
+                    } else {
+                        (col as isize, row as isize + offset)
+                    };
+                    let (c, r) = (
+                        c.clamp(0, width as isize - 1) as usize,
+                        r.clamp(0, height as isize - 1) as usize,
+                    );
                     sum += w * input[r * width + c];
                 }
                 out[row * width + col] = sum / total;
@@ -173,7 +233,10 @@ fn blur(pixels: &[f64], width: usize, height: usize, sigma_px: f64) -> Vec<f64> 
 fn render_noisy(row: &csv::StringRecord) -> (GreyImage, f64) {
     let f = |i: usize| row[i].parse::<f64>().expect("number");
     let (width, height) = (f(5) as usize, f(6) as usize);
-    let scene = Scene { sun: (f(7), f(8), f(9)), planet: (f(10), f(11), f(12)) };
+    let scene = Scene {
+        sun: (f(7), f(8), f(9)),
+        planet: (f(10), f(11), f(12)),
+    };
     let mut pixels = Vec::with_capacity(width * height);
     for y in 0..height {
         for x in 0..width {
@@ -183,8 +246,11 @@ fn render_noisy(row: &csv::StringRecord) -> (GreyImage, f64) {
     let mut blurred = blur(&pixels, width, height, f(13));
     let mut rng = rand_chacha::ChaCha8Rng::seed_from_u64(f(15) as u64);
     let noise = Normal::new(0.0, f(14)).expect("noise");
-    blurred.iter_mut().for_each(|v| *v += noise.sample(&mut rng));
-    let image = GreyImage::new(width, height, blurred.iter().map(|&v| v as f32).collect()).expect("image");
+    blurred
+        .iter_mut()
+        .for_each(|v| *v += noise.sample(&mut rng));
+    let image =
+        GreyImage::new(width, height, blurred.iter().map(|&v| v as f32).collect()).expect("image");
     (image, f(4))
 }
 
@@ -198,14 +264,19 @@ fn noisy_images_agree_within_their_stated_sigma() {
         .par_iter()
         .map(|row| {
             let (image, truth) = render_noisy(row);
-            let m = measure_disc(Path::new(&format!("case-{}", &row[0])), &image).unwrap_or_else(|e| panic!("{e}"));
+            let m = measure_disc(Path::new(&format!("case-{}", &row[0])), &image)
+                .unwrap_or_else(|e| panic!("{e}"));
             (m.separation_solar_radii - truth) / m.sigma_solar_radii
         })
         .collect();
     let n = z.len() as f64;
     let mean = z.iter().sum::<f64>() / n;
     let spread = (z.iter().map(|v| (v - mean).powi(2)).sum::<f64>() / (n - 1.0)).sqrt();
-    eprintln!("{} noisy images: mean z {mean:+.3}, spread {spread:.3}, largest |z| {:.2}", z.len(), z.iter().fold(0.0f64, |a, v| a.max(v.abs())));
+    eprintln!(
+        "{} noisy images: mean z {mean:+.3}, spread {spread:.3}, largest |z| {:.2}",
+        z.len(),
+        z.iter().fold(0.0f64, |a, v| a.max(v.abs()))
+    );
     assert!((0.8..=1.25).contains(&spread), "spread of z {spread}");
     assert!(mean.abs() < 3.0 * spread / n.sqrt() + 0.1, "mean z {mean}");
 }

@@ -319,11 +319,20 @@ pub struct MeasureArgs {
     pub time_utc: Option<String>,
     /// The zone the camera's clock was set to, +HH:MM (e.g. +02:00), for photographs whose
     /// EXIF time has no offset.
-    #[arg(long = "camera-utc-offset", value_name = "+HH:MM", allow_hyphen_values = true)]
+    #[arg(
+        long = "camera-utc-offset",
+        value_name = "+HH:MM",
+        allow_hyphen_values = true
+    )]
     pub camera_utc_offset: Option<String>,
     /// How many seconds the camera's clock was AHEAD of the true time (negative if it was
     /// behind); this is subtracted from the time read from each file. Not applied to --time-utc.
-    #[arg(long = "clock-offset-s", value_name = "SECONDS", default_value_t = 0.0, allow_hyphen_values = true)]
+    #[arg(
+        long = "clock-offset-s",
+        value_name = "SECONDS",
+        default_value_t = 0.0,
+        allow_hyphen_values = true
+    )]
     pub clock_offset_s: f64,
     /// Station name written on every row.
     #[arg(long)]

@@ -31,21 +31,45 @@ Examples:
   transit-parallax measure frame.png --time-utc 2012-06-06T01:29:36.5Z --format json";
 
 fn options(a: &MeasureArgs) -> Result<(InstantOptions, StationColumns), Error> {
-    let time_utc = a.time_utc.as_deref().map(parse_utc).transpose().map_err(Error::argument)?;
-    let camera_utc_offset_s =
-        a.camera_utc_offset.as_deref().map(parse_camera_utc_offset).transpose().map_err(Error::argument)?;
+    let time_utc = a
+        .time_utc
+        .as_deref()
+        .map(parse_utc)
+        .transpose()
+        .map_err(Error::argument)?;
+    let camera_utc_offset_s = a
+        .camera_utc_offset
+        .as_deref()
+        .map(parse_camera_utc_offset)
+        .transpose()
+        .map_err(Error::argument)?;
     if !a.clock_offset_s.is_finite() || a.clock_offset_s.abs() > 86_400.0 {
-        return Err(Error::argument("--clock-offset-s must be a number of seconds within one day"));
+        return Err(Error::argument(
+            "--clock-offset-s must be a number of seconds within one day",
+        ));
     }
-    for (name, value, limit) in [("--latitude", a.latitude, 90.0), ("--longitude", a.longitude, 180.0)] {
+    for (name, value, limit) in [
+        ("--latitude", a.latitude, 90.0),
+        ("--longitude", a.longitude, 180.0),
+    ] {
         if value.is_some_and(|v| !(v.abs() <= limit)) {
-            return Err(Error::argument(format!("{name} must be within -{limit} to {limit} degrees")));
+            return Err(Error::argument(format!(
+                "{name} must be within -{limit} to {limit} degrees"
+            )));
         }
     }
-    if a.elevation_m.is_some_and(|v| !(-500.0..=9000.0).contains(&v)) {
-        return Err(Error::argument("--elevation-m must be within -500 to 9000 metres"));
+    if a.elevation_m
+        .is_some_and(|v| !(-500.0..=9000.0).contains(&v))
+    {
+        return Err(Error::argument(
+            "--elevation-m must be within -500 to 9000 metres",
+        ));
     }
-    let instant = InstantOptions { time_utc, camera_utc_offset_s, clock_offset_s: a.clock_offset_s };
+    let instant = InstantOptions {
+        time_utc,
+        camera_utc_offset_s,
+        clock_offset_s: a.clock_offset_s,
+    };
     let station = StationColumns {
         station: a.station.clone(),
         latitude_deg: a.latitude,
@@ -91,10 +115,14 @@ pub fn measure(a: MeasureArgs) -> Result<String, Error> {
         )));
     }
     match a.format {
-        MeasureFormat::Csv => csv_rows(&station, &measured).map_err(|e| Error::Numerical(e.to_string())),
+        MeasureFormat::Csv => {
+            csv_rows(&station, &measured).map_err(|e| Error::Numerical(e.to_string()))
+        }
         MeasureFormat::Json => {
             let rows = json_rows(&station, &measured);
-            serde_json::to_string_pretty(&rows).map(|t| t + "\n").map_err(|e| Error::Numerical(e.to_string()))
+            serde_json::to_string_pretty(&rows)
+                .map(|t| t + "\n")
+                .map_err(|e| Error::Numerical(e.to_string()))
         }
     }
 }

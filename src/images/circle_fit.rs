@@ -64,7 +64,10 @@ pub fn kasa_fit(points: &[EdgePoint]) -> Option<(f64, f64, f64)> {
 
 /// One geometric least-squares fit (Gauss-Newton on the distances to the circle) from a
 /// start; returns the circle, its normal matrix `J^T J` and the residuals.
-fn geometric_fit(points: &[EdgePoint], start: (f64, f64, f64)) -> Option<((f64, f64, f64), Matrix3<f64>)> {
+fn geometric_fit(
+    points: &[EdgePoint],
+    start: (f64, f64, f64),
+) -> Option<((f64, f64, f64), Matrix3<f64>)> {
     let (mut cx, mut cy, mut radius) = start;
     let mut normal = Matrix3::zeros();
     for _ in 0..30 {

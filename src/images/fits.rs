@@ -62,7 +62,10 @@ pub fn read_fits(path: &Path, bytes: &[u8]) -> Result<(GreyImage, FitsTimeCards)
     let header = hdu.get_header();
     let naxis = header.get_xtension().get_naxis();
     if naxis.len() < 2 || naxis.iter().skip(2).any(|&n| n == 0) {
-        return Err(fail(format!("the primary HDU holds no 2-D image (NAXIS = {})", naxis.len())));
+        return Err(fail(format!(
+            "the primary HDU holds no 2-D image (NAXIS = {})",
+            naxis.len()
+        )));
     }
     let (width, height) = (naxis[0] as usize, naxis[1] as usize);
     let bitpix = header.get_xtension().get_bitpix();

@@ -20,11 +20,13 @@ pub struct GreyImage {
 impl GreyImage {
     /// An image from its pixels; `None` when the count does not match or a side is zero.
     pub fn new(width: usize, height: usize, pixels: Vec<f32>) -> Option<Self> {
-        (width > 0 && height > 0 && width.checked_mul(height) == Some(pixels.len())).then_some(Self {
-            width,
-            height,
-            pixels,
-        })
+        (width > 0 && height > 0 && width.checked_mul(height) == Some(pixels.len())).then_some(
+            Self {
+                width,
+                height,
+                pixels,
+            },
+        )
     }
 
     /// The pixel at `(column, row)`; the caller keeps the indices in range.

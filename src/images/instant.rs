@@ -49,7 +49,10 @@ impl InstantSource {
 }
 
 fn fail(path: &Path, reason: String) -> MeasureError {
-    MeasureError::Instant { path: path.to_path_buf(), reason }
+    MeasureError::Instant {
+        path: path.to_path_buf(),
+        reason,
+    }
 }
 
 fn shift_s(label: NaiveDateTime, seconds: f64) -> NaiveDateTime {
@@ -64,22 +67,34 @@ fn shift_s(label: NaiveDateTime, seconds: f64) -> NaiveDateTime {
 /// # Errors
 /// [`MeasureError::Instant`] when `DATE-OBS` is missing, is not an ISO 8601 date and time, or
 /// `TIMESYS` names a scale other than UTC.
-pub fn fits_instant(path: &Path, cards: &FitsTimeCards, clock_offset_s: f64) -> Result<(NaiveDateTime, InstantSource), MeasureError> {
+pub fn fits_instant(
+    path: &Path,
+    cards: &FitsTimeCards,
+    clock_offset_s: f64,
+) -> Result<(NaiveDateTime, InstantSource), MeasureError> {
     if let Some(system) = &cards.time_system {
         if !system.eq_ignore_ascii_case("UTC") {
             return Err(fail(path, format!("the FITS header's TIMESYS is '{system}', not UTC; give the instant with --time-utc")));
         }
     }
-    let text = cards
-        .date_obs
-        .as_deref()
-        .ok_or_else(|| fail(path, "the FITS header has no DATE-OBS; give the instant with --time-utc".to_string()))?;
+    let text = cards.date_obs.as_deref().ok_or_else(|| {
+        fail(
+            path,
+            "the FITS header has no DATE-OBS; give the instant with --time-utc".to_string(),
+        )
+    })?;
     let (start, zone) = parse_utc_zoned(text).map_err(|e| fail(path, format!("DATE-OBS {e}")))?;
     if !matches!(zone, Zone::Missing | Zone::Utc) {
-        return Err(fail(path, format!("DATE-OBS '{text}' carries a zone offset, which FITS does not allow")));
+        return Err(fail(
+            path,
+            format!("DATE-OBS '{text}' carries a zone offset, which FITS does not allow"),
+        ));
     }
     let (label, source) = match cards.exposure_s {
-        Some(exposure_s) => (shift_s(start, 0.5 * exposure_s), InstantSource::FitsMidExposure),
+        Some(exposure_s) => (
+            shift_s(start, 0.5 * exposure_s),
+            InstantSource::FitsMidExposure,
+        ),
         None => (start, InstantSource::FitsStart),
     };
     Ok((shift_s(label, -clock_offset_s), source))
@@ -101,21 +116,51 @@ fn ascii(exif: &exif::Exif, tag: exif::Tag) -> Option<Vec<u8>> {
 /// # Errors
 /// [`MeasureError::Instant`] when the file has no EXIF date and time, it is malformed, or it
 /// has no offset and none was given.
-pub fn exif_instant(path: &Path, bytes: &[u8], options: &InstantOptions) -> Result<(NaiveDateTime, InstantSource), MeasureError> {
-    let missing = || fail(path, "the image has no EXIF date and time (DateTimeOriginal); give the instant with --time-utc".to_string());
-    let exif = exif::Reader::new().read_from_container(&mut std::io::Cursor::new(bytes)).map_err(|_| missing())?;
+pub fn exif_instant(
+    path: &Path,
+    bytes: &[u8],
+    options: &InstantOptions,
+) -> Result<(NaiveDateTime, InstantSource), MeasureError> {
+    let missing = || {
+        fail(path, "the image has no EXIF date and time (DateTimeOriginal); give the instant with --time-utc".to_string())
+    };
+    let exif = exif::Reader::new()
+        .read_from_container(&mut std::io::Cursor::new(bytes))
+        .map_err(|_| missing())?;
     let raw = ascii(&exif, exif::Tag::DateTimeOriginal).ok_or_else(missing)?;
-    let mut stamp = exif::DateTime::from_ascii(&raw).map_err(|e| fail(path, format!("the EXIF DateTimeOriginal is malformed ({e})")))?;
+    let mut stamp = exif::DateTime::from_ascii(&raw).map_err(|e| {
+        fail(
+            path,
+            format!("the EXIF DateTimeOriginal is malformed ({e})"),
+        )
+    })?;
     if let Some(sub) = ascii(&exif, exif::Tag::SubSecTimeOriginal) {
-        stamp.parse_subsec(&sub).map_err(|e| fail(path, format!("the EXIF SubSecTimeOriginal is malformed ({e})")))?;
+        stamp.parse_subsec(&sub).map_err(|e| {
+            fail(
+                path,
+                format!("the EXIF SubSecTimeOriginal is malformed ({e})"),
+            )
+        })?;
     }
     if let Some(offset) = ascii(&exif, exif::Tag::OffsetTimeOriginal) {
         // A blank offset is the same as none.
         let _ = stamp.parse_offset(&offset);
     }
     let local = NaiveDate::from_ymd_opt(stamp.year.into(), stamp.month.into(), stamp.day.into())
-        .and_then(|d| d.and_hms_nano_opt(stamp.hour.into(), stamp.minute.into(), stamp.second.into(), stamp.nanosecond.unwrap_or(0)))
-        .ok_or_else(|| fail(path, format!("the EXIF DateTimeOriginal '{stamp}' is not a valid date and time")))?;
+        .and_then(|d| {
+            d.and_hms_nano_opt(
+                stamp.hour.into(),
+                stamp.minute.into(),
+                stamp.second.into(),
+                stamp.nanosecond.unwrap_or(0),
+            )
+        })
+        .ok_or_else(|| {
+            fail(
+                path,
+                format!("the EXIF DateTimeOriginal '{stamp}' is not a valid date and time"),
+            )
+        })?;
     let (offset_s, source) = match (stamp.offset, options.camera_utc_offset_s) {
         (Some(minutes), _) => (i64::from(minutes) * 60, InstantSource::Exif),
         (None, Some(seconds)) => (i64::from(seconds), InstantSource::ExifWithGivenZone),

@@ -85,7 +85,9 @@ pub fn fit_limb_darkening(
         let row_hi = ((centre.1 + inner_radius_px).floor() as usize).min(image.height - 1);
         for row in (row_lo..=row_hi).step_by(stride) {
             let dy = row as f64 - centre.1;
-            let half = (inner_radius_px * inner_radius_px - dy * dy).max(0.0).sqrt();
+            let half = (inner_radius_px * inner_radius_px - dy * dy)
+                .max(0.0)
+                .sqrt();
             let col_lo = (centre.0 - half).ceil().max(0.0) as usize;
             let col_hi = ((centre.0 + half).floor().max(0.0) as usize).min(image.width - 1);
             for column in (col_lo..=col_hi).step_by(stride) {

@@ -48,11 +48,20 @@ const MAX_FILE_BYTES: u64 = 1 << 30;
 ///
 /// # Errors
 /// [`MeasureError::Io`], [`MeasureError::Format`] or [`MeasureError::Instant`].
-pub fn read_image(path: &Path, options: &InstantOptions) -> Result<(GreyImage, NaiveDateTime, InstantSource), MeasureError> {
-    let io_error = |source| MeasureError::Io { path: path.to_path_buf(), source };
+pub fn read_image(
+    path: &Path,
+    options: &InstantOptions,
+) -> Result<(GreyImage, NaiveDateTime, InstantSource), MeasureError> {
+    let io_error = |source| MeasureError::Io {
+        path: path.to_path_buf(),
+        source,
+    };
     let size = std::fs::metadata(path).map_err(io_error)?.len();
     if size > MAX_FILE_BYTES {
-        return Err(MeasureError::Format { path: path.to_path_buf(), reason: format!("the file is larger than {MAX_FILE_BYTES} bytes") });
+        return Err(MeasureError::Format {
+            path: path.to_path_buf(),
+            reason: format!("the file is larger than {MAX_FILE_BYTES} bytes"),
+        });
     }
     let bytes = std::fs::read(path).map_err(io_error)?;
     let given = options.time_utc.map(|t| (t, InstantSource::Given));
@@ -76,8 +85,16 @@ pub fn read_image(path: &Path, options: &InstantOptions) -> Result<(GreyImage, N
 ///
 /// # Errors
 /// Any [`MeasureError`], naming the file.
-pub fn measure_file(path: &Path, options: &InstantOptions) -> Result<ImageMeasurement, MeasureError> {
+pub fn measure_file(
+    path: &Path,
+    options: &InstantOptions,
+) -> Result<ImageMeasurement, MeasureError> {
     let (image, time_utc, instant_source) = read_image(path, options)?;
     let disc = measure_disc(path, &image)?;
-    Ok(ImageMeasurement { path: path.to_path_buf(), time_utc, instant_source, disc })
+    Ok(ImageMeasurement {
+        path: path.to_path_buf(),
+        time_utc,
+        instant_source,
+        disc,
+    })
 }

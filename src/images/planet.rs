@@ -38,12 +38,19 @@ fn deficit(image: &GreyImage, column: usize, row: usize, sun: Circle, law: &Limb
 }
 
 /// Find the dark discs within `inner_radius_px` of the Sun's centre: pixels whose deficit
-/// exceeds `threshold`, grouped by 4-connectivity; groups of fewer than 3 pixels are noise,
+/// exceeds `threshold` and whose shortfall `I_law - I` exceeds five times the noise (the
+/// law's RMS), grouped by 4-connectivity; groups of fewer than 3 pixels are noise,
 /// and groups smaller than a quarter of the largest are ignored (faint small spots). The
 /// search is the "dark deficit" thresholding of a flat-fielded disc: Gonzalez, R. C. & Woods,
 /// R. E. (2018), *Digital Image Processing*, 4th ed., sections 10.3 (thresholding) and 9.5
 /// (connected components).
-pub fn find_dark_discs(image: &GreyImage, sun: Circle, law: &LimbDarkening, inner_radius_px: f64, threshold: f64) -> DarkSearch {
+pub fn find_dark_discs(
+    image: &GreyImage,
+    sun: Circle,
+    law: &LimbDarkening,
+    inner_radius_px: f64,
+    threshold: f64,
+) -> DarkSearch {
     let row_lo = (sun.1 - inner_radius_px).ceil().max(0.0) as usize;
     let row_hi = ((sun.1 + inner_radius_px).floor().max(0.0) as usize).min(image.height - 1);
     let col_lo = (sun.0 - inner_radius_px).ceil().max(0.0) as usize;
@@ -53,7 +60,11 @@ pub fn find_dark_discs(image: &GreyImage, sun: Circle, law: &LimbDarkening, inne
     let mut dark = vec![false; w * h];
     for r in row_lo..=row_hi {
         for c in col_lo..=col_hi {
-            dark[(r - row_lo) * w + (c - col_lo)] = inside(c, r) && deficit(image, c, r, sun, law) > threshold;
+            dark[(r - row_lo) * w + (c - col_lo)] = inside(c, r) && {
+                let expected = law.at_radius((c as f64 - sun.0).hypot(r as f64 - sun.1), sun.2);
+                let shortfall = expected - image.at(c, r) as f64;
+                shortfall > threshold * expected && shortfall > 5.0 * law.rms
+            };
         }
     }
     let mut candidates: Vec<DarkCandidate> = Vec::new();
@@ -73,7 +84,12 @@ pub fn find_dark_discs(image: &GreyImage, sun: Circle, law: &LimbDarkening, inne
             sx += d * (c + col_lo) as f64;
             sy += d * (r + row_lo) as f64;
             peak = peak.max(d);
-            let neighbours = [(c > 0).then(|| i - 1), (c + 1 < w).then(|| i + 1), (r > 0).then(|| i - w), (r + 1 < h).then(|| i + w)];
+            let neighbours = [
+                (c > 0).then(|| i - 1),
+                (c + 1 < w).then(|| i + 1),
+                (r > 0).then(|| i - w),
+                (r + 1 < h).then(|| i + w),
+            ];
             for j in neighbours.into_iter().flatten() {
                 if dark[j] {
                     dark[j] = false;
@@ -82,7 +98,12 @@ pub fn find_dark_discs(image: &GreyImage, sun: Circle, law: &LimbDarkening, inne
             }
         }
         if area >= 3 && weight > 0.0 {
-            candidates.push(DarkCandidate { centre_x_px: sx / weight, centre_y_px: sy / weight, area_px: area, peak_deficit: peak });
+            candidates.push(DarkCandidate {
+                centre_x_px: sx / weight,
+                centre_y_px: sy / weight,
+                area_px: area,
+                peak_deficit: peak,
+            });
         }
     }
     let largest = candidates.iter().map(|c| c.area_px).max().unwrap_or(0);
@@ -105,7 +126,13 @@ fn deficit_at(image: &GreyImage, x: f64, y: f64, sun: Circle, law: &LimbDarkenin
 /// blurred by a symmetric point-spread function the half-deficit contour is a circle
 /// concentric with the disc, so the fitted centre is unbiased (its radius is a little smaller
 /// for a disc not much larger than the blur).
-fn half_deficit_edges(image: &GreyImage, centre: (f64, f64), radius_px: f64, sun: Circle, law: &LimbDarkening) -> Vec<EdgePoint> {
+fn half_deficit_edges(
+    image: &GreyImage,
+    centre: (f64, f64),
+    radius_px: f64,
+    sun: Circle,
+    law: &LimbDarkening,
+) -> Vec<EdgePoint> {
     let n = ((std::f64::consts::TAU * radius_px / 2.0).round() as usize).clamp(12, 720);
     let step = 0.25;
     let reach = 2.0 * radius_px + 4.0;
@@ -113,7 +140,13 @@ fn half_deficit_edges(image: &GreyImage, centre: (f64, f64), radius_px: f64, sun
         .filter_map(|k| {
             let a = k as f64 * std::f64::consts::FRAC_PI_4;
             let r = 0.3 * radius_px;
-            deficit_at(image, centre.0 + r * a.cos(), centre.1 + r * a.sin(), sun, law)
+            deficit_at(
+                image,
+                centre.0 + r * a.cos(),
+                centre.1 + r * a.sin(),
+                sun,
+                law,
+            )
         })
         .chain(deficit_at(image, centre.0, centre.1, sun, law))
         .collect();
@@ -126,10 +159,15 @@ fn half_deficit_edges(image: &GreyImage, centre: (f64, f64), radius_px: f64, sun
         let mut k = 0usize;
         while (k as f64) * step <= reach {
             let r = k as f64 * step;
-            let Some(d) = deficit_at(image, centre.0 + r * ux, centre.1 + r * uy, sun, law) else { break };
+            let Some(d) = deficit_at(image, centre.0 + r * ux, centre.1 + r * uy, sun, law) else {
+                break;
+            };
             if previous >= level && d < level {
                 let r_edge = r - step + step * (previous - level) / (previous - d);
-                points.push(EdgePoint { x_px: centre.0 + r_edge * ux, y_px: centre.1 + r_edge * uy });
+                points.push(EdgePoint {
+                    x_px: centre.0 + r_edge * ux,
+                    y_px: centre.1 + r_edge * uy,
+                });
                 break;
             }
             previous = d;
@@ -141,9 +179,16 @@ fn half_deficit_edges(image: &GreyImage, centre: (f64, f64), radius_px: f64, sun
 
 /// Fit the planet's edge as a circle, starting from a candidate: two rounds of half-deficit
 /// edges and the robust circle fit, the second from the first's centre and radius.
-pub fn fit_planet(image: &GreyImage, candidate: &DarkCandidate, sun: Circle, law: &LimbDarkening) -> Option<CircleFit> {
+pub fn fit_planet(
+    image: &GreyImage,
+    candidate: &DarkCandidate,
+    sun: Circle,
+    law: &LimbDarkening,
+) -> Option<CircleFit> {
     let mut centre = (candidate.centre_x_px, candidate.centre_y_px);
-    let mut radius = (candidate.area_px as f64 / std::f64::consts::PI).sqrt().max(1.0);
+    let mut radius = (candidate.area_px as f64 / std::f64::consts::PI)
+        .sqrt()
+        .max(1.0);
     let mut fit = None;
     for _round in 0..2 {
         let points = half_deficit_edges(image, centre, radius, sun, law);

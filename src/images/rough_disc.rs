@@ -24,6 +24,23 @@ pub struct RoughDisc {
 #[derive(Debug, Clone, PartialEq)]
 pub struct NoDisc(pub String);
 
+/// The noise of the frame: 1.4826 x the median absolute difference of horizontally adjacent
+/// pixels, over sqrt(2) (Rousseeuw & Croux 1993, JASA 88, 1273; a smooth scene adds little).
+fn pixel_noise(image: &GreyImage) -> f64 {
+    let stride = (image.pixels.len() / 200_000).max(1);
+    let mut differences: Vec<f32> = (0..image.pixels.len() - 1)
+        .step_by(stride)
+        .filter(|i| (i + 1) % image.width != 0)
+        .map(|i| (image.pixels[i + 1] - image.pixels[i]).abs())
+        .collect();
+    if differences.is_empty() {
+        return 0.0;
+    }
+    let k = differences.len() / 2;
+    let (_, median, _) = differences.select_nth_unstable_by(k, |a, b| a.total_cmp(b));
+    1.4826 * *median as f64 / std::f64::consts::SQRT_2
+}
+
 /// The `fraction` quantile of every `stride`-th pixel.
 fn quantile(image: &GreyImage, fraction: f64) -> f64 {
     let stride = (image.pixels.len() / 200_000).max(1);
@@ -38,7 +55,8 @@ fn quantile(image: &GreyImage, fraction: f64) -> f64 {
 /// *Allen's Astrophysical Quantities*, section 14.7), so the bright set is the whole disc.
 ///
 /// # Errors
-/// [`NoDisc`] with a reason when the frame has no contrast, too few bright pixels, or the
+/// [`NoDisc`] with a reason when the frame has no contrast (the disc less than 15 times the
+/// pixel noise above the background), too few bright pixels, or the
 /// bright pixels are not gathered in one round disc (their mean squared distance from the
 /// centroid is that of a uniform disc, R^2 / 2, within 25 %).
 pub fn rough_disc(image: &GreyImage) -> Result<RoughDisc, NoDisc> {
@@ -46,6 +64,13 @@ pub fn rough_disc(image: &GreyImage) -> Result<RoughDisc, NoDisc> {
     let peak = quantile(image, 0.998);
     if !(peak > background) {
         return Err(NoDisc("the frame is uniform".to_string()));
+    }
+    let noise = pixel_noise(image);
+    if peak - background < 15.0 * noise {
+        return Err(NoDisc(format!(
+            "the brightest pixels stand only {:.1} times the noise above the background",
+            (peak - background) / noise
+        )));
     }
     let threshold = (background + 0.2 * (peak - background)) as f32;
     let (mut count, mut sum_x, mut sum_y) = (0usize, 0.0f64, 0.0f64);

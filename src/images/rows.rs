@@ -20,8 +20,16 @@ pub struct StationColumns {
 }
 
 /// The CSV header of position rows.
-pub const CSV_HEADER: [&str; 8] =
-    ["station", "latitude", "longitude", "elevation_m", "contact", "time_utc", "separation_solar_radii", "sigma_solar_radii"];
+pub const CSV_HEADER: [&str; 8] = [
+    "station",
+    "latitude",
+    "longitude",
+    "elevation_m",
+    "contact",
+    "time_utc",
+    "separation_solar_radii",
+    "sigma_solar_radii",
+];
 
 /// Decimals of seconds in `time_utc`.
 const TIME_DECIMALS: u32 = 3;
@@ -31,7 +39,10 @@ fn optional(value: Option<f64>) -> String {
 }
 
 /// Write the rows as CSV (header first).
-pub fn csv_rows(station: &StationColumns, measured: &[ImageMeasurement]) -> Result<String, csv::Error> {
+pub fn csv_rows(
+    station: &StationColumns,
+    measured: &[ImageMeasurement],
+) -> Result<String, csv::Error> {
     let mut writer = csv::Writer::from_writer(Vec::new());
     writer.write_record(CSV_HEADER)?;
     for m in measured {

@@ -178,8 +178,12 @@ def exif_tiff(date_time, subsec, offset):
     blob = b""
     entries = b""
     for tag, value in fields:
-        entries += struct.pack("<HHII", tag, 2, len(value), data_at + len(blob))
-        blob += value
+        if len(value) <= 4:
+            # Values of four bytes or fewer sit in the entry itself (TIFF 6.0, section 2).
+            entries += struct.pack("<HHI", tag, 2, len(value)) + value.ljust(4, b"\0")
+        else:
+            entries += struct.pack("<HHII", tag, 2, len(value), data_at + len(blob))
+            blob += value
     return out + struct.pack("<H", len(fields)) + entries + struct.pack("<I", 0) + blob
 
 
@@ -190,8 +194,9 @@ def write_png16(path, counts, exif=None):
 def write_png(path, counts, bits, exif=None):
     """A grey PNG (ISO/IEC 15948:2004) of 8 or 16 bits, filter type Up on every row."""
     h, w = counts.shape
-    big = counts.astype(">u2" if bits == 16 else "u1")
-    up = np.vstack([big[:1], (big[1:].astype(np.int64) - big[:-1].astype(np.int64)) % (1 << bits)]).astype(big.dtype)
+    big = np.frombuffer(counts.astype(">u2" if bits == 16 else "u1").tobytes(), np.uint8).reshape(h, -1)
+    # The Up filter works on bytes, modulo 256 (ISO/IEC 15948, section 9.2).
+    up = np.vstack([big[:1], big[1:] - big[:-1]])
     raw = b"".join((b"\0" if row == 0 else b"\2") + up[row].tobytes() for row in range(h))
     chunks = [png_chunk(b"IHDR", struct.pack(">IIBBBBB", w, h, bits, 0, 0, 0, 0))]
     if exif is not None:
