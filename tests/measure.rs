@@ -127,7 +127,8 @@ fn bad_images_are_refused_with_a_sentence_naming_the_file() {
     };
     let dir = images_dir();
     let outcome = |file: &str| measure_file(&dir.join(file), &given).expect_err(file);
-    let cases: [(&str, fn(&MeasureError) -> bool); 4] = [
+    type Expect = fn(&MeasureError) -> bool;
+    let cases: [(&str, Expect); 4] = [
         ("refuse-no-sun.png", |e| {
             matches!(e, MeasureError::NoSun { .. })
         }),
@@ -279,4 +280,64 @@ fn noisy_images_agree_within_their_stated_sigma() {
     );
     assert!((0.8..=1.25).contains(&spread), "spread of z {spread}");
     assert!(mean.abs() < 3.0 * spread / n.sqrt() + 0.1, "mean z {mean}");
+}
+
+#[test]
+fn the_command_writes_one_row_per_measured_image_and_reports_the_others() {
+    // Common practice, no source: the interface's position-row columns.
+    let dir = images_dir();
+    let run = |args: &[&str]| {
+        std::process::Command::new(env!("CARGO_BIN_EXE_transit-parallax"))
+            .args(args)
+            .output()
+            .expect("run")
+    };
+    let fits = dir.join("venus2012-b.fits");
+    let no_sun = dir.join("refuse-no-sun.png");
+    let out = run(&[
+        "measure",
+        fits.to_str().expect("path"),
+        no_sun.to_str().expect("path"),
+        "--station",
+        "hill-camp",
+        "--latitude",
+        "1.35",
+        "--longitude",
+        "103.82",
+        "--elevation-m",
+        "160",
+    ]);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let text = String::from_utf8_lossy(&out.stdout);
+    let lines: Vec<&str> = text.lines().collect();
+    assert_eq!(lines[0], "station,latitude,longitude,elevation_m,contact,time_utc,separation_solar_radii,sigma_solar_radii");
+    assert_eq!(lines.len(), 2, "{text}");
+    assert!(
+        lines[1].starts_with("hill-camp,1.35,103.82,160,,2012-06-06T02:26:24.000Z,0.630"),
+        "{}",
+        lines[1]
+    );
+    let stderr = String::from_utf8_lossy(&out.stderr);
+    assert!(
+        stderr.contains("refuse-no-sun.png") && stderr.contains("no Sun"),
+        "{stderr}"
+    );
+    let json = run(&["measure", fits.to_str().expect("path"), "--format", "json"]);
+    let rows: serde_json::Value = serde_json::from_slice(&json.stdout).expect("json");
+    assert!(rows[0]["sun_radius_px"]
+        .as_f64()
+        .is_some_and(|r| (r - 140.0).abs() < 0.1));
+    assert_eq!(rows[0]["contact"], serde_json::Value::Null);
+    let none = run(&["measure", no_sun.to_str().expect("path")]);
+    assert!(!none.status.success());
+    let help = run(&["measure", "--help"]);
+    let help_text = String::from_utf8_lossy(&help.stdout);
+    assert!(
+        help_text.contains("certified solar filter") && help_text.contains("never look"),
+        "{help_text}"
+    );
 }

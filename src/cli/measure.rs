@@ -52,7 +52,7 @@ fn options(a: &MeasureArgs) -> Result<(InstantOptions, StationColumns), Error> {
         ("--latitude", a.latitude, 90.0),
         ("--longitude", a.longitude, 180.0),
     ] {
-        if value.is_some_and(|v| !(v.abs() <= limit)) {
+        if value.is_some_and(|v| v.is_nan() || v.abs() > limit) {
             return Err(Error::argument(format!(
                 "{name} must be within -{limit} to {limit} degrees"
             )));

@@ -140,7 +140,7 @@ pub fn sky_and_edge_sigma(
     let n = stacked.len();
     let outer = &stacked[n - n / 4..];
     let sky = outer.iter().sum::<f64>() / outer.len() as f64;
-    if !(law.a - sky > 0.0) {
+    if (law.a - sky).partial_cmp(&0.0) != Some(std::cmp::Ordering::Greater) {
         return None;
     }
     let r_in = radius_px - half_window_px;

@@ -62,7 +62,7 @@ fn quantile(image: &GreyImage, fraction: f64) -> f64 {
 pub fn rough_disc(image: &GreyImage) -> Result<RoughDisc, NoDisc> {
     let background = quantile(image, 0.02);
     let peak = quantile(image, 0.998);
-    if !(peak > background) {
+    if peak.partial_cmp(&background) != Some(std::cmp::Ordering::Greater) {
         return Err(NoDisc("the frame is uniform".to_string()));
     }
     let noise = pixel_noise(image);
