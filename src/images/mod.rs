@@ -44,14 +44,16 @@ pub struct ImageMeasurement {
 /// Largest image file read, bytes (1 GiB): a guard against reading a wrong path into memory.
 const MAX_FILE_BYTES: u64 = 1 << 30;
 
-/// Read an image file of any supported kind to grey pixels and find its instant.
-///
-/// # Errors
-/// [`MeasureError::Io`], [`MeasureError::Format`] or [`MeasureError::Instant`].
-pub fn read_image(
-    path: &Path,
-    options: &InstantOptions,
-) -> Result<(GreyImage, NaiveDateTime, InstantSource), MeasureError> {
+/// Where an image's own time is to be read from.
+enum FileTime {
+    /// A FITS header's cards.
+    Fits(fits::FitsTimeCards),
+    /// A raster file's bytes (EXIF).
+    Raster(Vec<u8>),
+}
+
+/// Read an image file of any supported kind to grey pixels, keeping what gives its time.
+fn decode(path: &Path) -> Result<(GreyImage, FileTime), MeasureError> {
     let io_error = |source| MeasureError::Io {
         path: path.to_path_buf(),
         source,
@@ -64,24 +66,43 @@ pub fn read_image(
         });
     }
     let bytes = std::fs::read(path).map_err(io_error)?;
-    let given = options.time_utc.map(|t| (t, InstantSource::Given));
     if fits::looks_like_fits(&bytes) {
         let (image, cards) = fits::read_fits(path, &bytes)?;
-        let (time, source) = match given {
-            Some(g) => g,
-            None => instant::fits_instant(path, &cards, options.clock_offset_s)?,
-        };
-        return Ok((image, time, source));
+        return Ok((image, FileTime::Fits(cards)));
     }
-    let image = grey::read_raster(path)?;
-    let (time, source) = match given {
-        Some(g) => g,
-        None => instant::exif_instant(path, &bytes, options)?,
-    };
+    Ok((grey::read_raster(path)?, FileTime::Raster(bytes)))
+}
+
+/// The instant: `--time-utc` if given, else the file's own.
+fn instant_of(
+    path: &Path,
+    file_time: &FileTime,
+    options: &InstantOptions,
+) -> Result<(NaiveDateTime, InstantSource), MeasureError> {
+    if let Some(time_utc) = options.time_utc {
+        return Ok((time_utc, InstantSource::Given));
+    }
+    match file_time {
+        FileTime::Fits(cards) => instant::fits_instant(path, cards, options.clock_offset_s),
+        FileTime::Raster(bytes) => instant::exif_instant(path, bytes, options),
+    }
+}
+
+/// Read an image file of any supported kind to grey pixels and find its instant.
+///
+/// # Errors
+/// [`MeasureError::Io`], [`MeasureError::Format`] or [`MeasureError::Instant`].
+pub fn read_image(
+    path: &Path,
+    options: &InstantOptions,
+) -> Result<(GreyImage, NaiveDateTime, InstantSource), MeasureError> {
+    let (image, file_time) = decode(path)?;
+    let (time, source) = instant_of(path, &file_time, options)?;
     Ok((image, time, source))
 }
 
-/// Read, time and measure one image file.
+/// Read, measure and time one image file (the image first, so that an image without a Sun or
+/// a planet is refused for that, whatever its time).
 ///
 /// # Errors
 /// Any [`MeasureError`], naming the file.
@@ -89,8 +110,9 @@ pub fn measure_file(
     path: &Path,
     options: &InstantOptions,
 ) -> Result<ImageMeasurement, MeasureError> {
-    let (image, time_utc, instant_source) = read_image(path, options)?;
+    let (image, file_time) = decode(path)?;
     let disc = measure_disc(path, &image)?;
+    let (time_utc, instant_source) = instant_of(path, &file_time, options)?;
     Ok(ImageMeasurement {
         path: path.to_path_buf(),
         time_utc,
