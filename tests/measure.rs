@@ -341,3 +341,126 @@ fn the_command_writes_one_row_per_measured_image_and_reports_the_others() {
         "{help_text}"
     );
 }
+
+/// A FITS file written by hand: BITPIX -32, the given extra cards, the pixels as f32.
+fn fits_bytes(image: &GreyImage, extra_cards: &[String]) -> Vec<u8> {
+    let mut cards = vec![
+        format!("{:<8}= {:>20}", "SIMPLE", "T"),
+        format!("{:<8}= {:>20}", "BITPIX", "-32"),
+        format!("{:<8}= {:>20}", "NAXIS", "2"),
+        format!("{:<8}= {:>20}", "NAXIS1", image.width),
+        format!("{:<8}= {:>20}", "NAXIS2", image.height),
+    ];
+    cards.extend(extra_cards.iter().cloned());
+    cards.push("END".to_string());
+    let mut bytes: Vec<u8> = cards
+        .iter()
+        .flat_map(|c| format!("{c:<80}").into_bytes())
+        .collect();
+    bytes.resize(bytes.len().div_ceil(2880) * 2880, b' ');
+    bytes.extend(image.pixels.iter().flat_map(|v| v.to_be_bytes()));
+    bytes.resize(bytes.len().div_ceil(2880) * 2880, 0);
+    bytes
+}
+
+#[test]
+fn tiff_jpeg_and_float_fits_are_read_and_bad_files_refused_without_panic() {
+    // Source: venus2012-b.fits and its truth (generate_solar_images.py), re-encoded here.
+    let truth: f64 = records("truth.csv")
+        .iter()
+        .find(|r| &r[0] == "venus2012-b.fits")
+        .expect("row")[7]
+        .parse()
+        .expect("truth");
+    let fits_path = images_dir().join("venus2012-b.fits");
+    let (image, _, _) =
+        transit_parallax::images::read_image(&fits_path, &InstantOptions::default()).expect("fits");
+    let top = image.pixels.iter().fold(0.0f32, |a, &v| a.max(v));
+    let dir = std::env::temp_dir().join(format!("measure-formats-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).expect("temp dir");
+    let grey16: Vec<u16> = image
+        .pixels
+        .iter()
+        .map(|v| (v / top * 60000.0).round() as u16)
+        .collect();
+    let buffer16 = image::ImageBuffer::<image::Luma<u16>, _>::from_raw(
+        image.width as u32,
+        image.height as u32,
+        grey16,
+    )
+    .expect("buffer");
+    buffer16.save(dir.join("venus.tiff")).expect("tiff");
+    let grey8: Vec<u8> = image
+        .pixels
+        .iter()
+        .map(|v| (v / top * 250.0).round() as u8)
+        .collect();
+    let buffer8 = image::ImageBuffer::<image::Luma<u8>, _>::from_raw(
+        image.width as u32,
+        image.height as u32,
+        grey8,
+    )
+    .expect("buffer");
+    let mut jpeg = Vec::new();
+    image::codecs::jpeg::JpegEncoder::new_with_quality(&mut jpeg, 95)
+        .encode_image(&buffer8)
+        .expect("jpeg");
+    std::fs::write(dir.join("venus.jpg"), jpeg).expect("write");
+    let given = InstantOptions {
+        time_utc: Some(utc("2012-06-06T02:26:24Z")),
+        ..Default::default()
+    };
+    for (file, tolerance) in [("venus.tiff", 2e-4), ("venus.jpg", 1e-3)] {
+        let m = measure_file(&dir.join(file), &given).unwrap_or_else(|e| panic!("{e}"));
+        let error = m.disc.separation_solar_radii - truth;
+        eprintln!(
+            "{file}: error {error:+.2e} sigma {:.1e}",
+            m.disc.sigma_solar_radii
+        );
+        assert!(error.abs() < tolerance, "{file}: {error}");
+    }
+    // A float FITS without DATE-OBS: measured, but its time must be given.
+    std::fs::write(dir.join("float.fits"), fits_bytes(&image, &[])).expect("write");
+    let no_time =
+        measure_file(&dir.join("float.fits"), &InstantOptions::default()).expect_err("no DATE-OBS");
+    assert!(
+        matches!(no_time, MeasureError::Instant { .. }) && no_time.to_string().contains("DATE-OBS"),
+        "{no_time}"
+    );
+    let timed = fits_bytes(
+        &image,
+        &[
+            format!("{:<8}= '2012-06-06T02:26:23.5'", "DATE-OBS"),
+            format!("{:<8}= {:>20}", "EXPTIME", "1.0"),
+        ],
+    );
+    std::fs::write(dir.join("timed.fits"), &timed).expect("write");
+    let m = measure_file(&dir.join("timed.fits"), &InstantOptions::default()).expect("timed");
+    assert_eq!(
+        m.time_utc,
+        utc("2012-06-06T02:26:24Z"),
+        "DATE-OBS + EXPTIME / 2"
+    );
+    // Truncated and garbled files: typed errors, no panic.
+    std::fs::write(dir.join("short.fits"), &timed[..4000]).expect("write");
+    assert!(matches!(
+        measure_file(&dir.join("short.fits"), &given),
+        Err(MeasureError::Format { .. })
+    ));
+    let png = std::fs::read(images_dir().join("venus2012-a.png")).expect("png");
+    std::fs::write(dir.join("short.png"), &png[..png.len() / 3]).expect("write");
+    assert!(matches!(
+        measure_file(&dir.join("short.png"), &given),
+        Err(MeasureError::Format { .. })
+    ));
+    std::fs::write(
+        dir.join("garbage.jpg"),
+        b"\xff\xd8\xff\xe0 not really a jpeg",
+    )
+    .expect("write");
+    assert!(matches!(
+        measure_file(&dir.join("garbage.jpg"), &given),
+        Err(MeasureError::Format { .. })
+    ));
+    let _ = std::fs::remove_dir_all(&dir);
+}
