@@ -364,7 +364,7 @@ fn fits_bytes(image: &GreyImage, extra_cards: &[String]) -> Vec<u8> {
 }
 
 #[test]
-fn tiff_jpeg_and_float_fits_are_read_and_bad_files_refused_without_panic() {
+fn tiff_jpeg_and_float_fits_are_read_with_the_time_from_date_obs() {
     // Source: venus2012-b.fits and its truth (generate_solar_images.py), re-encoded here.
     let truth: f64 = records("truth.csv")
         .iter()
@@ -441,7 +441,25 @@ fn tiff_jpeg_and_float_fits_are_read_and_bad_files_refused_without_panic() {
         utc("2012-06-06T02:26:24Z"),
         "DATE-OBS + EXPTIME / 2"
     );
-    // Truncated and garbled files: typed errors, no panic.
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+#[test]
+fn truncated_and_garbled_files_are_refused_with_typed_errors() {
+    // Common practice, no source: no panic on a bad file.
+    let fits_path = images_dir().join("venus2012-b.fits");
+    let (image, _, _) =
+        transit_parallax::images::read_image(&fits_path, &InstantOptions::default()).expect("fits");
+    let dir = std::env::temp_dir().join(format!("measure-bad-files-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).expect("temp dir");
+    let given = InstantOptions {
+        time_utc: Some(utc("2012-06-06T02:26:24Z")),
+        ..Default::default()
+    };
+    let timed = fits_bytes(
+        &image,
+        &[format!("{:<8}= '2012-06-06T02:26:23.5'", "DATE-OBS")],
+    );
     std::fs::write(dir.join("short.fits"), &timed[..4000]).expect("write");
     assert!(matches!(
         measure_file(&dir.join("short.fits"), &given),

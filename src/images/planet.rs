@@ -51,10 +51,16 @@ pub fn find_dark_discs(
     inner_radius_px: f64,
     threshold: f64,
 ) -> DarkSearch {
+    if inner_radius_px.is_nan() || inner_radius_px <= 1.0 || sun.0 < 0.0 || sun.1 < 0.0 {
+        return DarkSearch::None;
+    }
     let row_lo = (sun.1 - inner_radius_px).ceil().max(0.0) as usize;
     let row_hi = ((sun.1 + inner_radius_px).floor().max(0.0) as usize).min(image.height - 1);
     let col_lo = (sun.0 - inner_radius_px).ceil().max(0.0) as usize;
     let col_hi = ((sun.0 + inner_radius_px).floor().max(0.0) as usize).min(image.width - 1);
+    if col_lo > col_hi || row_lo > row_hi {
+        return DarkSearch::None;
+    }
     let (w, h) = (col_hi + 1 - col_lo, row_hi + 1 - row_lo);
     let inside = |c: usize, r: usize| (c as f64 - sun.0).hypot(r as f64 - sun.1) < inner_radius_px;
     let mut dark = vec![false; w * h];
@@ -67,6 +73,27 @@ pub fn find_dark_discs(
             };
         }
     }
+    let mut candidates = connected_candidates(&mut dark, (w, h), (col_lo, row_lo), |c, r| {
+        deficit(image, c, r, sun, law)
+    });
+    let largest = candidates.iter().map(|c| c.area_px).max().unwrap_or(0);
+    candidates.retain(|c| 4 * c.area_px >= largest);
+    match candidates.len() {
+        0 => DarkSearch::None,
+        1 => DarkSearch::One(candidates.remove(0)),
+        n => DarkSearch::Several(n),
+    }
+}
+
+/// Group the marked pixels of a `w x h` window at (`col_lo`, `row_lo`) by 4-connectivity
+/// (clearing the marks), each group as a candidate with its deficit-weighted centroid;
+/// groups under 3 pixels are dropped as noise.
+fn connected_candidates(
+    dark: &mut [bool],
+    (w, h): (usize, usize),
+    (col_lo, row_lo): (usize, usize),
+    deficit: impl Fn(usize, usize) -> f64,
+) -> Vec<DarkCandidate> {
     let mut candidates: Vec<DarkCandidate> = Vec::new();
     let mut stack = Vec::new();
     for start in 0..dark.len() {
@@ -78,7 +105,7 @@ pub fn find_dark_discs(
         let (mut area, mut weight, mut sx, mut sy, mut peak) = (0usize, 0.0, 0.0, 0.0, 0.0f64);
         while let Some(i) = stack.pop() {
             let (c, r) = (i % w, i / w);
-            let d = deficit(image, c + col_lo, r + row_lo, sun, law);
+            let d = deficit(c + col_lo, r + row_lo);
             area += 1;
             weight += d;
             sx += d * (c + col_lo) as f64;
@@ -106,13 +133,7 @@ pub fn find_dark_discs(
             });
         }
     }
-    let largest = candidates.iter().map(|c| c.area_px).max().unwrap_or(0);
-    candidates.retain(|c| 4 * c.area_px >= largest);
-    match candidates.len() {
-        0 => DarkSearch::None,
-        1 => DarkSearch::One(candidates.remove(0)),
-        n => DarkSearch::Several(n),
-    }
+    candidates
 }
 
 /// The deficit at a sub-pixel point (bilinear intensity over the law at that radius).
