@@ -33,6 +33,7 @@
 pub mod demo;
 pub mod error;
 pub mod geometry;
+pub mod images;
 pub mod language;
 pub mod observations;
 pub mod planning;

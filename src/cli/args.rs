@@ -108,6 +108,9 @@ pub enum Command {
         after_help = "Examples:\n  transit-parallax reduce timings.csv\n  transit-parallax reduce timings.csv --planet venus --date 2012-06-06 --report report.html"
     )]
     Reduce(ReduceArgs),
+    /// Measure the planet's place on the Sun's disc in images: one observation row per image.
+    #[command(after_help = crate::measure::MEASURE_AFTER_HELP)]
+    Measure(MeasureArgs),
     /// Rank candidate sites, choose a network and forecast the precision; map a contact's sensitivity.
     #[command(
         after_help = "Examples:\n  transit-parallax plan --planet venus --date 2117-12-11 --sites sites.csv --choose 8\n  transit-parallax plan --planet venus --date 2117-12-11 --sites sites.csv --contact 2 --map contact2.svg"
@@ -324,6 +327,58 @@ pub struct ReduceArgs {
     pub planet_place: String,
     #[command(flatten)]
     pub time: TimeArgs,
+}
+
+/// Arguments of `measure`.
+#[derive(clap::Args)]
+pub struct MeasureArgs {
+    /// Image files: FITS, PNG (8 or 16 bit), TIFF or JPEG, each showing the whole Sun with the
+    /// planet on it.
+    #[arg(required = true, value_name = "IMAGE")]
+    pub images: Vec<PathBuf>,
+    /// The instant of every image, ISO 8601 UTC (e.g. 2012-06-06T01:29:36.5Z), instead of the
+    /// time in each file.
+    #[arg(long = "time-utc", value_name = "TIME")]
+    pub time_utc: Option<String>,
+    /// The zone the camera's clock was set to, +HH:MM (e.g. +02:00), for photographs whose
+    /// EXIF time has no offset.
+    #[arg(
+        long = "camera-utc-offset",
+        value_name = "+HH:MM",
+        allow_hyphen_values = true
+    )]
+    pub camera_utc_offset: Option<String>,
+    /// How many seconds the camera's clock was AHEAD of the true time (negative if it was
+    /// behind); this is subtracted from the time read from each file. Not applied to --time-utc.
+    #[arg(
+        long = "clock-offset-s",
+        value_name = "SECONDS",
+        default_value_t = 0.0,
+        allow_hyphen_values = true
+    )]
+    pub clock_offset_s: f64,
+    /// Station name written on every row.
+    #[arg(long)]
+    pub station: Option<String>,
+    /// Station latitude, degrees north (WGS 84).
+    #[arg(long, allow_hyphen_values = true)]
+    pub latitude: Option<f64>,
+    /// Station longitude, degrees east (WGS 84).
+    #[arg(long, allow_hyphen_values = true)]
+    pub longitude: Option<f64>,
+    /// Station elevation above the ellipsoid, metres.
+    #[arg(long = "elevation-m", allow_hyphen_values = true)]
+    pub elevation_m: Option<f64>,
+    /// Output format: csv (observation rows) or json (the rows with the fits' diagnostics).
+    #[arg(long, value_enum, default_value = "csv")]
+    pub format: MeasureFormat,
+}
+
+/// Values of `measure --format`.
+#[derive(Clone, Copy, ValueEnum)]
+pub enum MeasureFormat {
+    Csv,
+    Json,
 }
 
 // Arguments of `plan`.

@@ -28,6 +28,7 @@ pub fn run(command: Command) -> Result<String, Error> {
         Command::Transits(a) => transits(a),
         Command::Predict(a) => predict(a),
         Command::Reduce(a) => reduce_timings(a),
+        Command::Measure(a) => crate::measure::measure(a),
         Command::Plan(a) => plan(a),
         Command::Simulate(a) => simulate(a),
         Command::Demo(a) => demo(a),

@@ -5,6 +5,7 @@
 
 mod args;
 mod commands;
+mod measure;
 
 use clap::Parser;
 use std::process::ExitCode;
