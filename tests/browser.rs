@@ -7,9 +7,7 @@
 
 mod common;
 
-use common::chromium::{
-    browser_or_skip, chromium, measure, measure_with, screenshot_pixels, temp_dir,
-};
+use common::chromium::{browser_or_skip, chromium, measure_with, screenshot_pixels, temp_dir};
 use common::{data, run, temp};
 use std::path::Path;
 
@@ -191,6 +189,7 @@ fn report_charts_are_laid_out_cleanly_in_a_browser() {
     }
 }
 
+/// The planning map and the simulation's histogram: no overlaps, no text under 12 px.
 #[test]
 fn planning_charts_are_laid_out_cleanly_in_a_browser() {
     let Some(browser) = browser_or_skip() else {
@@ -232,12 +231,19 @@ fn planning_charts_are_laid_out_cleanly_in_a_browser() {
     ]);
     assert!(o.status.success(), "{}", String::from_utf8_lossy(&o.stderr));
     let svgs = [map, hist].map(|p| std::fs::read_to_string(p).unwrap());
-    let f = measure(&browser, &dir, "planning", &page_of(&svgs));
+    let f = measure_with(
+        &browser,
+        &dir,
+        "planning",
+        &page_of(&svgs),
+        Some(MIN_TEXT_PX),
+    );
     assert_eq!(f.svgs, 2);
     assert!(f.texts > 10, "{} texts", f.texts);
     assert!(f.problems.is_empty(), "{}", f.problems.join("\n"));
 }
 
+/// The visibility maps of Mercury 2032 and Venus 2117: no overlaps, no text under 12 px.
 #[test]
 fn the_visibility_map_is_laid_out_cleanly_in_a_browser() {
     let Some(browser) = browser_or_skip() else {
@@ -259,7 +265,13 @@ fn the_visibility_map_is_laid_out_cleanly_in_a_browser() {
         assert!(o.status.success(), "{}", String::from_utf8_lossy(&o.stderr));
         svgs.push(std::fs::read_to_string(map).unwrap());
     }
-    let f = measure(&browser, &dir, "visibility", &page_of(&svgs));
+    let f = measure_with(
+        &browser,
+        &dir,
+        "visibility",
+        &page_of(&svgs),
+        Some(MIN_TEXT_PX),
+    );
     assert_eq!(f.svgs, 2);
     assert!(f.texts > 40, "{} texts", f.texts);
     assert!(f.problems.is_empty(), "{}", f.problems.join("\n"));

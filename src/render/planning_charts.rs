@@ -6,7 +6,7 @@ use crate::geometry::station::Station;
 use crate::render::charts::residual_colour;
 use crate::render::labels::{wrapped_text, LabelPlacer, TextBox};
 use crate::render::svg::{
-    esc, graticule_label_boxes, graticule_labels, grid_cells_svg, land_svg, svg_open, ticks,
+    esc, graticule_label_boxes, graticule_labels, grid_cells_svg, land_svg, svg_open_text, ticks,
     trim_tick, world_px,
 };
 use std::fmt::Write;
@@ -40,10 +40,13 @@ pub fn sensitivity_map_svg(
     } else {
         "Open triangles: the sites, numbered as in the key; filled stars: the chosen sites."
     };
-    let note = format!("{title}. {marks} Land (shaded): Natural Earth 1:110m (public domain).");
-    let (note_lines, after) = wrapped_text(&note, (220.0, ly + 14.0), (9.0, 12.0), w - 230.0);
-    let (key, key_end) = site_key((sites, chosen), after + 2.0, w);
-    let mut s = svg_open(w, key_end, title);
+    let note = format!(
+        "Contact {}: seconds per arcsecond of solar parallax. Light: not seen with the Sun {min_altitude_deg:.0} degrees up. {title}. {marks} Land (shaded): Natural Earth 1:110m (public domain).",
+        contact.roman()
+    );
+    let (note_lines, after) = wrapped_text(&note, (220.0, ly), (12.0, 15.0), w - 230.0);
+    let (key, key_end) = site_key((sites, chosen), after.max(ly + 14.0) + 4.0, w);
+    let mut s = svg_open_text(w, key_end, title, 12.0);
     let _ = writeln!(s, "<rect width=\"{w}\" height=\"{h}\" fill=\"#f3f4f6\"/>");
     // Cells merged into runs of one colour along each row of latitude.
     let bin = |p: &crate::planning::sites::GridPoint| -> Option<i32> {
@@ -64,9 +67,8 @@ pub fn sensitivity_map_svg(
     s.push_str(&site_marks((sites, chosen), (w, h)));
     for (k, f) in [-1.0, -0.5, 0.0, 0.5, 1.0].iter().enumerate() {
         let x = 10.0 + 40.0 * k as f64;
-        let _ = writeln!(s, "<rect x=\"{x}\" y=\"{}\" width=\"38\" height=\"10\" fill=\"{}\" stroke=\"#1f2937\" stroke-width=\"0.3\"/><text x=\"{}\" y=\"{}\" text-anchor=\"middle\" font-size=\"9\">{:+.1}</text>", ly - 10.0, sensitivity_colour(f * limit, limit), x + 19.0, ly + 10.0, f * limit);
+        let _ = writeln!(s, "<rect x=\"{x}\" y=\"{}\" width=\"38\" height=\"10\" fill=\"{}\" stroke=\"#1f2937\" stroke-width=\"0.3\"/><text x=\"{}\" y=\"{}\" text-anchor=\"middle\" font-size=\"12\">{:+.1}</text>", ly - 10.0, sensitivity_colour(f * limit, limit), x + 19.0, ly + 10.0, f * limit);
     }
-    let _ = writeln!(s, "<text x=\"220\" y=\"{ly}\">Contact {}: seconds per arcsecond of solar parallax. Light: not seen with the Sun {min_altitude_deg:.0} degrees up.</text>", contact.roman());
     s.push_str(&note_lines);
     s.push_str(&key);
     s.push_str("</svg>\n");
@@ -113,13 +115,13 @@ fn site_marks((sites, chosen): (&[Station], &[usize]), (w, h): (f64, f64)) -> St
         };
         let _ = writeln!(marks, "<path d=\"{shape}\" fill=\"{fill}\" stroke=\"{stroke}\" stroke-width=\"0.9\"><title>{} (#{})</title></path>", esc(&site.name), k + 1);
         let text = (k + 1).to_string();
-        if let Some((tx, ty)) = placer.place(&text, 9.0, (x, y), 5.0) {
+        if let Some((tx, ty)) = placer.place(&text, 12.0, (x, y), 5.0) {
             let weight = if is_chosen {
                 " font-weight=\"bold\""
             } else {
                 ""
             };
-            let _ = writeln!(numbers, "<text x=\"{tx:.1}\" y=\"{ty:.1}\" font-size=\"9\"{weight} stroke=\"#ffffff\" stroke-width=\"2.5\" paint-order=\"stroke\">{text}</text>");
+            let _ = writeln!(numbers, "<text x=\"{tx:.1}\" y=\"{ty:.1}\" font-size=\"12\"{weight} stroke=\"#ffffff\" stroke-width=\"2.5\" paint-order=\"stroke\">{text}</text>");
         }
     }
     marks + &numbers
@@ -152,15 +154,15 @@ fn site_key((sites, chosen): (&[Station], &[usize]), top: f64, w: f64) -> (Strin
     let shown = sites.len().min(KEY_MAX_SITES);
     let rows = shown.div_ceil(KEY_COLUMNS);
     let column_w = (w - 20.0) / KEY_COLUMNS as f64;
-    // Characters that fit a column at 9 px after the number (estimated as labels.rs does).
-    let max_chars = ((column_w - 30.0) / (0.65 * 9.0)).floor() as usize;
+    // Characters that fit a column at 12 px after the number (estimated as labels.rs does).
+    let max_chars = ((column_w - 34.0) / (0.65 * 12.0)).floor() as usize;
     let mut s = format!(
-        "<text x=\"10\" y=\"{:.1}\" font-size=\"10\" font-weight=\"bold\">Sites</text>\n",
+        "<text x=\"10\" y=\"{:.1}\" font-size=\"13\" font-weight=\"bold\">Sites</text>\n",
         top + 10.0
     );
     for (k, site) in sites.iter().enumerate().take(shown) {
         let (col, row) = (k / rows, k % rows);
-        let (x, y) = (10.0 + column_w * col as f64, top + 24.0 + 12.0 * row as f64);
+        let (x, y) = (10.0 + column_w * col as f64, top + 28.0 + 16.0 * row as f64);
         let is_chosen = chosen.contains(&k);
         let name: String = if site.name.chars().count() > max_chars {
             let cut: String = site
@@ -186,16 +188,16 @@ fn site_key((sites, chosen): (&[Station], &[usize]), top: f64, w: f64) -> (Strin
         };
         let _ = writeln!(
             s,
-            "<text x=\"{:.1}\" y=\"{y:.1}\" font-size=\"9\"{weight}>{} {}</text>",
+            "<text x=\"{:.1}\" y=\"{y:.1}\" font-size=\"12\"{weight}>{} {}</text>",
             x + 9.0,
             k + 1,
             esc(&name)
         );
     }
-    let mut bottom = top + 24.0 + 12.0 * rows as f64;
+    let mut bottom = top + 28.0 + 16.0 * rows as f64;
     if sites.len() > shown {
-        let _ = writeln!(s, "<text x=\"10\" y=\"{bottom:.1}\" font-size=\"9\">and {} more sites, numbered in the order of the sites file</text>", sites.len() - shown);
-        bottom += 12.0;
+        let _ = writeln!(s, "<text x=\"10\" y=\"{bottom:.1}\" font-size=\"12\">and {} more sites, numbered in the order of the sites file</text>", sites.len() - shown);
+        bottom += 16.0;
     }
     (s, bottom)
 }
@@ -209,7 +211,7 @@ pub fn histogram_svg(
 ) -> String {
     let (w, h) = (720.0, 340.0);
     let (left, right, top, bottom) = (70.0, 20.0, 50.0, 50.0);
-    let mut s = svg_open(w, h, title);
+    let mut s = svg_open_text(w, h, title, 12.0);
     let _ = writeln!(s, "<rect width=\"100%\" height=\"100%\" fill=\"#ffffff\"/><text x=\"{}\" y=\"18\" text-anchor=\"middle\">{}</text>", w / 2.0, esc(title));
     if values.is_empty() {
         s.push_str("<text x=\"20\" y=\"60\">No estimates.</text></svg>\n");
@@ -246,7 +248,7 @@ pub fn histogram_svg(
         }
         let _ = writeln!(
             s,
-            "<line x1=\"{x:.1}\" y1=\"{}\" x2=\"{x:.1}\" y2=\"{}\" stroke=\"#6b7280\"/><text x=\"{x:.1}\" y=\"{}\" text-anchor=\"middle\" font-size=\"10\">{}</text>",
+            "<line x1=\"{x:.1}\" y1=\"{}\" x2=\"{x:.1}\" y2=\"{}\" stroke=\"#6b7280\"/><text x=\"{x:.1}\" y=\"{}\" text-anchor=\"middle\" font-size=\"12\">{}</text>",
             h - bottom,
             h - bottom + 4.0,
             h - bottom + 16.0,
@@ -257,7 +259,7 @@ pub fn histogram_svg(
     let y_of = |c: f64| h - bottom - (h - top - bottom) * c / cmax;
     for c in ticks(0.0, cmax, 5) {
         let y = y_of(c);
-        let _ = writeln!(s, "<line x1=\"{}\" y1=\"{y:.1}\" x2=\"{left}\" y2=\"{y:.1}\" stroke=\"#6b7280\"/><text x=\"{}\" y=\"{:.1}\" text-anchor=\"end\" font-size=\"10\">{c}</text>", left - 4.0, left - 6.0, y + 3.0);
+        let _ = writeln!(s, "<line x1=\"{}\" y1=\"{y:.1}\" x2=\"{left}\" y2=\"{y:.1}\" stroke=\"#6b7280\"/><text x=\"{}\" y=\"{:.1}\" text-anchor=\"end\" font-size=\"12\">{c}</text>", left - 4.0, left - 6.0, y + 3.0);
     }
     let _ = writeln!(s, "<line x1=\"{left}\" y1=\"{top}\" x2=\"{left}\" y2=\"{}\" stroke=\"#6b7280\"/><text x=\"16\" y=\"{}\" transform=\"rotate(-90 16 {})\" text-anchor=\"middle\">campaigns</text>", h - bottom, (top + h - bottom) / 2.0, (top + h - bottom) / 2.0);
     // The true value, labelled above the bars.

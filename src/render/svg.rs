@@ -192,7 +192,7 @@ pub fn trim_tick(t: f64) -> String {
 /// Latitude labels at the left edge and longitude labels along the bottom of the 2 px per
 /// degree equirectangular frame.
 pub fn graticule_labels(h: f64) -> String {
-    graticule_labels_sized(h, 9.0)
+    graticule_labels_sized(h, 12.0)
 }
 
 /// [`graticule_labels`] at `font_px`.

@@ -26,8 +26,10 @@ const MAP_W: f64 = 720.0;
 const MAP_H: f64 = 360.0;
 /// Top of the map below the title, px.
 const MAP_TOP: f64 = 26.0;
+/// The legend's rows, px apart.
+const LEGEND_ROW_PX: f64 = 18.0;
 /// Font size of the labels on the lines of equal time, px.
-const LABEL_PX: f64 = 9.0;
+const LABEL_PX: f64 = 12.0;
 /// Spacings tried for the lines of equal time, minutes: the smallest that gives at most
 /// [`MAX_TIME_LINES`] lines for every contact is used.
 pub const TIME_STEPS_MIN: [f64; 9] = [0.5, 1.0, 2.0, 5.0, 10.0, 15.0, 30.0, 60.0, 120.0];
@@ -283,10 +285,10 @@ fn time_lines(
 
 /// The legend below the map; returns its SVG and the height it takes, px.
 fn legend(top: f64, step_min: f64, note: &str) -> (String, f64) {
-    let mut s = String::from("<g font-size=\"10\" fill=\"#111827\">\n");
+    let mut s = String::from("<g font-size=\"12\" fill=\"#111827\">\n");
     for (k, v) in Visibility::ALL.iter().enumerate() {
-        let y = top + 15.0 * k as f64;
-        let _ = writeln!(s, "<rect x=\"10\" y=\"{:.1}\" width=\"20\" height=\"11\" fill=\"{}\" stroke=\"#374151\" stroke-width=\"0.5\"/><text x=\"36\" y=\"{:.1}\">{}</text>", y, region_fill(*v), y + 9.5, esc(v.description()));
+        let y = top + LEGEND_ROW_PX * k as f64;
+        let _ = writeln!(s, "<rect x=\"10\" y=\"{:.1}\" width=\"20\" height=\"12\" fill=\"{}\" stroke=\"#374151\" stroke-width=\"0.5\"/><text x=\"36\" y=\"{:.1}\">{}</text>", y, region_fill(*v), y + 10.5, esc(v.description()));
     }
     let step_text = if step_min < 1.0 {
         format!("{:.0} s", step_min * 60.0)
@@ -313,7 +315,7 @@ fn legend(top: f64, step_min: f64, note: &str) -> (String, f64) {
         ),
     ];
     for (k, (colour, dashes, text)) in entries.iter().enumerate() {
-        let y = top + 15.0 * k as f64 + 5.5;
+        let y = top + LEGEND_ROW_PX * k as f64 + 6.0;
         let width = if dashes.len() == 1 { 1.7 } else { 1.0 };
         let piece = 32.0 / dashes.len() as f64;
         for (j, dash) in dashes.iter().enumerate() {
@@ -323,15 +325,15 @@ fn legend(top: f64, step_min: f64, note: &str) -> (String, f64) {
         let _ = writeln!(
             s,
             "<text x=\"396\" y=\"{:.1}\">{}</text>",
-            y + 4.0,
+            y + 4.5,
             esc(text)
         );
     }
     s.push_str("</g>\n");
     let (note_svg, after) = wrapped_text(
         note,
-        (10.0, top + 15.0 * 5.0 + 10.0),
-        (9.0, 12.0),
+        (10.0, top + LEGEND_ROW_PX * 5.0 + 12.0),
+        (12.0, 15.0),
         MAP_W - 20.0,
     );
     s.push_str(&note_svg);
