@@ -296,7 +296,7 @@ fn charts_carry_their_labels_inside_the_view_box() {
         (&disc, vec!["100", "N", "E", "W"]),
         (
             &plan_map,
-            vec!["30°N", "60°E", "Open triangles: the sites", "1 Ice Point"],
+            vec!["30°N", "60°E", "Open triangles", "1 Ice Point"],
         ),
     ] {
         let ((w, h), texts) = text_positions(svg);
