@@ -377,4 +377,39 @@ mod tests {
             }
         }
     }
+
+    proptest::proptest! {
+        #![proptest_config(proptest::prelude::ProptestConfig::with_cases(64))]
+        /// Anywhere on the Earth and at any time of the transit: the separation is positive
+        /// and finite, the position angle in [0, 360), the arcseconds the solar radii times
+        /// the Sun's radius, and the parallax's partial the central difference of the model.
+        #[test]
+        fn the_model_holds_everywhere(
+            lat in -89.0f64..89.0,
+            lon in -180.0f64..180.0,
+            dh in -3.0f64..3.0,
+        ) {
+            let ev = venus_2012();
+            let st = station(lat, lon);
+            let h = ev.hours_of_greatest() + dh;
+            let m = place_model(&ev.elements, &st, h, &Perturbation::NOMINAL);
+            let rho = m.value(PositionQuantity::SeparationSolarRadii);
+            proptest::prop_assert!(rho.is_finite() && rho > 0.0 && rho < 1.5);
+            let pa = m.value(PositionQuantity::PositionAngleDeg);
+            proptest::prop_assert!((0.0..360.0).contains(&pa));
+            let arcsec = m.value(PositionQuantity::SeparationArcsec);
+            proptest::prop_assert!((arcsec - rho * m.sun_radius_arcsec).abs() < 1e-9);
+            let e = 1e-6;
+            let at = |k: f64| {
+                let p = Perturbation { length_scale: 1.0 + k, ..Perturbation::NOMINAL };
+                place_model(&ev.elements, &st, h, &p).separation_solar_radii
+            };
+            let numeric = (at(e) - at(-e)) / (2.0 * e);
+            let analytic = m.separation_partials.per_scale;
+            proptest::prop_assert!(
+                (analytic - numeric).abs() <= 2e-4 * analytic.abs().max(numeric.abs()).max(1e-3),
+                "{} against {}", analytic, numeric
+            );
+        }
+    }
 }
