@@ -482,3 +482,48 @@ fn truncated_and_garbled_files_are_refused_with_typed_errors() {
     ));
     let _ = std::fs::remove_dir_all(&dir);
 }
+
+/// The EXIF block a PNG carries in its `eXIf` chunk (the generator's bytes).
+fn png_exif(png: &[u8]) -> Vec<u8> {
+    let mut at = 8;
+    while at + 12 <= png.len() {
+        let len = u32::from_be_bytes(png[at..at + 4].try_into().unwrap()) as usize;
+        if &png[at + 4..at + 8] == b"eXIf" {
+            return png[at + 8..at + 8 + len].to_vec();
+        }
+        at += 12 + len;
+    }
+    panic!("no eXIf chunk");
+}
+
+/// A camera's JPEG: venus2012-a re-encoded at quality 95 by the `image` crate, with the
+/// generator's EXIF block (DateTimeOriginal, SubSecTimeOriginal, OffsetTimeOriginal +08:00)
+/// in an APP1 segment after the start of image, as cameras write it (CIPA DC-008, the Exif
+/// 2.3 standard, section 4.5.4, cited from memory). The instant comes from it, and the
+/// separation stays within 2e-4 solar radii of the truth (truth.csv, Skyfield + DE421).
+#[test]
+fn a_camera_jpeg_gives_its_exif_instant() {
+    let dir = images_dir();
+    let png = std::fs::read(dir.join("venus2012-a.png")).unwrap();
+    let exif = png_exif(&png);
+    let grey = image::load_from_memory(&png).unwrap().to_luma8();
+    let mut jpeg = Vec::new();
+    image::codecs::jpeg::JpegEncoder::new_with_quality(&mut jpeg, 95)
+        .encode_image(&grey)
+        .unwrap();
+    let mut segment = vec![0xFF, 0xE1];
+    segment.extend_from_slice(&((2 + 6 + exif.len()) as u16).to_be_bytes());
+    segment.extend_from_slice(b"Exif\0\0");
+    segment.extend_from_slice(&exif);
+    jpeg.splice(2..2, segment);
+    let path = std::env::temp_dir().join(format!("tp-camera-{}.jpg", std::process::id()));
+    std::fs::write(&path, &jpeg).unwrap();
+    let m = measure_file(&path, &InstantOptions::default()).expect("a camera JPEG");
+    let _ = std::fs::remove_file(&path);
+    let truth = records("truth.csv");
+    let row = truth.iter().find(|r| &r[0] == "venus2012-a.png").unwrap();
+    assert_eq!(m.instant_source, InstantSource::Exif);
+    assert!(seconds_between(m.time_utc, utc(&row[6])).abs() < 1e-3);
+    let error = m.disc.separation_solar_radii - row[7].parse::<f64>().unwrap();
+    assert!(error.abs() < 2e-4, "error {error:e} solar radii");
+}
