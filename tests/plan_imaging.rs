@@ -10,7 +10,9 @@ mod common;
 use common::{data, err, out, run};
 use serde_json::Value;
 
-fn plan_json(extra: &[&str]) -> Value {
+/// `plan` for Venus 2012 over the candidate sites, with `extra` arguments.
+fn plan_venus_2012(extra: &[&str]) -> std::process::Output {
+    let sites = data("candidate_sites.csv");
     let mut args = vec![
         "plan",
         "--planet",
@@ -18,16 +20,16 @@ fn plan_json(extra: &[&str]) -> Value {
         "--date",
         "2012-06-06",
         "--sites",
-        &data("candidate_sites.csv"),
-        "--format",
-        "json",
-    ]
-    .into_iter()
-    .map(String::from)
-    .collect::<Vec<_>>();
-    args.extend(extra.iter().map(|s| s.to_string()));
-    let refs: Vec<&str> = args.iter().map(String::as_str).collect();
-    let o = run(&refs);
+        &sites,
+    ];
+    args.extend_from_slice(extra);
+    run(&args)
+}
+
+fn plan_json(extra: &[&str]) -> Value {
+    let mut args = vec!["--format", "json"];
+    args.extend_from_slice(extra);
+    let o = plan_venus_2012(&args);
     assert!(o.status.success(), "{}", err(&o));
     serde_json::from_str(&out(&o)).unwrap()
 }
@@ -105,19 +107,7 @@ fn sites_chosen_for_their_images() {
 
 #[test]
 fn the_table_compares_the_ways_of_measuring_and_carries_the_caution() {
-    let o = run(&[
-        "plan",
-        "--planet",
-        "venus",
-        "--date",
-        "2012-06-06",
-        "--sites",
-        &data("candidate_sites.csv"),
-        "--positions-every",
-        "60",
-        "--sigma-solar-radii",
-        "0.001",
-    ]);
+    let o = plan_venus_2012(&["--positions-every", "60", "--sigma-solar-radii", "0.001"]);
     assert!(o.status.success(), "{}", err(&o));
     let text = out(&o);
     assert!(text.contains("an image every 60 s"), "{text}");
@@ -128,28 +118,13 @@ fn the_table_compares_the_ways_of_measuring_and_carries_the_caution() {
 
 #[test]
 fn images_half_described_or_wrongly_are_refused() {
-    let base = [
-        "plan",
-        "--planet",
-        "venus",
-        "--date",
-        "2012-06-06",
-        "--sites",
-    ];
-    let sites = data("candidate_sites.csv");
-    let with = |extra: &[&str]| {
-        let mut a: Vec<&str> = base.to_vec();
-        a.push(&sites);
-        a.extend_from_slice(extra);
-        run(&a)
-    };
-    let o = with(&["--positions-every", "60"]);
+    let o = plan_venus_2012(&["--positions-every", "60"]);
     assert!(!o.status.success());
     assert!(err(&o).contains("--sigma-solar-radii"), "{}", err(&o));
-    let o = with(&["--measure", "positions"]);
+    let o = plan_venus_2012(&["--measure", "positions"]);
     assert!(!o.status.success());
     assert!(err(&o).contains("--positions-every"), "{}", err(&o));
-    let o = with(&[
+    let o = plan_venus_2012(&[
         "--measure",
         "photos",
         "--positions-every",
@@ -163,7 +138,7 @@ fn images_half_described_or_wrongly_are_refused() {
         err(&o)
     );
     for bad in [["0", "0.001"], ["60", "0"], ["60", "-1"], ["nan", "0.001"]] {
-        let o = with(&["--positions-every", bad[0], "--sigma-solar-radii", bad[1]]);
+        let o = plan_venus_2012(&["--positions-every", bad[0], "--sigma-solar-radii", bad[1]]);
         assert!(!o.status.success(), "{bad:?}");
         assert!(!err(&o).contains("panicked"), "{}", err(&o));
     }

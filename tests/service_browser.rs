@@ -141,17 +141,13 @@ async fn table_text(c: &Client) -> String {
         .unwrap()
 }
 
-/// The organiser filters the table by the verdict at arrival, ticks the blunder, excludes it
-/// with a reason through the bulk form, then restores it with a reason that the audit trail
-/// shows.
-async fn triage(c: &Client, base: &str) {
-    c.goto(&format!("{base}/organiser"))
+/// Choose `value` in the organiser's filter `filter` (`filter-{filter}`), press "show" and
+/// wait for the table filtered so.
+async fn show_filtered(c: &Client, filter: &str, value: &str) {
+    c.find(Locator::Id(&format!("filter-{filter}")))
         .await
-        .expect("the page");
-    c.find(Locator::Id("filter-verdict"))
-        .await
-        .expect("the verdict filter")
-        .select_by_value("rejected")
+        .expect("the filter")
+        .select_by_value(value)
         .await
         .expect("chosen");
     c.find(Locator::Id("show"))
@@ -160,13 +156,22 @@ async fn triage(c: &Client, base: &str) {
         .click()
         .await
         .expect("shown");
+    let chosen = format!("#filter-{filter} option[value='{value}'][selected]");
     c.wait()
         .at_most(Duration::from_secs(20))
-        .for_element(Locator::Css(
-            "#filter-verdict option[value='rejected'][selected]",
-        ))
+        .for_element(Locator::Css(&chosen))
         .await
         .expect("the filtered table");
+}
+
+/// The organiser filters the table by the verdict at arrival, ticks the blunder, excludes it
+/// with a reason through the bulk form, then restores it with a reason that the audit trail
+/// shows.
+async fn triage(c: &Client, base: &str) {
+    c.goto(&format!("{base}/organiser"))
+        .await
+        .expect("the page");
+    show_filtered(c, "verdict", "rejected").await;
     let rows = table_text(c).await;
     assert!(
         rows.contains("Pearl Shore Club") && !rows.contains("Jade Harbour School"),
@@ -469,23 +474,7 @@ const HOW_KAURI: [(&str, &str); 6] = [
 /// its observer and instrument, and none of the seeded ones (which said nothing of a clock).
 async fn organiser_sees_how(c: &Client, base: &str, token: &str) {
     organiser_counts(c, base, token).await;
-    c.find(Locator::Id("filter-clock"))
-        .await
-        .expect("the clock filter")
-        .select_by_value("gps")
-        .await
-        .expect("chosen");
-    c.find(Locator::Id("show"))
-        .await
-        .expect("show")
-        .click()
-        .await
-        .expect("shown");
-    c.wait()
-        .at_most(Duration::from_secs(20))
-        .for_element(Locator::Css("#filter-clock option[value='gps'][selected]"))
-        .await
-        .expect("the filtered table");
+    show_filtered(c, "clock", "gps").await;
     let rows = table_text(c).await;
     assert!(
         rows.contains("Kauri Point School") && rows.contains("Rangi Tamatea"),

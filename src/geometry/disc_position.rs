@@ -95,6 +95,8 @@ pub struct PlaceModel {
     pub separation_solar_radii: f64,
     /// The Sun's topocentric apparent radius, arcseconds.
     pub sun_radius_arcsec: f64,
+    /// The planet's apparent radius, in the Sun's.
+    pub planet_radius_solar_radii: f64,
     /// The position angle, degrees in [0, 360).
     pub position_angle_deg: f64,
     /// The partials of the separation in solar radii.
@@ -165,11 +167,22 @@ pub fn place_model(
     // topocentric vectors differ from it by up to 2e-5 of rho (terms of the second order in
     // the Sun's apparent radius): a factor taken at nominal parameters carries the exact
     // value, the plane its changes.
-    let exact = exact_over_plane(el, st, hours, ext.mu, rho_nominal(el, st, hours));
+    let plane_nominal = if p == Perturbation::NOMINAL {
+        rho
+    } else {
+        rho_nominal(el, st, hours)
+    };
+    let (separation_rad, sun_radius_rad) = topocentric_angles(el, st, hours, ext.mu);
+    let exact_rho = separation_rad / sun_radius_rad;
+    let exact = if plane_nominal > 1e-9 && exact_rho.is_finite() {
+        exact_rho / plane_nominal
+    } else {
+        1.0
+    };
     let rho = rho * exact;
     let rho_per = |k: usize| exact * ((u * du[k] + v * dv[k]) / d * r - d * dr[k]) / (r * r);
     let pa_per = |k: usize| (v * du[k] - u * dv[k]) / d2 * (180.0 / std::f64::consts::PI);
-    let pa_deg = position_angle_deg(el, st, hours, &p);
+    let pa_deg = sky_at(el, Some(st), hours, ext.mu, u.atan2(v)).position_angle_deg;
     let mut pa_partials = partials_from(pa_per);
     // The position angle's rate and its change with the station's longitude also hold the
     // slow turn of the Sun's north against the plane's (the convergence term, which depends
@@ -190,7 +203,8 @@ pub fn place_model(
     pa_partials.per_longitude_rad = wrapped(turn) / (2.0 * step_rad);
     PlaceModel {
         separation_solar_radii: rho,
-        sun_radius_arcsec: sun_radius_arcsec(el, st, hours, ext.mu),
+        sun_radius_arcsec: sun_radius_rad / ARCSEC_RAD,
+        planet_radius_solar_radii: 0.5 * (ext.radius - int.radius) / r,
         position_angle_deg: pa_deg,
         separation_partials: partials_from(rho_per),
         position_angle_partials: pa_partials,
@@ -229,15 +243,10 @@ fn station_vector(el: &Elements, st: &GeocentricStation, hours: f64, mu: f64) ->
     [st.rho_cos_phi * cl, st.rho_cos_phi * sl, st.rho_sin_phi]
 }
 
-/// The exact separation in solar radii (the angle between the topocentric apparent vectors
-/// of the Sun and the planet over asin(R_sun / distance)) divided by the plane's `rho_plane`.
-fn exact_over_plane(
-    el: &Elements,
-    st: &GeocentricStation,
-    hours: f64,
-    mu: f64,
-    rho_plane: f64,
-) -> f64 {
+/// The angle between the topocentric apparent vectors of the Sun and the planet, and the
+/// Sun's apparent radius asin(R_sun / distance) seen from the station (959.63" at 1 au, IAU
+/// 1976 system), both radians; `mu` is the axis' Greenwich hour angle.
+fn topocentric_angles(el: &Elements, st: &GeocentricStation, hours: f64, mu: f64) -> (f64, f64) {
     use crate::sky::vector::{angle_between, norm};
     let r = station_vector(el, st, hours, mu);
     let sun = el.sun_earth_radii(hours);
@@ -245,22 +254,7 @@ fn exact_over_plane(
     let sun_t = [sun[0] - r[0], sun[1] - r[1], sun[2] - r[2]];
     let planet_t = [planet[0] - r[0], planet[1] - r[1], planet[2] - r[2]];
     let sun_radius_rad = (sun_radius_au() * earth_radii_per_au() / norm(sun_t)).asin();
-    let exact = angle_between(sun_t, planet_t) / sun_radius_rad;
-    if rho_plane > 1e-9 && exact.is_finite() {
-        exact / rho_plane
-    } else {
-        1.0
-    }
-}
-
-/// The Sun's apparent radius seen from the station, arcseconds: asin(R_sun / distance), the
-/// distance from the station (959.63" at 1 au, IAU 1976 system).
-fn sun_radius_arcsec(el: &Elements, st: &GeocentricStation, hours: f64, mu: f64) -> f64 {
-    let r = station_vector(el, st, hours, mu);
-    let sun = el.sun_earth_radii(hours);
-    let topo = [sun[0] - r[0], sun[1] - r[1], sun[2] - r[2]];
-    let distance_au = crate::sky::vector::norm(topo) / earth_radii_per_au();
-    (sun_radius_au() / distance_au).asin() / ARCSEC_RAD
+    (angle_between(sun_t, planet_t), sun_radius_rad)
 }
 
 #[cfg(test)]

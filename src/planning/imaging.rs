@@ -19,7 +19,7 @@
 //! elimination of `reduction/normal_equations.rs`.
 
 use crate::geometry::besselian::length_scale_rate_per_arcsec;
-use crate::geometry::contacts::{disc_place, sun_alt_az_parallactic, Contact, Perturbation};
+use crate::geometry::contacts::{sun_alt_az_parallactic, Contact, Perturbation};
 use crate::geometry::disc_position::place_model;
 use crate::geometry::station::Station;
 use crate::geometry::transit::TransitEvent;
@@ -81,12 +81,10 @@ pub fn site_positions(
     let mut h = second.hours + 0.5 * step_h;
     while h < third.hours {
         let up = sun_alt_az_parallactic(el, &geo, h).0 >= min_altitude_deg;
-        let inside = {
-            let d = disc_place(el, Some(&geo), h);
-            d.separation_sun_radii + d.planet_radius_sun_radii <= 1.0
-        };
-        if up && inside {
-            let m = place_model(el, &geo, h, &Perturbation::NOMINAL);
+        let m = up.then(|| place_model(el, &geo, h, &Perturbation::NOMINAL));
+        // Measured only while the planet's disc is wholly inside the Sun's.
+        if let Some(m) = m.filter(|m| m.separation_solar_radii + m.planet_radius_solar_radii <= 1.0)
+        {
             let p = m.separation_partials;
             let mut r = SVector::<f64, 6>::zeros();
             r[PARALLAX] = p.per_scale * length_scale_rate_per_arcsec();
@@ -95,8 +93,10 @@ pub fn site_positions(
             // The model's separation over (1 + factor): -rho per unit factor.
             r[N_CLASSIC] = -m.separation_solar_radii;
             block += w * r * r.transpose();
+            if count == 0 {
+                first = h;
+            }
             count += 1;
-            first = if count == 1 { h } else { first };
             last = h;
         }
         h += step_h;
@@ -199,8 +199,9 @@ mod tests {
         let north = site_positions(&ev, &station("north", 64.8, -147.7), &imaging, 5.0);
         let south = site_positions(&ev, &station("south", -33.9, 151.2), &imaging, 5.0);
         let both = forecast_sigma(&(north.info + south.info)).expect("determined");
-        // The differential parallax of Venus is about 22" across the Earth: a separation known
-        // to 5e-4 of 946" (0.47") a few hundred times over gives a few hundredths of an
+        // The differential parallax of Venus is about 22" across the Earth (common practice:
+        // 8.8" x (1/0.29 - 1) per Earth radius, figures from memory): a separation known to
+        // 5e-4 of 946" (0.47") a few hundred times over gives a few hundredths of an
         // arcsecond of solar parallax.
         eprintln!("two stations, positions alone: {both:.4} arcsec");
         assert!(both > 0.005 && both < 0.2, "{both}");

@@ -12,9 +12,9 @@ use crate::geometry::transit::{StationPrediction, TransitEvent};
 use crate::language::{text, Args, Language};
 use crate::render::sheet_limb::{limb_svg, LimbFrame, LimbMark};
 use crate::render::sheet_words::{
-    caution, delta_t_note, delta_t_value, esc_text, number, title, word, word_html,
+    caution, delta_t_note, delta_t_value, number, title, word, word_html,
 };
-use crate::render::svg::esc;
+use crate::render::svg::{esc, esc_text};
 use crate::time::civil::{offset_text, CivilZone};
 use crate::time::iso::format_utc;
 use std::fmt::Write as _;

@@ -9,26 +9,11 @@
 use crate::geometry::transit::TransitEvent;
 use crate::language::numbers::{date_long, decimal, decimal_text};
 use crate::language::{text, Args, Language};
+use crate::render::svg::esc_text;
 
 /// A plain-text message with no values.
 pub fn word(language: Language, id: &str) -> String {
     text(language, id, &Args::new())
-}
-
-/// Plain text escaped for an element's content (`&`, `<`, `>`; quotes and apostrophes, which
-/// only an attribute value needs escaped, kept as they are).
-pub fn esc_text(text: &str) -> String {
-    let mut s = String::with_capacity(text.len());
-    for ch in text.chars() {
-        match ch {
-            '&' => s.push_str("&amp;"),
-            '<' => s.push_str("&lt;"),
-            '>' => s.push_str("&gt;"),
-            c if (c as u32) < 0x20 && c != '\n' && c != '\t' => s.push(' '),
-            c => s.push(c),
-        }
-    }
-    s
 }
 
 /// A plain-text message with no values, escaped for an element's content.

@@ -5,14 +5,26 @@ use std::fmt::Write;
 
 /// Escape text for XML and HTML (element content and quoted attributes).
 pub fn esc(text: &str) -> String {
+    escape(text, true)
+}
+
+/// Plain text escaped for an element's content (`&`, `<`, `>`; quotes and apostrophes, which
+/// only an attribute value needs escaped, kept as they are).
+pub fn esc_text(text: &str) -> String {
+    escape(text, false)
+}
+
+/// `&`, `<`, `>` (and with `quotes` `"` and `'`) as entities; control characters other than
+/// newline and tab as spaces.
+fn escape(text: &str, quotes: bool) -> String {
     let mut s = String::with_capacity(text.len());
     for ch in text.chars() {
         match ch {
             '&' => s.push_str("&amp;"),
             '<' => s.push_str("&lt;"),
             '>' => s.push_str("&gt;"),
-            '"' => s.push_str("&quot;"),
-            '\'' => s.push_str("&#39;"),
+            '"' if quotes => s.push_str("&quot;"),
+            '\'' if quotes => s.push_str("&#39;"),
             c if (c as u32) < 0x20 && c != '\n' && c != '\t' => s.push(' '),
             c => s.push(c),
         }

@@ -353,6 +353,19 @@ pub async fn private_route(
     }
 }
 
+/// The registration under `key` and the language of its sheet and calendar: the link's
+/// (`?lang=`), else the one it registered in; or why not (as [`find`] says, in `l`).
+fn registration_in_language(
+    app: &App,
+    key: &str,
+    l: Language,
+    query: Option<&str>,
+) -> Result<(Registration, Language), (StatusCode, String)> {
+    let r = find(app, key, l)?;
+    let language = from_query(query).unwrap_or(r.language);
+    Ok((r, language))
+}
+
 /// `GET /registrations/{key}/sheet.html`: the page `predict --sheets --language` writes for
 /// the station, in the registration's language or the link's (`?lang=`).
 pub async fn sheet_route(
@@ -361,11 +374,10 @@ pub async fn sheet_route(
     Extension(l): Extension<Language>,
     RawQuery(query): RawQuery,
 ) -> Response {
-    let r = match find(&app, &key, l) {
-        Ok(r) => r,
+    let (r, sheet_language) = match registration_in_language(&app, &key, l, query.as_deref()) {
+        Ok(found) => found,
         Err(why) => return refused(l, why),
     };
-    let sheet_language = from_query(query.as_deref()).unwrap_or(r.language);
     let mut res = match sheet_html(app.event(), &r, sheet_language) {
         Ok(html) => Html(html).into_response(),
         Err(e) => (
@@ -387,11 +399,10 @@ pub async fn calendar_route(
     Extension(l): Extension<Language>,
     RawQuery(query): RawQuery,
 ) -> Response {
-    let r = match find(&app, &key, l) {
-        Ok(r) => r,
+    let (r, calendar_language) = match registration_in_language(&app, &key, l, query.as_deref()) {
+        Ok(found) => found,
         Err(why) => return refused(l, why),
     };
-    let calendar_language = from_query(query.as_deref()).unwrap_or(r.language);
     let ics = match calendar_ics(app.event(), &r, calendar_language) {
         Ok(text) => text,
         Err(e) => return (StatusCode::INTERNAL_SERVER_ERROR, e).into_response(),
