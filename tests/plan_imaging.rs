@@ -7,24 +7,8 @@
 
 mod common;
 
-use common::{data, err, out, run};
+use common::{err, out, plan_venus_2012};
 use serde_json::Value;
-
-/// `plan` for Venus 2012 over the candidate sites, with `extra` arguments.
-fn plan_venus_2012(extra: &[&str]) -> std::process::Output {
-    let sites = data("candidate_sites.csv");
-    let mut args = vec![
-        "plan",
-        "--planet",
-        "venus",
-        "--date",
-        "2012-06-06",
-        "--sites",
-        &sites,
-    ];
-    args.extend_from_slice(extra);
-    run(&args)
-}
 
 fn plan_json(extra: &[&str]) -> Value {
     let mut args = vec!["--format", "json"];

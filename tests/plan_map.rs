@@ -4,22 +4,7 @@
 
 mod common;
 
-use common::{data, err, out, run, temp};
-
-fn plan(extra: &[&str]) -> std::process::Output {
-    let sites = data("candidate_sites.csv");
-    let mut args = vec![
-        "plan",
-        "--planet",
-        "venus",
-        "--date",
-        "2012-06-06",
-        "--sites",
-        &sites,
-    ];
-    args.extend_from_slice(extra);
-    run(&args)
-}
+use common::{data, err, out, plan_venus_2012 as plan, temp};
 
 #[test]
 fn the_map_numbers_the_sites_with_a_key_and_marks_the_chosen() {

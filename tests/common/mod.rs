@@ -20,6 +20,23 @@ pub fn run(args: &[&str]) -> Output {
         .expect("binary runs")
 }
 
+/// `plan` for the transit of Venus of 2012 over the invented candidate sites
+/// (tests/data/candidate_sites.csv), with `extra` arguments.
+pub fn plan_venus_2012(extra: &[&str]) -> Output {
+    let sites = data("candidate_sites.csv");
+    let mut args = vec![
+        "plan",
+        "--planet",
+        "venus",
+        "--date",
+        "2012-06-06",
+        "--sites",
+        &sites,
+    ];
+    args.extend_from_slice(extra);
+    run(&args)
+}
+
 /// Standard output as text.
 pub fn out(o: &Output) -> String {
     String::from_utf8_lossy(&o.stdout).into_owned()
